@@ -1,0 +1,97 @@
+import { sql, type Kysely, type Transaction } from "kysely";
+import type { Database, NewProject, ProjectUpdate } from "../schema";
+import type { ProjectRole } from "@/lib/auth/roles";
+
+type Executor = Kysely<Database> | Transaction<Database>;
+
+const projectColumns = [
+  "projects.id",
+  "projects.firm_id as firmId",
+  "projects.name",
+  "projects.client_name as clientName",
+  "projects.site_name as siteName",
+  "projects.location_label as locationLabel",
+  "projects.elevation_m as elevationM",
+  "projects.unit_system as unitSystem",
+  "projects.currency",
+  "projects.created_at as createdAt",
+  "projects.updated_at as updatedAt",
+] as const;
+
+/** The project with the viewer's client role on it (null when none), or undefined when it does not exist. */
+export async function findProjectForUser(db: Executor, projectId: string, userId: string) {
+  return db
+    .selectFrom("projects")
+    .innerJoin("firms", "firms.id", "projects.firm_id")
+    .leftJoin("project_access", (j) =>
+      j.onRef("project_access.project_id", "=", "projects.id").on("project_access.user_id", "=", userId),
+    )
+    .select([...projectColumns, "firms.name as firmName", "project_access.role as clientRole"])
+    .where("projects.id", "=", projectId)
+    .executeTakeFirst();
+}
+
+/** Projects of the viewer's firms ("I work on") and projects shared with them ("shared with me"). */
+export async function listProjectsForUser(db: Executor, userId: string, search?: string) {
+  let q = db
+    .selectFrom("projects")
+    .innerJoin("firms", "firms.id", "projects.firm_id")
+    .leftJoin("firm_members", (j) =>
+      j.onRef("firm_members.firm_id", "=", "projects.firm_id").on("firm_members.user_id", "=", userId),
+    )
+    .leftJoin("project_access", (j) =>
+      j.onRef("project_access.project_id", "=", "projects.id").on("project_access.user_id", "=", userId),
+    )
+    .select([
+      ...projectColumns,
+      "firms.name as firmName",
+      "firm_members.role as firmRole",
+      "project_access.role as clientRole",
+    ])
+    .where((eb) => eb.or([eb("firm_members.user_id", "is not", null), eb("project_access.user_id", "is not", null)]));
+  if (search && search.trim()) {
+    const like = `%${search.trim().replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
+    q = q.where((eb) =>
+      eb.or([
+        eb("projects.name", "ilike", like),
+        eb("projects.client_name", "ilike", like),
+        eb("projects.site_name", "ilike", like),
+        eb("projects.location_label", "ilike", like),
+      ]),
+    );
+  }
+  return q.orderBy("projects.updated_at", "desc").execute();
+}
+
+export async function insertProject(db: Executor, p: NewProject) {
+  return db.insertInto("projects").values(p).returning("id").executeTakeFirstOrThrow();
+}
+
+export async function updateProject(db: Executor, projectId: string, p: ProjectUpdate) {
+  await db
+    .updateTable("projects")
+    .set({ ...p, updated_at: sql`now()` })
+    .where("id", "=", projectId)
+    .execute();
+}
+
+export async function grantProjectAccess(
+  db: Executor,
+  g: { projectId: string; userId: string; role: ProjectRole; grantedBy: string | null },
+) {
+  await db
+    .insertInto("project_access")
+    .values({ project_id: g.projectId, user_id: g.userId, role: g.role, granted_by: g.grantedBy })
+    .onConflict((oc) => oc.columns(["project_id", "user_id"]).doUpdateSet({ role: g.role }))
+    .execute();
+}
+
+export async function listProjectAccess(db: Executor, projectId: string) {
+  return db
+    .selectFrom("project_access")
+    .innerJoin("users", "users.id", "project_access.user_id")
+    .select(["users.id as userId", "users.name", "users.email", "project_access.role", "project_access.created_at as grantedAt"])
+    .where("project_access.project_id", "=", projectId)
+    .orderBy("users.name")
+    .execute();
+}

@@ -1,0 +1,38 @@
+#!/usr/bin/env bash
+# npm start: install if needed, PostgreSQL on loopback, migrate, seed the demo, local mail catcher, build, serve.
+set -euo pipefail
+cd "$(dirname "${BASH_SOURCE[0]}")/.."
+export NEXT_TELEMETRY_DISABLED=1
+t0=$(date +%s)
+
+[ -d node_modules/next ] || npm install --no-audit --no-fund
+
+if [ ! -f .env ]; then
+  secret="$(node -e 'console.log(require("crypto").randomBytes(32).toString("base64url"))')"
+  sed "s|^NEXTAUTH_SECRET=.*|NEXTAUTH_SECRET=${secret}|" .env.example > .env
+  echo "[start] wrote .env with a generated NEXTAUTH_SECRET"
+fi
+set -a; . ./.env; set +a
+export PG_PORT="${PG_PORT:-54329}"
+
+bash scripts/db.sh start
+npx tsx scripts/migrate.ts
+npx tsx scripts/seed.ts
+
+pids=()
+cleanup() { for p in "${pids[@]}"; do kill "$p" 2>/dev/null || true; done; }
+trap cleanup EXIT INT TERM
+
+if [ -f scripts/mail-catcher.ts ]; then
+  npx tsx scripts/mail-catcher.ts &
+  pids+=($!)
+fi
+
+echo "[start] building (next build)…"
+npx next build
+t1=$(date +%s)
+echo "[start] ready in $((t1 - t0)) s"
+echo "[start] LoopLedger is at http://127.0.0.1:${PORT:-3000}  (stop with Ctrl-C; 'npm run db:stop' stops PostgreSQL)"
+npx next start -H 127.0.0.1 -p "${PORT:-3000}" &
+pids+=($!)
+wait "${pids[-1]}"
