@@ -1,7 +1,8 @@
 import { defineConfig } from "vitest/config";
 import path from "node:path";
 
-const alias = { "@": path.resolve(__dirname) };
+// `server-only` throws outside a React server build; tests import server modules directly.
+const alias = { "@": path.resolve(import.meta.dirname), "server-only": path.resolve(import.meta.dirname, "tests/support/empty-module.ts") };
 
 export default defineConfig({
   resolve: { alias },

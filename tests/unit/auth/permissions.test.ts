@@ -1,0 +1,64 @@
+import { describe, expect, it } from "vitest";
+import { ACTIONS, allows, can, canInFirm, navigationFor, relationTo, type Action, type ProjectRelation } from "@/lib/auth/permissions";
+
+// The expected table is the product brief's (shared/product.md "Who uses it") and issue 6's role list,
+// written out independently here so that a change to the rules must be made in two places on purpose.
+const EXPECTED: Record<ProjectRelation, Action[]> = {
+  admin: [...ACTIONS],
+  consultant: ACTIONS.filter((a) => a !== "firm.manageMembers" && a !== "project.delete"),
+  owner: ["project.view", "scenario.viewIssued", "scenario.whatIf", "scenario.comment", "report.downloadPdf"],
+  finance: [
+    "project.view",
+    "scenario.viewIssued",
+    "scenario.whatIf",
+    "scenario.comment",
+    "scenario.viewCashFlows",
+    "report.downloadPdf",
+    "report.downloadWorkbook",
+  ],
+};
+
+describe("permission table: every role × action", () => {
+  for (const relation of Object.keys(EXPECTED) as ProjectRelation[]) {
+    for (const action of ACTIONS) {
+      const expected = EXPECTED[relation].includes(action);
+      it(`${relation} ${expected ? "may" : "may not"} ${action}`, () => {
+        expect(allows(relation, action)).toBe(expected);
+      });
+    }
+  }
+  it("no relation may do nothing", () => {
+    for (const action of ACTIONS) expect(allows(null, action)).toBe(false);
+  });
+});
+
+describe("relation to a project", () => {
+  const firmA = "11111111-1111-4111-8111-111111111111";
+  const firmB = "22222222-2222-4222-8222-222222222222";
+  const consultantA = { userId: "u1", firms: [{ firmId: firmA, role: "consultant" as const }] };
+  const client = { userId: "u2", firms: [] };
+
+  it("a consultant relates to their own firm's projects only", () => {
+    expect(relationTo(consultantA, { projectId: "p", firmId: firmA, clientRole: null })).toBe("consultant");
+    expect(relationTo(consultantA, { projectId: "p", firmId: firmB, clientRole: null })).toBeNull();
+    expect(can(consultantA, { projectId: "p", firmId: firmB, clientRole: null }, "project.view")).toBe(false);
+  });
+  it("a client viewer relates only through a grant on that project", () => {
+    expect(relationTo(client, { projectId: "p", firmId: firmA, clientRole: "finance" })).toBe("finance");
+    expect(relationTo(client, { projectId: "p", firmId: firmA, clientRole: null })).toBeNull();
+  });
+  it("firm role wins over a client grant on the same project", () => {
+    expect(relationTo(consultantA, { projectId: "p", firmId: firmA, clientRole: "owner" })).toBe("consultant");
+  });
+  it("firm-level actions", () => {
+    expect(canInFirm(consultantA, firmA, "project.create")).toBe(true);
+    expect(canInFirm(consultantA, firmA, "firm.manageMembers")).toBe(false);
+    expect(canInFirm(consultantA, firmB, "project.create")).toBe(false);
+    expect(canInFirm({ userId: "a", firms: [{ firmId: firmA, role: "admin" }] }, firmA, "firm.manageMembers")).toBe(true);
+  });
+  it("navigation shows firm members to admins only", () => {
+    expect(navigationFor({ userId: "a", firms: [{ firmId: firmA, role: "admin" }] }).map((n) => n.label)).toContain("Firm members");
+    expect(navigationFor(consultantA).map((n) => n.label)).not.toContain("Firm members");
+    expect(navigationFor(client).map((n) => n.label)).toEqual(["Projects", "Account"]);
+  });
+});
