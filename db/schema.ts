@@ -68,6 +68,111 @@ export interface SignInAttemptsTable {
   blocked_until: Date | null;
 }
 
+export interface ClimateDatasetsTable {
+  id: Generated<string>;
+  project_id: string;
+  name: string;
+  source_kind: "epw" | "csv" | "wetBulbBins" | "dryBulbBins";
+  file_name: string | null;
+  provenance: Json<Record<string, unknown>>;
+  record_count: number;
+  missing_count: Generated<number>;
+  hours_total: number;
+  data: Json<unknown>;
+  summary: Json<unknown>;
+  created_by: string | null;
+  created_at: Timestamp;
+}
+
+export interface ScenariosTable {
+  id: Generated<string>;
+  project_id: string;
+  name: string;
+  climate_dataset_id: string | null;
+  input: Json<unknown>;
+  input_version: Generated<number>;
+  /** Optimistic concurrency: a save must name the revision it edited. */
+  revision: Generated<number>;
+  created_by: string | null;
+  updated_by: string | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+  archived_at: Date | null;
+}
+
+export type ResultStatus = "queued" | "running" | "done" | "failed";
+
+export interface ScenarioResultsTable {
+  id: Generated<string>;
+  scenario_id: string;
+  engine_version: string;
+  inputs_hash: string;
+  kind: Generated<"full" | "monteCarlo">;
+  status: ResultStatus;
+  progress: Generated<number>;
+  result: Json<unknown> | null;
+  error: string | null;
+  created_at: Timestamp;
+  finished_at: Date | null;
+}
+
+export interface ScenarioVersionsTable {
+  id: Generated<string>;
+  scenario_id: string;
+  project_id: string;
+  version_number: number;
+  name: string;
+  note: Generated<string>;
+  input: Json<unknown>;
+  input_version: number;
+  result: Json<unknown>;
+  engine_version: string;
+  inputs_hash: string;
+  scenario_revision: number;
+  issued_by: string | null;
+  issued_at: Timestamp;
+}
+
+export interface CommentsTable {
+  id: Generated<string>;
+  version_id: string;
+  project_id: string;
+  author_id: string | null;
+  body: string;
+  created_at: Timestamp;
+}
+
+export interface InvitationsTable {
+  id: Generated<string>;
+  project_id: string;
+  email: string;
+  role: ProjectRole;
+  /** SHA-256 of the single-use token; the token itself is only in the e-mail. */
+  token_hash: string;
+  expires_at: Date;
+  invited_by: string | null;
+  accepted_at: Date | null;
+  accepted_by: string | null;
+  revoked_at: Date | null;
+  created_at: Timestamp;
+}
+
+export interface MailOutboxTable {
+  id: Generated<string>;
+  kind: string;
+  ref_id: string | null;
+  to_address: string;
+  subject: string;
+  text_body: string;
+  html_body: string | null;
+  status: Generated<"pending" | "sent" | "failed">;
+  attempts: Generated<number>;
+  last_error: string | null;
+  next_attempt_at: Timestamp;
+  created_at: Timestamp;
+  sent_at: Date | null;
+}
+
 /** The typed database. Later migrations add their tables here. */
 export interface Database {
   users: UsersTable;
@@ -77,6 +182,13 @@ export interface Database {
   project_access: ProjectAccessTable;
   audit_events: AuditEventsTable;
   sign_in_attempts: SignInAttemptsTable;
+  climate_datasets: ClimateDatasetsTable;
+  scenarios: ScenariosTable;
+  scenario_results: ScenarioResultsTable;
+  scenario_versions: ScenarioVersionsTable;
+  comments: CommentsTable;
+  invitations: InvitationsTable;
+  mail_outbox: MailOutboxTable;
 }
 
 export type User = Selectable<UsersTable>;
