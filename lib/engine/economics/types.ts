@@ -166,7 +166,7 @@ export interface UpkeepInput {
 }
 
 export interface EconomicsInput {
-  /** Calendar year of the base date (year 0). */
+  /** Calendar year whose 1 January is the base date (year 0); study year 1 is this year. */
   baseYear: number;
   studyPeriodYears: number;
   /** End-of-year (Handbook 135 default) or mid-year discounting of recurring yearly costs. */
@@ -346,8 +346,9 @@ export const COST_CATEGORY_LABELS: Record<CostCategory, string> = {
 };
 
 export interface YearCashFlow {
-  /** 0 = base date. */
+  /** 0 = the base date (1 January of baseYear, first costs); t ≥ 1 = study year t. */
   yearIndex: number;
+  /** baseYear for the base date and study year 1, baseYear + t − 1 for study year t. */
   calendarYear: number;
   /** Amounts in the analysis' dollars (constant in a real analysis, then-current in a nominal one). */
   byCategory: CategoryAmounts;
