@@ -1,0 +1,191 @@
+/**
+ * Benchmark of the life-cycle economics: median wall time of
+ *   1. a 25-year LCC of three options (cash-flow tables + measures),
+ *   2. a full tornado + break-evens (9 inputs, physics re-runs included),
+ *   3. 10,000 Monte Carlo draws.
+ * Uses the engine's real physics of the first fixture when `lib/engine/index.ts` exports
+ * `analyzeScenario` and a fixture parses; otherwise synthetic yearly physics (round numbers).
+ *
+ *   npm run bench:economics
+ */
+import { existsSync, readdirSync, readFileSync } from "node:fs";
+import path from "node:path";
+import { analyzeEconomics, type AnalyzeEconomicsArgs, type PhysicsOverrides } from "@/lib/engine/economics";
+import { syntheticPhysics } from "@/lib/engine/economics/synthetic";
+import type { OptionAnnualPhysics, OptionKind } from "@/lib/engine/types";
+import {
+  economicsSchema,
+  monteCarloSchema,
+  optionCostsSchema,
+  sensitivitySchema,
+  tariffsSchema,
+  upkeepSchema,
+} from "@/lib/scenarios/schema-economics";
+
+const root = path.resolve(__dirname, "..");
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = Math.floor(s.length / 2);
+  return s.length % 2 ? (s[m] ?? 0) : 0.5 * ((s[m - 1] ?? 0) + (s[m] ?? 0));
+}
+
+function time(runs: number, f: () => void): number {
+  f(); // warm-up (JIT)
+  const ts: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    f();
+    ts.push(performance.now() - t0);
+  }
+  return median(ts);
+}
+
+function firstCost(equipment: number, plateExchanger = 0) {
+  return {
+    equipment,
+    installation: 0.35 * equipment,
+    structureAndCrane: 25_000,
+    electrical: 30_000,
+    controls: 12_000,
+    plateExchanger,
+    waterTreatmentEquipment: 18_000,
+    meters: 3_000,
+    other: 0,
+  };
+}
+
+const SYNTHETIC: { id: string; kind: OptionKind; label: string; kwh: number; kw: number; evapM3: number; equipment: number; plate: number; cleanings: number }[] = [
+  { id: "direct", kind: "openTowerDirect", label: "Open tower, direct", kwh: 420_000, kw: 95, evapM3: 21_000, equipment: 210_000, plate: 0, cleanings: 1 },
+  { id: "plate", kind: "openTowerPlateHx", label: "Open tower + plate exchanger", kwh: 470_000, kw: 105, evapM3: 21_500, equipment: 210_000, plate: 60_000, cleanings: 0.5 },
+  { id: "closed", kind: "closedCircuitCooler", label: "Closed-circuit cooler", kwh: 380_000, kw: 90, evapM3: 13_000, equipment: 390_000, plate: 0, cleanings: 0 },
+];
+
+function syntheticRun(o: PhysicsOverrides): OptionAnnualPhysics[] {
+  const load = o.loadFactor ?? 1;
+  const fouling = o.foulingRateFactor ?? 1;
+  return SYNTHETIC.map((s) =>
+    syntheticPhysics({
+      optionId: s.id,
+      kind: s.kind,
+      label: s.label,
+      energyKWh: s.kwh * load * (s.cleanings > 0 ? 1 + 0.04 * (fouling - 1) : 1),
+      peakDemandKW: s.kw * load,
+      evaporationM3: s.evapM3 * load,
+      driftM3: 15,
+      cyclesOfConcentration: o.cyclesOfConcentration ?? 4,
+      sewerEvaporationCredit: false,
+      cleaningsPerYear: s.cleanings * fouling,
+    }),
+  );
+}
+
+function syntheticArgs(): { args: AnalyzeEconomicsArgs; source: string } {
+  return {
+    source: "synthetic yearly physics (lib/engine/economics/synthetic.ts), three options",
+    args: {
+      physics: syntheticRun({}),
+      options: SYNTHETIC.map((s) => ({
+        optionId: s.id,
+        kind: s.kind,
+        label: s.label,
+        costs: optionCostsSchema.parse({
+          firstCost: firstCost(s.equipment, s.plate),
+          components: [
+            { component: "fill", lifeYears: 15, replacementCost: 40_000 },
+            { component: "fanMotor", lifeYears: 18, replacementCost: 9_000 },
+          ],
+          upkeep: {
+            cleaningCostPerEvent: 6_000,
+            periodicItems: [
+              { kind: "eddyCurrentTesting", everyYears: 3, costPerEvent: 4_500 },
+              { kind: "basinDisinfection", everyYears: 0.5, costPerEvent: 800, labourHoursPerEvent: 6 },
+            ],
+          },
+        }),
+      })),
+      tariffs: tariffsSchema.parse({}),
+      upkeep: upkeepSchema.parse({}),
+      economics: economicsSchema.parse({ studyPeriodYears: 25 }),
+      rerunPhysics: syntheticRun,
+    },
+  };
+}
+
+/** The engine's own physics of the first fixture, when the engine and a fixture are in place. */
+async function realArgs(): Promise<{ args: AnalyzeEconomicsArgs; source: string } | null> {
+  const fixtures = path.join(root, "tests", "fixtures");
+  if (!existsSync(path.join(root, "lib", "engine", "index.ts")) || !existsSync(fixtures)) return null;
+  try {
+    const engine = (await import("@/lib/engine/index")) as Record<string, unknown>;
+    const schemaMod = (await import("@/lib/scenarios/schema")) as Record<string, unknown>;
+    const analyzeScenario = engine.analyzeScenario as ((input: unknown) => { physics: OptionAnnualPhysics[] }) | undefined;
+    const createRerun = engine.createRerunPhysics as ((input: unknown) => (o: PhysicsOverrides) => OptionAnnualPhysics[]) | undefined;
+    const schema = schemaMod.scenarioSchema as { parse: (x: unknown) => Record<string, unknown> } | undefined;
+    if (!analyzeScenario || !schema) return null;
+    const file = readdirSync(fixtures).filter((f) => f.endsWith(".json")).sort()[0];
+    if (!file) return null;
+    const doc = schema.parse(JSON.parse(readFileSync(path.join(fixtures, file), "utf8")));
+    const physics = analyzeScenario(doc).physics;
+    const options = (doc.options as { id: string; kind: OptionKind; label: string; costs: unknown }[]).map((o) => ({
+      optionId: o.id,
+      kind: o.kind,
+      label: o.label,
+      costs: optionCostsSchema.parse(o.costs),
+    }));
+    return {
+      source: `engine physics of tests/fixtures/${file} (${options.length} options)${createRerun ? ", real physics re-runs" : ", no re-run exported: fouling/load skipped"}`,
+      args: {
+        physics,
+        options,
+        tariffs: tariffsSchema.parse(doc.tariffs ?? {}),
+        upkeep: upkeepSchema.parse(doc.upkeep ?? {}),
+        economics: economicsSchema.parse({ ...(doc.economics as object), studyPeriodYears: 25 }),
+        ...(createRerun ? { rerunPhysics: createRerun(doc) } : {}),
+      },
+    };
+  } catch (e) {
+    console.log(`(real fixture not usable yet: ${(e as Error).message.split("\n")[0]})`);
+    return null;
+  }
+}
+
+async function main() {
+  const chosen = (await realArgs()) ?? syntheticArgs();
+  const { args } = chosen;
+  console.log(`economics benchmark — ${chosen.source}; node ${process.version}`);
+
+  const lccMs = time(200, () => analyzeEconomics({ ...args, sensitivity: undefined, monteCarlo: undefined }));
+  let reruns = 0;
+  const tornadoMs = time(10, () => {
+    const r = analyzeEconomics({ ...args, sensitivity: sensitivitySchema.parse({}), monteCarlo: undefined });
+    reruns = r.sensitivity?.physicsReruns ?? 0;
+  });
+  const mcInput = monteCarloSchema.parse({ draws: 10_000 });
+  let mcReruns = 0;
+  const mcMs = time(10, () => {
+    const r = analyzeEconomics({ ...args, sensitivity: undefined, monteCarlo: mcInput });
+    mcReruns = r.monteCarlo?.physicsReruns ?? 0;
+  });
+  const mcFoulingMs = time(10, () => {
+    analyzeEconomics({
+      ...args,
+      sensitivity: undefined,
+      monteCarlo: {
+        ...mcInput,
+        distributions: {
+          ...mcInput.distributions,
+          cyclesOfConcentration: { type: "triangular", min: 3, mode: 4, max: 6 },
+          foulingRateFactor: { type: "triangular", min: 0.5, mode: 1, max: 2 },
+        },
+      },
+    });
+  });
+
+  console.log(`25-year LCC, ${args.options.length} options (cash flows + measures): median ${lccMs.toFixed(3)} ms`);
+  console.log(`full tornado (9 inputs) + 4 break-evens per pair: median ${tornadoMs.toFixed(2)} ms (${reruns} physics re-runs)`);
+  console.log(`Monte Carlo 10,000 draws (prices, escalation, first cost): median ${mcMs.toFixed(1)} ms (${mcReruns} physics re-runs)`);
+  console.log(`Monte Carlo 10,000 draws + cycles + fouling (node re-runs, interpolation): median ${mcFoulingMs.toFixed(1)} ms`);
+}
+
+void main();
