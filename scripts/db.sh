@@ -89,16 +89,18 @@ if [ ! -f "$data_dir/PG_VERSION" ]; then
     --auth-local=trust --auth-host=scram-sha-256 >/dev/null
 fi
 
-if ! run_pg "$pg_bin/pg_ctl" -D "$data_dir" status >/dev/null 2>&1; then
-  rm -f "$data_dir/postmaster.pid.stale"
-  log "starting PostgreSQL on 127.0.0.1:${port}"
-  run_pg "$pg_bin/pg_ctl" -D "$data_dir" -l "$data_dir/server.log" -w -t 60 \
-    -o "-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories=${sock_dir} -c fsync=${PG_FSYNC:-on}" start >/dev/null
-fi
-for _ in $(seq 1 50); do
-  "$pg_bin/pg_isready" -q -h 127.0.0.1 -p "$port" && break
-  sleep 0.2
+ready() { "$pg_bin/pg_isready" -q -h 127.0.0.1 -p "$port"; }
+# A server killed a moment ago can still look alive (its pid lingers while it exits): retry a few times.
+for attempt in 1 2 3 4 5; do
+  ready && break
+  if ! run_pg "$pg_bin/pg_ctl" -D "$data_dir" status >/dev/null 2>&1; then
+    log "starting PostgreSQL on 127.0.0.1:${port}"
+    run_pg "$pg_bin/pg_ctl" -D "$data_dir" -l "$data_dir/server.log" -w -t 60 \
+      -o "-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories=${sock_dir} -c fsync=${PG_FSYNC:-on}" start >/dev/null || true
+  fi
+  for _ in $(seq 1 10); do ready && break; sleep 0.2; done
 done
+ready || { log "PostgreSQL did not start; see $data_dir/server.log"; exit 1; }
 
 if ! psql_su -tAc "select 1 from pg_roles where rolname='${app_user}'" | grep -q 1; then
   psql_su -c "create role ${app_user} login password '${app_pass}' createdb"
