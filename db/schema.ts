@@ -114,6 +114,10 @@ export interface ScenarioResultsTable {
   error: string | null;
   created_at: Timestamp;
   finished_at: Date | null;
+  /** Job rows (kind 'monteCarlo'): claimed at, last progress report, tries (migration 2026_12_01_2310). */
+  started_at: Date | null;
+  heartbeat_at: Date | null;
+  attempts: Generated<number>;
 }
 
 export interface ScenarioVersionsTable {
