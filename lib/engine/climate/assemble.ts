@@ -204,18 +204,20 @@ export function assembleHourlyYear(
     for (let i = 0; i < n; i++) if (Number.isNaN(ch[i]!)) missing++;
     missingValues[name] = missing;
     interpolatedHours[name] = 0;
+    if (c === 2 && !opts.useStationPressure) {
+      ch.fill(opts.sitePressurePa);
+      continue;
+    }
     if (missing === 0) continue;
     if (c === 2) {
       // Pressure only refines the wet-bulb: without a station value the site pressure is the right fallback.
-      if (!opts.useStationPressure || missing === n) {
-        if (opts.useStationPressure) {
-          pressureSource = "site";
-          warnings.push({
-            line: 0,
-            field: "pressurePa",
-            message: "no station pressure in the data: wet-bulb computed at the site pressure from the elevation",
-          });
-        }
+      if (missing === n) {
+        pressureSource = "site";
+        warnings.push({
+          line: 0,
+          field: "pressurePa",
+          message: "no station pressure in the data: wet-bulb computed at the site pressure",
+        });
         ch.fill(opts.sitePressurePa);
         continue;
       }
