@@ -10,6 +10,7 @@
  */
 import { existsSync, readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
+import { pathToFileURL } from "node:url";
 import { analyzeEconomics, type AnalyzeEconomicsArgs, type PhysicsOverrides } from "@/lib/engine/economics";
 import { syntheticPhysics } from "@/lib/engine/economics/synthetic";
 import type { OptionAnnualPhysics, OptionKind } from "@/lib/engine/types";
@@ -117,8 +118,9 @@ async function realArgs(): Promise<{ args: AnalyzeEconomicsArgs; source: string 
   const fixtures = path.join(root, "tests", "fixtures");
   if (!existsSync(path.join(root, "lib", "engine", "index.ts")) || !existsSync(fixtures)) return null;
   try {
-    const engine = (await import("@/lib/engine/index")) as Record<string, unknown>;
-    const schemaMod = (await import("@/lib/scenarios/schema")) as Record<string, unknown>;
+    // Imported by file URL so this script type-checks before those modules exist.
+    const engine = (await import(pathToFileURL(path.join(root, "lib", "engine", "index.ts")).href)) as Record<string, unknown>;
+    const schemaMod = (await import(pathToFileURL(path.join(root, "lib", "scenarios", "schema.ts")).href)) as Record<string, unknown>;
     const analyzeScenario = engine.analyzeScenario as ((input: unknown) => { physics: OptionAnnualPhysics[] }) | undefined;
     const createRerun = engine.createRerunPhysics as ((input: unknown) => (o: PhysicsOverrides) => OptionAnnualPhysics[]) | undefined;
     const schema = schemaMod.scenarioSchema as { parse: (x: unknown) => Record<string, unknown> } | undefined;

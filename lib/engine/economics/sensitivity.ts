@@ -161,10 +161,6 @@ export function tornado(model: EconomicsModel, input: SensitivityInput, physics:
 // Break-even
 // ---------------------------------------------------------------------------------------------------
 
-export interface RootSearch {
-  roots: number[];
-}
-
 /**
  * All roots of f on [a, b] found by scanning `segments` equal steps for a sign change and refining
  * each bracket by bisection to |Δx| ≤ 1e-10·(1 + |x|). Roots where f touches 0 without crossing are
@@ -234,7 +230,7 @@ export function breakEven(
   for (const key of BREAK_EVEN_INPUTS) {
     const range = input.breakEven[key];
     if (!range.enabled) continue;
-    const pair = [model.bases[model.baseIndex] as OptionBasis, model.bases[altIndex] as OptionBasis];
+    const pair = [base, alt];
     const ns = nsFunction(key, pair, p);
     const roots = findRoots(ns, range.min, range.max);
     const reference = key === "cyclesOfConcentration" ? c0 : 1;
@@ -250,8 +246,8 @@ export function breakEven(
       note: "",
     };
     const extraFirstCost = alt.firstCost - base.firstCost;
-    if (key === "waterAndSewerPrice") res.absoluteUnit = "per m³ (water + sewer)";
-    else if (key === "electricityPrice") res.absoluteUnit = "per kWh (mean)";
+    if (key === "waterAndSewerPrice") res.absoluteUnit = "per m³, water and sewer together";
+    else if (key === "electricityPrice") res.absoluteUnit = "per kWh, mean energy price";
     else if (key === "cyclesOfConcentration") res.absoluteUnit = "cycles";
     else res.absoluteUnit = "extra first cost";
     if (value !== null) {
@@ -286,6 +282,12 @@ const BREAK_EVEN_WORDS: Record<BreakEvenInputKey, string> = {
   firstCostPremium: "the alternative's extra first cost",
 };
 
+function absoluteText(key: BreakEvenInputKey, v: number): string {
+  if (key === "waterAndSewerPrice") return `${fmt(v, 4)} per m³ of water and sewer together`;
+  if (key === "electricityPrice") return `a mean energy price of ${fmt(v, 4)} per kWh`;
+  return `an extra first cost of ${Math.round(v).toLocaleString("en-US")}`;
+}
+
 function breakEvenNote(key: BreakEvenInputKey, r: BreakEvenResult, nsMid: number, rootCount: number, extraFirstCost: number): string {
   const what = BREAK_EVEN_WORDS[key];
   const range = key === "cyclesOfConcentration" ? `${fmt(r.searchMin)} … ${fmt(r.searchMax)} cycles` : `×${fmt(r.searchMin)} … ×${fmt(r.searchMax)} ${what}`;
@@ -299,7 +301,7 @@ function breakEvenNote(key: BreakEvenInputKey, r: BreakEvenResult, nsMid: number
   const at =
     key === "cyclesOfConcentration"
       ? `${fmt(r.value)} cycles (every wet loop; exact water balance, physics not re-run)`
-      : `×${fmt(r.value)} ${what}` + (r.absoluteValue !== null ? ` (${fmt(r.absoluteValue, 4)} ${r.absoluteUnit})` : "");
+      : `×${fmt(r.value)} ${what}` + (r.absoluteValue !== null ? ` (${absoluteText(key, r.absoluteValue)})` : "");
   const more = rootCount > 1 ? ` There are ${rootCount} ties in the range; the one nearest the entered value is shown.` : "";
   return `The options tie at ${at}.${more}`;
 }

@@ -1,0 +1,124 @@
+import { describe, expect, it } from "vitest";
+import { analyzeEconomics, mulberry32, sampleDistribution } from "@/lib/engine/economics";
+import { histogram, percentileSorted } from "@/lib/engine/economics/montecarlo";
+import { baseArgs, defaultMonteCarlo, physicsFor } from "./helpers";
+
+describe("sampling", () => {
+  it("mulberry32 is reproducible and uniform on [0, 1)", () => {
+    const a = mulberry32(42);
+    const b = mulberry32(42);
+    const xs = Array.from({ length: 20000 }, () => a());
+    expect(Array.from({ length: 20000 }, () => b())).toEqual(xs);
+    expect(Math.min(...xs)).toBeGreaterThanOrEqual(0);
+    expect(Math.max(...xs)).toBeLessThan(1);
+    // Mean of U(0,1) = 1/2, standard error 1/√(12·20000) ≈ 0.002 (standard result).
+    expect(xs.reduce((s, x) => s + x, 0) / xs.length).toBeCloseTo(0.5, 2);
+  });
+
+  it("triangular inverse CDF: mean (a + b + c)/3, bounds, zero width", () => {
+    // Standard properties of the triangular distribution (mean = (a + b + c)/3).
+    const r = mulberry32(7);
+    const d = { type: "triangular" as const, min: 0.8, mode: 1, max: 1.5 };
+    const xs = Array.from({ length: 50000 }, () => sampleDistribution(d, r()));
+    expect(xs.reduce((s, x) => s + x, 0) / xs.length).toBeCloseTo((0.8 + 1 + 1.5) / 3, 2);
+    expect(Math.min(...xs)).toBeGreaterThanOrEqual(0.8);
+    expect(Math.max(...xs)).toBeLessThanOrEqual(1.5);
+    expect(sampleDistribution(d, 0)).toBe(0.8);
+    // CDF at the mode = (c − a)/(b − a): the inverse maps that u back to the mode.
+    expect(sampleDistribution(d, 0.2 / 0.7)).toBeCloseTo(1, 12);
+    expect(sampleDistribution({ type: "uniform", min: 2, max: 2 }, 0.37)).toBe(2);
+  });
+
+  it("percentiles interpolate like numpy's default (linear)", () => {
+    // numpy.percentile default ("linear"): percentile([1, 2, 3, 4], 10 %) = 1.3.
+    expect(percentileSorted([1, 2, 3, 4], 0.1)).toBeCloseTo(1.3, 12);
+    expect(percentileSorted([1, 2, 3, 4], 0.5)).toBeCloseTo(2.5, 12);
+    const h = histogram([0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10], 5);
+    expect(h.map((b) => b.count)).toEqual([2, 2, 2, 2, 3]);
+  });
+});
+
+describe("Monte Carlo", () => {
+  const mc = defaultMonteCarlo({ draws: 4000 });
+
+  it("a fixed seed gives identical results twice", () => {
+    const r1 = analyzeEconomics(baseArgs({ monteCarlo: mc }));
+    const r2 = analyzeEconomics(baseArgs({ monteCarlo: mc }));
+    expect(r2.monteCarlo).toEqual(r1.monteCarlo);
+    const r3 = analyzeEconomics(baseArgs({ monteCarlo: { ...mc, seed: mc.seed + 1 } }));
+    expect(r3.monteCarlo?.netSavings[0]?.p50).not.toBe(r1.monteCarlo?.netSavings[0]?.p50);
+  });
+
+  it("P10 ≤ P50 ≤ P90, probabilities sum to 1, histogram counts every draw", () => {
+    const r = analyzeEconomics(baseArgs({ monteCarlo: mc }));
+    const m = r.monteCarlo;
+    expect(m).toBeDefined();
+    for (const ns of m?.netSavings ?? []) {
+      expect(ns.p10).toBeLessThanOrEqual(ns.p50);
+      expect(ns.p50).toBeLessThanOrEqual(ns.p90);
+      expect(ns.histogram.reduce((s, b) => s + b.count, 0)).toBe(4000);
+    }
+    const total = Object.values(m?.probabilityLowest ?? {}).reduce((s, p) => s + p, 0);
+    expect(total).toBeCloseTo(1, 12);
+  });
+
+  it("zero-width distributions reproduce the deterministic answer", () => {
+    const point = (v: number) => ({ type: "triangular" as const, min: v, mode: v, max: v });
+    const r = analyzeEconomics(
+      baseArgs({
+        monteCarlo: {
+          ...mc,
+          draws: 200,
+          distributions: {
+            waterPriceFactor: point(1),
+            sewerPriceFactor: point(1),
+            electricityPriceFactor: point(1),
+            energyEscalationDelta: point(0),
+            discountRateDelta: point(0),
+            firstCostFactor: point(1),
+            cyclesOfConcentration: point(4),
+            foulingRateFactor: point(1),
+          },
+        },
+        rerunPhysics: (o) => physicsFor(o),
+      }),
+    );
+    r.comparisons.forEach((c, i) => {
+      const ns = r.monteCarlo?.netSavings[i];
+      expect(ns?.p10).toBeCloseTo(c.netSavings, 6);
+      expect(ns?.p90).toBeCloseTo(c.netSavings, 6);
+    });
+    r.options.forEach((o, i) => expect(r.monteCarlo?.lccPercentiles[i]?.p50).toBeCloseTo(o.lcc, 6));
+    const lowest = r.lowestLccOptionId;
+    expect(r.monteCarlo?.probabilityLowest[lowest]).toBe(1);
+  });
+
+  it("fouling draws re-run the physics once per distinct node only", () => {
+    let calls = 0;
+    const r = analyzeEconomics(
+      baseArgs({
+        monteCarlo: { ...mc, draws: 1000, distributions: { foulingRateFactor: { type: "triangular", min: 0.5, mode: 1, max: 2 } } },
+        rerunPhysics: (o) => {
+          calls++;
+          return physicsFor(o);
+        },
+      }),
+    );
+    expect(calls).toBe(3);
+    expect(r.monteCarlo?.physicsReruns).toBe(3);
+    expect(r.monteCarlo?.sampledInputs).toContain("foulingRateFactor");
+  });
+
+  it("without a physics re-run, fouling is reported as not sampled", () => {
+    const r = analyzeEconomics(baseArgs({ monteCarlo: { ...mc, draws: 200, distributions: { foulingRateFactor: { type: "uniform", min: 0.5, max: 2 } } } }));
+    expect(r.monteCarlo?.sampledInputs).not.toContain("foulingRateFactor");
+    expect(r.monteCarlo?.notes.join(" ")).toMatch(/not sampled/);
+  });
+
+  it("reports progress up to 1", () => {
+    const seen: number[] = [];
+    analyzeEconomics({ ...baseArgs({ monteCarlo: { ...mc, draws: 1000 } }), onProgress: (f) => seen.push(f) });
+    expect(seen.at(-1)).toBe(1);
+    expect([...seen].sort((a, b) => a - b)).toEqual(seen);
+  });
+});

@@ -1,0 +1,52 @@
+import { describe, expect, it } from "vitest";
+import { z } from "zod";
+import {
+  economicsFieldDefaults,
+  economicsSchema,
+  monteCarloSchema,
+  optionCostsSchema,
+  sensitivitySchema,
+  tariffsSchema,
+  upkeepSchema,
+} from "@/lib/scenarios/schema-economics";
+
+describe("economic schemas", () => {
+  it("first costs have no default: an option without them is rejected, every item named", () => {
+    // product.md: "first costs have no default (they must come from the consultant's selections)".
+    const res = optionCostsSchema.safeParse({ firstCost: { equipment: 1000 } });
+    expect(res.success).toBe(false);
+    const paths = res.error?.issues.map((i) => i.path.join(".")) ?? [];
+    expect(paths).toContain("firstCost.installation");
+    expect(paths).toContain("firstCost.meters");
+    expect(optionCostsSchema.safeParse({}).success).toBe(false);
+  });
+
+  it("defaults come from economicsFieldDefaults, each with a source", () => {
+    for (const [path, d] of Object.entries(economicsFieldDefaults)) {
+      expect(d.source.length, path).toBeGreaterThan(3);
+    }
+    const t = tariffsSchema.parse({});
+    expect(t.water.pricePerM3).toBe(economicsFieldDefaults["tariffs.water.pricePerM3"].default);
+    expect(t.escalation.sewer).toBe(economicsFieldDefaults["tariffs.escalation.sewer"].default);
+    const e = economicsSchema.parse({});
+    expect(e.studyPeriodYears).toBe(25);
+    expect(e.analysis).toBe("real");
+    expect(upkeepSchema.parse({}).labourRatePerHour).toBe(economicsFieldDefaults["upkeep.labourRatePerHour"].default);
+    expect(monteCarloSchema.parse({}).draws).toBe(10000);
+    expect(sensitivitySchema.parse({}).tornado.waterPrice).toEqual({ enabled: true, low: 0.75, high: 1.5 });
+  });
+
+  it("rejects inconsistent inputs with a field path", () => {
+    const tou = tariffsSchema.safeParse({ electricity: { pricing: "monthHour" } });
+    expect(tou.error?.issues[0]?.path).toEqual(["electricity", "energyPricePerKWhByMonthHour"]);
+    const tri = monteCarloSchema.safeParse({ distributions: { waterPriceFactor: { type: "triangular", min: 1, mode: 0.5, max: 2 } } });
+    expect(tri.success).toBe(false);
+    expect(economicsSchema.safeParse({ realDiscountRate: -1 }).success).toBe(false);
+  });
+
+  it("every piece converts to JSON Schema", () => {
+    for (const s of [optionCostsSchema, tariffsSchema, upkeepSchema, economicsSchema, sensitivitySchema, monteCarloSchema]) {
+      expect(() => z.toJSONSchema(s, { io: "input", unrepresentable: "any" })).not.toThrow();
+    }
+  });
+});
