@@ -56,10 +56,50 @@ function firstCost(equipment: number, plateExchanger = 0) {
   };
 }
 
-const SYNTHETIC: { id: string; kind: OptionKind; label: string; kwh: number; kw: number; evapM3: number; equipment: number; plate: number; cleanings: number }[] = [
-  { id: "direct", kind: "openTowerDirect", label: "Open tower, direct", kwh: 420_000, kw: 95, evapM3: 21_000, equipment: 210_000, plate: 0, cleanings: 1 },
-  { id: "plate", kind: "openTowerPlateHx", label: "Open tower + plate exchanger", kwh: 470_000, kw: 105, evapM3: 21_500, equipment: 210_000, plate: 60_000, cleanings: 0.5 },
-  { id: "closed", kind: "closedCircuitCooler", label: "Closed-circuit cooler", kwh: 380_000, kw: 90, evapM3: 13_000, equipment: 390_000, plate: 0, cleanings: 0 },
+const SYNTHETIC: {
+  id: string;
+  kind: OptionKind;
+  label: string;
+  kwh: number;
+  kw: number;
+  evapM3: number;
+  equipment: number;
+  plate: number;
+  cleanings: number;
+}[] = [
+  {
+    id: "direct",
+    kind: "openTowerDirect",
+    label: "Open tower, direct",
+    kwh: 420_000,
+    kw: 95,
+    evapM3: 21_000,
+    equipment: 210_000,
+    plate: 0,
+    cleanings: 1,
+  },
+  {
+    id: "plate",
+    kind: "openTowerPlateHx",
+    label: "Open tower + plate exchanger",
+    kwh: 470_000,
+    kw: 105,
+    evapM3: 21_500,
+    equipment: 210_000,
+    plate: 60_000,
+    cleanings: 0.5,
+  },
+  {
+    id: "closed",
+    kind: "closedCircuitCooler",
+    label: "Closed-circuit cooler",
+    kwh: 380_000,
+    kw: 90,
+    evapM3: 13_000,
+    equipment: 390_000,
+    plate: 0,
+    cleanings: 0,
+  },
 ];
 
 function syntheticRun(o: PhysicsOverrides): OptionAnnualPhysics[] {
@@ -119,22 +159,33 @@ async function realArgs(): Promise<{ args: AnalyzeEconomicsArgs; source: string 
   if (!existsSync(path.join(root, "lib", "engine", "index.ts")) || !existsSync(fixtures)) return null;
   try {
     // Imported by file URL so this script type-checks before those modules exist.
-    const engine = (await import(pathToFileURL(path.join(root, "lib", "engine", "index.ts")).href)) as Record<string, unknown>;
-    const schemaMod = (await import(pathToFileURL(path.join(root, "lib", "scenarios", "schema.ts")).href)) as Record<string, unknown>;
-    const analyzeScenario = engine.analyzeScenario as ((input: unknown) => { physics: OptionAnnualPhysics[] }) | undefined;
-    const createRerun = engine.createRerunPhysics as ((input: unknown) => (o: PhysicsOverrides) => OptionAnnualPhysics[]) | undefined;
+    const engine = (await import(pathToFileURL(path.join(root, "lib", "engine", "index.ts")).href)) as Record<
+      string,
+      unknown
+    >;
+    const schemaMod = (await import(
+      pathToFileURL(path.join(root, "lib", "scenarios", "schema.ts")).href
+    )) as Record<string, unknown>;
+    const analyzeScenario = engine.analyzeScenario as
+      ((input: unknown) => { physics: OptionAnnualPhysics[] }) | undefined;
+    const createRerun = engine.createRerunPhysics as
+      ((input: unknown) => (o: PhysicsOverrides) => OptionAnnualPhysics[]) | undefined;
     const schema = schemaMod.scenarioSchema as { parse: (x: unknown) => Record<string, unknown> } | undefined;
     if (!analyzeScenario || !schema) return null;
-    const file = readdirSync(fixtures).filter((f) => f.endsWith(".json")).sort()[0];
+    const file = readdirSync(fixtures)
+      .filter((f) => f.endsWith(".json"))
+      .sort()[0];
     if (!file) return null;
     const doc = schema.parse(JSON.parse(readFileSync(path.join(fixtures, file), "utf8")));
     const physics = analyzeScenario(doc).physics;
-    const options = (doc.options as { id: string; kind: OptionKind; label: string; costs: unknown }[]).map((o) => ({
-      optionId: o.id,
-      kind: o.kind,
-      label: o.label,
-      costs: optionCostsSchema.parse(o.costs),
-    }));
+    const options = (doc.options as { id: string; kind: OptionKind; label: string; costs: unknown }[]).map(
+      (o) => ({
+        optionId: o.id,
+        kind: o.kind,
+        label: o.label,
+        costs: optionCostsSchema.parse(o.costs),
+      }),
+    );
     return {
       source: `engine physics of tests/fixtures/${file} (${options.length} options)${createRerun ? ", real physics re-runs" : ", no re-run exported: fouling/load skipped"}`,
       args: {
@@ -184,10 +235,18 @@ async function main() {
     });
   });
 
-  console.log(`25-year LCC, ${args.options.length} options (cash flows + measures): median ${lccMs.toFixed(3)} ms`);
-  console.log(`full tornado (9 inputs) + 4 break-evens per pair: median ${tornadoMs.toFixed(2)} ms (${reruns} physics re-runs)`);
-  console.log(`Monte Carlo 10,000 draws (prices, escalation, first cost): median ${mcMs.toFixed(1)} ms (${mcReruns} physics re-runs)`);
-  console.log(`Monte Carlo 10,000 draws + cycles + fouling (node re-runs, interpolation): median ${mcFoulingMs.toFixed(1)} ms`);
+  console.log(
+    `25-year LCC, ${args.options.length} options (cash flows + measures): median ${lccMs.toFixed(3)} ms`,
+  );
+  console.log(
+    `full tornado (9 inputs) + 4 break-evens per pair: median ${tornadoMs.toFixed(2)} ms (${reruns} physics re-runs)`,
+  );
+  console.log(
+    `Monte Carlo 10,000 draws (prices, escalation, first cost): median ${mcMs.toFixed(1)} ms (${mcReruns} physics re-runs)`,
+  );
+  console.log(
+    `Monte Carlo 10,000 draws + cycles + fouling (node re-runs, interpolation): median ${mcFoulingMs.toFixed(1)} ms`,
+  );
 }
 
 void main();

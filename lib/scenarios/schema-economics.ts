@@ -73,7 +73,8 @@ export const economicsFieldDefaults = {
   "tariffs.sewer.evaporationCreditMeterChargePerMonth": { default: 0, source: PLACEHOLDER },
   "tariffs.chemicals.costPerM3Outflow": {
     default: 0.6,
-    source: "[practice] order of magnitude of a scale/corrosion/biocide programme per m³ of blowdown; get the treatment vendor's quote",
+    source:
+      "[practice] order of magnitude of a scale/corrosion/biocide programme per m³ of blowdown; get the treatment vendor's quote",
   },
   "tariffs.chemicals.inhibitorPricePerKg": {
     default: 0,
@@ -94,12 +95,14 @@ export const economicsFieldDefaults = {
   },
   "tariffs.escalation.energy": {
     default: 0.005,
-    source: "[practice] modest real escalation; FEMP publishes regional real energy price indices yearly (Handbook 135 annual supplement)",
+    source:
+      "[practice] modest real escalation; FEMP publishes regional real energy price indices yearly (Handbook 135 annual supplement)",
   },
   "tariffs.escalation.demand": { default: 0.005, source: "[practice] as energy" },
   "tariffs.escalation.water": {
     default: 0.02,
-    source: "[practice] water and sewer tariffs have long risen faster than general inflation; enter the utility's plan",
+    source:
+      "[practice] water and sewer tariffs have long risen faster than general inflation; enter the utility's plan",
   },
   "tariffs.escalation.sewer": { default: 0.02, source: "[practice] as water" },
   "tariffs.escalation.chemicals": { default: 0, source: "[practice] constant real price" },
@@ -124,7 +127,8 @@ export const economicsFieldDefaults = {
   },
   "economics.realDiscountRate": {
     default: 0.03,
-    source: "[memory] 10 CFR 436.14 sets a 3 % floor on the FEMP real discount rate; use the owner's own rate",
+    source:
+      "[memory] 10 CFR 436.14 sets a 3 % floor on the FEMP real discount rate; use the owner's own rate",
   },
   "economics.inflationRate": {
     default: 0.025,
@@ -135,9 +139,18 @@ export const economicsFieldDefaults = {
     source: "NIST Handbook 135: residual value by remaining life, linear as a simple approximation",
   },
   "sensitivity.enabled": { default: true, source: "run the tornado and break-evens" },
-  "sensitivity.tornado.waterPrice": { default: { enabled: true, low: 0.75, high: 1.5 }, source: "[practice] ×0.75 … ×1.5" },
-  "sensitivity.tornado.sewerPrice": { default: { enabled: true, low: 0.75, high: 1.5 }, source: "[practice] ×0.75 … ×1.5" },
-  "sensitivity.tornado.electricityPrice": { default: { enabled: true, low: 0.8, high: 1.25 }, source: "[practice] ×0.8 … ×1.25" },
+  "sensitivity.tornado.waterPrice": {
+    default: { enabled: true, low: 0.75, high: 1.5 },
+    source: "[practice] ×0.75 … ×1.5",
+  },
+  "sensitivity.tornado.sewerPrice": {
+    default: { enabled: true, low: 0.75, high: 1.5 },
+    source: "[practice] ×0.75 … ×1.5",
+  },
+  "sensitivity.tornado.electricityPrice": {
+    default: { enabled: true, low: 0.8, high: 1.25 },
+    source: "[practice] ×0.8 … ×1.25",
+  },
   "sensitivity.tornado.electricityEscalation": {
     default: { enabled: true, low: -0.01, high: 0.02 },
     source: "[practice] −1 … +2 %/yr around the entered real escalation",
@@ -154,7 +167,10 @@ export const economicsFieldDefaults = {
     default: { enabled: true, low: 0.8, high: 1.3 },
     source: "[practice] screening first-cost accuracy −20 % … +30 %",
   },
-  "sensitivity.tornado.foulingRate": { default: { enabled: true, low: 0.5, high: 2 }, source: "[practice] ×0.5 … ×2" },
+  "sensitivity.tornado.foulingRate": {
+    default: { enabled: true, low: 0.5, high: 2 },
+    source: "[practice] ×0.5 … ×2",
+  },
   "sensitivity.tornado.load": { default: { enabled: true, low: 0.8, high: 1.2 }, source: "[practice] ±20 %" },
   "sensitivity.breakEven.waterAndSewerPrice": {
     default: { enabled: true, min: 0, max: 10 },
@@ -316,9 +332,7 @@ export const tariffsSchema = z.object({
       fixedCostPerYear: money.default(dflt("tariffs.chemicals.fixedCostPerYear")),
     })
     .prefault({}),
-  waterManagementProgrammeCostPerYear: money.default(
-    dflt("tariffs.waterManagementProgrammeCostPerYear"),
-  ),
+  waterManagementProgrammeCostPerYear: money.default(dflt("tariffs.waterManagementProgrammeCostPerYear")),
   escalation: escalationSchema.prefault({}),
 });
 
@@ -353,7 +367,9 @@ const sensitivityRangeSchema = z
 const tornadoShape = Object.fromEntries(
   SENSITIVITY_INPUTS.map((k) => [
     k,
-    sensitivityRangeSchema.prefault(dflt(`sensitivity.tornado.${k}` as `sensitivity.tornado.${SensitivityInputKey}`)),
+    sensitivityRangeSchema.prefault(
+      dflt(`sensitivity.tornado.${k}` as `sensitivity.tornado.${SensitivityInputKey}`),
+    ),
   ]),
 ) as Record<SensitivityInputKey, ReturnType<typeof sensitivityRangeSchema.prefault>>;
 
@@ -364,7 +380,9 @@ const breakEvenRangeSchema = z
 const breakEvenShape = Object.fromEntries(
   BREAK_EVEN_INPUTS.map((k) => [
     k,
-    breakEvenRangeSchema.prefault(dflt(`sensitivity.breakEven.${k}` as `sensitivity.breakEven.${BreakEvenInputKey}`)),
+    breakEvenRangeSchema.prefault(
+      dflt(`sensitivity.breakEven.${k}` as `sensitivity.breakEven.${BreakEvenInputKey}`),
+    ),
   ]),
 ) as Record<BreakEvenInputKey, ReturnType<typeof breakEvenRangeSchema.prefault>>;
 
@@ -376,7 +394,12 @@ export const sensitivitySchema = z.object({
 
 export const distributionSchema = z
   .discriminatedUnion("type", [
-    z.object({ type: z.literal("triangular"), min: z.number().finite(), mode: z.number().finite(), max: z.number().finite() }),
+    z.object({
+      type: z.literal("triangular"),
+      min: z.number().finite(),
+      mode: z.number().finite(),
+      max: z.number().finite(),
+    }),
     z.object({ type: z.literal("uniform"), min: z.number().finite(), max: z.number().finite() }),
   ])
   .refine((d) => d.min <= d.max && (d.type === "uniform" || (d.min <= d.mode && d.mode <= d.max)), {
@@ -386,7 +409,12 @@ export const distributionSchema = z
 export const monteCarloSchema = z.object({
   enabled: z.boolean().default(dflt("monteCarlo.enabled")),
   draws: z.number().int().min(100).max(200_000).default(dflt("monteCarlo.draws")),
-  seed: z.number().int().min(0).max(2 ** 32 - 1).default(dflt("monteCarlo.seed")),
+  seed: z
+    .number()
+    .int()
+    .min(0)
+    .max(2 ** 32 - 1)
+    .default(dflt("monteCarlo.seed")),
   histogramBins: z.number().int().min(5).max(200).default(dflt("monteCarlo.histogramBins")),
   distributions: z
     .partialRecord(z.enum(MONTE_CARLO_INPUTS), distributionSchema)

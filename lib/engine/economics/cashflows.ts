@@ -108,7 +108,17 @@ export interface EvaluatedOption {
 }
 
 export function zeroCategories(): CategoryAmounts {
-  return { investment: 0, energy: 0, demand: 0, water: 0, sewer: 0, chemicals: 0, upkeep: 0, replacements: 0, residual: 0 };
+  return {
+    investment: 0,
+    energy: 0,
+    demand: 0,
+    water: 0,
+    sewer: 0,
+    chemicals: 0,
+    upkeep: 0,
+    replacements: 0,
+    residual: 0,
+  };
 }
 
 export function sumCategories(c: CategoryAmounts): number {
@@ -134,7 +144,9 @@ export function basePricing(tariffs: TariffsInput, economics: EconomicsInput): P
 }
 
 /** The discount rate the analysis uses: d (real) or D = (1 + d)(1 + I) − 1 (nominal). Handbook 135. */
-export function analysisDiscountRate(p: Pick<Pricing, "realDiscountRate" | "inflationRate" | "analysis">): number {
+export function analysisDiscountRate(
+  p: Pick<Pricing, "realDiscountRate" | "inflationRate" | "analysis">,
+): number {
   return p.analysis === "nominal" ? nominalFromReal(p.realDiscountRate, p.inflationRate) : p.realDiscountRate;
 }
 
@@ -257,7 +269,11 @@ function billingYear(t: number): number {
  * Linear residual value fraction of an asset installed at `installedAt` with life L, at the end of the
  * study N: max(0, (installedAt + L − N)/L). Source: NIST Handbook 135 (residual value by remaining life).
  */
-export function linearResidualFraction(installedAt: number, lifeYears: number, studyPeriodYears: number): number {
+export function linearResidualFraction(
+  installedAt: number,
+  lifeYears: number,
+  studyPeriodYears: number,
+): number {
   if (!(lifeYears > 0)) return 0;
   return Math.max(0, (installedAt + lifeYears - studyPeriodYears) / lifeYears);
 }
@@ -290,7 +306,13 @@ function scheduleFirstCostItems(
     if (item === "equipment") equipmentTimes = times;
     if (!(cost > 0)) continue;
     for (const t of times) {
-      events.push({ year: billingYear(t), category: "replacements", stream: "replacements", amount: cost, fromFirstCost: true });
+      events.push({
+        year: billingYear(t),
+        category: "replacements",
+        stream: "replacements",
+        amount: cost,
+        fromFirstCost: true,
+      });
     }
     if (!costs.replaceAtEndOfLife && life < n - TIME_EPS && !warnedNoReplacement) {
       warnedNoReplacement = true;
@@ -306,7 +328,13 @@ function scheduleFirstCostItems(
       const lastInstall = times.length > 0 ? (times[times.length - 1] ?? 0) : 0;
       const fraction = linearResidualFraction(lastInstall, life, n);
       if (fraction > 0) {
-        events.push({ year: n, category: "residual", stream: "replacements", amount: -cost * fraction, fromFirstCost: true });
+        events.push({
+          year: n,
+          category: "residual",
+          stream: "replacements",
+          amount: -cost * fraction,
+          fromFirstCost: true,
+        });
       }
     }
   }
@@ -339,25 +367,48 @@ function scheduleComponents(
         continue;
       }
       if (next >= n - TIME_EPS) break;
-      events.push({ year: billingYear(next), category: "replacements", stream: "replacements", amount: comp.replacementCost, fromFirstCost: false });
+      events.push({
+        year: billingYear(next),
+        category: "replacements",
+        stream: "replacements",
+        amount: comp.replacementCost,
+        fromFirstCost: false,
+      });
       last = next;
       lastWasSeparate = true;
     }
     if (lastWasSeparate && economics.residualValueMethod === "linear") {
       const fraction = linearResidualFraction(last, life, n);
       if (fraction > 0) {
-        events.push({ year: n, category: "residual", stream: "replacements", amount: -comp.replacementCost * fraction, fromFirstCost: false });
+        events.push({
+          year: n,
+          category: "residual",
+          stream: "replacements",
+          amount: -comp.replacementCost * fraction,
+          fromFirstCost: false,
+        });
       }
     }
   }
 }
 
-function schedulePeriodicUpkeep(option: EconomicsOptionInput, upkeep: UpkeepInput, economics: EconomicsInput, events: DatedEvent[]): void {
+function schedulePeriodicUpkeep(
+  option: EconomicsOptionInput,
+  upkeep: UpkeepInput,
+  economics: EconomicsInput,
+  events: DatedEvent[],
+): void {
   for (const item of option.costs.upkeep.periodicItems) {
     const perEvent = item.costPerEvent + item.labourHoursPerEvent * upkeep.labourRatePerHour;
     if (!(perEvent > 0)) continue;
     for (const [year, count] of periodicEventCounts(item.everyYears, economics.studyPeriodYears)) {
-      events.push({ year, category: "upkeep", stream: "labour", amount: perEvent * count, fromFirstCost: false });
+      events.push({
+        year,
+        category: "upkeep",
+        stream: "labour",
+        amount: perEvent * count,
+        fromFirstCost: false,
+      });
     }
   }
 }
@@ -389,7 +440,18 @@ export function buildOptionBasis(
   }
   const water: WaterQuantities = physics
     ? waterQuantitiesFromPhysics(physics)
-    : { evaporationM3: 0, driftM3: 0, blowdownM3: 0, makeupM3: 0, sewerBilledM3: 0, sewerExemptM3: 0, treatedOutflowM3: 0, inhibitorKg: 0, biocideKg: 0, cyclesOfConcentration: 1 };
+    : {
+        evaporationM3: 0,
+        driftM3: 0,
+        blowdownM3: 0,
+        makeupM3: 0,
+        sewerBilledM3: 0,
+        sewerExemptM3: 0,
+        treatedOutflowM3: 0,
+        inhibitorKg: 0,
+        biocideKg: 0,
+        cyclesOfConcentration: 1,
+      };
   const creditApplied = water.sewerExemptM3 > 1e-9 * Math.max(1, water.makeupM3);
 
   const events: DatedEvent[] = [];
@@ -412,7 +474,9 @@ export function buildOptionBasis(
     waterFixedPerYear: 12 * tariffs.water.fixedChargePerMonth,
     sewerPricePerM3: tariffs.sewer.pricePerM3,
     sewerFixedPerYear:
-      12 * (tariffs.sewer.fixedChargePerMonth + (creditApplied ? tariffs.sewer.evaporationCreditMeterChargePerMonth : 0)),
+      12 *
+      (tariffs.sewer.fixedChargePerMonth +
+        (creditApplied ? tariffs.sewer.evaporationCreditMeterChargePerMonth : 0)),
     chemicalsPricePerM3Outflow: tariffs.chemicals.costPerM3Outflow,
     inhibitorPricePerKg: tariffs.chemicals.inhibitorPricePerKg,
     biocidePricePerKg: tariffs.chemicals.biocidePricePerKg,
@@ -421,7 +485,10 @@ export function buildOptionBasis(
     chemicalsFixedPerYear:
       (up.chemicalFixedCostPerYearOverride ?? tariffs.chemicals.fixedCostPerYear) +
       (up.waterManagementProgrammeCostPerYearOverride ?? tariffs.waterManagementProgrammeCostPerYear),
-    upkeepPerYear: up.annualLabourHours * upkeep.labourRatePerHour + up.annualServiceCost + cleanings * up.cleaningCostPerEvent,
+    upkeepPerYear:
+      up.annualLabourHours * upkeep.labourRatePerHour +
+      up.annualServiceCost +
+      cleanings * up.cleaningCostPerEvent,
     events,
     studyPeriodYears: economics.studyPeriodYears,
   };
@@ -453,7 +520,12 @@ function eventGroups(events: DatedEvent[], n: number): EventGroup[] {
     const key = `${ev.category}|${ev.stream}|${ev.fromFirstCost}`;
     let g = groups.get(key);
     if (!g) {
-      g = { category: ev.category, stream: ev.stream, fromFirstCost: ev.fromFirstCost, byYear: new Float64Array(n + 1) };
+      g = {
+        category: ev.category,
+        stream: ev.stream,
+        fromFirstCost: ev.fromFirstCost,
+        byYear: new Float64Array(n + 1),
+      };
       groups.set(key, g);
     }
     if (ev.year >= 1 && ev.year <= n) g.byYear[ev.year] = (g.byYear[ev.year] ?? 0) + ev.amount;
@@ -474,13 +546,23 @@ function recurringStreams(b: OptionBasis, p: Pricing): RecurringStream[] {
   return [
     { category: "energy", stream: "energy", amount: b.energyCost * p.electricityPriceFactor },
     { category: "demand", stream: "demand", amount: b.demandCost * p.demandChargeFactor },
-    { category: "water", stream: "water", amount: w.makeupM3 * b.waterPricePerM3 * p.waterPriceFactor + b.waterFixedPerYear },
-    { category: "sewer", stream: "sewer", amount: w.sewerBilledM3 * b.sewerPricePerM3 * p.sewerPriceFactor + b.sewerFixedPerYear },
+    {
+      category: "water",
+      stream: "water",
+      amount: w.makeupM3 * b.waterPricePerM3 * p.waterPriceFactor + b.waterFixedPerYear,
+    },
+    {
+      category: "sewer",
+      stream: "sewer",
+      amount: w.sewerBilledM3 * b.sewerPricePerM3 * p.sewerPriceFactor + b.sewerFixedPerYear,
+    },
     {
       category: "chemicals",
       stream: "chemicals",
       amount:
-        (w.treatedOutflowM3 * b.chemicalsPricePerM3Outflow + w.inhibitorKg * b.inhibitorPricePerKg + w.biocideKg * b.biocidePricePerKg) *
+        (w.treatedOutflowM3 * b.chemicalsPricePerM3Outflow +
+          w.inhibitorKg * b.inhibitorPricePerKg +
+          w.biocideKg * b.biocidePricePerKg) *
           p.chemicalsPriceFactor +
         b.chemicalsFixedPerYear,
     },
@@ -530,7 +612,13 @@ export function evaluateOptionBasis(
   return result;
 }
 
-function yearlyTable(b: OptionBasis, p: Pricing, streams: RecurringStream[], firstCostScale: number, baseYear: number): YearCashFlow[] {
+function yearlyTable(
+  b: OptionBasis,
+  p: Pricing,
+  streams: RecurringStream[],
+  firstCostScale: number,
+  baseYear: number,
+): YearCashFlow[] {
   const n = b.studyPeriodYears;
   const d = analysisDiscountRate(p);
   const tShift = p.discounting === "midYear" ? 0.5 : 0;
@@ -565,7 +653,8 @@ function yearlyTable(b: OptionBasis, p: Pricing, streams: RecurringStream[], fir
         pvs[s.category] += a * Math.pow(1 + d, -tr);
       }
       for (const ev of eventsByYear.get(t) ?? []) {
-        const a = (ev.fromFirstCost ? ev.amount * firstCostScale : ev.amount) * Math.pow(1 + esc(ev.stream), t);
+        const a =
+          (ev.fromFirstCost ? ev.amount * firstCostScale : ev.amount) * Math.pow(1 + esc(ev.stream), t);
         amounts[ev.category] += a;
         pvs[ev.category] += a * Math.pow(1 + d, -t);
       }

@@ -20,7 +20,18 @@ import type {
 } from "./types";
 
 export * from "./types";
-export { spv, upv, upvStar, spvMidYear, upvMidYear, upvStarMidYear, nominalFromReal, realFromNominal, crf, airrFromSir } from "./factors";
+export {
+  spv,
+  upv,
+  upvStar,
+  spvMidYear,
+  upvMidYear,
+  upvStarMidYear,
+  nominalFromReal,
+  realFromNominal,
+  crf,
+  airrFromSir,
+} from "./factors";
 export { waterAtCycles } from "./cashflows";
 export { mulberry32, sampleDistribution } from "./montecarlo";
 
@@ -32,7 +43,15 @@ export { mulberry32, sampleDistribution } from "./montecarlo";
  */
 export function analyzeEconomics(args: AnalyzeEconomicsArgs): EconomicsResult {
   const warnings: EngineWarning[] = [];
-  const model = buildModel(args.physics, args.options, args.tariffs, args.upkeep, args.economics, args.baseOptionId, warnings);
+  const model = buildModel(
+    args.physics,
+    args.options,
+    args.tariffs,
+    args.upkeep,
+    args.economics,
+    args.baseOptionId,
+    warnings,
+  );
   const result = deterministicResult(model, model.pricing, undefined, warnings);
   const physics = new PhysicsCache(args.rerunPhysics);
   if (args.sensitivity?.enabled && model.bases.length > 1) {
@@ -62,9 +81,21 @@ export interface StoredEconomicsInputs {
  * `rerunPhysics` is given, else use the exact water-balance recompute B = E/(C − 1) − D.
  * `discountRate` replaces the analysis' rate (real in a real analysis, nominal in a nominal one).
  */
-export function whatIf(stored: StoredEconomicsInputs, overrides: WhatIfOverrides, rerunPhysics?: RerunPhysics): EconomicsResult {
+export function whatIf(
+  stored: StoredEconomicsInputs,
+  overrides: WhatIfOverrides,
+  rerunPhysics?: RerunPhysics,
+): EconomicsResult {
   const warnings: EngineWarning[] = [];
-  let model = buildModel(stored.physics, stored.options, stored.tariffs, stored.upkeep, stored.economics, stored.baseOptionId, warnings);
+  let model = buildModel(
+    stored.physics,
+    stored.options,
+    stored.tariffs,
+    stored.upkeep,
+    stored.economics,
+    stored.baseOptionId,
+    warnings,
+  );
   const c = overrides.cyclesOfConcentration;
   if (c !== undefined) {
     model = rerunPhysics
@@ -76,12 +107,17 @@ export function whatIf(stored: StoredEconomicsInputs, overrides: WhatIfOverrides
     pricing.waterPriceFactor = overrides.waterAndSewerPriceFactor;
     pricing.sewerPriceFactor = overrides.waterAndSewerPriceFactor;
   }
-  if (overrides.electricityPriceFactor !== undefined) pricing.electricityPriceFactor = overrides.electricityPriceFactor;
+  if (overrides.electricityPriceFactor !== undefined)
+    pricing.electricityPriceFactor = overrides.electricityPriceFactor;
   if (overrides.discountRate !== undefined) {
     pricing.realDiscountRate =
-      pricing.analysis === "nominal" ? realFromNominal(overrides.discountRate, pricing.inflationRate) : overrides.discountRate;
+      pricing.analysis === "nominal"
+        ? realFromNominal(overrides.discountRate, pricing.inflationRate)
+        : overrides.discountRate;
   }
   const scales =
-    overrides.firstCostPremiumFactor !== undefined ? premiumScales(model.bases, model.baseIndex, overrides.firstCostPremiumFactor) : undefined;
+    overrides.firstCostPremiumFactor !== undefined
+      ? premiumScales(model.bases, model.baseIndex, overrides.firstCostPremiumFactor)
+      : undefined;
   return deterministicResult(model, pricing, scales, warnings);
 }

@@ -56,7 +56,10 @@ export function paybackYears(extraFirstCost: number, yearlySavings: readonly num
 }
 
 /** Yearly amounts of years 1…N without the residual value (a payback does not count the study-end credit). */
-function operatingAndReplacement(rows: readonly YearCashFlow[], key: "byCategory" | "presentValueByCategory"): number[] {
+function operatingAndReplacement(
+  rows: readonly YearCashFlow[],
+  key: "byCategory" | "presentValueByCategory",
+): number[] {
   const out: number[] = [];
   for (const r of rows) {
     if (r.yearIndex === 0) continue;
@@ -85,8 +88,10 @@ export function compareOptions(
   studyPeriodYears: number,
 ): OptionComparison {
   const netSavings = base.lcc - alt.lcc;
-  const deltaInvestmentPV = sumOf(alt.pvByCategory, INVESTMENT_CATEGORIES) - sumOf(base.pvByCategory, INVESTMENT_CATEGORIES);
-  const operationalSavingsPV = sumOf(base.pvByCategory, OPERATIONAL_CATEGORIES) - sumOf(alt.pvByCategory, OPERATIONAL_CATEGORIES);
+  const deltaInvestmentPV =
+    sumOf(alt.pvByCategory, INVESTMENT_CATEGORIES) - sumOf(base.pvByCategory, INVESTMENT_CATEGORIES);
+  const operationalSavingsPV =
+    sumOf(base.pvByCategory, OPERATIONAL_CATEGORIES) - sumOf(alt.pvByCategory, OPERATIONAL_CATEGORIES);
 
   let sir: number | null = null;
   let sirNote: string | undefined;
@@ -117,8 +122,14 @@ export function compareOptions(
     const hiRows = operatingAndReplacement(hi.cashFlows, "byCategory");
     const loPv = operatingAndReplacement(lo.cashFlows, "presentValueByCategory");
     const hiPv = operatingAndReplacement(hi.cashFlows, "presentValueByCategory");
-    simplePaybackYears = paybackYears(extraFirstCost, loRows.map((v, i) => v - (hiRows[i] ?? 0)));
-    discountedPaybackYears = paybackYears(extraFirstCost, loPv.map((v, i) => v - (hiPv[i] ?? 0)));
+    simplePaybackYears = paybackYears(
+      extraFirstCost,
+      loRows.map((v, i) => v - (hiRows[i] ?? 0)),
+    );
+    discountedPaybackYears = paybackYears(
+      extraFirstCost,
+      loPv.map((v, i) => v - (hiPv[i] ?? 0)),
+    );
     if (simplePaybackYears === null) {
       paybackNote = `${hi.label}'s extra first cost of ${formatMoney(extraFirstCost)} is not recovered within the ${studyPeriodYears}-year study period.`;
     } else if (discountedPaybackYears === null) {
@@ -138,7 +149,8 @@ export function compareOptions(
     if (Number.isFinite(r)) irrValue = r;
     else irrNote = "The IRR iteration did not converge for this difference stream.";
   } else if (changes === 0) {
-    irrNote = "The yearly difference never changes sign (one option is cheaper every year), so there is no IRR.";
+    irrNote =
+      "The yearly difference never changes sign (one option is cheaper every year), so there is no IRR.";
   } else {
     irrNote = `The yearly difference changes sign ${changes} times (e.g. replacements), so an IRR is not unique; use the AIRR.`;
   }

@@ -79,7 +79,10 @@ export function buildModel(
 
 /** Same model with the bases rebuilt from other physics (warnings of the rebuild are dropped). */
 export function withPhysics(model: EconomicsModel, physics: OptionAnnualPhysics[]): EconomicsModel {
-  return { ...model, bases: buildBases(physics, model.options, model.tariffs, model.upkeep, model.economics, []) };
+  return {
+    ...model,
+    bases: buildBases(physics, model.options, model.tariffs, model.upkeep, model.economics, []),
+  };
 }
 
 /**
@@ -94,7 +97,11 @@ export function premiumScales(bases: readonly OptionBasis[], baseIndex: number, 
   });
 }
 
-export function lccsOf(bases: readonly OptionBasis[], pricing: Pricing, scales?: readonly number[]): number[] {
+export function lccsOf(
+  bases: readonly OptionBasis[],
+  pricing: Pricing,
+  scales?: readonly number[],
+): number[] {
   return bases.map((b, i) => evaluateOptionBasis(b, pricing, scales?.[i] ?? 1).lcc);
 }
 
@@ -117,7 +124,9 @@ export function deterministicResult(
     const ev = evaluateOptionBasis(b, pricing, scales?.[i] ?? 1, true, econ.baseYear);
     const scale = scales?.[i] ?? 1;
     const firstCostByItem = { ...b.firstCostByItem };
-    if (scale !== 1) for (const k of Object.keys(firstCostByItem) as (keyof typeof firstCostByItem)[]) firstCostByItem[k] *= scale;
+    if (scale !== 1)
+      for (const k of Object.keys(firstCostByItem) as (keyof typeof firstCostByItem)[])
+        firstCostByItem[k] *= scale;
     return {
       optionId: b.optionId,
       kind: b.kind,
@@ -132,9 +141,7 @@ export function deterministicResult(
     };
   });
   const base = options[model.baseIndex] ?? options[0];
-  const comparisons = base
-    ? options.filter((o) => o !== base).map((o) => compareOptions(base, o, d, n))
-    : [];
+  const comparisons = base ? options.filter((o) => o !== base).map((o) => compareOptions(base, o, d, n)) : [];
   let lowest = options[0];
   for (const o of options) if (lowest && o.lcc < lowest.lcc) lowest = o;
   return {

@@ -87,7 +87,11 @@ export function histogram(values: ArrayLike<number>, bins: number): HistogramBin
     const k = Math.min(bins - 1, Math.floor(((values[i] ?? 0) - min) / width));
     counts[k] = (counts[k] ?? 0) + 1;
   }
-  return counts.map((count, k) => ({ from: min + k * width, to: k === bins - 1 ? max : min + (k + 1) * width, count }));
+  return counts.map((count, k) => ({
+    from: min + k * width,
+    to: k === bins - 1 ? max : min + (k + 1) * width,
+    count,
+  }));
 }
 
 /** Linear interpolation of the fouling-sensitive quantities of two bases (same option, same schedule). */
@@ -176,7 +180,9 @@ export function runMonteCarlo(
     );
   }
   if (dist.cyclesOfConcentration) {
-    notes.push("Cycles of concentration: makeup, blowdown and billed sewer recomputed exactly from evaporation and drift (B = E/(C − 1) − D) for every wet loop.");
+    notes.push(
+      "Cycles of concentration: makeup, blowdown and billed sewer recomputed exactly from evaporation and drift (B = E/(C − 1) − D) for every wet loop.",
+    );
   }
 
   const lcc = Array.from({ length: nOpt }, () => new Float64Array(draws));
@@ -210,7 +216,8 @@ export function runMonteCarlo(
         sewer: p0.escalation.sewer + (s.sewerEscalationDelta ?? 0),
       },
     };
-    let bases = nodes && s.foulingRateFactor !== undefined ? basesAtFouling(nodes, s.foulingRateFactor) : model.bases;
+    let bases =
+      nodes && s.foulingRateFactor !== undefined ? basesAtFouling(nodes, s.foulingRateFactor) : model.bases;
     const cycles = s.cyclesOfConcentration;
     if (cycles !== undefined) bases = bases.map((b) => basisAtCycles(b, cycles));
 
@@ -223,7 +230,8 @@ export function runMonteCarlo(
     }
     let ties = 0;
     for (let i = 0; i < nOpt; i++) if ((lcc[i] as Float64Array)[k] === minL) ties++;
-    for (let i = 0; i < nOpt; i++) if ((lcc[i] as Float64Array)[k] === minL) lowestCount[i] = (lowestCount[i] ?? 0) + 1 / ties;
+    for (let i = 0; i < nOpt; i++)
+      if ((lcc[i] as Float64Array)[k] === minL) lowestCount[i] = (lowestCount[i] ?? 0) + 1 / ties;
     if (onProgress && (k + 1) % progressEvery === 0) onProgress((k + 1) / draws);
   }
 
@@ -238,7 +246,13 @@ export function runMonteCarlo(
   };
   const lccPercentiles = model.bases.map((b, i) => {
     const { sorted, mean } = summarise(lcc[i] as Float64Array);
-    return { optionId: b.optionId, p10: percentileSorted(sorted, 0.1), p50: percentileSorted(sorted, 0.5), p90: percentileSorted(sorted, 0.9), mean };
+    return {
+      optionId: b.optionId,
+      p10: percentileSorted(sorted, 0.1),
+      p50: percentileSorted(sorted, 0.5),
+      p90: percentileSorted(sorted, 0.9),
+      mean,
+    };
   });
 
   const baseL = lcc[model.baseIndex] as Float64Array;

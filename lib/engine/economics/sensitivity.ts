@@ -67,7 +67,10 @@ export function baseCycles(model: EconomicsModel): number {
 
 function withDelta(p: Pricing, key: "electricityEscalation" | "discountRate", delta: number): Pricing {
   if (key === "discountRate") return { ...p, realDiscountRate: Math.max(-0.5, p.realDiscountRate + delta) };
-  return { ...p, escalation: { ...p.escalation, energy: p.escalation.energy + delta, demand: p.escalation.demand + delta } };
+  return {
+    ...p,
+    escalation: { ...p.escalation, energy: p.escalation.energy + delta, demand: p.escalation.demand + delta },
+  };
 }
 
 /** LCC of every option with one input moved, or the reason it cannot be moved. */
@@ -94,7 +97,10 @@ function lccsWithInput(
     case "cyclesOfConcentration": {
       const rerun = physics.get({ cyclesOfConcentration: value });
       if (rerun) return lccsOf(withPhysics(model, rerun).bases, p);
-      return lccsOf(bases.map((b) => basisAtCycles(b, value)), p);
+      return lccsOf(
+        bases.map((b) => basisAtCycles(b, value)),
+        p,
+      );
     }
     case "foulingRate":
     case "load": {
@@ -109,7 +115,11 @@ function lccsWithInput(
  * Tornado for every alternative against the base (each pair drawn separately), ranked by swing of
  * net savings, largest first; inputs that could not be varied come last with their reason.
  */
-export function tornado(model: EconomicsModel, input: SensitivityInput, physics: PhysicsCache): TornadoForPair[] {
+export function tornado(
+  model: EconomicsModel,
+  input: SensitivityInput,
+  physics: PhysicsCache,
+): TornadoForPair[] {
   const baseLccs = lccsOf(model.bases, model.pricing);
   const pairs: TornadoForPair[] = model.bases
     .map((_, i) => i)
@@ -140,7 +150,16 @@ export function tornado(model: EconomicsModel, input: SensitivityInput, physics:
     altIndices.forEach((ai, pi) => {
       const pair = pairs[pi];
       if (!pair) return;
-      const bar: TornadoBar = { input: key, label: SENSITIVITY_LABELS[key], mode, low, high, netSavingsAtLow: pair.baseNetSavings, netSavingsAtHigh: pair.baseNetSavings, swing: 0 };
+      const bar: TornadoBar = {
+        input: key,
+        label: SENSITIVITY_LABELS[key],
+        mode,
+        low,
+        high,
+        netSavingsAtLow: pair.baseNetSavings,
+        netSavingsAtHigh: pair.baseNetSavings,
+        swing: 0,
+      };
       if (typeof atLow === "string" || typeof atHigh === "string") {
         bar.skippedReason = typeof atLow === "string" ? atLow : String(atHigh);
       } else {
@@ -234,7 +253,10 @@ export function breakEven(
     const ns = nsFunction(key, pair, p);
     const roots = findRoots(ns, range.min, range.max);
     const reference = key === "cyclesOfConcentration" ? c0 : 1;
-    const value = roots.length > 0 ? roots.reduce((best, r) => (Math.abs(r - reference) < Math.abs(best - reference) ? r : best)) : null;
+    const value =
+      roots.length > 0
+        ? roots.reduce((best, r) => (Math.abs(r - reference) < Math.abs(best - reference) ? r : best))
+        : null;
     const res: BreakEvenResult = {
       input: key,
       baseOptionId: base.optionId,
@@ -251,8 +273,10 @@ export function breakEven(
     else if (key === "cyclesOfConcentration") res.absoluteUnit = "cycles";
     else res.absoluteUnit = "extra first cost";
     if (value !== null) {
-      if (key === "waterAndSewerPrice") res.absoluteValue = value * (model.tariffs.water.pricePerM3 + model.tariffs.sewer.pricePerM3);
-      else if (key === "electricityPrice") res.absoluteValue = value * meanEnergyPricePerKWh(model, base, energyKWhOfBase);
+      if (key === "waterAndSewerPrice")
+        res.absoluteValue = value * (model.tariffs.water.pricePerM3 + model.tariffs.sewer.pricePerM3);
+      else if (key === "electricityPrice")
+        res.absoluteValue = value * meanEnergyPricePerKWh(model, base, energyKWhOfBase);
       else if (key === "cyclesOfConcentration") res.absoluteValue = value;
       else res.absoluteValue = value * extraFirstCost;
     }
@@ -269,7 +293,15 @@ function nsFunction(key: BreakEvenInputKey, pair: OptionBasis[], p: Pricing): (x
     case "electricityPrice":
       return (x) => netSavingsOf(lccsOf(pair, { ...p, electricityPriceFactor: x }), 0, 1);
     case "cyclesOfConcentration":
-      return (x) => netSavingsOf(lccsOf(pair.map((b) => basisAtCycles(b, x)), p), 0, 1);
+      return (x) =>
+        netSavingsOf(
+          lccsOf(
+            pair.map((b) => basisAtCycles(b, x)),
+            p,
+          ),
+          0,
+          1,
+        );
     case "firstCostPremium":
       return (x) => netSavingsOf(lccsOf(pair, p, premiumScales(pair, 0, x)), 0, 1);
   }
@@ -288,9 +320,18 @@ function absoluteText(key: BreakEvenInputKey, v: number): string {
   return `an extra first cost of ${Math.round(v).toLocaleString("en-US")}`;
 }
 
-function breakEvenNote(key: BreakEvenInputKey, r: BreakEvenResult, nsMid: number, rootCount: number, extraFirstCost: number): string {
+function breakEvenNote(
+  key: BreakEvenInputKey,
+  r: BreakEvenResult,
+  nsMid: number,
+  rootCount: number,
+  extraFirstCost: number,
+): string {
   const what = BREAK_EVEN_WORDS[key];
-  const range = key === "cyclesOfConcentration" ? `${fmt(r.searchMin)} … ${fmt(r.searchMax)} cycles` : `×${fmt(r.searchMin)} … ×${fmt(r.searchMax)} ${what}`;
+  const range =
+    key === "cyclesOfConcentration"
+      ? `${fmt(r.searchMin)} … ${fmt(r.searchMax)} cycles`
+      : `×${fmt(r.searchMin)} … ×${fmt(r.searchMax)} ${what}`;
   if (key === "firstCostPremium" && extraFirstCost === 0) {
     return "Both options have the same first cost, so scaling the extra first cost cannot make them tie.";
   }
@@ -301,8 +342,12 @@ function breakEvenNote(key: BreakEvenInputKey, r: BreakEvenResult, nsMid: number
   const at =
     key === "cyclesOfConcentration"
       ? `${fmt(r.value)} cycles (every wet loop; exact water balance, physics not re-run)`
-      : `×${fmt(r.value)} ${what}` + (r.absoluteValue !== null ? ` (${absoluteText(key, r.absoluteValue)})` : "");
-  const more = rootCount > 1 ? ` There are ${rootCount} ties in the range; the one nearest the entered value is shown.` : "";
+      : `×${fmt(r.value)} ${what}` +
+        (r.absoluteValue !== null ? ` (${absoluteText(key, r.absoluteValue)})` : "");
+  const more =
+    rootCount > 1
+      ? ` There are ${rootCount} ties in the range; the one nearest the entered value is shown.`
+      : "";
   return `The options tie at ${at}.${more}`;
 }
 
@@ -315,6 +360,8 @@ export function runSensitivity(
 ): SensitivityResult {
   const before = physics.reruns;
   const t = tornado(model, input, physics);
-  const be = model.bases.flatMap((_, i) => (i === model.baseIndex ? [] : breakEven(model, input, i, energyKWhOfBase)));
+  const be = model.bases.flatMap((_, i) =>
+    i === model.baseIndex ? [] : breakEven(model, input, i, energyKWhOfBase),
+  );
   return { tornado: t, breakEven: be, physicsReruns: physics.reruns - before };
 }

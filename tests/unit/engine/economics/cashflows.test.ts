@@ -1,6 +1,11 @@
 import { describe, expect, it } from "vitest";
 import { analyzeEconomics, upvStar } from "@/lib/engine/economics";
-import { linearResidualFraction, replacementTimes, waterAtCycles, waterQuantitiesFromPhysics } from "@/lib/engine/economics/cashflows";
+import {
+  linearResidualFraction,
+  replacementTimes,
+  waterAtCycles,
+  waterQuantitiesFromPhysics,
+} from "@/lib/engine/economics/cashflows";
 import { economicsSchema, tariffsSchema } from "@/lib/scenarios/schema-economics";
 import { baseArgs, physicsFor } from "./helpers";
 
@@ -45,7 +50,9 @@ describe("cash flows", () => {
     const args = baseArgs();
     const first = args.options[0];
     if (!first) throw new Error("fixture");
-    first.costs.upkeep.periodicItems = [{ kind: "basinDisinfection", everyYears: 0.5, costPerEvent: 100, labourHoursPerEvent: 0 }];
+    first.costs.upkeep.periodicItems = [
+      { kind: "basinDisinfection", everyYears: 0.5, costPerEvent: 100, labourHoursPerEvent: 0 },
+    ];
     first.costs.upkeep.cleaningCostPerEvent = 0;
     first.costs.upkeep.annualLabourHours = 0;
     const rr = analyzeEconomics(args);
@@ -56,19 +63,31 @@ describe("cash flows", () => {
     // NIST Handbook 135: constant- and current-dollar analyses agree when (1 + D) = (1 + d)(1 + I) and
     // every escalation is converted the same way.
     const real = analyzeEconomics(baseArgs());
-    const nominal = analyzeEconomics(baseArgs({ economics: economicsSchema.parse({ analysis: "nominal", inflationRate: 0.03 }) }));
+    const nominal = analyzeEconomics(
+      baseArgs({ economics: economicsSchema.parse({ analysis: "nominal", inflationRate: 0.03 }) }),
+    );
     expect(nominal.discountRate).toBeCloseTo(1.03 * 1.03 - 1, 12);
     real.options.forEach((o, i) => expect(nominal.options[i]?.lcc).toBeCloseTo(o.lcc, 4));
     // …while the then-current yearly amounts are larger by (1 + I)^t.
     const t = 10;
-    expect(nominal.options[0]?.cashFlows[t]?.byCategory.energy).toBeCloseTo((real.options[0]?.cashFlows[t]?.byCategory.energy ?? 0) * 1.03 ** t, 6);
+    expect(nominal.options[0]?.cashFlows[t]?.byCategory.energy).toBeCloseTo(
+      (real.options[0]?.cashFlows[t]?.byCategory.energy ?? 0) * 1.03 ** t,
+      6,
+    );
   });
 
   it("month × hour pricing at a uniform price equals flat pricing", () => {
     // Consistency of the two tariff forms (common practice, no source).
     const flat = analyzeEconomics(baseArgs());
     const tou = analyzeEconomics(
-      baseArgs({ tariffs: tariffsSchema.parse({ electricity: { pricing: "monthHour", energyPricePerKWhByMonthHour: Array.from({ length: 288 }, () => 0.12) } }) }),
+      baseArgs({
+        tariffs: tariffsSchema.parse({
+          electricity: {
+            pricing: "monthHour",
+            energyPricePerKWhByMonthHour: Array.from({ length: 288 }, () => 0.12),
+          },
+        }),
+      }),
     );
     expect(tou.options[0]?.pvByCategory.energy).toBeCloseTo(flat.options[0]?.pvByCategory.energy ?? 0, 6);
     expect(tou.warnings).toEqual([]);
@@ -82,7 +101,10 @@ describe("cash flows", () => {
     end.tariffs.escalation.energy = 0;
     const rm = analyzeEconomics(args);
     const re = analyzeEconomics(end);
-    expect(rm.options[0]?.pvByCategory.energy).toBeCloseTo((re.options[0]?.pvByCategory.energy ?? 0) * Math.sqrt(1.03), 6);
+    expect(rm.options[0]?.pvByCategory.energy).toBeCloseTo(
+      (re.options[0]?.pvByCategory.energy ?? 0) * Math.sqrt(1.03),
+      6,
+    );
     expect(rm.options[0]?.pvByCategory.investment).toBe(re.options[0]?.pvByCategory.investment);
   });
 });
@@ -97,7 +119,7 @@ describe("water balance at other cycles (engineering.md §4: B = E/(C − 1) −
     expect(same.sewerBilledM3).toBeCloseTo(p.waterM3.sewerBilled, 9);
     const six = waterAtCycles(q, 6);
     expect(six.blowdownM3).toBeCloseTo(20000 / 5 - 15, 9);
-    expect(six.makeupM3).toBeCloseTo(20000 * 6 / 5, 9);
+    expect(six.makeupM3).toBeCloseTo((20000 * 6) / 5, 9);
     // Evaporation credit: the billed sewer volume stays makeup − evaporation.
     expect(six.sewerBilledM3).toBeCloseTo(six.makeupM3 - 20000, 6);
   });

@@ -31,14 +31,23 @@ describe("NIST Handbook 135 discount factors", () => {
 
   it("UPV is the sum of the SPVs of years 1…n and UPV(0, n) = n", () => {
     // NIST Handbook 135: UPV = Σ_{t=1..n} SPV(d, t) by definition.
-    expect(upv(0.07, 30)).toBeCloseTo(series(30, (t) => spv(0.07, t)), 10);
+    expect(upv(0.07, 30)).toBeCloseTo(
+      series(30, (t) => spv(0.07, t)),
+      10,
+    );
     expect(upv(0, 12)).toBe(12);
   });
 
   it("UPV* equals its series, equals UPV at e = 0, and equals n when d = e", () => {
     // NIST Handbook 135: UPV*(d, e, n) = Σ_{t=1..n} ((1 + e)/(1 + d))^t; limit n at d = e.
-    expect(upvStar(0.03, 0.02, 25)).toBeCloseTo(series(25, (t) => (1.02 / 1.03) ** t), 10);
-    expect(upvStar(0.03, -0.01, 25)).toBeCloseTo(series(25, (t) => (0.99 / 1.03) ** t), 10);
+    expect(upvStar(0.03, 0.02, 25)).toBeCloseTo(
+      series(25, (t) => (1.02 / 1.03) ** t),
+      10,
+    );
+    expect(upvStar(0.03, -0.01, 25)).toBeCloseTo(
+      series(25, (t) => (0.99 / 1.03) ** t),
+      10,
+    );
     expect(upvStar(0.03, 0, 20)).toBeCloseTo(14.8775, 4);
     expect(upvStar(0.04, 0.04, 17)).toBe(17);
     // Just off d = e the closed form must still approach n (no 0/0 blow-up).
@@ -55,8 +64,14 @@ describe("NIST Handbook 135 discount factors", () => {
   it("mid-year variants discount from t − 0.5", () => {
     // NIST Handbook 135 mid-year convention.
     expect(spvMidYear(0.03, 1)).toBeCloseTo(1 / Math.sqrt(1.03), 12);
-    expect(upvMidYear(0.05, 10)).toBeCloseTo(series(10, (t) => 1.05 ** -(t - 0.5)), 10);
-    expect(upvStarMidYear(0.05, 0.02, 10)).toBeCloseTo(series(10, (t) => (1.02 / 1.05) ** (t - 0.5)), 10);
+    expect(upvMidYear(0.05, 10)).toBeCloseTo(
+      series(10, (t) => 1.05 ** -(t - 0.5)),
+      10,
+    );
+    expect(upvStarMidYear(0.05, 0.02, 10)).toBeCloseTo(
+      series(10, (t) => (1.02 / 1.05) ** (t - 0.5)),
+      10,
+    );
   });
 
   it("real and nominal rates: (1 + D) = (1 + d)(1 + I)", () => {

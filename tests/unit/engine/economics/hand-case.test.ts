@@ -32,10 +32,25 @@ import { describe, expect, it } from "vitest";
 import { analyzeEconomics, type EconomicsOptionInput, type TariffsInput } from "@/lib/engine/economics";
 import { syntheticPhysics } from "@/lib/engine/economics/synthetic";
 
-const zeroFirstCost = { equipment: 0, installation: 0, structureAndCrane: 0, electrical: 0, controls: 0, plateExchanger: 0, waterTreatmentEquipment: 0, meters: 0, other: 0 };
+const zeroFirstCost = {
+  equipment: 0,
+  installation: 0,
+  structureAndCrane: 0,
+  electrical: 0,
+  controls: 0,
+  plateExchanger: 0,
+  waterTreatmentEquipment: 0,
+  meters: 0,
+  other: 0,
+};
 
 const tariffs: TariffsInput = {
-  electricity: { pricing: "flat", energyPricePerKWh: 0.1, demandChargePerKWMonth: 1, demandCoincidenceFactor: 1 },
+  electricity: {
+    pricing: "flat",
+    energyPricePerKWh: 0.1,
+    demandChargePerKWMonth: 1,
+    demandCoincidenceFactor: 1,
+  },
   water: { pricePerM3: 2, fixedChargePerMonth: 0 },
   sewer: { pricePerM3: 1, fixedChargePerMonth: 0, evaporationCreditMeterChargePerMonth: 0 },
   chemicals: { costPerM3Outflow: 0.4, inhibitorPricePerKg: 0, biocidePricePerKg: 0, fixedCostPerYear: 40 },
@@ -71,8 +86,26 @@ const options: EconomicsOptionInput[] = [
 ];
 
 const physics = [
-  syntheticPhysics({ optionId: "A", kind: "openTowerDirect", energyKWh: 5000, peakDemandKW: 10, evaporationM3: 75, driftM3: 0, cyclesOfConcentration: 4, cleaningsPerYear: 1 }),
-  syntheticPhysics({ optionId: "B", kind: "closedCircuitCooler", energyKWh: 3000, peakDemandKW: 5, evaporationM3: 50, driftM3: 0, cyclesOfConcentration: 6, cleaningsPerYear: 0 }),
+  syntheticPhysics({
+    optionId: "A",
+    kind: "openTowerDirect",
+    energyKWh: 5000,
+    peakDemandKW: 10,
+    evaporationM3: 75,
+    driftM3: 0,
+    cyclesOfConcentration: 4,
+    cleaningsPerYear: 1,
+  }),
+  syntheticPhysics({
+    optionId: "B",
+    kind: "closedCircuitCooler",
+    energyKWh: 3000,
+    peakDemandKW: 5,
+    evaporationM3: 50,
+    driftM3: 0,
+    cyclesOfConcentration: 6,
+    cleaningsPerYear: 0,
+  }),
 ];
 
 const result = analyzeEconomics({
@@ -80,16 +113,36 @@ const result = analyzeEconomics({
   options,
   tariffs,
   upkeep: { labourRatePerHour: 25 },
-  economics: { baseYear: 2030, studyPeriodYears: 3, discounting: "endOfYear", analysis: "real", realDiscountRate: 0.1, inflationRate: 0.02, residualValueMethod: "linear" },
+  economics: {
+    baseYear: 2030,
+    studyPeriodYears: 3,
+    discounting: "endOfYear",
+    analysis: "real",
+    realDiscountRate: 0.1,
+    inflationRate: 0.02,
+    residualValueMethod: "linear",
+  },
 });
 const [a, b] = result.options;
 const cmp = result.comparisons[0];
 
 describe("hand-checkable two-option, three-year case (worked in the header comment)", () => {
   it("yearly cash flows", () => {
-    expect(a?.cashFlows.map((r) => r.total)).toEqual([1000, 1120, 1220, 670].map((v) => expect.closeTo(v, 9)));
+    expect(a?.cashFlows.map((r) => r.total)).toEqual(
+      [1000, 1120, 1220, 670].map((v) => expect.closeTo(v, 9)),
+    );
     expect(b?.cashFlows.map((r) => r.total)).toEqual([1500, 684, 684, -66].map((v) => expect.closeTo(v, 9)));
-    expect(a?.cashFlows[1]?.byCategory).toEqual({ investment: 0, energy: 500, demand: 120, water: 200, sewer: 100, chemicals: 100, upkeep: 100, replacements: 0, residual: 0 });
+    expect(a?.cashFlows[1]?.byCategory).toEqual({
+      investment: 0,
+      energy: 500,
+      demand: 120,
+      water: 200,
+      sewer: 100,
+      chemicals: 100,
+      upkeep: 100,
+      replacements: 0,
+      residual: 0,
+    });
     expect(a?.cashFlows[3]?.byCategory.residual).toBeCloseTo(-450, 9);
     expect(b?.cashFlows[1]?.byCategory.chemicals).toBeCloseTo(94, 9);
     expect(a?.cashFlows.map((r) => r.calendarYear)).toEqual([2030, 2030, 2031, 2032]);

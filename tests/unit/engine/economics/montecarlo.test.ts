@@ -97,7 +97,11 @@ describe("Monte Carlo", () => {
     let calls = 0;
     const r = analyzeEconomics(
       baseArgs({
-        monteCarlo: { ...mc, draws: 1000, distributions: { foulingRateFactor: { type: "triangular", min: 0.5, mode: 1, max: 2 } } },
+        monteCarlo: {
+          ...mc,
+          draws: 1000,
+          distributions: { foulingRateFactor: { type: "triangular", min: 0.5, mode: 1, max: 2 } },
+        },
         rerunPhysics: (o) => {
           calls++;
           return physicsFor(o);
@@ -110,14 +114,25 @@ describe("Monte Carlo", () => {
   });
 
   it("without a physics re-run, fouling is reported as not sampled", () => {
-    const r = analyzeEconomics(baseArgs({ monteCarlo: { ...mc, draws: 200, distributions: { foulingRateFactor: { type: "uniform", min: 0.5, max: 2 } } } }));
+    const r = analyzeEconomics(
+      baseArgs({
+        monteCarlo: {
+          ...mc,
+          draws: 200,
+          distributions: { foulingRateFactor: { type: "uniform", min: 0.5, max: 2 } },
+        },
+      }),
+    );
     expect(r.monteCarlo?.sampledInputs).not.toContain("foulingRateFactor");
     expect(r.monteCarlo?.notes.join(" ")).toMatch(/not sampled/);
   });
 
   it("reports progress up to 1", () => {
     const seen: number[] = [];
-    analyzeEconomics({ ...baseArgs({ monteCarlo: { ...mc, draws: 1000 } }), onProgress: (f) => seen.push(f) });
+    analyzeEconomics({
+      ...baseArgs({ monteCarlo: { ...mc, draws: 1000 } }),
+      onProgress: (f) => seen.push(f),
+    });
     expect(seen.at(-1)).toBe(1);
     expect([...seen].sort((a, b) => a - b)).toEqual(seen);
   });

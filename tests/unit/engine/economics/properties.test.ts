@@ -57,7 +57,9 @@ describe("monotonicity (fast-check)", () => {
         const at = (rate: number) => {
           const economics = economicsSchema.parse({ realDiscountRate: rate, residualValueMethod: "none" });
           const tariffs = tariffsSchema.parse({ escalation: { energy: e, water: e } });
-          return analyzeEconomics(baseArgs({ tariffs, economics })).options.map((o) => o.lcc - o.pvByCategory.investment);
+          return analyzeEconomics(baseArgs({ tariffs, economics })).options.map(
+            (o) => o.lcc - o.pvByCategory.investment,
+          );
         };
         const lo = at(d);
         const hi = at(d + step);
@@ -71,8 +73,22 @@ describe("monotonicity (fast-check)", () => {
     fc.assert(
       fc.property(rateArb, fc.double({ min: 0, max: 0.1, noNaN: true }), escalationArb, (d, inflation, e) => {
         const tariffs = tariffsSchema.parse({ escalation: { energy: e, sewer: e } });
-        const real = analyzeEconomics(baseArgs({ tariffs, economics: economicsSchema.parse({ realDiscountRate: d, inflationRate: inflation }) }));
-        const nominal = analyzeEconomics(baseArgs({ tariffs, economics: economicsSchema.parse({ realDiscountRate: d, inflationRate: inflation, analysis: "nominal" }) }));
+        const real = analyzeEconomics(
+          baseArgs({
+            tariffs,
+            economics: economicsSchema.parse({ realDiscountRate: d, inflationRate: inflation }),
+          }),
+        );
+        const nominal = analyzeEconomics(
+          baseArgs({
+            tariffs,
+            economics: economicsSchema.parse({
+              realDiscountRate: d,
+              inflationRate: inflation,
+              analysis: "nominal",
+            }),
+          }),
+        );
         real.options.forEach((o, i) => expect(nominal.options[i]?.lcc).toBeCloseTo(o.lcc, 3));
       }),
       { numRuns: 40 },

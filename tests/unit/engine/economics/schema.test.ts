@@ -31,7 +31,9 @@ describe("economic schemas", () => {
     const e = economicsSchema.parse({});
     expect(e.studyPeriodYears).toBe(25);
     expect(e.analysis).toBe("real");
-    expect(upkeepSchema.parse({}).labourRatePerHour).toBe(economicsFieldDefaults["upkeep.labourRatePerHour"].default);
+    expect(upkeepSchema.parse({}).labourRatePerHour).toBe(
+      economicsFieldDefaults["upkeep.labourRatePerHour"].default,
+    );
     expect(monteCarloSchema.parse({}).draws).toBe(10000);
     expect(sensitivitySchema.parse({}).tornado.waterPrice).toEqual({ enabled: true, low: 0.75, high: 1.5 });
   });
@@ -39,13 +41,22 @@ describe("economic schemas", () => {
   it("rejects inconsistent inputs with a field path", () => {
     const tou = tariffsSchema.safeParse({ electricity: { pricing: "monthHour" } });
     expect(tou.error?.issues[0]?.path).toEqual(["electricity", "energyPricePerKWhByMonthHour"]);
-    const tri = monteCarloSchema.safeParse({ distributions: { waterPriceFactor: { type: "triangular", min: 1, mode: 0.5, max: 2 } } });
+    const tri = monteCarloSchema.safeParse({
+      distributions: { waterPriceFactor: { type: "triangular", min: 1, mode: 0.5, max: 2 } },
+    });
     expect(tri.success).toBe(false);
     expect(economicsSchema.safeParse({ realDiscountRate: -1 }).success).toBe(false);
   });
 
   it("every piece converts to JSON Schema", () => {
-    for (const s of [optionCostsSchema, tariffsSchema, upkeepSchema, economicsSchema, sensitivitySchema, monteCarloSchema]) {
+    for (const s of [
+      optionCostsSchema,
+      tariffsSchema,
+      upkeepSchema,
+      economicsSchema,
+      sensitivitySchema,
+      monteCarloSchema,
+    ]) {
       expect(() => z.toJSONSchema(s, { io: "input", unrepresentable: "any" })).not.toThrow();
     }
   });

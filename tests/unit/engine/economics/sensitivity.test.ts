@@ -27,7 +27,13 @@ describe("tornado and break-even", () => {
   if (closedCosts) closedCosts.firstCost.equipment = 800000;
   const r = analyzeEconomics(args);
   const s = r.sensitivity;
-  const stored = { physics: args.physics, options: args.options, tariffs: args.tariffs, upkeep: args.upkeep, economics: args.economics };
+  const stored = {
+    physics: args.physics,
+    options: args.options,
+    tariffs: args.tariffs,
+    upkeep: args.upkeep,
+    economics: args.economics,
+  };
 
   it("one tornado per alternative, bars sorted by swing", () => {
     expect(s?.tornado.map((t) => t.alternativeOptionId)).toEqual(["plate", "closed"]);
@@ -50,14 +56,22 @@ describe("tornado and break-even", () => {
     const closed = s?.tornado.find((t) => t.alternativeOptionId === "closed");
     const bar = closed?.bars.find((b) => b.input === "firstCostPremium");
     const w = whatIf(stored, { firstCostPremiumFactor: bar?.high ?? 0 });
-    expect(w.comparisons.find((c) => c.alternativeOptionId === "closed")?.netSavings).toBeCloseTo(bar?.netSavingsAtHigh ?? NaN, 6);
+    expect(w.comparisons.find((c) => c.alternativeOptionId === "closed")?.netSavings).toBeCloseTo(
+      bar?.netSavingsAtHigh ?? NaN,
+      6,
+    );
     const dr = closed?.bars.find((b) => b.input === "discountRate");
     const w2 = whatIf(stored, { discountRate: 0.03 + (dr?.low ?? 0) });
-    expect(w2.comparisons.find((c) => c.alternativeOptionId === "closed")?.netSavings).toBeCloseTo(dr?.netSavingsAtLow ?? NaN, 6);
+    expect(w2.comparisons.find((c) => c.alternativeOptionId === "closed")?.netSavings).toBeCloseTo(
+      dr?.netSavingsAtLow ?? NaN,
+      6,
+    );
   });
 
   it("a break-even water + sewer price makes the pair tie", () => {
-    const be = s?.breakEven.find((b) => b.input === "waterAndSewerPrice" && b.alternativeOptionId === "closed");
+    const be = s?.breakEven.find(
+      (b) => b.input === "waterAndSewerPrice" && b.alternativeOptionId === "closed",
+    );
     expect(be?.value).not.toBeNull();
     const w = whatIf(stored, { waterAndSewerPriceFactor: be?.value ?? NaN });
     expect(w.comparisons.find((c) => c.alternativeOptionId === "closed")?.netSavings).toBeCloseTo(0, 3);
@@ -79,7 +93,9 @@ describe("tornado and break-even", () => {
               ? { cyclesOfConcentration: be.value }
               : { electricityPriceFactor: be.value };
         const w = whatIf(stored, ov);
-        expect(w.comparisons.find((c) => c.alternativeOptionId === be.alternativeOptionId)?.netSavings).toBeCloseTo(0, 2);
+        expect(
+          w.comparisons.find((c) => c.alternativeOptionId === be.alternativeOptionId)?.netSavings,
+        ).toBeCloseTo(0, 2);
       }
     }
   });
@@ -88,7 +104,9 @@ describe("tornado and break-even", () => {
     const narrow = defaultSensitivity();
     narrow.breakEven.waterAndSewerPrice = { enabled: true, min: 0.9, max: 1.1 };
     const rr = analyzeEconomics({ ...args, sensitivity: narrow });
-    const be = rr.sensitivity?.breakEven.find((b) => b.input === "waterAndSewerPrice" && b.alternativeOptionId === "closed");
+    const be = rr.sensitivity?.breakEven.find(
+      (b) => b.input === "waterAndSewerPrice" && b.alternativeOptionId === "closed",
+    );
     expect(be?.value).toBeNull();
     expect(be?.absoluteValue).toBeNull();
     expect(be?.note).toMatch(/^No tie within range/);
@@ -97,7 +115,12 @@ describe("tornado and break-even", () => {
   it("without a physics re-run, fouling and load bars are skipped with a reason", () => {
     const rr = analyzeEconomics(baseArgs({ sensitivity: defaultSensitivity() }));
     const bars = rr.sensitivity?.tornado[0]?.bars ?? [];
-    expect(bars.filter((b) => b.skippedReason).map((b) => b.input).sort()).toEqual(["foulingRate", "load"]);
+    expect(
+      bars
+        .filter((b) => b.skippedReason)
+        .map((b) => b.input)
+        .sort(),
+    ).toEqual(["foulingRate", "load"]);
     expect(bars.at(-1)?.skippedReason).toBeDefined();
   });
 });
