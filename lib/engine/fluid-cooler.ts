@@ -1,0 +1,343 @@
+/**
+ * Closed-circuit (indirect-contact) evaporative fluid cooler.
+ *
+ * Model: effectiveness-NTU with an enthalpy-based ("fictitious") air specific heat cs = dhs/dT —
+ * Jaber & Webb (1989), ASME J. Heat Transfer 111:837–843; Webb (1984), ASHRAE Trans. 90(2) — in
+ * the screening form of LoopLedger's engineering notes: overall conductance from an internal
+ * (fluid → tube, ∝ fluid flow^0.8, derated for glycol) and an external (film → air, ∝ airflow^0.8·cs/cs,design)
+ * resistance in series, calibrated on the manufacturer's wet rating; counterflow effectiveness;
+ * Q = ε·Cmin·(Tfluid,in − Twb) with the air capacity ma·cs.
+ * cs is the chord slope of hs between the entering wet-bulb and the mean fluid temperature.
+ *
+ * Dry mode (spray pump off): sensible only, air capacity ma·cp,moist, external conductance from the
+ * Lewis analogy hc = hD·cp times a dry factor (calibrated on the dry rating when given, else
+ * 0.5–0.8 [practice]); driving difference to the dry-bulb; no evaporation, no spray pump.
+ */
+import { saturatedAirEnthalpyKJPerKg } from "./psychrometrics";
+import { type EnteringAir, evaporationKgPerS } from "./air-side";
+import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } from "./fans";
+import { type GlycolKind, fluidProperties, tubeSideCoefficientRatio } from "./glycol";
+import { counterflowEffectiveness, counterflowNtu } from "./heat-exchanger";
+import { brentRoot } from "./solvers";
+import type { EngineWarning } from "./types";
+
+/** The manufacturer's selection of a closed-circuit cooler. */
+export interface CoolerSelection {
+  fluidFlowKgPerS: number;
+  enteringFluidC: number;
+  leavingFluidC: number;
+  designWetBulbC: number;
+  /** Fluid-to-air mass-flow ratio at design (when the airflow is not stated). */
+  designFluidToAirRatio: number;
+  /** Share of the overall wet resistance 1/UA that is inside the tubes (0…1). */
+  internalResistanceFraction: number;
+  dryRating?: { enteringFluidC: number; leavingFluidC: number; dryBulbC: number };
+  /** Dry external conductance / Lewis-analogy value hD·A·cp when no dry rating is given. */
+  dryExternalConductanceFactor: number;
+  allowDryMode: boolean;
+  /** Dry mode only at or below this dry-bulb (e.g. a plume or freeze rule); undefined = no limit. */
+  dryModeMaxDryBulbC?: number;
+  glycol: { kind: GlycolKind; massFraction: number };
+  /** Fluid the ratings were made with: "water" (engine derates for glycol) or the loop's own fluid. */
+  ratingFluid: "water" | "loopFluid";
+}
+
+/** A cooler calibrated on its rating points. Conductances in kW/K at design airflow. */
+export interface CoolerModel {
+  fluidFlowKgPerS: number;
+  /** Operating fluid capacity rate ṁ·cp, kW/K. */
+  fluidCapacityKWPerK: number;
+  fluidSpecificHeatKJPerKgK: number;
+  designAirFlowKgPerS: number;
+  designCsKJPerKgK: number;
+  internalUaKWPerK: number;
+  /** External wet conductance at design airflow and cs,design (temperature basis), kW/K. */
+  externalWetUaKWPerK: number;
+  /** hD·A at design airflow, kg/s (= externalWetUa/cs,design). */
+  externalMassTransferKgPerS: number;
+  dryFactor: number;
+  allowDryMode: boolean;
+  dryModeMaxDryBulbC: number;
+  designApproachK: number;
+}
+
+const CP_DRY_RATING_AIR = 1.006 + 1.86 * 0.005; // moist-air cp at a typical W for the dry rating
+
+/**
+ * Enthalpy-based air specific heat: chord slope cs = (hs(Tm) − hs(Twb))/(Tm − Twb), kJ/(kg·K),
+ * Tm = mean fluid temperature. One saturated-enthalpy evaluation. Source: Jaber & Webb (1989)
+ * (cs = dhs/dT over the operating span).
+ */
+export function enthalpyBasedAirSpecificHeat(meanFluidC: number, air: EnteringAir, pPa: number): number {
+  const span = meanFluidC - air.wetBulbC;
+  if (span < 0.05) return air.slopeAtWetBulbKJPerKgK;
+  return (saturatedAirEnthalpyKJPerKg(meanFluidC, pPa) - air.enthalpyKJPerKg) / span;
+}
+
+/**
+ * Calibrate internal and external conductances on the wet rating (and the dry factor on the dry
+ * rating when given): ε = Q/(Cmin·(Tin − Twb)), NTU from the counterflow relation, UA = NTU·Cmin,
+ * 1/UA split by `internalResistanceFraction`. Glycol: when ratings are on water and the loop holds
+ * glycol, the internal conductance is scaled by the Dittus–Boelter coefficient ratio at the same mass flow.
+ */
+export function calibrateCooler(
+  sel: CoolerSelection,
+  pPa: number,
+  path: string,
+): { model: CoolerModel; warnings: EngineWarning[] } {
+  const warnings: EngineWarning[] = [];
+  const meanRatingC = 0.5 * (sel.enteringFluidC + sel.leavingFluidC);
+  const water = fluidProperties("none", 0, meanRatingC);
+  const loop = fluidProperties(sel.glycol.kind, sel.glycol.massFraction, meanRatingC);
+  const ratingCp = sel.ratingFluid === "water" ? water.specificHeatKJPerKgK : loop.specificHeatKJPerKgK;
+  const ratingCf = sel.fluidFlowKgPerS * ratingCp;
+  const qRating = ratingCf * (sel.enteringFluidC - sel.leavingFluidC);
+  const ma = sel.fluidFlowKgPerS / sel.designFluidToAirRatio;
+  const twb = sel.designWetBulbC;
+  const hsWb = saturatedAirEnthalpyKJPerKg(twb, pPa);
+  const cs = (saturatedAirEnthalpyKJPerKg(meanRatingC, pPa) - hsWb) / (meanRatingC - twb);
+  const ca = ma * cs;
+  const cmin = Math.min(ca, ratingCf);
+  const cr = cmin / Math.max(ca, ratingCf);
+  let eps = qRating / (cmin * (sel.enteringFluidC - twb));
+  if (!(eps < 0.98)) {
+    warnings.push({
+      code: "cooler.ratingInfeasible",
+      severity: "warning",
+      message: `The wet rating needs an effectiveness of ${eps.toFixed(3)} at the stated airflow; capped at 0.98 — check the fluid-to-air ratio and the rating.`,
+      path: `${path}.designFluidToAirRatio`,
+    });
+    eps = 0.98;
+  }
+  const ua = counterflowNtu(eps, cr) * cmin;
+  const fInt = sel.internalResistanceFraction;
+  const uaIntRating = ua / fInt;
+  const uaExt = ua / (1 - fInt);
+  const glycolFactor = sel.ratingFluid === "water" ? tubeSideCoefficientRatio(loop, water) : 1;
+  const hDA = uaExt / cs;
+  let dryFactor = sel.dryExternalConductanceFactor;
+  if (sel.dryRating) {
+    const d = sel.dryRating;
+    const qDry = ratingCf * (d.enteringFluidC - d.leavingFluidC);
+    const caDry = ma * CP_DRY_RATING_AIR;
+    const cminD = Math.min(caDry, ratingCf);
+    const crD = cminD / Math.max(caDry, ratingCf);
+    const epsD = qDry / (cminD * (d.enteringFluidC - d.dryBulbC));
+    const uaDry = counterflowNtu(epsD, crD) * cminD;
+    const inv = 1 / uaDry - 1 / uaIntRating;
+    if (epsD > 0 && epsD < 1 && inv > 0) {
+      dryFactor = 1 / inv / (hDA * CP_DRY_RATING_AIR);
+    } else {
+      warnings.push({
+        code: "cooler.dryRatingInconsistent",
+        severity: "warning",
+        message: "The dry rating cannot be reproduced with the wet rating's internal conductance; the default dry factor was used.",
+        path: `${path}.dryRating`,
+      });
+    }
+  }
+  const cpOp = loop.specificHeatKJPerKgK;
+  return {
+    model: {
+      fluidFlowKgPerS: sel.fluidFlowKgPerS,
+      fluidCapacityKWPerK: sel.fluidFlowKgPerS * cpOp,
+      fluidSpecificHeatKJPerKgK: cpOp,
+      designAirFlowKgPerS: ma,
+      designCsKJPerKgK: cs,
+      internalUaKWPerK: uaIntRating * glycolFactor,
+      externalWetUaKWPerK: uaExt,
+      externalMassTransferKgPerS: hDA,
+      dryFactor,
+      allowDryMode: sel.allowDryMode,
+      dryModeMaxDryBulbC: sel.dryModeMaxDryBulbC ?? Number.POSITIVE_INFINITY,
+      designApproachK: sel.leavingFluidC - twb,
+    },
+    warnings,
+  };
+}
+
+/**
+ * Cooler heat-transfer "ε·Cmin" (kW/K) at an airflow fraction: wet (cs given) or dry (cs = undefined).
+ * Wet: Ca = ma·cs, UAext = UAext,d·f^0.8·cs/cs,d. Dry: Ca = ma·cp,moist, UAext = factor·hD·A·f^0.8·cp.
+ * 1/UA = 1/UAint + 1/UAext; ε counterflow.
+ */
+export function coolerConductanceKWPerK(
+  model: CoolerModel,
+  airflowFraction: number,
+  air: EnteringAir,
+  csKJPerKgK: number | undefined,
+): number {
+  const f = Math.max(airflowFraction, 1e-4);
+  const ma = model.designAirFlowKgPerS * f;
+  const f08 = Math.pow(f, 0.8);
+  let ca: number;
+  let uaExt: number;
+  if (csKJPerKgK === undefined) {
+    const cp = air.moistSpecificHeatKJPerKgK;
+    ca = ma * cp;
+    uaExt = model.dryFactor * model.externalMassTransferKgPerS * f08 * cp;
+  } else {
+    ca = ma * csKJPerKgK;
+    uaExt = model.externalWetUaKWPerK * f08 * (csKJPerKgK / model.designCsKJPerKgK);
+  }
+  const cf = model.fluidCapacityKWPerK;
+  const cmin = Math.min(ca, cf);
+  const cr = cmin / Math.max(ca, cf);
+  const ua = 1 / (1 / model.internalUaKWPerK + 1 / uaExt);
+  return counterflowEffectiveness(ua / cmin, cr) * cmin;
+}
+
+/** One hour (or bin) of cooler operation; rates are hour averages. */
+export interface CoolerHourResult {
+  mode: "wet" | "dry";
+  held: boolean;
+  /** Time-averaged leaving-fluid temperature, °C. */
+  leavingFluidC: number;
+  enteringFluidC: number;
+  airflowFraction: number;
+  fanPowerKW: number;
+  evaporationKgPerS: number;
+  sprayOn: boolean;
+}
+
+/**
+ * Leaving-fluid temperature at a given airflow, floating, °C. Dry: closed form
+ * Tin = Tdb + Q/(εCmin). Wet: fixed-point on cs (1 saturated-enthalpy evaluation per pass, 2–4 passes).
+ */
+export function coolerLeavingFluidAtAirflowC(
+  model: CoolerModel,
+  air: EnteringAir,
+  heatKW: number,
+  airflowFraction: number,
+  wet: boolean,
+  pPa: number,
+  csGuess?: number,
+): number {
+  const cf = model.fluidCapacityKWPerK;
+  if (!wet) {
+    const k = coolerConductanceKWPerK(model, airflowFraction, air, undefined);
+    return air.dryBulbC + heatKW / k - heatKW / cf;
+  }
+  let cs = csGuess ?? model.designCsKJPerKgK;
+  let tin = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, cs);
+  for (let i = 0; i < 8; i++) {
+    cs = enthalpyBasedAirSpecificHeat(tin - (0.5 * heatKW) / cf, air, pPa);
+    const next = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, cs);
+    if (Math.abs(next - tin) < 2e-4) {
+      tin = next;
+      break;
+    }
+    tin = next;
+  }
+  return tin - heatKW / cf;
+}
+
+/**
+ * Heat a cooler rejects at a given entering-fluid temperature and airflow (for rating checks), kW:
+ * Q = εCmin·(Tin − Tair) with cs consistent with the resulting mean fluid temperature.
+ */
+export function coolerCapacityKW(
+  model: CoolerModel,
+  enteringFluidC: number,
+  air: EnteringAir,
+  airflowFraction: number,
+  wet: boolean,
+  pPa: number,
+): number {
+  if (!wet) return coolerConductanceKWPerK(model, airflowFraction, air, undefined) * (enteringFluidC - air.dryBulbC);
+  const cf = model.fluidCapacityKWPerK;
+  let q = coolerConductanceKWPerK(model, airflowFraction, air, model.designCsKJPerKgK) * (enteringFluidC - air.wetBulbC);
+  for (let i = 0; i < 20; i++) {
+    const cs = enthalpyBasedAirSpecificHeat(enteringFluidC - (0.5 * q) / cf, air, pPa);
+    const next = coolerConductanceKWPerK(model, airflowFraction, air, cs) * (enteringFluidC - air.wetBulbC);
+    if (Math.abs(next - q) < 1e-6 * Math.max(1, q)) return next;
+    q = next;
+  }
+  return q;
+}
+
+/**
+ * Airflow fraction at which the cooler holds the required leaving-fluid temperature (cs fixed by the
+ * required temperatures), from εCmin(f) = Q/(Tin,req − Tair): a 1-D root in f with no
+ * saturated-enthalpy evaluation. +∞ if not even full speed (or a driving difference ≤ 0) suffices.
+ */
+function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, needKWPerK: number, cs: number | undefined): number {
+  if (!(needKWPerK > 0)) return Number.POSITIVE_INFINITY;
+  const g = (f: number): number => coolerConductanceKWPerK(model, f, air, cs) - needKWPerK;
+  const gHi = g(1);
+  if (gHi < 0) return Number.POSITIVE_INFINITY;
+  const lo = 1e-3;
+  const gLo = g(lo);
+  if (gLo >= 0) return lo;
+  return brentRoot(g, lo, 1, gLo, gHi, 1e-9);
+}
+
+/**
+ * Operate the cooler for one hour: dry if dry operation holds the required leaving-fluid temperature
+ * at allowed fan speed (and dry mode is allowed at this dry-bulb), else wet; within the mode the fan
+ * control holds the requirement or the fluid floats at full speed. Spray evaporation from the
+ * air-side balance (exit air saturated at ha,in + Q/ma) in wet hours only.
+ */
+export function solveCoolerHour(
+  model: CoolerModel,
+  fan: FanModel,
+  air: EnteringAir,
+  heatKW: number,
+  requiredLeavingFluidC: number,
+  pPa: number,
+): CoolerHourResult {
+  const cf = model.fluidCapacityKWPerK;
+  const tinReq = requiredLeavingFluidC + heatKW / cf;
+  if (!(heatKW > 0)) {
+    return { mode: "dry", held: true, leavingFluidC: requiredLeavingFluidC, enteringFluidC: requiredLeavingFluidC, airflowFraction: 0, fanPowerKW: 0, evaporationKgPerS: 0, sprayOn: false };
+  }
+  if (model.allowDryMode && air.dryBulbC <= model.dryModeMaxDryBulbC) {
+    const fDry = requiredAirflowFraction(model, air, heatKW / (tinReq - air.dryBulbC), undefined);
+    if (fDry <= 1 + 1e-6) {
+      return finishMode(model, fan, fDry, air, heatKW, requiredLeavingFluidC, false, undefined, pPa);
+    }
+  }
+  const cs = enthalpyBasedAirSpecificHeat(0.5 * (tinReq + requiredLeavingFluidC), air, pPa);
+  const fWet = requiredLeavingFluidC > air.wetBulbC ? requiredAirflowFraction(model, air, heatKW / (tinReq - air.wetBulbC), cs) : Number.POSITIVE_INFINITY;
+  return finishMode(model, fan, fWet, air, heatKW, requiredLeavingFluidC, true, cs, pPa);
+}
+
+function finishMode(
+  model: CoolerModel,
+  fan: FanModel,
+  requiredFraction: number,
+  air: EnteringAir,
+  heatKW: number,
+  requiredLeavingFluidC: number,
+  wet: boolean,
+  cs: number | undefined,
+  pPa: number,
+): CoolerHourResult {
+  const cf = model.fluidCapacityKWPerK;
+  const op = fanOperationForRequiredAirflow(fan, requiredFraction);
+  const evap = (f: number): number => (wet ? evaporationKgPerS(heatKW, f * model.designAirFlowKgPerS, pPa, air) : 0);
+  const mode = wet ? "wet" : "dry";
+  if (op.kind === "insufficient") {
+    const tout = coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, pPa, cs);
+    return { mode, held: false, leavingFluidC: tout, enteringFluidC: tout + heatKW / cf, airflowFraction: 1, fanPowerKW: op.state.powerKW, evaporationKgPerS: evap(1), sprayOn: wet };
+  }
+  if (op.kind === "continuous") {
+    // Fan off with natural draft to spare: the loop's control holds the set-point; the air that
+    // actually takes the heat is about the required airflow.
+    const f = op.state.powerKW > 0 ? op.state.airflowFraction : Math.max(requiredFraction, 1e-3);
+    return { mode, held: true, leavingFluidC: requiredLeavingFluidC, enteringFluidC: requiredLeavingFluidC + heatKW / cf, airflowFraction: f, fanPowerKW: op.state.powerKW, evaporationKgPerS: evap(f), sprayOn: wet };
+  }
+  const tLow = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.low.airflowFraction, wet, pPa, cs);
+  const tHigh = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.high.airflowFraction, wet, pPa, cs);
+  const x = highStateTimeFraction(tLow, tHigh, requiredLeavingFluidC);
+  return {
+    mode,
+    held: true,
+    leavingFluidC: requiredLeavingFluidC,
+    enteringFluidC: requiredLeavingFluidC + heatKW / cf,
+    airflowFraction: x * op.high.airflowFraction + (1 - x) * op.low.airflowFraction,
+    fanPowerKW: x * op.high.powerKW + (1 - x) * op.low.powerKW,
+    evaporationKgPerS: wet ? x * evap(op.high.airflowFraction) + (1 - x) * evap(op.low.airflowFraction) : 0,
+    sprayOn: wet,
+  };
+}

@@ -1,0 +1,223 @@
+/**
+ * The engine's scenario input: plain TypeScript, SI, units in names. The zod schema in
+ * lib/scenarios/schema.ts produces values assignable to `ScenarioInput` (checked there at compile time),
+ * with every default filled in, so the engine never guesses.
+ */
+import type { ClimateInput } from "./climate/types";
+import type {
+  EconomicsInput,
+  MonteCarloInput,
+  OptionCostsInput,
+  SensitivityInput,
+  TariffsInput,
+  UpkeepInput,
+} from "./economics/types";
+import type { GlycolKind } from "./glycol";
+
+export interface SiteInput {
+  elevationM: number;
+  locationLabel: string;
+}
+
+/** Fraction of the design heat rejection in each hour/bin. */
+export type LoadProfileInput =
+  | { kind: "constant"; fraction: number }
+  /** 288 fractions indexed (month − 1)·24 + hour, hour 0…23 starting. */
+  | { kind: "monthHour"; fractions: number[] }
+  /** One fraction per climate bin, in the bin table's order (bin climates only). */
+  | { kind: "perBin"; fractions: number[] }
+  /** Linear in dry-bulb between two points, clamped to the end fractions outside them. */
+  | { kind: "linearInDryBulb"; lowDryBulbC: number; fractionAtLowDryBulb: number; highDryBulbC: number; fractionAtHighDryBulb: number };
+
+export type CompressorModelInput = { kind: "carnotFraction" } | { kind: "percentPerK"; percentPerK: number };
+
+export interface DutyInput {
+  /** "heatRejection": the design heat rejection is entered; "refrigeration": load + COP → rejection = load·(1 + 1/COP). */
+  designBasis: "heatRejection" | "refrigeration";
+  designHeatRejectionKW?: number;
+  designRefrigerationLoadKW?: number;
+  /** Compressor COP at the condensing set-point and the evaporating temperature. */
+  designCop: number;
+  evaporatingC: number;
+  /** Condensing temperature the head-pressure control holds (fixed) or never exceeds by design (floating). */
+  condensingSetPointC: number;
+  /** Lowest condensing temperature allowed (expansion devices, oil return, defrost). */
+  minimumCondensingC: number;
+  /**
+   * "fixedSetPoint": fans modulate to hold the set-point. "floating": fans run as needed to bring the
+   * condensing temperature down to the minimum (floating head pressure).
+   */
+  headPressureControl: "fixedSetPoint" | "floating";
+  loadProfile: LoadProfileInput;
+  compressorModel: CompressorModelInput;
+}
+
+export interface FanInput {
+  /** Motor input power at full speed (all cells), kW. */
+  designPowerKW: number;
+  control: "variableSpeed" | "twoSpeed" | "cycling";
+  minSpeedFraction: number;
+  powerFloorFraction: number;
+  lowSpeedFraction: number;
+  naturalDraftAirflowFraction: number;
+}
+
+/** A constant-speed pump; flow is the loop's flow. Head in metres of water at that flow. */
+export interface PumpInput {
+  headM: number;
+  /** Wire-to-water efficiency (pump × motor × drive). */
+  efficiency: number;
+}
+
+export interface BasinHeaterInput {
+  powerKW: number;
+  /** The heater runs in hours below this dry-bulb in which no warm water wets the basin (see annual.ts). */
+  belowDryBulbC: number;
+}
+
+export interface CondenserInput {
+  /** Condensing temperature at the design heat rejection, design entering water and loop flow. */
+  designCondensingC: number;
+  /** Entering water at that design point; default: the loop's design supply temperature. */
+  designEnteringWaterC?: number;
+  cleanUWPerM2K: number;
+  /** Fouling allowance already contained in the stated design point (0 = the design is the clean condenser). */
+  designFoulingM2KPerW: number;
+}
+
+export interface TowerSelectionInput {
+  waterFlowKgPerS: number;
+  enteringWaterC: number;
+  leavingWaterC: number;
+  designWetBulbC: number;
+  designLiquidToGasRatio: number;
+  characteristicExponent: number;
+}
+
+export interface PlateExchangerInput {
+  designApproachK: number;
+  cleanUWPerM2K: number;
+  /** Clean (condenser) loop flow; default the tower's water flow. */
+  cleanSideFlowKgPerS?: number;
+  towerSidePressureDropKPa: number;
+  cleanSidePressureDropKPa: number;
+  /** Growth of the plates' fouling relative to the condenser-tube growth law. */
+  foulingGrowthFactor: number;
+}
+
+export interface CoolerSelectionInput {
+  fluidFlowKgPerS: number;
+  enteringFluidC: number;
+  leavingFluidC: number;
+  designWetBulbC: number;
+  designFluidToAirRatio: number;
+  internalResistanceFraction: number;
+  dryRating?: { enteringFluidC: number; leavingFluidC: number; dryBulbC: number };
+  dryExternalConductanceFactor: number;
+  allowDryMode: boolean;
+  dryModeMaxDryBulbC?: number;
+  glycol: { kind: GlycolKind; massFraction: number };
+  ratingFluid: "water" | "loopFluid";
+}
+
+export interface SprayPumpInput {
+  flowKgPerS: number;
+  headM: number;
+  efficiency: number;
+  /** Motor input from the selection; overrides ṁ·g·H/η when given. */
+  powerKW?: number;
+}
+
+interface OptionBaseInput {
+  id: string;
+  label: string;
+  costs: OptionCostsInput;
+  fan: FanInput;
+  condenser: CondenserInput;
+  /** Pump through the condenser (tower water, clean loop or process fluid). */
+  condenserPump: PumpInput;
+  basinHeater: BasinHeaterInput;
+  /** Drift as a fraction of the circulating (tower or spray) water flow. */
+  driftFractionOfFlow: number;
+  /** Water volume of the wet loop; default: 3 minutes of its circulating flow. */
+  wetLoopVolumeM3?: number;
+}
+
+export interface OpenTowerDirectOptionInput extends OptionBaseInput {
+  kind: "openTowerDirect";
+  tower: TowerSelectionInput;
+}
+
+export interface OpenTowerPlateHxOptionInput extends OptionBaseInput {
+  kind: "openTowerPlateHx";
+  tower: TowerSelectionInput;
+  plateExchanger: PlateExchangerInput;
+  /** Second pump: tower water through the exchanger's tower side. */
+  towerPump: PumpInput;
+}
+
+export interface ClosedCircuitCoolerOptionInput extends OptionBaseInput {
+  kind: "closedCircuitCooler";
+  cooler: CoolerSelectionInput;
+  sprayPump: SprayPumpInput;
+}
+
+export type OptionInput = OpenTowerDirectOptionInput | OpenTowerPlateHxOptionInput | ClosedCircuitCoolerOptionInput;
+
+export interface MakeupAnalysisInput {
+  conductivityUSPerCm?: number;
+  calciumHardnessMgPerLAsCaCO3: number;
+  mAlkalinityMgPerLAsCaCO3: number;
+  silicaMgPerL: number;
+  chlorideMgPerL: number;
+  ph: number;
+  tdsMgPerL: number;
+}
+
+export interface ChemistryLimitsInput {
+  silicaMgPerL: number;
+  chlorideMgPerL: number;
+  tdsMgPerL: number;
+  calciumHardnessMgPerLAsCaCO3: number;
+}
+
+export interface WaterInput {
+  makeup: MakeupAnalysisInput;
+  limits: ChemistryLimitsInput;
+  /** "entered": use `cyclesOfConcentration`; "fromChemistry": Cmax from makeup and limits. */
+  cyclesMode: "entered" | "fromChemistry";
+  cyclesOfConcentration?: number;
+  /** pH of the recirculating water for the scaling indices. */
+  recirculatingPh: number;
+  sewerEvaporationCredit: boolean;
+  dosing: { inhibitorMgPerLOutflow: number; biocideMgPerLSystemVolume: number; biocideSlugsPerYear: number };
+}
+
+export interface FoulingInput {
+  model: "asymptotic" | "linear";
+  asymptoticM2KPerW: number;
+  timeConstantMonths: number;
+  linearRateM2KPerWPerMonth: number;
+  /** Allowance the fouling should not exceed before a cleaning (warning only). */
+  limitM2KPerW: number;
+  condenserCleaningIntervalMonths: number;
+  plateExchangerCleaningIntervalMonths: number;
+  /** Constant fouling of condensers fed by a closed loop (plate and cooler options). */
+  closedLoopFoulingM2KPerW: number;
+}
+
+export interface ScenarioInput {
+  inputVersion: 1;
+  name: string;
+  site: SiteInput;
+  climate: ClimateInput;
+  duty: DutyInput;
+  options: OptionInput[];
+  water: WaterInput;
+  fouling: FoulingInput;
+  tariffs: TariffsInput;
+  upkeep: UpkeepInput;
+  economics: EconomicsInput;
+  sensitivity?: SensitivityInput;
+  monteCarlo?: MonteCarloInput;
+}

@@ -1,0 +1,375 @@
+/**
+ * Open (wet) counterflow cooling tower: Merkel's method with the CTI four-point Chebyshev rule.
+ *
+ * Demand (Merkel 1925): KaV/L = ∫ cpw·dT/(hs(T) − ha(T)) from the cold- to the hot-water temperature,
+ * ha(T) = ha,in + (L/G)·cpw·(T − Tcold) (counterflow operating line), ha,in = hs(entering wet-bulb).
+ * Four-point Chebyshev (CTI ATC-105): KaV/L ≈ (cpw·R/4)·Σ 1/(hs − ha) at Tcold + {0.1, 0.4, 0.6, 0.9}·R.
+ * Supply (tower characteristic): KaV/L = C·(L/G)^−n, C calibrated at the manufacturer's design point.
+ * Airflow is proportional to fan speed; water flow is constant (constant-speed condenser-water pumps).
+ */
+import { saturatedAirEnthalpyKJPerKg, waterSpecificHeatKJPerKgK } from "./psychrometrics";
+import { type EnteringAir, evaporationKgPerS } from "./air-side";
+import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } from "./fans";
+import { saturatedEnthalpySlopeKJPerKgK } from "./saturation";
+import { brentRoot } from "./solvers";
+import type { EngineWarning } from "./types";
+
+const CPW = waterSpecificHeatKJPerKgK;
+
+/** Chebyshev abscissae of the CTI four-point rule, as fractions of the range. */
+export const CHEBYSHEV_RANGE_FRACTIONS = [0.1, 0.4, 0.6, 0.9] as const;
+
+/**
+ * Merkel number (tower demand) by the CTI four-point Chebyshev rule, dimensionless.
+ * KaV/L = (cpw·R/4)·Σᵢ 1/(hs(Tc + kᵢR) − ha,in − (L/G)·cpw·kᵢR), kᵢ ∈ {0.1, 0.4, 0.6, 0.9}.
+ * Source: Merkel (1925); CTI ATC-105 (Chebyshev integration). Units: °C, K, kJ/kg, kJ/(kg·K).
+ * Returns +∞ where the operating line reaches the saturation curve (no solution).
+ */
+export function merkelNumberChebyshev(
+  coldWaterC: number,
+  rangeK: number,
+  liquidToGasRatio: number,
+  enteringAirEnthalpyKJPerKg: number,
+  pPa: number,
+): number {
+  let sum = 0;
+  for (const k of CHEBYSHEV_RANGE_FRACTIONS) {
+    const hs = saturatedAirEnthalpyKJPerKg(coldWaterC + k * rangeK, pPa);
+    const drive = hs - enteringAirEnthalpyKJPerKg - liquidToGasRatio * CPW * k * rangeK;
+    if (!(drive > 0)) return Number.POSITIVE_INFINITY;
+    sum += 1 / drive;
+  }
+  return ((CPW * rangeK) / 4) * sum;
+}
+
+/**
+ * The same Merkel integral by composite Simpson's rule with `intervals` (even) sub-intervals —
+ * the fine reference the Chebyshev rule is tested against. Not for the inner loop.
+ */
+export function merkelNumberNumerical(
+  coldWaterC: number,
+  rangeK: number,
+  liquidToGasRatio: number,
+  enteringAirEnthalpyKJPerKg: number,
+  pPa: number,
+  intervals = 2000,
+): number {
+  const n = intervals % 2 === 0 ? intervals : intervals + 1;
+  const h = rangeK / n;
+  let sum = 0;
+  for (let i = 0; i <= n; i++) {
+    const dt = i * h;
+    const drive =
+      saturatedAirEnthalpyKJPerKg(coldWaterC + dt, pPa) - enteringAirEnthalpyKJPerKg - liquidToGasRatio * CPW * dt;
+    if (!(drive > 0)) return Number.POSITIVE_INFINITY;
+    const weight = i === 0 || i === n ? 1 : i % 2 === 1 ? 4 : 2;
+    sum += weight / drive;
+  }
+  return ((CPW * h) / 3) * sum;
+}
+
+/**
+ * Tower characteristic (supply): KaV/L = C·(L/G)^−n. Source: CTI ATC-105 / Merkel practice;
+ * n ≈ 0.5–0.8 [practice].
+ */
+export function towerCharacteristicMerkel(coefficientC: number, exponentN: number, liquidToGasRatio: number): number {
+  return coefficientC * Math.pow(liquidToGasRatio, -exponentN);
+}
+
+/** The manufacturer's design point of a tower selection. */
+export interface TowerSelection {
+  waterFlowKgPerS: number;
+  enteringWaterC: number;
+  leavingWaterC: number;
+  designWetBulbC: number;
+  /** L/G at design (the selection rarely states the airflow; 0.75–1.5 for counterflow [practice]). */
+  designLiquidToGasRatio: number;
+  characteristicExponent: number;
+}
+
+/** A tower calibrated on its design point. */
+export interface TowerModel {
+  waterFlowKgPerS: number;
+  designAirFlowKgPerS: number;
+  designLiquidToGasRatio: number;
+  coefficientC: number;
+  exponentN: number;
+  designMerkel: number;
+  designRangeK: number;
+  designApproachK: number;
+}
+
+/**
+ * Calibrate the tower characteristic C on the design point: C = (KaV/L)design·(L/G)design^n, with the
+ * design demand from the Chebyshev rule at the design wet-bulb, range and approach.
+ * Where the stated L/G puts the operating line through the saturation curve it is lowered to 90 %
+ * of the pinch value (with a warning): a design point is always feasible at some airflow.
+ */
+export function calibrateTower(
+  selection: TowerSelection,
+  pPa: number,
+  path: string,
+): { model: TowerModel; warnings: EngineWarning[] } {
+  const warnings: EngineWarning[] = [];
+  const rangeK = selection.enteringWaterC - selection.leavingWaterC;
+  const haIn = saturatedAirEnthalpyKJPerKg(selection.designWetBulbC, pPa);
+  let lg = selection.designLiquidToGasRatio;
+  let demand = merkelNumberChebyshev(selection.leavingWaterC, rangeK, lg, haIn, pPa);
+  if (!Number.isFinite(demand)) {
+    const lgPinch = pinchLiquidToGasRatio(selection.leavingWaterC, rangeK, haIn, pPa);
+    lg = 0.9 * lgPinch;
+    demand = merkelNumberChebyshev(selection.leavingWaterC, rangeK, lg, haIn, pPa);
+    warnings.push({
+      code: "tower.designLiquidToGasInfeasible",
+      severity: "warning",
+      message: `At the design point the stated L/G of ${selection.designLiquidToGasRatio} would saturate the air before it leaves; L/G ${round3(lg)} (90 % of the limit) was used instead.`,
+      path: `${path}.designLiquidToGasRatio`,
+    });
+  }
+  const model: TowerModel = {
+    waterFlowKgPerS: selection.waterFlowKgPerS,
+    designAirFlowKgPerS: selection.waterFlowKgPerS / lg,
+    designLiquidToGasRatio: lg,
+    coefficientC: demand * Math.pow(lg, selection.characteristicExponent),
+    exponentN: selection.characteristicExponent,
+    designMerkel: demand,
+    designRangeK: rangeK,
+    designApproachK: selection.leavingWaterC - selection.designWetBulbC,
+  };
+  return { model, warnings };
+}
+
+/** Largest L/G for which the four Chebyshev driving forces stay positive. */
+function pinchLiquidToGasRatio(coldWaterC: number, rangeK: number, haIn: number, pPa: number): number {
+  let lgMax = Number.POSITIVE_INFINITY;
+  for (const k of CHEBYSHEV_RANGE_FRACTIONS) {
+    const hs = saturatedAirEnthalpyKJPerKg(coldWaterC + k * rangeK, pPa);
+    lgMax = Math.min(lgMax, (hs - haIn) / (CPW * k * rangeK));
+  }
+  return lgMax;
+}
+
+/**
+ * L/G at which a tower with characteristic C·(L/G)^−n delivers a given cold-water temperature at a
+ * given range, from the four saturated enthalpies hs(Tc + kᵢR) (fixed once Tc and R are fixed):
+ * solve (cpw·R/4)·Σ 1/(hsᵢ − ha,in − (L/G)·cpw·kᵢR) = C·(L/G)^−n, a monotone 1-D root in ln(L/G)
+ * that needs no further saturated-enthalpy evaluation. Returns 0 when no airflow can do it
+ * (cold water at or below the wet-bulb).
+ */
+export function requiredLiquidToGasRatio(
+  saturatedEnthalpiesKJPerKg: readonly number[],
+  enteringAirEnthalpyKJPerKg: number,
+  rangeK: number,
+  coefficientC: number,
+  exponentN: number,
+): number {
+  let lgMax = Number.POSITIVE_INFINITY;
+  for (let i = 0; i < 4; i++) {
+    const drive0 = (saturatedEnthalpiesKJPerKg[i] ?? 0) - enteringAirEnthalpyKJPerKg;
+    if (!(drive0 > 0)) return 0;
+    lgMax = Math.min(lgMax, drive0 / (CPW * (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK));
+  }
+  const g = (u: number): number => {
+    const lg = Math.exp(u);
+    let sum = 0;
+    for (let i = 0; i < 4; i++) {
+      const drive =
+        (saturatedEnthalpiesKJPerKg[i] ?? 0) - enteringAirEnthalpyKJPerKg - lg * CPW * (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK;
+      if (!(drive > 0)) return 1e30;
+      sum += 1 / drive;
+    }
+    return Math.log(((CPW * rangeK) / 4) * sum) - Math.log(coefficientC) + exponentN * u;
+  };
+  const uHi = Math.log(lgMax) - 1e-9;
+  let uLo = Math.log(lgMax) - 4;
+  let gLo = g(uLo);
+  for (let i = 0; i < 20 && gLo > 0; i++) {
+    uLo -= 4;
+    gLo = g(uLo);
+  }
+  const gHi = g(uHi);
+  if (gLo > 0) return Math.exp(uLo);
+  if (gHi < 0) return lgMax;
+  return Math.exp(brentRoot(g, uLo, uHi, gLo, gHi, 1e-9));
+}
+
+/**
+ * Cold-water temperature the tower delivers at a given airflow (floating, not controlled), °C:
+ * the Tc where Chebyshev demand equals the characteristic, found by bracketed Newton on
+ * 1/demand − 1/supply with the analytic slope of hs.
+ * 4 saturated-enthalpy evaluations per iteration; `guessC` (e.g. the set-point) speeds it up.
+ */
+export function towerColdWaterAtAirflowC(
+  model: TowerModel,
+  air: EnteringAir,
+  heatKW: number,
+  airflowFraction: number,
+  pPa: number,
+  guessC?: number,
+  known?: { tC: number; saturatedEnthalpiesKJPerKg: readonly number[] },
+): number {
+  const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
+  const lg = model.waterFlowKgPerS / (model.designAirFlowKgPerS * Math.max(airflowFraction, 1e-3));
+  const supply = towerCharacteristicMerkel(model.coefficientC, model.exponentN, lg);
+  const haIn = air.enthalpyKJPerKg;
+  const floorC = air.wetBulbC + 1e-3;
+  let t = Math.max(known?.tC ?? guessC ?? air.wetBulbC + model.designApproachK, floorC);
+  let lo = floorC; // residual > 0 side (too cold)
+  let hi = Number.POSITIVE_INFINITY; // residual < 0 side
+  for (let iter = 0; iter < 40; iter++) {
+    let sum = 0;
+    let dsum = 0;
+    let feasible = true;
+    const reuse = iter === 0 && known !== undefined && known.tC === t;
+    for (let i = 0; i < 4; i++) {
+      const k = CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0;
+      const tk = t + k * rangeK;
+      const hs = reuse ? (known.saturatedEnthalpiesKJPerKg[i] ?? 0) : saturatedAirEnthalpyKJPerKg(tk, pPa);
+      const drive = hs - haIn - lg * CPW * k * rangeK;
+      if (!(drive > 0)) {
+        feasible = false;
+        break;
+      }
+      sum += 1 / drive;
+      dsum += saturatedEnthalpySlopeKJPerKgK(tk, hs) / (drive * drive);
+    }
+    if (!feasible) {
+      lo = Math.max(lo, t);
+      t = Number.isFinite(hi) ? 0.5 * (lo + hi) : t + Math.max(2, rangeK);
+      continue;
+    }
+    // Residual in 1/KaV/L: the harmonic-mean driving force is nearly linear in Tc, so Newton on
+    // ρ = 1/demand − 1/supply converges in two or three steps.
+    const demand = ((CPW * rangeK) / 4) * sum;
+    const rho = 1 / demand - 1 / supply;
+    if (rho < 0) lo = Math.max(lo, t);
+    else hi = Math.min(hi, t);
+    const dRho = (((CPW * rangeK) / 4) * dsum) / (demand * demand);
+    let next = t - rho / dRho;
+    if (!(next > lo && next < hi)) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : t + Math.max(2, rangeK);
+    if (Math.abs(next - t) < 2e-4) return Math.max(next, floorC);
+    t = next;
+  }
+  return Math.max(t, floorC);
+}
+
+/**
+ * Heat the tower rejects with a given hot (entering) water temperature, wet-bulb and airflow, kW:
+ * the range R where demand(Tc = Th − R, R) = supply, Q = L·cpw·R. Used to check monotonicity
+ * (capacity falls as wet-bulb rises and as fan speed falls); not used in the annual loop.
+ */
+export function towerCapacityKW(
+  model: TowerModel,
+  hotWaterC: number,
+  air: EnteringAir,
+  airflowFraction: number,
+  pPa: number,
+): number {
+  const maxRange = hotWaterC - air.wetBulbC;
+  if (!(maxRange > 0)) return 0;
+  const lg = model.waterFlowKgPerS / (model.designAirFlowKgPerS * Math.max(airflowFraction, 1e-3));
+  const supply = towerCharacteristicMerkel(model.coefficientC, model.exponentN, lg);
+  const res = (rangeK: number): number => {
+    const d = merkelNumberChebyshev(hotWaterC - rangeK, rangeK, lg, air.enthalpyKJPerKg, pPa);
+    return Number.isFinite(d) ? d - supply : 1e6;
+  };
+  const lo = 1e-6 * maxRange;
+  const hi = maxRange * (1 - 1e-6);
+  const fLo = res(lo);
+  const fHi = res(hi);
+  if (fLo > 0) return 0;
+  if (fHi < 0) return model.waterFlowKgPerS * CPW * hi;
+  return model.waterFlowKgPerS * CPW * brentRoot(res, lo, hi, fLo, fHi, 1e-9);
+}
+
+/** One hour (or bin) of tower operation. Rates are hour averages. */
+export interface TowerHourResult {
+  /** The cold-water temperature was held at the required value (false: floated above it at full fan). */
+  held: boolean;
+  /** Time-averaged cold-water temperature leaving the tower, °C. */
+  coldWaterC: number;
+  hotWaterC: number;
+  /** Time-averaged airflow fraction. */
+  airflowFraction: number;
+  fanPowerKW: number;
+  evaporationKgPerS: number;
+}
+
+/**
+ * Operate the tower for one hour: hold the required cold-water temperature with the installed fan
+ * control, or float at full speed when it cannot.
+ * 1. With Tc fixed at the requirement the four hs values are fixed: solve L/G (cheap 1-D root) →
+ *    required airflow fraction f = (L/(L/G))/Gdesign.
+ * 2. The fan control maps f to a continuous speed or a time mix of two states (mix fraction by the
+ *    states' floating cold-water temperatures); f > 1 → full speed, floating Tc (Newton).
+ * 3. Evaporation E = G·(Wout − Win) for each state (exit air saturated at ha,in + Q/G).
+ */
+export function solveTowerHour(
+  model: TowerModel,
+  fan: FanModel,
+  air: EnteringAir,
+  heatKW: number,
+  requiredColdWaterC: number,
+  pPa: number,
+): TowerHourResult {
+  if (!(heatKW > 0)) {
+    return { held: true, coldWaterC: requiredColdWaterC, hotWaterC: requiredColdWaterC, airflowFraction: 0, fanPowerKW: 0, evaporationKgPerS: 0 };
+  }
+  const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
+  let requiredFraction = Number.POSITIVE_INFINITY;
+  const hs = [0, 0, 0, 0];
+  let haveHs = false;
+  if (requiredColdWaterC > air.wetBulbC) {
+    haveHs = true;
+    for (let i = 0; i < 4; i++) {
+      hs[i] = saturatedAirEnthalpyKJPerKg(requiredColdWaterC + (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK, pPa);
+    }
+    const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN);
+    if (lg > 0) requiredFraction = model.waterFlowKgPerS / lg / model.designAirFlowKgPerS;
+  }
+  const op = fanOperationForRequiredAirflow(fan, requiredFraction);
+  const airFlow = (f: number): number => f * model.designAirFlowKgPerS;
+  if (op.kind === "insufficient") {
+    const known = haveHs ? { tC: requiredColdWaterC, saturatedEnthalpiesKJPerKg: hs } : undefined;
+    const tc = towerColdWaterAtAirflowC(model, air, heatKW, 1, pPa, requiredColdWaterC, known);
+    return {
+      held: false,
+      coldWaterC: tc,
+      hotWaterC: tc + rangeK,
+      airflowFraction: 1,
+      fanPowerKW: op.state.powerKW,
+      evaporationKgPerS: evaporationKgPerS(heatKW, airFlow(1), pPa, air),
+    };
+  }
+  if (op.kind === "continuous") {
+    // With the fan off and natural draft more than enough, the loop's head-pressure control holds the
+    // set-point; the tower sees the required airflow's evaporation.
+    const f = Math.max(Math.min(requiredFraction, 1), 1e-3);
+    return {
+      held: true,
+      coldWaterC: requiredColdWaterC,
+      hotWaterC: requiredColdWaterC + rangeK,
+      airflowFraction: f,
+      fanPowerKW: op.state.powerKW,
+      evaporationKgPerS: evaporationKgPerS(heatKW, airFlow(f), pPa, air),
+    };
+  }
+  const known = haveHs ? { tC: requiredColdWaterC, saturatedEnthalpiesKJPerKg: hs } : undefined;
+  const tLow = towerColdWaterAtAirflowC(model, air, heatKW, op.low.airflowFraction, pPa, requiredColdWaterC, known);
+  const tHigh = towerColdWaterAtAirflowC(model, air, heatKW, op.high.airflowFraction, pPa, requiredColdWaterC, known);
+  const x = highStateTimeFraction(tLow, tHigh, requiredColdWaterC);
+  const eLow = evaporationKgPerS(heatKW, airFlow(op.low.airflowFraction), pPa, air);
+  const eHigh = evaporationKgPerS(heatKW, airFlow(op.high.airflowFraction), pPa, air);
+  return {
+    held: true,
+    coldWaterC: requiredColdWaterC,
+    hotWaterC: requiredColdWaterC + rangeK,
+    airflowFraction: x * op.high.airflowFraction + (1 - x) * op.low.airflowFraction,
+    fanPowerKW: x * op.high.powerKW + (1 - x) * op.low.powerKW,
+    evaporationKgPerS: x * eHigh + (1 - x) * eLow,
+  };
+}
+
+function round3(x: number): number {
+  return Math.round(x * 1000) / 1000;
+}
