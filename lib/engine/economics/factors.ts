@@ -7,8 +7,23 @@
  * fractions per year.
  */
 
-/** |d − e| below this is treated as d = e, where UPV* has the limit n (the formula is 0/0 there). */
-const EQUAL_RATE_TOLERANCE = 1e-9;
+/**
+ * Below this |d − e| (or |d| for UPV) the closed forms lose digits to cancellation (0/0 in the limit),
+ * so the factor is summed term by term instead, which is exact to rounding for the integer study
+ * periods the schema allows.
+ */
+const NEAR_EQUAL_RATES = 1e-5;
+
+/** Σ_{t=1..n} x^t by direct summation (n a whole number of years). */
+function geometricSum(x: number, n: number): number {
+  let s = 0;
+  let p = 1;
+  for (let t = 1; t <= n; t++) {
+    p *= x;
+    s += p;
+  }
+  return s;
+}
 
 /**
  * Single present value factor SPV(d, t) = (1 + d)^−t: the present value of 1 paid at time t.
@@ -23,7 +38,7 @@ export function spv(d: number, t: number): number {
  * the end of each of n years. UPV(0, n) = n. Source: NIST Handbook 135, UPV formula (Table 4-1).
  */
 export function upv(d: number, n: number): number {
-  if (Math.abs(d) < EQUAL_RATE_TOLERANCE) return n;
+  if (Math.abs(d) < NEAR_EQUAL_RATES && Number.isInteger(n)) return geometricSum(1 / (1 + d), n);
   const g = Math.pow(1 + d, n);
   return (g - 1) / (d * g);
 }
@@ -35,7 +50,8 @@ export function upv(d: number, n: number): number {
  * Source: NIST Handbook 135, UPV* formula (Table 4-1).
  */
 export function upvStar(d: number, e: number, n: number): number {
-  if (Math.abs(d - e) < EQUAL_RATE_TOLERANCE) return n;
+  if (d === e) return n;
+  if (Math.abs(d - e) < NEAR_EQUAL_RATES && Number.isInteger(n)) return geometricSum((1 + e) / (1 + d), n);
   return ((1 + e) / (d - e)) * (1 - Math.pow((1 + e) / (1 + d), n));
 }
 

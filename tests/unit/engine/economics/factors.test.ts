@@ -54,6 +54,20 @@ describe("NIST Handbook 135 discount factors", () => {
     expect(upvStar(0.04, 0.04 + 1e-7, 17)).toBeCloseTo(17, 4);
   });
 
+  it("UPV* keeps its digits when d and e differ by a hair (found by a property test)", () => {
+    // NIST Handbook 135 series definition as the reference; the closed form cancels near d = e.
+    const d = 1.1 * (1 + 9e-10) - 1;
+    const e = 0.1;
+    expect(upvStar(d, e, 25)).toBeCloseTo(
+      series(25, (t) => ((1 + e) / (1 + d)) ** t),
+      10,
+    );
+    expect(upv(9e-10, 25)).toBeCloseTo(
+      series(25, (t) => (1 + 9e-10) ** -t),
+      10,
+    );
+  });
+
   it("UPV* equals UPV at the escalation-adjusted rate (1 + d)/(1 + e) − 1", () => {
     // Identity of the Handbook 135 factor definitions: ((1 + e)/(1 + d))^t = (1 + d')^−t.
     const d = 0.06;
