@@ -24,7 +24,11 @@
  */
 import { mkdirSync, writeFileSync } from "node:fs";
 import { dirname, resolve } from "node:path";
-import { generateSyntheticYear, syntheticYearToCsv, syntheticYearToEpw } from "../lib/engine/climate/synthetic";
+import {
+  generateSyntheticYear,
+  syntheticYearToCsv,
+  syntheticYearToEpw,
+} from "../lib/engine/climate/synthetic";
 
 function arg(name: string): string | undefined {
   const i = process.argv.indexOf(`--${name}`);

@@ -92,7 +92,8 @@ export const hourlyClimateInputSchema = z
     }
     for (let i = 0; i < v.hour.length; i++) {
       const h = v.hour[i] ?? NaN;
-      if (!Number.isInteger(h) || h < 0 || h > 23) report("hour", i, `hour must be a whole number 0…23, not ${h}`);
+      if (!Number.isInteger(h) || h < 0 || h > 23)
+        report("hour", i, `hour must be a whole number 0…23, not ${h}`);
     }
     for (const key of ["dryBulbC", "wetBulbC"] as const) {
       const arr = v[key];

@@ -244,10 +244,19 @@ export function assembleHourlyYear(
 
   for (const name of names) {
     const k = interpolatedHours[name] ?? 0;
-    if (k > 0) warnings.push({ line: 0, field: name, message: `${k} hours of ${name} filled by linear interpolation` });
+    if (k > 0)
+      warnings.push({
+        line: 0,
+        field: name,
+        message: `${k} hours of ${name} filled by linear interpolation`,
+      });
   }
   if (absentHours > 0) {
-    warnings.push({ line: 0, field: "data", message: `${absentHours} hours had no record at all and were interpolated` });
+    warnings.push({
+      line: 0,
+      field: "data",
+      message: `${absentHours} hours had no record at all and were interpolated`,
+    });
   }
 
   const [db, hum, p] = channels as [Float64Array, Float64Array, Float64Array];
@@ -285,8 +294,15 @@ export function assembleHourlyYear(
     }
   }
   if (clamped > 0) {
-    const what = opts.humidityKind === "relativeHumidity" ? "a relative humidity above 100 %" : `a ${opts.humidityKind === "dewPoint" ? "dew point" : "wet-bulb"} above the dry-bulb`;
-    warnings.push({ line: 0, field: names[1]!, message: `${clamped} hours had ${what} and were taken as saturated` });
+    const what =
+      opts.humidityKind === "relativeHumidity"
+        ? "a relative humidity above 100 %"
+        : `a ${opts.humidityKind === "dewPoint" ? "dew point" : "wet-bulb"} above the dry-bulb`;
+    warnings.push({
+      line: 0,
+      field: names[1]!,
+      message: `${clamped} hours had ${what} and were taken as saturated`,
+    });
   }
 
   const year: HourlyClimateYear = {

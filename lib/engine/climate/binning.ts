@@ -126,7 +126,11 @@ export function binnedClimateFromHourly(
  * (Hyndman & Fan 1996, definition 7). Weighted (bins): the value of the bin in which the cumulative
  * hours counted from the top reach p % of the total (bins carry no width to interpolate within).
  */
-export function exceedanceValue(values: ArrayLike<number>, exceedancePercent: number, weights?: ArrayLike<number>): number {
+export function exceedanceValue(
+  values: ArrayLike<number>,
+  exceedancePercent: number,
+  weights?: ArrayLike<number>,
+): number {
   const n = values.length;
   if (n === 0) return NaN;
   const p = exceedancePercent / 100;
@@ -170,14 +174,20 @@ export function designWetBulbPercentilesC(
   }
   const values = year.bins.map((b) => b.wetBulbC);
   const weights = year.bins.map((b) => b.hours);
-  return exceedancePercents.map((p) => ({ exceedancePercent: p, wetBulbC: exceedanceValue(values, p, weights) }));
+  return exceedancePercents.map((p) => ({
+    exceedancePercent: p,
+    wetBulbC: exceedanceValue(values, p, weights),
+  }));
 }
 
 /**
  * Month × hour matrix of the mean of a quantity (12 rows of 24), for heat maps. Hours of the day are
  * 0…23 (hour starting). A cell with no hours is NaN.
  */
-export function monthHourMeanC(year: HourlyClimateYear, quantity: "wetBulbC" | "dryBulbC" = "wetBulbC"): number[][] {
+export function monthHourMeanC(
+  year: HourlyClimateYear,
+  quantity: "wetBulbC" | "dryBulbC" = "wetBulbC",
+): number[][] {
   const sum = new Float64Array(288);
   const cnt = new Float64Array(288);
   const v = year[quantity];
@@ -209,7 +219,11 @@ export interface HistogramBar {
  * Hours per temperature band of width `binWidthK` (bands centred on multiples of the width), with the
  * empty bands between the lowest and highest filled one included so a chart has no holes.
  */
-export function histogram(values: ArrayLike<number>, binWidthK = 1, weights?: ArrayLike<number>): HistogramBar[] {
+export function histogram(
+  values: ArrayLike<number>,
+  binWidthK = 1,
+  weights?: ArrayLike<number>,
+): HistogramBar[] {
   if (values.length === 0) return [];
   const acc = new Map<number, number>();
   let lo = Infinity;
@@ -222,7 +236,12 @@ export function histogram(values: ArrayLike<number>, binWidthK = 1, weights?: Ar
   }
   const bars: HistogramBar[] = [];
   for (let b = lo; b <= hi; b++) {
-    bars.push({ centerC: b * binWidthK, lowC: (b - 0.5) * binWidthK, highC: (b + 0.5) * binWidthK, hours: acc.get(b) ?? 0 });
+    bars.push({
+      centerC: b * binWidthK,
+      lowC: (b - 0.5) * binWidthK,
+      highC: (b + 0.5) * binWidthK,
+      hours: acc.get(b) ?? 0,
+    });
   }
   return bars;
 }

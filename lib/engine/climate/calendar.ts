@@ -5,6 +5,7 @@ const DAYS_LEAP = [31, 29, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
 const MONTH_NAMES = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 
+/** Days in a month (1…12) of a common or a leap year; 0 for a month that does not exist. */
 export function daysInMonth(month: number, leap: boolean): number {
   return (leap ? DAYS_LEAP : DAYS_COMMON)[month - 1] ?? 0;
 }

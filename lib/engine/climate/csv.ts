@@ -9,7 +9,13 @@ import * as Papa from "papaparse";
 import { pressureFromElevationPa, STANDARD_ATMOSPHERE_PA } from "../psychrometrics";
 import { assembleHourlyYear, DEFAULT_MAX_GAP_HOURS, type HumidityKind, type WeatherRecord } from "./assemble";
 import { isValidMonthDay } from "./calendar";
-import type { ClimateIssue, ParsedClimate, ParseResult } from "./types";
+import {
+  catchParseErrors,
+  ClimateParseError,
+  type ClimateIssue,
+  type ParsedClimate,
+  type ParseResult,
+} from "./types";
 
 /** A column by its header text (trimmed, case-insensitive) or by its 0-based position. */
 export type ColumnRef = string | number;
@@ -83,7 +89,11 @@ function resolveColumn(
     return { index: ref, label: header?.[ref]?.trim() || `column ${ref + 1}` };
   }
   if (!header) {
-    errors.push({ line: 0, field: what, message: `column "${ref}" is named, but the file has no header row` });
+    errors.push({
+      line: 0,
+      field: what,
+      message: `column "${ref}" is named, but the file has no header row`,
+    });
     return undefined;
   }
   const want = ref.trim().toLowerCase();
@@ -152,11 +162,7 @@ function readTimestamp(
  * Never throws: malformed input gives `{ ok: false, errors }` with line numbers and column names.
  */
 export function parseHourlyCsv(text: string, mapping: HourlyCsvMapping): ParseResult<ParsedClimate> {
-  try {
-    return parseHourlyCsvUnsafe(text, mapping);
-  } catch (e) {
-    return { ok: false, errors: [{ line: 0, field: "file", message: `could not read the file: ${String(e)}` }] };
-  }
+  return catchParseErrors(() => parseHourlyCsvUnsafe(text, mapping));
 }
 
 function parseHourlyCsvUnsafe(text: string, mapping: HourlyCsvMapping): ParseResult<ParsedClimate> {
@@ -169,10 +175,11 @@ function parseHourlyCsvUnsafe(text: string, mapping: HourlyCsvMapping): ParseRes
   const delimiter = mapping.delimiter && mapping.delimiter !== "auto" ? mapping.delimiter : undefined;
   const decimal = mapping.decimalSeparator ?? "auto";
   if (delimiter === "," && decimal === ",") {
-    return {
-      ok: false,
-      errors: [{ line: 0, field: "decimalSeparator", message: "a decimal comma needs a delimiter other than the comma" }],
-    };
+    throw new ClimateParseError(
+      0,
+      "decimalSeparator",
+      "a decimal comma needs a delimiter other than the comma",
+    );
   }
   const parsed = Papa.parse<string[]>(kept, {
     ...(delimiter ? { delimiter } : { delimitersToGuess: [",", ";", "\t"] }),
@@ -186,18 +193,17 @@ function parseHourlyCsvUnsafe(text: string, mapping: HourlyCsvMapping): ParseRes
   const rows = parsed.data;
   const usedDelimiter = parsed.meta.delimiter;
   if (usedDelimiter === "," && decimal === ",") {
-    return {
-      ok: false,
-      errors: [{ line: 0, field: "decimalSeparator", message: "the file is comma-delimited, so it cannot use decimal commas" }],
-    };
+    throw new ClimateParseError(
+      0,
+      "decimalSeparator",
+      "the file is comma-delimited, so it cannot use decimal commas",
+    );
   }
 
   const hasHeader = mapping.hasHeader ?? true;
   const headerLine = skip + 1;
   const header = hasHeader ? rows[0] : undefined;
-  if (hasHeader && !header) {
-    return { ok: false, errors: [{ line: headerLine, field: "header", message: "the file has no header row" }] };
-  }
+  if (hasHeader && !header) throw new ClimateParseError(headerLine, "header", "the file has no header row");
   const col = (ref: ColumnRef, what: string) => resolveColumn(ref, header, what, headerLine, errors);
   const dryBulbCol = col(mapping.dryBulb, "dryBulb");
   const humidityCol = col(mapping.humidity.column, "humidity");
@@ -284,11 +290,19 @@ function parseHourlyCsvUnsafe(text: string, mapping: HourlyCsvMapping): ParseRes
       day = dc.kind === "value" ? dc.v : NaN;
       const h = hc.kind === "value" ? hc.v : NaN;
       if (!Number.isInteger(month) || month < 1 || month > 12) {
-        errors.push({ line, field: timeCols.month!.label, message: `"${row[timeCols.month!.index]}" is not a month 1…12` });
+        errors.push({
+          line,
+          field: timeCols.month!.label,
+          message: `"${row[timeCols.month!.index]}" is not a month 1…12`,
+        });
         continue;
       }
       if (!isValidMonthDay(month, day)) {
-        errors.push({ line, field: timeCols.day!.label, message: `"${row[timeCols.day!.index]}" is not a day of month ${month}` });
+        errors.push({
+          line,
+          field: timeCols.day!.label,
+          message: `"${row[timeCols.day!.index]}" is not a day of month ${month}`,
+        });
         continue;
       }
       const lo = hourConvention === "1-24" ? 1 : 0;
@@ -303,7 +317,12 @@ function parseHourlyCsvUnsafe(text: string, mapping: HourlyCsvMapping): ParseRes
       hour = h - lo;
     }
 
-    const read = (c: ResolvedColumn, convert: (v: number) => number, min: number, max: number): number | null => {
+    const read = (
+      c: ResolvedColumn,
+      convert: (v: number) => number,
+      min: number,
+      max: number,
+    ): number | null => {
       const cell = readNumber(row[c.index]);
       if (cell.kind === "missing") return NaN;
       if (cell.kind === "bad") {
@@ -334,11 +353,16 @@ function parseHourlyCsvUnsafe(text: string, mapping: HourlyCsvMapping): ParseRes
     records.push({ line, month, day, hour, dryBulbC: t, humidity: hum, pressurePa: p });
   }
   if (errors.length > 0) {
-    if (errors.length >= MAX_ERRORS) errors.push({ line: 0, field: "data", message: `stopped after ${MAX_ERRORS} errors` });
+    if (errors.length >= MAX_ERRORS)
+      errors.push({ line: 0, field: "data", message: `stopped after ${MAX_ERRORS} errors` });
     return { ok: false, errors };
   }
   if (outOfRange > 0) {
-    warnings.push({ line: 0, field: "data", message: `${outOfRange} values outside plausible ranges were treated as missing` });
+    warnings.push({
+      line: 0,
+      field: "data",
+      message: `${outOfRange} values outside plausible ranges were treated as missing`,
+    });
   }
 
   let sitePressurePa = mapping.sitePressurePa;

@@ -16,7 +16,14 @@ import {
 } from "../psychrometrics";
 import { assembleHourlyYear, DEFAULT_MAX_GAP_HOURS, type WeatherRecord } from "./assemble";
 import { isValidMonthDay } from "./calendar";
-import type { ClimateIssue, ClimateLocation, ParsedClimate, ParseResult } from "./types";
+import {
+  catchParseErrors,
+  ClimateParseError,
+  type ClimateIssue,
+  type ClimateLocation,
+  type ParsedClimate,
+  type ParseResult,
+} from "./types";
 
 export const EPW_HEADER_LINES = 8;
 export const EPW_FIELDS_PER_ROW = 35;
@@ -38,9 +45,30 @@ const HEADER_KEYWORDS = [
 
 /** Data fields read: 0-based column (the data dictionary numbers it index + 1), sentinel, valid range. */
 const FIELD = {
-  dryBulb: { index: 6, name: "dryBulbC", label: "dry-bulb temperature, °C", missing: 99.9, min: -70, max: 70 },
-  dewPoint: { index: 7, name: "dewPointC", label: "dew-point temperature, °C", missing: 99.9, min: -70, max: 70 },
-  relHum: { index: 8, name: "relativeHumidity", label: "relative humidity, %", missing: 999, min: 0, max: 110 },
+  dryBulb: {
+    index: 6,
+    name: "dryBulbC",
+    label: "dry-bulb temperature, °C",
+    missing: 99.9,
+    min: -70,
+    max: 70,
+  },
+  dewPoint: {
+    index: 7,
+    name: "dewPointC",
+    label: "dew-point temperature, °C",
+    missing: 99.9,
+    min: -70,
+    max: 70,
+  },
+  relHum: {
+    index: 8,
+    name: "relativeHumidity",
+    label: "relative humidity, %",
+    missing: 999,
+    min: 0,
+    max: 110,
+  },
   pressure: {
     index: 9,
     name: "pressurePa",
@@ -74,7 +102,11 @@ function parseLocation(line: string, errors: ClimateIssue[]): ClimateLocation | 
     }
     const v = Number(raw);
     if (!Number.isFinite(v) || v < min || v > max) {
-      errors.push({ line: 1, field, message: `LOCATION field ${i + 1} (${field}) is "${raw}", not a number in ${min}…${max}` });
+      errors.push({
+        line: 1,
+        field,
+        message: `LOCATION field ${i + 1} (${field}) is "${raw}", not a number in ${min}…${max}`,
+      });
       return undefined;
     }
     return v;
@@ -83,7 +115,12 @@ function parseLocation(line: string, errors: ClimateIssue[]): ClimateLocation | 
   const longitudeDeg = num(7, "longitude", -180, 180);
   const timeZoneH = num(8, "timeZone", -12, 14);
   const elevationM = num(9, "elevation", -1000, 9999.9);
-  if (latitudeDeg === undefined || longitudeDeg === undefined || timeZoneH === undefined || elevationM === undefined) {
+  if (
+    latitudeDeg === undefined ||
+    longitudeDeg === undefined ||
+    timeZoneH === undefined ||
+    elevationM === undefined
+  ) {
     return undefined;
   }
   const opt = (i: number) => {
@@ -131,12 +168,7 @@ function readValue(raw: string | undefined, spec: FieldSpec, outOfRange: { n: nu
  * Never throws: malformed input gives `{ ok: false, errors }` with line numbers and field names.
  */
 export function parseEpw(text: string, options: EpwOptions = {}): ParseResult<ParsedClimate> {
-  try {
-    return parseEpwUnsafe(text, options);
-  } catch (e) {
-    // Only a bug can get here; report it as a file-level error rather than crash an upload.
-    return { ok: false, errors: [{ line: 0, field: "file", message: `could not read the file: ${String(e)}` }] };
-  }
+  return catchParseErrors(() => parseEpwUnsafe(text, options));
 }
 
 function parseEpwUnsafe(text: string, options: EpwOptions): ParseResult<ParsedClimate> {
@@ -145,16 +177,11 @@ function parseEpwUnsafe(text: string, options: EpwOptions): ParseResult<ParsedCl
   const errors: ClimateIssue[] = [];
   const warnings: ClimateIssue[] = [];
   if (lines.length < EPW_HEADER_LINES) {
-    return {
-      ok: false,
-      errors: [
-        {
-          line: lines.length,
-          field: "header",
-          message: `the file has ${lines.length} lines; an EPW file starts with ${EPW_HEADER_LINES} header lines (LOCATION … DATA PERIODS)`,
-        },
-      ],
-    };
+    throw new ClimateParseError(
+      lines.length,
+      "header",
+      `the file has ${lines.length} lines; an EPW file starts with ${EPW_HEADER_LINES} header lines (LOCATION … DATA PERIODS)`,
+    );
   }
   for (let i = 0; i < EPW_HEADER_LINES; i++) {
     const keyword = HEADER_KEYWORDS[i]!;
@@ -173,13 +200,22 @@ function parseEpwUnsafe(text: string, options: EpwOptions): ParseResult<ParsedCl
 
   const periods = lines[7]!.split(",").map((s) => s.trim());
   const declared = Number(periods[2]);
-  const declaredRecordsPerHour = Number.isInteger(declared) && declared >= 1 && declared <= 60 ? declared : undefined;
+  const declaredRecordsPerHour =
+    Number.isInteger(declared) && declared >= 1 && declared <= 60 ? declared : undefined;
   if (declaredRecordsPerHour === undefined) {
-    warnings.push({ line: 8, field: "DATA PERIODS", message: `records per hour "${periods[2] ?? ""}" is not a whole number 1…60; taken from the data` });
+    warnings.push({
+      line: 8,
+      field: "DATA PERIODS",
+      message: `records per hour "${periods[2] ?? ""}" is not a whole number 1…60; taken from the data`,
+    });
   }
   const nPeriods = Number(periods[1]);
   if (Number.isInteger(nPeriods) && nPeriods > 1) {
-    warnings.push({ line: 8, field: "DATA PERIODS", message: `${nPeriods} data periods declared; all rows are read as one year` });
+    warnings.push({
+      line: 8,
+      field: "DATA PERIODS",
+      message: `${nPeriods} data periods declared; all rows are read as one year`,
+    });
   }
 
   const sitePressurePa = options.sitePressurePa ?? pressureFromElevationPa(location.elevationM ?? 0);
@@ -196,7 +232,10 @@ function parseEpwUnsafe(text: string, options: EpwOptions): ParseResult<ParsedCl
     }
     const f = raw.split(",");
     if (f.length < EPW_REQUIRED_FIELDS || f.length > EPW_FIELDS_PER_ROW) {
-      const missingField = f.length < EPW_REQUIRED_FIELDS ? ` (field ${f.length + 1}, ${describeField(f.length + 1)}, is absent)` : "";
+      const missingField =
+        f.length < EPW_REQUIRED_FIELDS
+          ? ` (field ${f.length + 1}, ${describeField(f.length + 1)}, is absent)`
+          : "";
       errors.push({
         line: lineNo,
         field: f.length < EPW_REQUIRED_FIELDS ? fieldName(f.length + 1) : "data",
@@ -213,7 +252,11 @@ function parseEpwUnsafe(text: string, options: EpwOptions): ParseResult<ParsedCl
       continue;
     }
     if (!isValidMonthDay(month, day)) {
-      errors.push({ line: lineNo, field: "day", message: `field 3 (day) is "${f[2]}", not a day of month ${month}` });
+      errors.push({
+        line: lineNo,
+        field: "day",
+        message: `field 3 (day) is "${f[2]}", not a day of month ${month}`,
+      });
       continue;
     }
     if (!Number.isInteger(hourEnding) || hourEnding < 1 || hourEnding > 24) {
@@ -245,7 +288,15 @@ function parseEpwUnsafe(text: string, options: EpwOptions): ParseResult<ParsedCl
       td = dewPointFromHumidityRatioC(t, humidityRatioFromVaporPressure(pw, pPa), pPa);
       rhFallback++;
     }
-    records.push({ line: lineNo, month, day, hour: hourEnding - 1, dryBulbC: t, humidity: td, pressurePa: p });
+    records.push({
+      line: lineNo,
+      month,
+      day,
+      hour: hourEnding - 1,
+      dryBulbC: t,
+      humidity: td,
+      pressurePa: p,
+    });
   }
   if (errors.length > 0) {
     if (errors.length >= MAX_ERRORS) {
@@ -261,10 +312,18 @@ function parseEpwUnsafe(text: string, options: EpwOptions): ParseResult<ParsedCl
     });
   }
   if (outOfRange.n > 0) {
-    warnings.push({ line: 0, field: "data", message: `${outOfRange.n} values outside the EPW format's ranges were treated as missing` });
+    warnings.push({
+      line: 0,
+      field: "data",
+      message: `${outOfRange.n} values outside the EPW format's ranges were treated as missing`,
+    });
   }
   if (rhFallback > 0) {
-    warnings.push({ line: 0, field: "dewPointC", message: `${rhFallback} records had no dew point; it was derived from RH and dry-bulb` });
+    warnings.push({
+      line: 0,
+      field: "dewPointC",
+      message: `${rhFallback} records had no dew point; it was derived from RH and dry-bulb`,
+    });
   }
 
   const assembled = assembleHourlyYear(records, {

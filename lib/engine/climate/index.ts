@@ -1,6 +1,12 @@
 /** Climate: hourly or binned typical years, weather-file parsers, binning and summaries. */
 export * from "./types";
-export { toClimateYear, climateYearHours, climateYearWarnings, HOURS_PER_YEAR, HOURS_PER_LEAP_YEAR } from "./input";
+export {
+  toClimateYear,
+  climateYearHours,
+  climateYearWarnings,
+  HOURS_PER_YEAR,
+  HOURS_PER_LEAP_YEAR,
+} from "./input";
 export { parseEpw, EPW_FIELDS_PER_ROW, EPW_HEADER_LINES, type EpwOptions } from "./epw";
 export {
   parseHourlyCsv,

@@ -56,7 +56,11 @@ function weightedStats(values: ArrayLike<number>, weights?: ArrayLike<number>): 
   return wsum > 0 ? { minC: min, meanC: sum / wsum, maxC: max } : { minC: NaN, meanC: NaN, maxC: NaN };
 }
 
-function monthlyMeans(values: ArrayLike<number>, months: ArrayLike<number>, weights?: ArrayLike<number>): number[] {
+function monthlyMeans(
+  values: ArrayLike<number>,
+  months: ArrayLike<number>,
+  weights?: ArrayLike<number>,
+): number[] {
   const sum = new Array<number>(12).fill(0);
   const w = new Array<number>(12).fill(0);
   for (let i = 0; i < values.length; i++) {

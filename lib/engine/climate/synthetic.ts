@@ -183,7 +183,10 @@ export function generateSyntheticYear(options: SyntheticWeatherOptions = {}): Sy
       m.dewPointAfternoonDropK * diurnal;
     const tR = round1(t);
     td = round1(Math.min(td, tR - 0.1));
-    const rh = Math.min(100, Math.round((100 * saturationVaporPressurePa(td)) / saturationVaporPressurePa(tR)));
+    const rh = Math.min(
+      100,
+      Math.round((100 * saturationVaporPressurePa(td)) / saturationVaporPressurePa(tR)),
+    );
     hours.push({
       month: cal.month[i]!,
       day: cal.day[i]!,
@@ -317,7 +320,9 @@ export function syntheticYearToCsv(year: SyntheticYear, options: SyntheticCsvOpt
       [
         ...(time === "timestamp" ? [stamp] : [String(h.month), String(h.day), String(h.hour)]),
         fmt(temp(h.dryBulbC), unit === "F" ? 2 : 1),
-        hum === "relativeHumidity" ? fmt(h.relativeHumidityPercent, 0) : fmt(temp(h.dewPointC), unit === "F" ? 2 : 1),
+        hum === "relativeHumidity"
+          ? fmt(h.relativeHumidityPercent, 0)
+          : fmt(temp(h.dewPointC), unit === "F" ? 2 : 1),
       ].join(sep),
     );
   }

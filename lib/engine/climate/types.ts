@@ -95,21 +95,38 @@ export interface ClimateIssue {
 }
 
 export type ParseResult<T> =
-  | { ok: true; value: T; warnings: ClimateIssue[] }
-  | { ok: false; errors: ClimateIssue[] };
+  { ok: true; value: T; warnings: ClimateIssue[] } | { ok: false; errors: ClimateIssue[] };
 
-/** An error a parser raises internally; parsers catch it and return it in `errors`, never throw it. */
+/**
+ * A problem that stops a parser, with the 1-based line (0 = the whole file) and the field it concerns.
+ * Parsers throw it internally and return it as `{ ok: false, errors: [toIssue()] }`; they never let it out.
+ */
 export class ClimateParseError extends Error {
   readonly line: number;
   readonly field: string;
-  constructor(line: number, field: string, message: string) {
-    super(line > 0 ? `line ${line}, ${field}: ${message}` : `${field}: ${message}`);
+  readonly detail: string;
+  constructor(line: number, field: string, detail: string) {
+    super(line > 0 ? `line ${line}, ${field}: ${detail}` : `${field}: ${detail}`);
     this.name = "ClimateParseError";
     this.line = line;
     this.field = field;
+    this.detail = detail;
   }
   toIssue(): ClimateIssue {
-    return { line: this.line, field: this.field, message: this.message };
+    return { line: this.line, field: this.field, message: this.detail };
+  }
+}
+
+/** Run a parser body, turning a ClimateParseError (or, from a bug, anything else) into an error result. */
+export function catchParseErrors<T>(body: () => ParseResult<T>): ParseResult<T> {
+  try {
+    return body();
+  } catch (e) {
+    if (e instanceof ClimateParseError) return { ok: false, errors: [e.toIssue()] };
+    return {
+      ok: false,
+      errors: [{ line: 0, field: "file", message: `could not read the file: ${String(e)}` }],
+    };
   }
 }
 

@@ -155,13 +155,18 @@ describe("cross-check against psychrolib (reference implementation of ASHRAE 201
 
   it("moist-air enthalpy, humidity ratio from vapour pressure and standard pressure match", () => {
     for (const t of temps) {
-      for (const w of [1e-5, 0.002, 0.01, 0.03]) { // psychrolib floors W at 1e-7, so not 0
-        expect(Math.abs(moistAirEnthalpyKJPerKg(t, w) - psychrolib.GetMoistAirEnthalpy(t, w) / 1000)).toBeLessThan(1e-9);
+      for (const w of [1e-5, 0.002, 0.01, 0.03]) {
+        // psychrolib floors W at 1e-7, so not 0
+        expect(
+          Math.abs(moistAirEnthalpyKJPerKg(t, w) - psychrolib.GetMoistAirEnthalpy(t, w) / 1000),
+        ).toBeLessThan(1e-9);
       }
     }
     for (const pw of [100, 1000, 5000]) {
       for (const p of pressures) {
-        expect(relErr(humidityRatioFromVaporPressure(pw, p), psychrolib.GetHumRatioFromVapPres(pw, p))).toBeLessThan(1e-12);
+        expect(
+          relErr(humidityRatioFromVaporPressure(pw, p), psychrolib.GetHumRatioFromVapPres(pw, p)),
+        ).toBeLessThan(1e-12);
       }
     }
     for (const z of [-400, 0, 240, 1000, 3000]) {

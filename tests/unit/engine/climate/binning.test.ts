@@ -78,7 +78,10 @@ describe("binnedClimateFromHourly", () => {
       const hours = sum(b.bins.map((x) => x.hours));
       expect(hours).toBe(8760);
       expect(sum(b.bins.map((x) => x.wetBulbC * x.hours)) / hours).toBeCloseTo(mean(year.wetBulbC), 9);
-      expect(sum(b.bins.map((x) => x.meanCoincidentDryBulbC * x.hours)) / hours).toBeCloseTo(mean(year.dryBulbC), 9);
+      expect(sum(b.bins.map((x) => x.meanCoincidentDryBulbC * x.hours)) / hours).toBeCloseTo(
+        mean(year.dryBulbC),
+        9,
+      );
       if (byMonth) {
         for (let m = 1; m <= 12; m++) {
           expect(sum(b.bins.filter((x) => x.month === m).map((x) => x.hours))).toBe(HOURS_BY_MONTH[m - 1]);
@@ -109,7 +112,11 @@ describe("design wet-bulb percentiles (annual exceedance, ASHRAE Fundamentals 20
     const erf = (x: number) => {
       // Abramowitz & Stegun 7.1.26, |error| ≤ 1.5e-7
       const t = 1 / (1 + 0.3275911 * Math.abs(x));
-      const y = 1 - ((((1.061405429 * t - 1.453152027) * t + 1.421413741) * t - 0.284496736) * t + 0.254829592) * t * Math.exp(-x * x);
+      const y =
+        1 -
+        ((((1.061405429 * t - 1.453152027) * t + 1.421413741) * t - 0.284496736) * t + 0.254829592) *
+          t *
+          Math.exp(-x * x);
       return x >= 0 ? y : -y;
     };
     const cdf = (z: number) => 0.5 * (1 + erf(z / Math.SQRT2));

@@ -9,7 +9,11 @@ import { describe, expect, it } from "vitest";
 import psychrolib from "psychrolib";
 import { parseHourlyCsv, type HourlyCsvMapping } from "@/lib/engine/climate/csv";
 import { parseEpw } from "@/lib/engine/climate/epw";
-import { generateSyntheticYear, syntheticYearToCsv, syntheticYearToEpw } from "@/lib/engine/climate/synthetic";
+import {
+  generateSyntheticYear,
+  syntheticYearToCsv,
+  syntheticYearToEpw,
+} from "@/lib/engine/climate/synthetic";
 import { pressureFromElevationPa } from "@/lib/engine/psychrometrics";
 import { unwrap } from "./helpers";
 
@@ -107,7 +111,12 @@ describe("parseHourlyCsv", () => {
     const v = unwrap(parseHourlyCsv(lines.join("\n"), mapping));
     expect([v.year.month[0], v.year.hour[0]]).toEqual([1, 0]);
     expect(v.year.dryBulbC[8759]).toBeCloseTo(gen.hours[8759]!.dryBulbC, 9);
-    expect(Math.abs(v.year.wetBulbC[100]! - psychrolib.GetTWetBulbFromTDewPoint(gen.hours[100]!.dryBulbC, gen.hours[100]!.dewPointC, P240))).toBeLessThan(6e-4);
+    expect(
+      Math.abs(
+        v.year.wetBulbC[100]! -
+          psychrolib.GetTWetBulbFromTDewPoint(gen.hours[100]!.dryBulbC, gen.hours[100]!.dewPointC, P240),
+      ),
+    ).toBeLessThan(6e-4);
     // a wet-bulb column needs no pressure, so there is no sea-level warning
     expect(v.stats.absentHours).toBe(0);
   });
@@ -152,7 +161,9 @@ describe("parseHourlyCsv", () => {
     const pad = (n: number) => String(n).padStart(2, "0");
     for (const h of gen.hours) {
       for (const [k, off] of [-0.3, -0.1, 0.1, 0.3].entries()) {
-        lines.push(`${pad(h.day)}.${pad(h.month)}.2001 ${pad(h.hour)}:${pad(15 * k)};${(h.dryBulbC + off).toFixed(2).replace(".", ",")};${h.relativeHumidityPercent}`);
+        lines.push(
+          `${pad(h.day)}.${pad(h.month)}.2001 ${pad(h.hour)}:${pad(15 * k)};${(h.dryBulbC + off).toFixed(2).replace(".", ",")};${h.relativeHumidityPercent}`,
+        );
       }
     }
     const v = unwrap(
@@ -197,7 +208,10 @@ describe("parseHourlyCsv", () => {
   });
 
   it("reads the committed Harrowgate Flats CSV fixture", () => {
-    const text = readFileSync(path.resolve(__dirname, "../../../fixtures/weather/harrowgate-flats.csv"), "utf8");
+    const text = readFileSync(
+      path.resolve(__dirname, "../../../fixtures/weather/harrowgate-flats.csv"),
+      "utf8",
+    );
     const v = unwrap(
       parseHourlyCsv(text, {
         delimiter: ";",

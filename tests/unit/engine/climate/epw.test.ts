@@ -33,7 +33,13 @@ describe("parseEpw on a well-formed invented year", () => {
 
   it("gives 8760 hours, EPW hour 1 (hour ending 01:00) as hour 0", () => {
     expect(v.year.dryBulbC).toHaveLength(8760);
-    expect(v.stats).toMatchObject({ recordsRead: 8760, recordsPerHour: 1, hours: 8760, hasLeapDay: false, absentHours: 0 });
+    expect(v.stats).toMatchObject({
+      recordsRead: 8760,
+      recordsPerHour: 1,
+      hours: 8760,
+      hasLeapDay: false,
+      absentHours: 0,
+    });
     expect([v.year.month[0], v.year.day[0], v.year.hour[0]]).toEqual([1, 1, 0]);
     expect([v.year.month[8759], v.year.day[8759], v.year.hour[8759]]).toEqual([12, 31, 23]);
     for (const i of [0, 1234, 5000, 8759]) {
@@ -57,19 +63,27 @@ describe("parseEpw on a well-formed invented year", () => {
     expect(site.stats.pressureSource).toBe("site");
     const p = pressureFromElevationPa(240);
     const h = gen.hours[4500]!;
-    expect(Math.abs(site.year.wetBulbC[4500]! - psychrolib.GetTWetBulbFromTDewPoint(h.dryBulbC, h.dewPointC, p))).toBeLessThan(1e-9);
+    expect(
+      Math.abs(site.year.wetBulbC[4500]! - psychrolib.GetTWetBulbFromTDewPoint(h.dryBulbC, h.dewPointC, p)),
+    ).toBeLessThan(1e-9);
   });
 
   it("keys rows by month/day/hour, never by the year column or the row order", () => {
     const lines = epw.split("\n");
     const header = lines.slice(0, 8);
     // A typical year mixes source years by month; also scramble the row order.
-    const data = lines.slice(8).filter((l) => l !== "").map((l) => {
-      const f = l.split(",");
-      f[0] = String(1990 + Number(f[1]));
-      return f.join(",");
-    });
-    const scrambled = [...data.filter((_, i) => i % 2 === 1), ...data.filter((_, i) => i % 2 === 0).reverse()];
+    const data = lines
+      .slice(8)
+      .filter((l) => l !== "")
+      .map((l) => {
+        const f = l.split(",");
+        f[0] = String(1990 + Number(f[1]));
+        return f.join(",");
+      });
+    const scrambled = [
+      ...data.filter((_, i) => i % 2 === 1),
+      ...data.filter((_, i) => i % 2 === 0).reverse(),
+    ];
     const w = unwrap(parseEpw([...header, ...scrambled].join("\n")));
     expect(w.year.dryBulbC).toEqual(v.year.dryBulbC);
     expect(w.year.wetBulbC).toEqual(v.year.wetBulbC);

@@ -1,4 +1,8 @@
-import { generateSyntheticYear, syntheticYearToEpw, type SyntheticYear } from "@/lib/engine/climate/synthetic";
+import {
+  generateSyntheticYear,
+  syntheticYearToEpw,
+  type SyntheticYear,
+} from "@/lib/engine/climate/synthetic";
 
 /** A generated year and its EPW text, cached per seed/leap so the suites stay fast. */
 const cache = new Map<string, { year: SyntheticYear; epw: string; lines: string[] }>();

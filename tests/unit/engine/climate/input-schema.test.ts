@@ -76,7 +76,9 @@ describe("climateInputSchema", () => {
       bins: [{ dryBulbC: 20, meanCoincidentWetBulbC: 24, hours: -3, month: 13 }],
     });
     const paths = bad.error!.issues.map((i) => i.path.join("."));
-    expect(paths).toEqual(expect.arrayContaining(["bins.0.hours", "bins.0.month", "bins.0.meanCoincidentWetBulbC"]));
+    expect(paths).toEqual(
+      expect.arrayContaining(["bins.0.hours", "bins.0.month", "bins.0.meanCoincidentWetBulbC"]),
+    );
     const source = climateInputSchema.safeParse({ source: "monthly" });
     expect(source.error!.issues[0]!.path).toEqual(["source"]);
   });

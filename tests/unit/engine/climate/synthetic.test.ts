@@ -50,7 +50,10 @@ describe("invented-weather generator", () => {
   });
 
   it("the committed fixture is exactly what the generator writes for its seed", () => {
-    const file = readFileSync(path.resolve(__dirname, "../../../fixtures/weather/harrowgate-flats.epw"), "utf8");
+    const file = readFileSync(
+      path.resolve(__dirname, "../../../fixtures/weather/harrowgate-flats.epw"),
+      "utf8",
+    );
     expect(file).toBe(syntheticYearToEpw(generateSyntheticYear({ seed: 20240611 })));
     const parsed = unwrap(parseEpw(file));
     expect(parsed.location?.name).toBe("Harrowgate Flats");
