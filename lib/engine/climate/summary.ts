@@ -27,6 +27,7 @@ export interface ClimateSummary {
   recordsPerHour?: number;
   missingValues?: Record<string, number>;
   interpolatedHours?: Record<string, number>;
+  /** Hour-weighted; for a bin table the extremes are those of the bins' values, not of single hours. */
   dryBulb: TemperatureStats;
   wetBulb: TemperatureStats;
   designWetBulbC: DesignWetBulb[];
