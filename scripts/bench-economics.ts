@@ -11,7 +11,13 @@
 import { existsSync, readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
-import { analyzeEconomics, type AnalyzeEconomicsArgs, type PhysicsOverrides } from "@/lib/engine/economics";
+import {
+  analyzeEconomics,
+  formatEconomicsSummary,
+  whatIf,
+  type AnalyzeEconomicsArgs,
+  type PhysicsOverrides,
+} from "@/lib/engine/economics";
 import { syntheticPhysics } from "@/lib/engine/economics/synthetic";
 import type { OptionAnnualPhysics, OptionKind } from "@/lib/engine/types";
 import {
@@ -234,7 +240,23 @@ async function main() {
       },
     });
   });
+  const stored = {
+    physics: args.physics,
+    options: args.options,
+    tariffs: args.tariffs,
+    upkeep: args.upkeep,
+    economics: args.economics,
+  };
+  let k = 0;
+  const whatIfMs = time(200, () => {
+    k++;
+    whatIf(stored, { waterAndSewerPriceFactor: 1 + 0.001 * k, discountRate: 0.04, cyclesOfConcentration: 5 });
+  });
 
+  if (process.argv.includes("--summary")) {
+    const full = analyzeEconomics({ ...args, sensitivity: sensitivitySchema.parse({}), monteCarlo: mcInput });
+    console.log(formatEconomicsSummary(full));
+  }
   console.log(
     `25-year LCC, ${args.options.length} options (cash flows + measures): median ${lccMs.toFixed(3)} ms`,
   );
@@ -243,6 +265,9 @@ async function main() {
   );
   console.log(
     `Monte Carlo 10,000 draws (prices, escalation, first cost): median ${mcMs.toFixed(1)} ms (${mcReruns} physics re-runs)`,
+  );
+  console.log(
+    `what-if (price factor, discount rate, cycles by water balance): median ${whatIfMs.toFixed(3)} ms`,
   );
   console.log(
     `Monte Carlo 10,000 draws + cycles + fouling (node re-runs, interpolation): median ${mcFoulingMs.toFixed(1)} ms`,

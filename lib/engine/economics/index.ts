@@ -34,6 +34,7 @@ export {
 } from "./factors";
 export { waterAtCycles } from "./cashflows";
 export { mulberry32, sampleDistribution } from "./montecarlo";
+export { formatEconomicsSummary } from "./summary";
 
 /**
  * Full economics of a scenario: per-option cash flows and present-value LCC by category (Handbook 135),

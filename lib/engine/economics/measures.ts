@@ -147,7 +147,9 @@ export function compareOptions(
   if (changes === 1) {
     const r = irr(differenceCashFlows);
     if (Number.isFinite(r)) irrValue = r;
-    else irrNote = "The IRR iteration did not converge for this difference stream.";
+    else
+      irrNote =
+        "No IRR was found for the yearly difference (the savings barely or never repay the extra cost); use net savings and the AIRR.";
   } else if (changes === 0) {
     irrNote =
       "The yearly difference never changes sign (one option is cheaper every year), so there is no IRR.";
