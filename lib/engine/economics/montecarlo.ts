@@ -179,6 +179,11 @@ export function runMonteCarlo(
         : "Fouling rate not sampled: it needs a physics re-run, which this analysis was not given.",
     );
   }
+  if (dist.firstCostFactor) {
+    notes.push(
+      "First-cost factors are drawn independently for each option (each quote has its own uncertainty).",
+    );
+  }
   if (dist.cyclesOfConcentration) {
     notes.push(
       "Cycles of concentration: makeup, blowdown and billed sewer recomputed exactly from evaporation and drift (B = E/(C − 1) − D) for every wet loop.",
