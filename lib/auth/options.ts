@@ -19,11 +19,33 @@ const credentialsSchema = z.object({
   password: z.string().min(1).max(200),
 });
 
-function clientAddress(headers: Record<string, unknown> | undefined): string {
+declare module "next-auth" {
+  interface User {
+    passwordChangedAtMs?: number;
+  }
+  interface Session {
+    /** See lib/auth/session-rules.ts: sign-in time and the password's timestamp at sign-in. */
+    authAtMs?: number;
+    pwdAtMs?: number;
+  }
+}
+declare module "next-auth/jwt" {
+  interface JWT {
+    authAtMs?: number;
+    pwdAtMs?: number;
+  }
+}
+
+/**
+ * The address a sign-in attempt came from. The right-most X-Forwarded-For entry is the one the nearest
+ * proxy appended (Next.js itself only fills the header when it is absent); the left-most entries are
+ * whatever the client chose to send, so keying the limit on them would let anyone step around it.
+ */
+export function clientAddress(headers: Record<string, unknown> | undefined): string {
   const fwd = headers?.["x-forwarded-for"];
-  const first = typeof fwd === "string" ? fwd.split(",")[0]?.trim() : undefined;
+  const last = typeof fwd === "string" ? fwd.split(",").at(-1)?.trim() : undefined;
   const real = headers?.["x-real-ip"];
-  return first || (typeof real === "string" ? real : "") || "local";
+  return last || (typeof real === "string" ? real : "") || "local";
 }
 
 /** next-auth configuration: e-mail + password, JWT sessions carrying the user id and roles. */
@@ -51,7 +73,7 @@ export const authOptions: NextAuthOptions = {
         }
         await clearSignInFailures(db, keys.account);
         await writeAudit(db, { actorId: user.id, action: "user.signIn" });
-        return { id: user.id, email: user.email, name: user.name };
+        return { id: user.id, email: user.email, name: user.name, passwordChangedAtMs: user.password_changed_at.getTime() };
       },
     }),
   ],
@@ -59,6 +81,8 @@ export const authOptions: NextAuthOptions = {
     async jwt({ token, user }) {
       if (user) {
         token.userId = user.id;
+        token.authAtMs = Date.now();
+        token.pwdAtMs = user.passwordChangedAtMs;
         const [firms, clients] = await Promise.all([firmRolesOf(db, user.id), clientRolesOf(db, user.id)]);
         token.firmRoles = firms.map((f) => ({ firmId: f.firmId, role: f.role }));
         token.clientRoles = [...new Set(clients.map((c) => c.role))];
@@ -73,6 +97,8 @@ export const authOptions: NextAuthOptions = {
         firmRoles: token.firmRoles ?? [],
         clientRoles: token.clientRoles ?? [],
       };
+      session.authAtMs = token.authAtMs;
+      session.pwdAtMs = token.pwdAtMs;
       return session;
     },
   },

@@ -1,0 +1,128 @@
+import { sql, type Kysely, type Transaction } from "kysely";
+import type { Database } from "../schema";
+
+type Executor = Kysely<Database> | Transaction<Database>;
+
+export interface OutgoingMail {
+  kind: string;
+  refId?: string | null;
+  to: string;
+  subject: string;
+  text: string;
+  html?: string | null;
+}
+
+/** Queue one message; call it inside the transaction that makes the message true (an invitation, a comment). */
+export async function insertOutboxMail(db: Executor, m: OutgoingMail) {
+  return db
+    .insertInto("mail_outbox")
+    .values({ kind: m.kind, ref_id: m.refId ?? null, to_address: m.to, subject: m.subject, text_body: m.text, html_body: m.html ?? null })
+    .returning(["id"])
+    .executeTakeFirstOrThrow();
+}
+
+export interface ClaimedMail {
+  id: string;
+  kind: string;
+  refId: string | null;
+  to: string;
+  subject: string;
+  text: string;
+  html: string | null;
+  attempts: number;
+}
+
+/**
+ * Claim up to `limit` due pending messages for one sender: their next_attempt_at moves forward by the
+ * lease, so a second sender (another server, the next timer tick) skips them while this one works, and a
+ * sender that dies mid-send leaves them to be retried once the lease runs out. SKIP LOCKED keeps two
+ * claims from ever taking the same row.
+ */
+export async function claimDueMail(
+  db: Executor,
+  opts: { limit: number; leaseS: number; asOf?: Date; onlyIds?: string[] },
+): Promise<ClaimedMail[]> {
+  const asOf = opts.asOf ?? null;
+  const only = opts.onlyIds ?? null;
+  const r = await sql<ClaimedMail>`
+    update mail_outbox set next_attempt_at = now() + make_interval(secs => ${opts.leaseS})
+    where id in (
+      select id from mail_outbox
+      where status = 'pending'
+        and next_attempt_at <= coalesce(${asOf}::timestamptz, now())
+        and (${only}::uuid[] is null or id = any(${only}::uuid[]))
+      order by next_attempt_at, created_at
+      for update skip locked
+      limit ${opts.limit}
+    )
+    returning id, kind, ref_id as "refId", to_address as "to", subject, text_body as "text", html_body as "html", attempts`.execute(db);
+  return r.rows;
+}
+
+/**
+ * A delivered message. Its body is blanked: an invitation's body carries the only copy of its token,
+ * which must not sit readable in the database once the recipient has it.
+ */
+export async function markMailSent(db: Executor, id: string) {
+  await db
+    .updateTable("mail_outbox")
+    .set({ status: "sent", sent_at: sql`now()`, attempts: sql`attempts + 1`, last_error: null, text_body: "", html_body: null })
+    .where("id", "=", id)
+    .execute();
+}
+
+/** A failed attempt: retry after `retryInS`, or give up (status failed) when `retryInS` is null. */
+export async function markMailAttemptFailed(db: Executor, id: string, error: string, retryInS: number | null) {
+  await db
+    .updateTable("mail_outbox")
+    .set({
+      attempts: sql`attempts + 1`,
+      last_error: error.slice(0, 500),
+      status: retryInS === null ? "failed" : "pending",
+      next_attempt_at: retryInS === null ? sql`now()` : sql`now() + make_interval(secs => ${retryInS})`,
+      ...(retryInS === null ? { text_body: "", html_body: null } : {}),
+    })
+    .where("id", "=", id)
+    .where("status", "=", "pending")
+    .execute();
+}
+
+/** Withdraw unsent messages about something that no longer holds (a revoked invitation). */
+export async function cancelPendingMail(db: Executor, kind: string, refId: string, reason: string) {
+  await db
+    .updateTable("mail_outbox")
+    .set({ status: "failed", last_error: reason, text_body: "", html_body: null })
+    .where("kind", "=", kind)
+    .where("ref_id", "=", refId)
+    .where("status", "=", "pending")
+    .execute();
+}
+
+/** Delivery state only (never the body) of the messages about these references. */
+export async function mailStatusByRef(db: Executor, kind: string, refIds: string[]) {
+  if (refIds.length === 0) return [];
+  return db
+    .selectFrom("mail_outbox")
+    .select([
+      "id",
+      "ref_id as refId",
+      "status",
+      "attempts",
+      "last_error as lastError",
+      "next_attempt_at as nextAttemptAt",
+      "sent_at as sentAt",
+      "created_at as createdAt",
+    ])
+    .where("kind", "=", kind)
+    .where("ref_id", "in", refIds)
+    .orderBy("created_at", "desc")
+    .execute();
+}
+
+export async function findOutboxStatus(db: Executor, id: string) {
+  return db
+    .selectFrom("mail_outbox")
+    .select(["id", "status", "attempts", "last_error as lastError", "next_attempt_at as nextAttemptAt", "sent_at as sentAt"])
+    .where("id", "=", id)
+    .executeTakeFirst();
+}
