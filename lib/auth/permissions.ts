@@ -91,6 +91,7 @@ export function seesDrafts(relation: ProjectRelation | null): boolean {
 /** Navigation entries a signed-in user may see: client viewers get only their shared projects and account. */
 export function navigationFor(principal: Principal): { href: string; label: string }[] {
   const items = [{ href: "/projects", label: "Projects" }];
+  if (principal.firms.some((f) => allows(f.role, "project.create"))) items.push({ href: "/projects/new", label: "New project" });
   if (principal.firms.some((f) => allows(f.role, "firm.manageMembers"))) items.push({ href: "/firm", label: "Firm members" });
   items.push({ href: "/account", label: "Account" });
   return items;

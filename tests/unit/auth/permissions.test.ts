@@ -61,4 +61,10 @@ describe("relation to a project", () => {
     expect(navigationFor(consultantA).map((n) => n.label)).not.toContain("Firm members");
     expect(navigationFor(client).map((n) => n.label)).toEqual(["Projects", "Account"]);
   });
+
+  it("navigation offers New project to firm members (project.create) and not to client viewers", () => {
+    expect(navigationFor(consultantA).map((n) => n.href)).toEqual(["/projects", "/projects/new", "/account"]);
+    expect(navigationFor({ userId: "a", firms: [{ firmId: firmA, role: "admin" }] }).map((n) => n.label)).toContain("New project");
+    expect(navigationFor(client).map((n) => n.label)).not.toContain("New project");
+  });
 });
