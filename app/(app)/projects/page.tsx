@@ -5,6 +5,8 @@ import { listProjectsForUser } from "@/db/queries/projects";
 import { requireViewer } from "@/lib/auth/session";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
+import { ButtonLink } from "@/components/ui/button";
+import { canInFirm } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Projects" };
 
@@ -46,9 +48,14 @@ export default async function ProjectsPage({ searchParams }: { searchParams: Pro
   const mine = rows.filter((r) => r.firmRole);
   const shared = rows.filter((r) => !r.firmRole && r.clientRole);
   const isFirm = viewer.firms.length > 0;
+  const canCreate = viewer.firms.some((f) => canInFirm(viewer.principal, f.firmId, "project.create"));
   return (
     <>
-      <PageHeader title="Projects" subtitle={isFirm ? "Condenser-loop studies of your firm and those shared with you." : "Studies a consulting firm has shared with you."} />
+      <PageHeader
+        title="Projects"
+        subtitle={isFirm ? "Condenser-loop studies of your firm and those shared with you." : "Studies a consulting firm has shared with you."}
+        actions={canCreate ? <ButtonLink href="/projects/new">New project</ButtonLink> : undefined}
+      />
       <form className="mb-6 flex gap-2" role="search">
         <label htmlFor="q" className="sr-only">Search projects</label>
         <input id="q" name="q" defaultValue={q ?? ""} placeholder="Search by project, client or site"
@@ -60,7 +67,7 @@ export default async function ProjectsPage({ searchParams }: { searchParams: Pro
           <Panel title="Projects I work on">
             {mine.length ? <ProjectTable rows={mine} testId="projects-mine" /> : (
               <EmptyState title={q ? "No project matches that search." : "No projects yet."}>
-                Start a project for a client site, then import its climate and build a scenario.
+                {q ? "Try another word, or clear the search." : "Start a project for a client site with New project, then import its climate and build a scenario."}
               </EmptyState>
             )}
           </Panel>
