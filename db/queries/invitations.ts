@@ -37,6 +37,7 @@ export async function findInvitationByTokenHash(db: Executor, tokenHash: string)
       "invitations.expires_at as expiresAt",
       "invitations.accepted_at as acceptedAt",
       "invitations.revoked_at as revokedAt",
+      "invitations.invited_by as invitedBy",
       "projects.name as projectName",
       "projects.firm_id as firmId",
       "firms.name as firmName",

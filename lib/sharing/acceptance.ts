@@ -1,0 +1,162 @@
+import { z } from "zod";
+import type { Kysely } from "kysely";
+import type { Database } from "@/db/schema";
+import type { Viewer } from "@/lib/auth/access";
+import type { ProjectRole } from "@/lib/auth/roles";
+import { hashPassword, passwordProblems } from "@/lib/auth/password";
+import { writeAudit } from "@/db/queries/audit";
+import { consumeInvitation, findInvitationByTokenHash } from "@/db/queries/invitations";
+import { grantProjectAccess } from "@/db/queries/projects";
+import { createUser, findUserByEmail } from "@/db/queries/users";
+import { failure, fieldErrorsOf, success, type Failure, type Outcome } from "./outcome";
+import { invitationState } from "./invitations";
+import { hashInvitationToken, isWellFormedToken } from "./tokens";
+
+/** What the invitation page may show about a link: enough for the person holding it, nothing else. */
+export type InvitationLink =
+  | {
+      state: "open";
+      email: string;
+      role: ProjectRole;
+      projectName: string;
+      firmName: string;
+      inviterName: string | null;
+      expiresAt: Date;
+      accountExists: boolean;
+    }
+  | { state: "unknown" | "accepted" | "revoked" | "expired"; message: string };
+
+function expiredMessage(expiresAt: Date): string {
+  return `This invitation expired on ${expiresAt.toISOString().slice(0, 10)}. Invitation links work for 7 days; ask the consultant who invited you to send a new one.`;
+}
+
+export const LINK_MESSAGES = {
+  unknown: "This invitation link is not valid. Check that the whole link from the e-mail was opened, or ask the consultant for a new invitation.",
+  accepted: "This invitation has already been used: each link works once. Sign in with the account that accepted it, or ask the consultant for a new invitation.",
+  revoked: "This invitation was withdrawn by the consulting firm. Ask the consultant if you still need access.",
+} as const;
+
+async function lookUp(db: Kysely<Database>, token: string) {
+  if (!isWellFormedToken(token)) return undefined;
+  return findInvitationByTokenHash(db, hashInvitationToken(token));
+}
+
+function closedLink(state: "unknown" | "accepted" | "revoked" | "expired", expiresAt?: Date): InvitationLink {
+  return { state, message: state === "expired" ? expiredMessage(expiresAt!) : LINK_MESSAGES[state] };
+}
+
+/** Read a link without spending it. */
+export async function inspectInvitation(db: Kysely<Database>, token: string, now = new Date()): Promise<InvitationLink> {
+  const inv = await lookUp(db, token);
+  if (!inv) return closedLink("unknown");
+  const state = invitationState(inv, now);
+  if (state !== "pending") return closedLink(state, inv.expiresAt);
+  const account = await findUserByEmail(db, inv.email);
+  return {
+    state: "open",
+    email: inv.email,
+    role: inv.role,
+    projectName: inv.projectName,
+    firmName: inv.firmName,
+    inviterName: inv.inviterName,
+    expiresAt: inv.expiresAt,
+    accountExists: Boolean(account),
+  };
+}
+
+function linkFailure(link: InvitationLink): Failure {
+  return failure(link.state === "unknown" ? 404 : 410, link.state === "open" ? "This invitation cannot be used." : link.message);
+}
+
+export const newAccountSchema = z
+  .object({
+    name: z.string().trim().min(1, "Enter your name.").max(120, "Use at most 120 characters."),
+    password: z.string().max(200, "Use at most 200 characters."),
+    confirmPassword: z.string(),
+  })
+  .refine((v) => v.password === v.confirmPassword, { path: ["confirmPassword"], message: "The two passwords differ." });
+
+/** Raised inside the transaction to roll it back when the link was spent in between. */
+class LinkSpent extends Error {}
+
+/**
+ * A person without an account accepts: the account (for the invited address only), the grant of exactly
+ * the invited role on that project and the spent link are one transaction.
+ */
+export async function acceptAsNewAccount(
+  db: Kysely<Database>,
+  token: string,
+  raw: unknown,
+): Promise<Outcome<{ projectId: string; email: string; userId: string }>> {
+  const link = await inspectInvitation(db, token);
+  if (link.state !== "open") return linkFailure(link);
+  if (link.accountExists) return failure(409, `An account already exists for ${link.email}. Sign in with it to accept the invitation.`);
+  const parsed = newAccountSchema.safeParse(raw);
+  const fieldErrors = parsed.success ? {} : fieldErrorsOf(parsed.error.issues);
+  const password = typeof (raw as { password?: unknown })?.password === "string" ? (raw as { password: string }).password : "";
+  const policy = passwordProblems(password, link.email);
+  if (policy.length) fieldErrors.password = [...(fieldErrors.password ?? []), ...policy];
+  if (!parsed.success || policy.length) return failure(400, "Check the highlighted fields.", fieldErrors);
+
+  const passwordHash = await hashPassword(parsed.data.password);
+  const inv = (await lookUp(db, token))!;
+  try {
+    return await db.transaction().execute(async (trx) => {
+      const user = await createUser(trx, { email: inv.email, name: parsed.data.name, passwordHash });
+      const spent = await consumeInvitation(trx, inv.id, user.id);
+      if (!spent) throw new LinkSpent();
+      await grantProjectAccess(trx, { projectId: spent.projectId, userId: user.id, role: spent.role, grantedBy: inv.invitedBy });
+      await writeAudit(trx, {
+        actorId: user.id,
+        firmId: inv.firmId,
+        projectId: spent.projectId,
+        action: "invitation.accept",
+        targetType: "invitation",
+        targetId: inv.id,
+        detail: { email: inv.email, role: spent.role, newAccount: true },
+      });
+      return success({ projectId: spent.projectId, email: user.email, userId: user.id });
+    });
+  } catch (err) {
+    if (err instanceof LinkSpent) return linkFailure(await inspectInvitation(db, token));
+    if (/unique|duplicate/i.test(String((err as Error)?.message))) {
+      return failure(409, `An account already exists for ${inv.email}. Sign in with it to accept the invitation.`);
+    }
+    throw err;
+  }
+}
+
+/** A signed-in person accepts with their existing account, which must be the invited address. */
+export async function acceptAsViewer(
+  db: Kysely<Database>,
+  viewer: Viewer | null,
+  token: string,
+): Promise<Outcome<{ projectId: string; role: ProjectRole }>> {
+  if (!viewer) return failure(401, "Sign in first.");
+  const link = await inspectInvitation(db, token);
+  if (link.state !== "open") return linkFailure(link);
+  if (link.email.toLowerCase() !== viewer.email.toLowerCase()) {
+    return failure(403, `This invitation is for ${link.email}, and you are signed in as ${viewer.email}. Sign out and sign in as ${link.email}.`);
+  }
+  const inv = (await lookUp(db, token))!;
+  try {
+    return await db.transaction().execute(async (trx) => {
+      const spent = await consumeInvitation(trx, inv.id, viewer.id);
+      if (!spent) throw new LinkSpent();
+      await grantProjectAccess(trx, { projectId: spent.projectId, userId: viewer.id, role: spent.role, grantedBy: inv.invitedBy });
+      await writeAudit(trx, {
+        actorId: viewer.id,
+        firmId: inv.firmId,
+        projectId: spent.projectId,
+        action: "invitation.accept",
+        targetType: "invitation",
+        targetId: inv.id,
+        detail: { email: inv.email, role: spent.role, newAccount: false },
+      });
+      return success({ projectId: spent.projectId, role: spent.role });
+    });
+  } catch (err) {
+    if (err instanceof LinkSpent) return linkFailure(await inspectInvitation(db, token));
+    throw err;
+  }
+}
