@@ -8,6 +8,7 @@ import { env } from "@/lib/env";
 import { verifyPassword } from "./password";
 import {
   SIGN_IN_LIMITS,
+  clientAddress,
   clearSignInFailures,
   isSignInBlocked,
   recordSignInFailure,
@@ -34,18 +35,6 @@ declare module "next-auth/jwt" {
     authAtMs?: number;
     pwdAtMs?: number;
   }
-}
-
-/**
- * The address a sign-in attempt came from. The right-most X-Forwarded-For entry is the one the nearest
- * proxy appended (Next.js itself only fills the header when it is absent); the left-most entries are
- * whatever the client chose to send, so keying the limit on them would let anyone step around it.
- */
-export function clientAddress(headers: Record<string, unknown> | undefined): string {
-  const fwd = headers?.["x-forwarded-for"];
-  const last = typeof fwd === "string" ? fwd.split(",").at(-1)?.trim() : undefined;
-  const real = headers?.["x-real-ip"];
-  return last || (typeof real === "string" ? real : "") || "local";
 }
 
 /** next-auth configuration: e-mail + password, JWT sessions carrying the user id and roles. */

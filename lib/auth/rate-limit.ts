@@ -7,6 +7,18 @@ export const SIGN_IN_LIMITS = {
   address: { maxFailures: 20, windowS: 15 * 60, blockS: 15 * 60 },
 } as const;
 
+/**
+ * The address a sign-in attempt came from. The right-most X-Forwarded-For entry is the one the nearest
+ * proxy appended (Next.js itself only fills the header when it is absent); the left-most entries are
+ * whatever the client chose to send, so keying the limit on them would let anyone step around it.
+ */
+export function clientAddress(headers: Record<string, unknown> | undefined): string {
+  const fwd = headers?.["x-forwarded-for"];
+  const last = typeof fwd === "string" ? fwd.split(",").at(-1)?.trim() : undefined;
+  const real = headers?.["x-real-ip"];
+  return last || (typeof real === "string" ? real : "") || "local";
+}
+
 export function signInKeys(email: string, address: string): { account: string; address: string } {
   return { account: `acct:${email.trim().toLowerCase()}`, address: `addr:${address || "unknown"}` };
 }
