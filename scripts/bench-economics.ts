@@ -3,14 +3,14 @@
  *   1. a 25-year LCC of three options (cash-flow tables + measures),
  *   2. a full tornado + break-evens (9 inputs, physics re-runs included),
  *   3. 10,000 Monte Carlo draws.
- * Uses the engine's real physics of the first fixture when `lib/engine/index.ts` exports
- * `analyzeScenario` and a fixture parses; otherwise synthetic yearly physics (round numbers).
+ * Uses the engine's real physics of the first scenario fixture (tests/fixtures/*.json) with real physics
+ * re-runs; `--synthetic` (or an unusable fixture) uses synthetic yearly physics instead. `--summary`
+ * also prints the full economic summary.
  *
- *   npm run bench:economics
+ *   npm run bench:economics [-- --synthetic] [-- --summary]
  */
 import { existsSync, readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
-import { pathToFileURL } from "node:url";
 import {
   analyzeEconomics,
   formatEconomicsSummary,
@@ -19,6 +19,10 @@ import {
   type PhysicsOverrides,
 } from "@/lib/engine/economics";
 import { syntheticPhysics } from "@/lib/engine/economics/synthetic";
+import { parseEpw } from "@/lib/engine/climate";
+import { physicsOf, prepareScenario } from "@/lib/engine";
+import { pressureFromElevationPa } from "@/lib/engine/psychrometrics";
+import { parseScenario } from "@/lib/scenarios/schema";
 import type { OptionAnnualPhysics, OptionKind } from "@/lib/engine/types";
 import {
   economicsSchema,
@@ -159,58 +163,60 @@ function syntheticArgs(): { args: AnalyzeEconomicsArgs; source: string } {
   };
 }
 
-/** The engine's own physics of the first fixture, when the engine and a fixture are in place. */
-async function realArgs(): Promise<{ args: AnalyzeEconomicsArgs; source: string } | null> {
+/** The engine's own physics of the first fixture (its `climate.epwPath` resolved as `npm run analyze` does). */
+function realArgs(): { args: AnalyzeEconomicsArgs; source: string } | null {
   const fixtures = path.join(root, "tests", "fixtures");
-  if (!existsSync(path.join(root, "lib", "engine", "index.ts")) || !existsSync(fixtures)) return null;
+  if (!existsSync(fixtures)) return null;
+  const file = readdirSync(fixtures)
+    .filter((f) => f.endsWith(".json"))
+    .sort()[0];
+  if (!file) return null;
   try {
-    // Imported by file URL so this script type-checks before those modules exist.
-    const engine = (await import(pathToFileURL(path.join(root, "lib", "engine", "index.ts")).href)) as Record<
-      string,
-      unknown
-    >;
-    const schemaMod = (await import(
-      pathToFileURL(path.join(root, "lib", "scenarios", "schema.ts")).href
-    )) as Record<string, unknown>;
-    const analyzeScenario = engine.analyzeScenario as
-      ((input: unknown) => { physics: OptionAnnualPhysics[] }) | undefined;
-    const createRerun = engine.createRerunPhysics as
-      ((input: unknown) => (o: PhysicsOverrides) => OptionAnnualPhysics[]) | undefined;
-    const schema = schemaMod.scenarioSchema as { parse: (x: unknown) => Record<string, unknown> } | undefined;
-    if (!analyzeScenario || !schema) return null;
-    const file = readdirSync(fixtures)
-      .filter((f) => f.endsWith(".json"))
-      .sort()[0];
-    if (!file) return null;
-    const doc = schema.parse(JSON.parse(readFileSync(path.join(fixtures, file), "utf8")));
-    const physics = analyzeScenario(doc).physics;
-    const options = (doc.options as { id: string; kind: OptionKind; label: string; costs: unknown }[]).map(
-      (o) => ({
-        optionId: o.id,
-        kind: o.kind,
-        label: o.label,
-        costs: optionCostsSchema.parse(o.costs),
-      }),
-    );
+    const doc = JSON.parse(readFileSync(path.join(fixtures, file), "utf8")) as Record<string, unknown>;
+    const climate = doc.climate as { epwPath?: unknown; label?: unknown } | undefined;
+    if (climate && typeof climate.epwPath === "string") {
+      const elevationM = (doc.site as { elevationM?: number } | undefined)?.elevationM ?? 0;
+      const parsedEpw = parseEpw(readFileSync(path.resolve(fixtures, climate.epwPath), "utf8"), {
+        pressure: "site",
+        sitePressurePa: pressureFromElevationPa(elevationM),
+      });
+      if (!parsedEpw.ok) throw new Error(`cannot parse ${climate.epwPath}`);
+      const y = parsedEpw.value.year;
+      doc.climate = {
+        source: "hourly",
+        label: typeof climate.label === "string" ? climate.label : file,
+        month: y.month,
+        day: y.day,
+        hour: y.hour,
+        dryBulbC: y.dryBulbC,
+        wetBulbC: y.wetBulbC,
+      };
+    }
+    const parsed = parseScenario(doc);
+    if (!parsed.ok) throw new Error(parsed.errors.map((e) => `${e.path}: ${e.message}`).join("; "));
+    const input = parsed.value;
+    const prepared = prepareScenario(input);
     return {
-      source: `engine physics of tests/fixtures/${file} (${options.length} options)${createRerun ? ", real physics re-runs" : ", no re-run exported: fouling/load skipped"}`,
+      source: `engine physics of tests/fixtures/${file} (${input.options.length} options, real physics re-runs)`,
       args: {
-        physics,
-        options,
-        tariffs: tariffsSchema.parse(doc.tariffs ?? {}),
-        upkeep: upkeepSchema.parse(doc.upkeep ?? {}),
-        economics: economicsSchema.parse({ ...(doc.economics as object), studyPeriodYears: 25 }),
-        ...(createRerun ? { rerunPhysics: createRerun(doc) } : {}),
+        physics: physicsOf(prepared),
+        options: input.options.map((o) => ({ optionId: o.id, kind: o.kind, label: o.label, costs: o.costs })),
+        tariffs: input.tariffs,
+        upkeep: input.upkeep,
+        economics: { ...input.economics, studyPeriodYears: 25 },
+        rerunPhysics: (o: PhysicsOverrides) => physicsOf(prepared, o),
       },
     };
   } catch (e) {
-    console.log(`(real fixture not usable yet: ${(e as Error).message.split("\n")[0]})`);
+    console.log(
+      `(fixture ${file} not usable, synthetic physics instead: ${(e as Error).message.split("\n")[0]})`,
+    );
     return null;
   }
 }
 
-async function main() {
-  const chosen = (await realArgs()) ?? syntheticArgs();
+function main() {
+  const chosen = (process.argv.includes("--synthetic") ? null : realArgs()) ?? syntheticArgs();
   const { args } = chosen;
   console.log(`economics benchmark — ${chosen.source}; node ${process.version}`);
 
@@ -274,4 +280,4 @@ async function main() {
   );
 }
 
-void main();
+main();
