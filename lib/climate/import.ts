@@ -1,0 +1,259 @@
+import "server-only";
+import { createHash } from "node:crypto";
+import type { Kysely } from "kysely";
+import type { Database } from "@/db/schema";
+import { insertClimateDataset } from "@/db/queries/climate";
+import { writeAudit } from "@/db/queries/audit";
+import { parseEpw, parseHourlyCsv, type ClimateIssue } from "@/lib/engine/climate";
+import {
+  dryBulbBinsClimateInputSchema,
+  wetBulbBinsClimateInputSchema,
+} from "@/lib/scenarios/schema-climate";
+import { toFieldErrors, type FieldErrorMap } from "@/components/forms/errors";
+import { datasetFromBins, datasetFromParsedFile, type NewDataset } from "./build";
+import { csvMappingSchema, previewCsv, toHourlyCsvMapping, type CsvPreview } from "./csv-mapping";
+import { z } from "zod";
+
+/** Largest weather file accepted, stated in the upload form. An hourly EPW year is ~1.4–1.7 MB. */
+export const MAX_CLIMATE_UPLOAD_BYTES = 10 * 1024 * 1024;
+/** Multipart overhead allowed on top of the file (boundaries, the name and mapping fields). */
+const MULTIPART_OVERHEAD_BYTES = 256 * 1024;
+
+export interface ImportTarget {
+  projectId: string;
+  firmId: string;
+  actorId: string;
+  siteElevationM: number;
+}
+
+export interface UploadedFile {
+  name: string;
+  bytes: Uint8Array;
+}
+
+export type ImportOutcome =
+  | { status: 201; body: { ok: true; datasetId: string; name: string; warnings: ClimateIssue[] } }
+  | { status: 200; body: { ok: false; step: "mapping"; fileName: string; preview: CsvPreview } }
+  | {
+      status: 400 | 413 | 415 | 422;
+      body: { ok: false; error: string; issues?: ClimateIssue[]; fieldErrors?: FieldErrorMap };
+    };
+
+const fail = (status: 400 | 413 | 415 | 422, error: string, extra: { issues?: ClimateIssue[]; fieldErrors?: FieldErrorMap } = {}): ImportOutcome => ({
+  status,
+  body: { ok: false, error, ...extra },
+});
+
+/**
+ * Read a request body, refusing it as soon as it passes `limitBytes` (a Content-Length above the limit is
+ * refused before anything is read; a chunked body is counted as it streams).
+ */
+export async function readBodyLimited(
+  request: Request,
+  limitBytes: number,
+): Promise<{ ok: true; bytes: Uint8Array } | { ok: false; reason: "tooLarge" | "empty" }> {
+  const declared = Number(request.headers.get("content-length") ?? NaN);
+  if (Number.isFinite(declared) && declared > limitBytes) return { ok: false, reason: "tooLarge" };
+  if (!request.body) return { ok: false, reason: "empty" };
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > limitBytes) {
+      await reader.cancel().catch(() => undefined);
+      return { ok: false, reason: "tooLarge" };
+    }
+    chunks.push(value);
+  }
+  const bytes = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    bytes.set(c, at);
+    at += c.byteLength;
+  }
+  return { ok: true, bytes };
+}
+
+export interface ClimateUploadForm {
+  file: UploadedFile;
+  name?: string;
+  mapping?: unknown;
+}
+
+/** Parse the multipart upload (file, optional name, optional mapping JSON) within the size limit. */
+export async function readClimateUpload(request: Request): Promise<{ ok: true; form: ClimateUploadForm } | { ok: false; outcome: ImportOutcome }> {
+  const type = request.headers.get("content-type") ?? "";
+  if (!type.toLowerCase().startsWith("multipart/form-data")) {
+    return { ok: false, outcome: fail(415, "Send the weather file as a multipart/form-data upload (field \"file\").") };
+  }
+  const body = await readBodyLimited(request, MAX_CLIMATE_UPLOAD_BYTES + MULTIPART_OVERHEAD_BYTES);
+  if (!body.ok) {
+    return {
+      ok: false,
+      outcome:
+        body.reason === "tooLarge"
+          ? fail(413, "The file is larger than 10 MB. An hourly year is about 1.5 MB: check that this is one year of hourly data.")
+          : fail(400, "The upload was empty."),
+    };
+  }
+  let data: FormData;
+  try {
+    data = await new Request("http://upload.local/", { method: "POST", headers: { "content-type": type }, body: body.bytes as BodyInit }).formData();
+  } catch {
+    return { ok: false, outcome: fail(400, "The upload could not be read as a form.") };
+  }
+  const file = data.get("file");
+  if (!file || typeof file === "string") return { ok: false, outcome: fail(400, "Choose a weather file to upload.") };
+  if (file.size > MAX_CLIMATE_UPLOAD_BYTES) {
+    return { ok: false, outcome: fail(413, "The file is larger than 10 MB. An hourly year is about 1.5 MB: check that this is one year of hourly data.") };
+  }
+  const name = data.get("name");
+  const mappingText = data.get("mapping");
+  let mapping: unknown;
+  if (typeof mappingText === "string" && mappingText.trim() !== "") {
+    try {
+      mapping = JSON.parse(mappingText);
+    } catch {
+      return { ok: false, outcome: fail(400, "The column mapping was not valid JSON.") };
+    }
+  }
+  return {
+    ok: true,
+    form: {
+      file: { name: file.name || "upload", bytes: new Uint8Array(await file.arrayBuffer()) },
+      ...(typeof name === "string" && name.trim() ? { name: name.trim().slice(0, 200) } : {}),
+      ...(mapping !== undefined ? { mapping } : {}),
+    },
+  };
+}
+
+/** What a file is, from its content first and its name second. */
+export function sniffWeatherFile(file: UploadedFile): { kind: "epw" | "csv"; text: string } | { error: ImportOutcome } {
+  const b = file.bytes;
+  if (b.byteLength === 0) return { error: fail(422, "The file is empty.", { issues: [{ line: 0, field: "file", message: "the file has no content" }] }) };
+  if (b[0] === 0x50 && b[1] === 0x4b && b[2] === 0x03 && b[3] === 0x04) {
+    return {
+      error: fail(415, "This is a ZIP archive or an Excel workbook. Unzip the .epw file, or save the sheet as CSV, and upload that."),
+    };
+  }
+  if (b[0] === 0x25 && b[1] === 0x50 && b[2] === 0x44 && b[3] === 0x46) return { error: fail(415, "This is a PDF. Upload an .epw or .csv weather file.") };
+  const head = b.subarray(0, Math.min(b.byteLength, 8192));
+  if (head.includes(0)) return { error: fail(415, "This is not a text file. Upload an .epw or .csv weather file.") };
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(b);
+  } catch {
+    // Older weather files carry Latin-1 place names; windows-1252 decodes every byte.
+    text = new TextDecoder("windows-1252").decode(b);
+  }
+  text = text.replace(/^\uFEFF/, "");
+  const ext = (file.name.toLowerCase().match(/\.([a-z0-9]+)$/)?.[1] ?? "").trim();
+  const looksEpw = /^\s*LOCATION\s*,/i.test(text);
+  if (looksEpw || ext === "epw") return { kind: "epw", text };
+  if (["csv", "txt", "tsv", "dat", ""].includes(ext)) return { kind: "csv", text };
+  return { error: fail(415, `A .${ext} file is not a weather file LoopLedger reads. Upload an EnergyPlus .epw file or an hourly .csv table.`) };
+}
+
+const datasetName = z.string().trim().max(200).optional();
+
+async function store(db: Kysely<Database>, target: ImportTarget, ds: NewDataset): Promise<string> {
+  return db.transaction().execute(async (trx) => {
+    const { id } = await insertClimateDataset(trx, {
+      project_id: target.projectId,
+      name: ds.name,
+      source_kind: ds.sourceKind,
+      file_name: ds.fileName,
+      provenance: JSON.stringify(ds.provenance),
+      record_count: ds.recordCount,
+      missing_count: ds.missingCount,
+      hours_total: ds.hoursTotal,
+      data: JSON.stringify(ds.data),
+      summary: JSON.stringify(ds.summary),
+      created_by: target.actorId,
+    });
+    await writeAudit(trx, {
+      actorId: target.actorId,
+      firmId: target.firmId,
+      projectId: target.projectId,
+      action: ds.fileName ? "climate.import" : "climate.enterBins",
+      targetType: "climate_dataset",
+      targetId: id,
+      detail: {
+        name: ds.name,
+        sourceKind: ds.sourceKind,
+        fileName: ds.fileName,
+        records: ds.recordCount,
+        hours: ds.hoursTotal,
+        missing: ds.missingCount,
+        warnings: ds.provenance.warnings.length,
+      },
+    });
+    return id;
+  });
+}
+
+/**
+ * Import an uploaded weather file into a project (the caller has authorized climate.manage).
+ * EPW: parsed at once. CSV without a mapping: a preview and a guessed mapping come back (200, nothing
+ * stored); with a mapping: parsed with it. A file the parser rejects returns its line/field errors (422)
+ * and nothing is stored.
+ */
+export async function importClimateFile(
+  db: Kysely<Database>,
+  target: ImportTarget,
+  form: ClimateUploadForm,
+): Promise<ImportOutcome> {
+  const name = datasetName.safeParse(form.name);
+  const label = name.success ? name.data : undefined;
+  const sniffed = sniffWeatherFile(form.file);
+  if ("error" in sniffed) return sniffed.error;
+  const sha256 = createHash("sha256").update(form.file.bytes).digest("hex");
+  const meta = { fileName: form.file.name.slice(0, 255), name: label, byteSize: form.file.bytes.byteLength, sha256, siteElevationM: target.siteElevationM };
+
+  if (sniffed.kind === "epw") {
+    const parsed = parseEpw(sniffed.text);
+    if (!parsed.ok) return fail(422, "The EPW file could not be read. Nothing was saved.", { issues: parsed.errors });
+    const ds = datasetFromParsedFile(parsed.value, parsed.warnings, { ...meta, sourceKind: "epw" });
+    const datasetId = await store(db, target, ds);
+    return { status: 201, body: { ok: true, datasetId, name: ds.name, warnings: ds.provenance.warnings } };
+  }
+
+  if (form.mapping === undefined) {
+    return { status: 200, body: { ok: false, step: "mapping", fileName: meta.fileName, preview: previewCsv(sniffed.text) } };
+  }
+  const mapping = csvMappingSchema.safeParse(form.mapping);
+  if (!mapping.success) {
+    return fail(400, "The column mapping is incomplete.", { fieldErrors: toFieldErrors(mapping.error.issues) });
+  }
+  const engineMapping = toHourlyCsvMapping(mapping.data, { elevationM: target.siteElevationM, ...(label ? { label } : {}) });
+  const parsed = parseHourlyCsv(sniffed.text, engineMapping);
+  if (!parsed.ok) return fail(422, "The CSV file could not be read with this mapping. Nothing was saved.", { issues: parsed.errors });
+  const ds = datasetFromParsedFile(parsed.value, parsed.warnings, { ...meta, sourceKind: "csv", csvMapping: engineMapping });
+  const datasetId = await store(db, target, ds);
+  return { status: 201, body: { ok: true, datasetId, name: ds.name, warnings: ds.provenance.warnings } };
+}
+
+export const binTableSubmissionSchema = z.discriminatedUnion("source", [
+  wetBulbBinsClimateInputSchema.extend({ name: z.string().trim().min(1, "Name the bin table.").max(200) }),
+  dryBulbBinsClimateInputSchema.extend({ name: z.string().trim().min(1, "Name the bin table.").max(200) }),
+]);
+
+/** Save an entered bin table (SI values; validated with the scenario climate schema). All field errors, or the new id. */
+export async function saveBinTable(
+  db: Kysely<Database>,
+  target: ImportTarget,
+  input: unknown,
+): Promise<{ ok: true; datasetId: string; warnings: ClimateIssue[] } | { ok: false; fieldErrors: FieldErrorMap }> {
+  const parsed = binTableSubmissionSchema.safeParse(input);
+  if (!parsed.success) return { ok: false, fieldErrors: toFieldErrors(parsed.error.issues) };
+  const v = parsed.data;
+  const ds =
+    v.source === "wetBulbBins"
+      ? datasetFromBins({ source: "wetBulbBins", bins: v.bins }, { name: v.name, siteElevationM: target.siteElevationM })
+      : datasetFromBins({ source: "dryBulbBins", bins: v.bins }, { name: v.name, siteElevationM: target.siteElevationM });
+  const datasetId = await store(db, target, ds);
+  return { ok: true, datasetId, warnings: ds.provenance.warnings };
+}
