@@ -1,0 +1,164 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { sql } from "kysely";
+import { testDb, uniq } from "../support/db";
+import { createUser, firmRolesOf } from "@/db/queries/users";
+import { grantProjectAccess } from "@/db/queries/projects";
+import { createProjectFor, updateProjectFor, type Actor } from "@/lib/projects/data";
+
+const db = testDb();
+afterAll(() => db.destroy());
+
+let consultant: Actor;
+let outsider: Actor;
+let owner: Actor;
+let firmId: string;
+
+async function actor(userId: string): Promise<Actor> {
+  const firms = await firmRolesOf(db, userId);
+  return { userId, principal: { userId, firms: firms.map((f) => ({ firmId: f.firmId, role: f.role })) } };
+}
+
+async function newUser(label: string) {
+  return createUser(db, { email: `${uniq(label)}@example.test`, name: label, passwordHash: null });
+}
+
+beforeAll(async () => {
+  const [c, o, w] = [await newUser("consultant"), await newUser("outsider"), await newUser("owner")];
+  const firm = await db.insertInto("firms").values({ name: uniq("Project firm ") }).returning("id").executeTakeFirstOrThrow();
+  const other = await db.insertInto("firms").values({ name: uniq("Other firm ") }).returning("id").executeTakeFirstOrThrow();
+  firmId = firm.id;
+  await db.insertInto("firm_members").values({ firm_id: firm.id, user_id: c.id, role: "consultant" }).execute();
+  await db.insertInto("firm_members").values({ firm_id: other.id, user_id: o.id, role: "consultant" }).execute();
+  consultant = await actor(c.id);
+  outsider = await actor(o.id);
+  owner = await actor(w.id);
+});
+
+const valid = () => ({
+  firmId,
+  clientName: "Invented Dairy Co-op",
+  name: uniq("Milk plant condenser loop "),
+  siteName: "North plant",
+  locationLabel: "Invented valley",
+  elevationM: 412,
+  unitSystem: "IP",
+  currency: "cad",
+});
+
+const projectCount = async () =>
+  Number((await db.selectFrom("projects").select(sql<number>`count(*)`.as("n")).executeTakeFirstOrThrow()).n);
+
+describe("create a project", () => {
+  it("an empty form returns every field's error and creates nothing", async () => {
+    const before = await projectCount();
+    const r = await createProjectFor(db, consultant, {
+      firmId: "not-a-uuid",
+      clientName: " ",
+      name: "",
+      siteName: "",
+      elevationM: "high",
+      unitSystem: "metric",
+      currency: "dollars",
+    });
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(Object.keys(r.fieldErrors).sort()).toEqual(["clientName", "currency", "elevationM", "firmId", "name", "siteName", "unitSystem"]);
+    expect(await projectCount()).toBe(before);
+  });
+
+  it("an unknown ISO 4217 code and an elevation beyond 5,000 m are refused", async () => {
+    const r = await createProjectFor(db, consultant, { ...valid(), currency: "XYZ", elevationM: 9000 });
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(Object.keys(r.fieldErrors).sort()).toEqual(["currency", "elevationM"]);
+  });
+
+  it("a firm member creates it (trimmed, currency upper-cased) and the audit trail records it", async () => {
+    const input = valid();
+    const r = await createProjectFor(db, consultant, { ...input, name: `  ${input.name}  ` });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const id = r.data!.projectId;
+    const row = await db.selectFrom("projects").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
+    expect(row).toMatchObject({ name: input.name, firm_id: firmId, currency: "CAD", unit_system: "IP", elevation_m: 412, created_by: consultant.userId });
+    const audit = await db.selectFrom("audit_events").selectAll().where("project_id", "=", id).execute();
+    expect(audit.map((a) => a.action)).toEqual(["project.create"]);
+    expect(audit[0]!.actor_id).toBe(consultant.userId);
+  });
+
+  it("a consultant of another firm and a client viewer cannot create in this firm", async () => {
+    const before = await projectCount();
+    const a = await createProjectFor(db, outsider, valid());
+    const b = await createProjectFor(db, owner, valid());
+    expect(a.ok).toBe(false);
+    expect(b.ok).toBe(false);
+    expect(await projectCount()).toBe(before);
+  });
+});
+
+describe("edit a project", () => {
+  let projectId: string;
+  beforeAll(async () => {
+    const r = await createProjectFor(db, consultant, valid());
+    if (!r.ok) throw new Error("setup failed");
+    projectId = r.data!.projectId;
+    await grantProjectAccess(db, { projectId, userId: owner.userId, role: "owner", grantedBy: consultant.userId });
+  });
+
+  const current = () => db.selectFrom("projects").selectAll().where("id", "=", projectId).executeTakeFirstOrThrow();
+
+  it("invalid fields all come back and nothing changes", async () => {
+    const before = await current();
+    const r = await updateProjectFor(db, consultant, projectId, {
+      clientName: "",
+      name: "x".repeat(201),
+      siteName: "Still fine",
+      locationLabel: "",
+      elevationM: -9000,
+      unitSystem: "SI",
+      currency: "EURO",
+    });
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(Object.keys(r.fieldErrors).sort()).toEqual(["clientName", "currency", "elevationM", "name"]);
+    expect(r.fieldErrors.name?.[0]).toMatch(/200/);
+    const after = await current();
+    expect(after).toEqual(before);
+  });
+
+  it("a valid edit changes only what changed and audits old and new values", async () => {
+    const before = await current();
+    const r = await updateProjectFor(db, consultant, projectId, {
+      clientName: before.client_name,
+      name: before.name,
+      siteName: before.site_name,
+      locationLabel: before.location_label,
+      elevationM: 250,
+      unitSystem: "SI",
+      currency: before.currency,
+    });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.data!.changed.sort()).toEqual(["elevationM", "unitSystem"]);
+    const after = await current();
+    expect(after.elevation_m).toBe(250);
+    expect(after.unit_system).toBe("SI");
+    const audit = await db
+      .selectFrom("audit_events")
+      .select(["action", "detail"])
+      .where("project_id", "=", projectId)
+      .where("action", "=", "project.edit")
+      .executeTakeFirstOrThrow();
+    expect(audit.detail).toEqual({ changes: { elevationM: { from: 412, to: 250 }, unitSystem: { from: "IP", to: "SI" } } });
+  });
+
+  it("a client viewer of the project and an outsider cannot edit it", async () => {
+    const before = await current();
+    const input = { ...valid(), name: "Hijacked" };
+    const byOwner = await updateProjectFor(db, owner, projectId, input);
+    const byOutsider = await updateProjectFor(db, outsider, projectId, input);
+    expect(byOwner).toMatchObject({ ok: false, formError: expect.stringMatching(/permission/) });
+    // No relation: answered as "not found", never hinting that the project exists.
+    expect(byOutsider).toMatchObject({ ok: false, formError: expect.stringMatching(/not found/) });
+    expect(await current()).toEqual(before);
+  });
+});
