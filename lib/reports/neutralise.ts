@@ -1,0 +1,16 @@
+/**
+ * Formula-injection defence for exported text (OWASP "CSV Injection"): a spreadsheet treats a cell that
+ * starts with `=`, `+`, `-` or `@` (and, in some programs, a leading tab or carriage return) as a formula.
+ * Text that came from a user is prefixed with an apostrophe so every program shows it as plain text.
+ * Numbers are never passed through here: they are written as numbers.
+ */
+const FORMULA_LEAD = /^[=+\-@\t\r]/;
+
+export function startsLikeFormula(text: string): boolean {
+  return FORMULA_LEAD.test(text);
+}
+
+/** User text made safe for a spreadsheet cell or a CSV field. */
+export function neutraliseText(text: string): string {
+  return startsLikeFormula(text) ? `'${text}` : text;
+}
