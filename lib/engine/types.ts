@@ -87,5 +87,19 @@ export interface OptionAnnualPhysics {
   optimalCleaningIntervalMonths: number | null;
   /** Chemical programme quantities: water leaving the wet loop (blowdown + drift) and loop volume. */
   chemicals: { treatedOutflowM3: number; systemVolumeM3: number; inhibitorKg: number; biocideKg: number };
+  /**
+   * Total compressor energy at the option's own condensing temperatures (not only the penalty), kWh:
+   * compares options whose condensing temperatures float (floating head pressure). Added by the physics.
+   */
+  compressorEnergyKWh?: number;
+  /** Scaling indices of the recirculating (tower or spray) water at the hottest wetted surface. */
+  waterChemistry?: {
+    hottestWettedSurfaceC: number;
+    saturationPh: number;
+    langelierIndex: number;
+    ryznarIndex: number;
+    cyclesLimitFromChemistry: number;
+    limitingSpecies: "silica" | "chloride" | "tds" | "calciumHardness" | null;
+  };
   warnings: EngineWarning[];
 }

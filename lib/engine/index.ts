@@ -1,0 +1,131 @@
+/**
+ * LoopLedger engine entry point: a scenario in, yearly physics and life-cycle economics out.
+ * Pure and synchronous; no I/O. SI throughout.
+ */
+import {
+  type PreparedClimate,
+  type PreparedOption,
+  computeOptionsPhysics,
+  prepareClimate,
+  prepareOption,
+} from "./annual";
+import { climateYearWarnings, toClimateYear } from "./climate/input";
+import { type ClimateSummary, summarizeClimate } from "./climate/summary";
+import type { ClimateYear } from "./climate/types";
+import { analyzeEconomics } from "./economics";
+import type { EconomicsResult, PhysicsOverrides } from "./economics/types";
+import type { ScenarioInput } from "./input";
+import { pressureFromElevationPa } from "./psychrometrics";
+import type { EngineWarning, OptionAnnualPhysics } from "./types";
+import { ENGINE_VERSION } from "./version";
+
+export { ENGINE_VERSION } from "./version";
+export type { ScenarioInput } from "./input";
+export type { PhysicsOverrides } from "./economics/types";
+
+export interface ScenarioResult {
+  engineVersion: string;
+  /** Set by the caller that stores the result (hash of the canonical input). */
+  inputsHash?: string;
+  physics: OptionAnnualPhysics[];
+  economics: EconomicsResult;
+  climateSummary: ClimateSummary & { sitePressurePa: number };
+  warnings: EngineWarning[];
+}
+
+/** A scenario prepared once: climate psychrometrics and every option's calibration. */
+export interface PreparedScenario {
+  input: ScenarioInput;
+  pressurePa: number;
+  year: ClimateYear;
+  climate: PreparedClimate;
+  options: PreparedOption[];
+  foulingCostCache: Map<string, number>;
+}
+
+/** Resolve the climate and calibrate every option (the part of an analysis no what-if changes). */
+export function prepareScenario(input: ScenarioInput): PreparedScenario {
+  const pressurePa = pressureFromElevationPa(input.site.elevationM);
+  const year = toClimateYear(input.climate);
+  return {
+    input,
+    pressurePa,
+    year,
+    climate: prepareClimate(year, pressurePa),
+    options: input.options.map((o, i) => prepareOption(o, i, input.duty, input.fouling, pressurePa)),
+    foulingCostCache: new Map(),
+  };
+}
+
+/** Flat price for the cleaning-interval optimum: the energy price, or the mean of the 288 time-of-use prices. */
+function flatElectricityPrice(input: ScenarioInput): number {
+  const e = input.tariffs.electricity;
+  if (e.pricing === "monthHour" && e.energyPricePerKWhByMonthHour && e.energyPricePerKWhByMonthHour.length > 0) {
+    const p = e.energyPricePerKWhByMonthHour;
+    return p.reduce((a, b) => a + b, 0) / p.length;
+  }
+  return e.energyPricePerKWh;
+}
+
+/**
+ * Yearly physics of every option of a prepared scenario, with what-if overrides (absolute cycles of
+ * concentration for every wet loop, a factor on the fouling growth rate, a factor on the duty).
+ */
+export function physicsOf(prepared: PreparedScenario, overrides: PhysicsOverrides = {}): OptionAnnualPhysics[] {
+  const input = prepared.input;
+  return computeOptionsPhysics(prepared.options, prepared.climate, input.duty, input.water, input.fouling, prepared.pressurePa, {
+    ...(overrides.cyclesOfConcentration !== undefined ? { cyclesOverride: overrides.cyclesOfConcentration } : {}),
+    ...(overrides.foulingRateFactor !== undefined ? { foulingRateFactor: overrides.foulingRateFactor } : {}),
+    ...(overrides.loadFactor !== undefined ? { loadFactor: overrides.loadFactor } : {}),
+    electricityPricePerKWh: flatElectricityPrice(input),
+    foulingCostCache: prepared.foulingCostCache,
+  });
+}
+
+/**
+ * Re-run the physics of a scenario with overrides (a convenience for callers that hold only the input;
+ * `analyzeScenario` passes a closure over its prepared scenario to the economics instead).
+ */
+export function rerunPhysics(input: ScenarioInput, overrides: PhysicsOverrides): OptionAnnualPhysics[] {
+  return physicsOf(prepareScenario(input), overrides);
+}
+
+/**
+ * Analyse a validated scenario: climate → per-option yearly physics (tower/cooler, condenser, fouling,
+ * water) → life-cycle economics with sensitivity and Monte Carlo when enabled. The economics receive a
+ * `rerunPhysics` closure over the prepared scenario for physics-dependent sensitivities.
+ */
+export function analyzeScenario(input: ScenarioInput, onProgress?: (fraction: number) => void): ScenarioResult {
+  const prepared = prepareScenario(input);
+  const physics = physicsOf(prepared);
+  const economics = analyzeEconomics({
+    physics,
+    options: input.options.map((o) => ({ optionId: o.id, kind: o.kind, label: o.label, costs: o.costs })),
+    tariffs: input.tariffs,
+    upkeep: input.upkeep,
+    economics: input.economics,
+    ...(input.sensitivity ? { sensitivity: input.sensitivity } : {}),
+    ...(input.monteCarlo ? { monteCarlo: input.monteCarlo } : {}),
+    ...(input.economics.baseOptionId !== undefined ? { baseOptionId: input.economics.baseOptionId } : {}),
+    rerunPhysics: (o: PhysicsOverrides) => physicsOf(prepared, o),
+    ...(onProgress ? { onProgress } : {}),
+  });
+  const warnings: EngineWarning[] = [...climateYearWarnings(prepared.year)];
+  if (prepared.climate.monthsUnknown) {
+    warnings.push({
+      code: "climate.binsWithoutMonths",
+      severity: "info",
+      message: "The bins carry no month: monthly and month × hour results are spread over the year by days, and each month's peak repeats the annual peak.",
+      path: "climate.bins",
+    });
+  }
+  for (const p of physics) warnings.push(...p.warnings);
+  warnings.push(...economics.warnings);
+  return {
+    engineVersion: ENGINE_VERSION,
+    physics,
+    economics,
+    climateSummary: { ...summarizeClimate(prepared.year), sitePressurePa: prepared.pressurePa },
+    warnings,
+  };
+}

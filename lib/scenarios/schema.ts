@@ -1,0 +1,530 @@
+/**
+ * The one zod schema of a LoopLedger scenario (forms, API and storage use it): engineer A's
+ * `climateInputSchema`, engineer C's economic pieces, and the physics keys defined here (site, duty,
+ * options discriminated by `kind`, water, fouling). Parsing fills every default, so its output is the
+ * engine's `ScenarioInput` (checked at compile time at the bottom). All field errors are returned with
+ * their paths; cross-field checks carry the path of the field to fix.
+ *
+ * Every defaulted field takes its default from `fieldDefaults` (path → default + source), which the
+ * editor shows beside the field. `options[]` in a path stands for every option.
+ */
+import { z } from "zod";
+import { OPTION_KINDS } from "@/lib/engine/types";
+import type { ScenarioInput } from "@/lib/engine/input";
+import type { ClimateInput } from "@/lib/engine/climate/types";
+import { climateInputSchema } from "./schema-climate";
+import {
+  economicsFieldDefaults,
+  economicsSchema,
+  monteCarloSchema,
+  optionCostsSchema,
+  sensitivitySchema,
+  tariffsSchema,
+  upkeepSchema,
+  type FieldDefault,
+} from "./schema-economics";
+
+export type { FieldDefault } from "./schema-economics";
+
+/** Default value and source of every defaulted physics field (economics: see `economicsFieldDefaults`). */
+export const physicsFieldDefaults = {
+  "duty.headPressureControl": {
+    default: "fixedSetPoint",
+    source: "[practice] fans hold one condensing set-point; choose floating head pressure where the plant allows it",
+  },
+  "duty.loadProfile": {
+    default: { kind: "constant", fraction: 1 },
+    source: "[practice] conservative: the design load in every hour; enter the plant's profile",
+  },
+  "duty.compressorModel": {
+    default: { kind: "carnotFraction" },
+    source: "LoopLedger engineering notes §5: Carnot-fraction model calibrated on the design COP",
+  },
+  "options[].fan.control": { default: "variableSpeed", source: "[practice] variable-speed drives are the norm on new units" },
+  "options[].fan.minSpeedFraction": { default: 0.25, source: "[practice] 20–30 % minimum speed of tower and cooler fan drives" },
+  "options[].fan.powerFloorFraction": {
+    default: 0.05,
+    source: "[practice] drive and motor losses that remain at low speed: P/Pd = a + (1 − a)·f³",
+  },
+  "options[].fan.lowSpeedFraction": { default: 0.5, source: "[practice] two-speed motors 100/50 % (or 100/67 %)" },
+  "options[].fan.naturalDraftAirflowFraction": {
+    default: 0.1,
+    source: "[memory] natural-draft capacity with the fan off ≈ 10 %, modelled as 10 % of the design airflow",
+  },
+  "options[].tower.designLiquidToGasRatio": {
+    default: 1.2,
+    source: "[practice] counterflow towers run L/G 0.75–1.5 at design; enter the selection's airflow-based value if known",
+  },
+  "options[].tower.characteristicExponent": {
+    default: 0.6,
+    source: "[practice] n of KaV/L = C·(L/G)^−n is 0.5–0.8 for film fills (CTI practice)",
+  },
+  "options[].condenser.cleanUWPerM2K": {
+    default: 1000,
+    source: "[practice] clean U of ammonia shell-and-tube condensers with water in the tubes ≈ 800–1400 W/(m²·K)",
+  },
+  "options[].condenser.designFoulingM2KPerW": {
+    default: 0,
+    source: "the stated design condensing temperature is taken as the clean condenser's",
+  },
+  "options[].condenserPump.headM": { default: 20, source: "[practice] condenser-water loop head 15–25 m" },
+  "options[].condenserPump.efficiency": { default: 0.65, source: "[practice] wire-to-water efficiency of an end-suction pump set" },
+  "options[].towerPump.headM": { default: 15, source: "[practice] tower-side loop head (static lift + piping)" },
+  "options[].towerPump.efficiency": { default: 0.65, source: "[practice] wire-to-water efficiency" },
+  "options[].basinHeater.powerKW": { default: 0, source: "none entered; enter the heater rating (0 = no heater)" },
+  "options[].basinHeater.belowDryBulbC": { default: 4.4, source: "[practice] basin-heater thermostat at about 40 °F" },
+  "options[].driftFractionOfFlow": {
+    default: 0.00005,
+    source: "[practice] modern drift eliminators 0.0005–0.005 % of circulating flow; 0.005 % used",
+  },
+  "options[].wetLoopVolumeM3": {
+    default: "3 minutes of the circulating (tower or spray) flow",
+    source: "[practice] basin and piping volume of a packaged unit",
+  },
+  "options[].plateExchanger.designApproachK": { default: 1.5, source: "[practice] plate exchangers for tower isolation: 1–2 K" },
+  "options[].plateExchanger.cleanUWPerM2K": { default: 5000, source: "[practice] water-to-water plates 3000–7000 W/(m²·K) clean" },
+  "options[].plateExchanger.towerSidePressureDropKPa": { default: 50, source: "[practice] 30–70 kPa per side at design flow" },
+  "options[].plateExchanger.cleanSidePressureDropKPa": { default: 50, source: "[practice] 30–70 kPa per side at design flow" },
+  "options[].plateExchanger.foulingGrowthFactor": {
+    default: 0.5,
+    source: "[practice] turbulent plate channels foul more slowly than condenser tubes on the same water",
+  },
+  "options[].cooler.designFluidToAirRatio": {
+    default: 1,
+    source: "[practice] closed-circuit coolers run about 1 kg of fluid per kg of air at design; enter the rated airflow if known",
+  },
+  "options[].cooler.internalResistanceFraction": {
+    default: 0.3,
+    source: "[practice] the tube-side (fluid) share of the wet overall resistance, 20–40 %",
+  },
+  "options[].cooler.dryExternalConductanceFactor": {
+    default: 0.7,
+    source: "[practice] dry external conductance 0.5–0.8 of the Lewis-analogy value hD·A·cp; calibrated on the dry rating when given",
+  },
+  "options[].cooler.allowDryMode": { default: true, source: "the unit may run dry when dry operation holds the set-point" },
+  "options[].cooler.glycol": { default: { kind: "none", massFraction: 0 }, source: "water in the process loop" },
+  "options[].cooler.ratingFluid": {
+    default: "water",
+    source: "ratings taken as on water; the engine derates capacity and pump power for the loop's glycol",
+  },
+  "options[].sprayPump.headM": { default: 6, source: "[practice] spray pumps work against a low head, 5–8 m" },
+  "options[].sprayPump.efficiency": { default: 0.6, source: "[practice] small close-coupled pump sets" },
+  "water.limits.silicaMgPerL": { default: 150, source: "[memory] typical guideline 150 mg/L SiO2 in recirculating water" },
+  "water.limits.chlorideMgPerL": { default: 250, source: "[memory] 250–500 mg/L by metallurgy; 250 for stainless steel" },
+  "water.limits.tdsMgPerL": { default: 2500, source: "[practice] common TDS ceiling of treatment programmes" },
+  "water.limits.calciumHardnessMgPerLAsCaCO3": {
+    default: 1000,
+    source: "[practice] calcium hardness ceiling with a scale inhibitor, as CaCO3",
+  },
+  "water.cyclesMode": { default: "fromChemistry", source: "cycles from the makeup analysis and the limits" },
+  "water.recirculatingPh": { default: 8.5, source: "[practice] alkaline treatment programmes run pH 8.0–9.0" },
+  "water.sewerEvaporationCredit": { default: false, source: "[practice] a credit needs makeup and blowdown meters and the utility's consent" },
+  "water.dosing.inhibitorMgPerLOutflow": { default: 100, source: "[practice] inhibitor product 50–150 mg/L in the blowdown" },
+  "water.dosing.biocideMgPerLSystemVolume": { default: 10, source: "[practice] slug dose of a non-oxidising biocide" },
+  "water.dosing.biocideSlugsPerYear": { default: 52, source: "[practice] weekly slug dosing" },
+  "fouling.model": { default: "asymptotic", source: "Kern & Seaton (1959) asymptotic fouling" },
+  "fouling.asymptoticM2KPerW": {
+    default: 0.000176,
+    source: "[memory] TEMA RGP-T-2.4: treated cooling-tower water 0.001 h·ft²·°F/Btu = 0.000176 m²·K/W",
+  },
+  "fouling.timeConstantMonths": { default: 3, source: "[practice] treated tower water approaches its asymptote within a season" },
+  "fouling.linearRateM2KPerWPerMonth": { default: 0.0000147, source: "[practice] the TEMA allowance reached in 12 months" },
+  "fouling.limitM2KPerW": { default: 0.000176, source: "[memory] TEMA allowance for treated tower water" },
+  "fouling.condenserCleaningIntervalMonths": { default: 12, source: "[practice] yearly mechanical tube cleaning" },
+  "fouling.plateExchangerCleaningIntervalMonths": { default: 24, source: "[practice] plate exchangers opened every 1–3 years" },
+  "fouling.closedLoopFoulingM2KPerW": {
+    default: 0,
+    source: "[practice] a treated closed loop stays clean (the AHRI 550/590 rating allowance is 0.000044 m²·K/W [memory])",
+  },
+} as const satisfies Record<string, FieldDefault>;
+
+/** Every defaulted field of the scenario (physics and economics), path → { default, source }. */
+export const fieldDefaults: Record<string, FieldDefault> = { ...physicsFieldDefaults, ...economicsFieldDefaults };
+
+type PhysicsPath = keyof typeof physicsFieldDefaults;
+function d<P extends PhysicsPath>(path: P): (typeof physicsFieldDefaults)[P]["default"] {
+  return physicsFieldDefaults[path].default;
+}
+
+// --- building blocks ---------------------------------------------------------------------------------
+
+const num = z.number().finite();
+const positive = num.positive();
+const nonNegative = num.nonnegative();
+const fraction = num.min(0).max(1);
+const waterC = num.min(-10).max(90);
+const airC = num.min(-70).max(70);
+const efficiency = num.gt(0).max(1);
+
+export const siteSchema = z.object({
+  elevationM: num.min(-430).max(5000),
+  locationLabel: z.string().min(1).max(200),
+});
+
+export const loadProfileSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("constant"), fraction: num.min(0).max(1.5) }),
+  z.object({ kind: z.literal("monthHour"), fractions: z.array(num.min(0).max(1.5)).length(288, "a month × hour profile has 288 values") }),
+  z.object({ kind: z.literal("perBin"), fractions: z.array(num.min(0).max(1.5)).min(1) }),
+  z
+    .object({
+      kind: z.literal("linearInDryBulb"),
+      lowDryBulbC: airC,
+      fractionAtLowDryBulb: num.min(0).max(1.5),
+      highDryBulbC: airC,
+      fractionAtHighDryBulb: num.min(0).max(1.5),
+    })
+    .refine((p) => p.highDryBulbC > p.lowDryBulbC, { message: "the high dry-bulb point must be above the low one", path: ["highDryBulbC"] }),
+]);
+
+export const compressorModelSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("carnotFraction") }),
+  z.object({ kind: z.literal("percentPerK"), percentPerK: num.gt(0).max(10) }),
+]);
+
+export const dutySchema = z
+  .object({
+    designBasis: z.enum(["heatRejection", "refrigeration"]),
+    designHeatRejectionKW: positive.max(1e6).optional(),
+    designRefrigerationLoadKW: positive.max(1e6).optional(),
+    designCop: num.gt(0.5).max(20),
+    evaporatingC: num.min(-60).max(30),
+    condensingSetPointC: num.min(10).max(70),
+    minimumCondensingC: num.min(0).max(70),
+    headPressureControl: z.enum(["fixedSetPoint", "floating"]).default(d("duty.headPressureControl")),
+    loadProfile: loadProfileSchema.default(() => ({ ...d("duty.loadProfile") })),
+    compressorModel: compressorModelSchema.default(() => ({ ...d("duty.compressorModel") })),
+  })
+  .superRefine((v, ctx) => {
+    if (v.designBasis === "heatRejection" && v.designHeatRejectionKW === undefined)
+      ctx.addIssue({ code: "custom", path: ["designHeatRejectionKW"], message: "enter the design heat rejection (kW)" });
+    if (v.designBasis === "refrigeration" && v.designRefrigerationLoadKW === undefined)
+      ctx.addIssue({ code: "custom", path: ["designRefrigerationLoadKW"], message: "enter the design refrigeration load (kW)" });
+    if (v.minimumCondensingC > v.condensingSetPointC)
+      ctx.addIssue({ code: "custom", path: ["minimumCondensingC"], message: "the minimum condensing temperature must not exceed the set-point" });
+    if (v.evaporatingC >= v.minimumCondensingC)
+      ctx.addIssue({ code: "custom", path: ["evaporatingC"], message: "the evaporating temperature must be below the minimum condensing temperature" });
+  });
+
+const fanSchema = z
+  .object({
+    designPowerKW: positive.max(5000),
+    control: z.enum(["variableSpeed", "twoSpeed", "cycling"]).default(d("options[].fan.control")),
+    minSpeedFraction: num.gt(0).max(1).default(d("options[].fan.minSpeedFraction")),
+    powerFloorFraction: num.min(0).max(0.5).default(d("options[].fan.powerFloorFraction")),
+    lowSpeedFraction: num.gt(0).lt(1).default(d("options[].fan.lowSpeedFraction")),
+    naturalDraftAirflowFraction: num.min(0).max(0.5).default(d("options[].fan.naturalDraftAirflowFraction")),
+  })
+  .refine((f) => f.naturalDraftAirflowFraction < f.minSpeedFraction, {
+    message: "the fan-off (natural-draft) airflow must be below the minimum speed",
+    path: ["naturalDraftAirflowFraction"],
+  });
+
+const pumpSchema = (head: number, eff: number) =>
+  z.object({ headM: nonNegative.max(200).default(head), efficiency: efficiency.default(eff) });
+
+const basinHeaterSchema = z.object({
+  powerKW: nonNegative.max(1000).default(d("options[].basinHeater.powerKW")),
+  belowDryBulbC: airC.default(d("options[].basinHeater.belowDryBulbC")),
+});
+
+const condenserSchema = z
+  .object({
+    designCondensingC: num.min(10).max(75),
+    designEnteringWaterC: waterC.optional(),
+    cleanUWPerM2K: positive.max(20000).default(d("options[].condenser.cleanUWPerM2K")),
+    designFoulingM2KPerW: nonNegative.max(0.005).default(d("options[].condenser.designFoulingM2KPerW")),
+  })
+  .refine((c) => c.designEnteringWaterC === undefined || c.designEnteringWaterC < c.designCondensingC, {
+    message: "the design entering water must be colder than the design condensing temperature",
+    path: ["designEnteringWaterC"],
+  });
+
+const towerSchema = z
+  .object({
+    waterFlowKgPerS: positive.max(50000),
+    enteringWaterC: waterC,
+    leavingWaterC: waterC,
+    designWetBulbC: airC,
+    designLiquidToGasRatio: num.gt(0.1).max(5).default(d("options[].tower.designLiquidToGasRatio")),
+    characteristicExponent: num.min(0.2).max(1.2).default(d("options[].tower.characteristicExponent")),
+  })
+  .superRefine((t, ctx) => {
+    if (t.leavingWaterC >= t.enteringWaterC)
+      ctx.addIssue({ code: "custom", path: ["leavingWaterC"], message: "the leaving (cold) water must be colder than the entering (hot) water" });
+    if (t.leavingWaterC <= t.designWetBulbC)
+      ctx.addIssue({ code: "custom", path: ["leavingWaterC"], message: "a tower cannot cool water to or below the entering wet-bulb" });
+  });
+
+const plateExchangerSchema = z.object({
+  designApproachK: positive.max(10).default(d("options[].plateExchanger.designApproachK")),
+  cleanUWPerM2K: positive.max(20000).default(d("options[].plateExchanger.cleanUWPerM2K")),
+  cleanSideFlowKgPerS: positive.max(50000).optional(),
+  towerSidePressureDropKPa: nonNegative.max(500).default(d("options[].plateExchanger.towerSidePressureDropKPa")),
+  cleanSidePressureDropKPa: nonNegative.max(500).default(d("options[].plateExchanger.cleanSidePressureDropKPa")),
+  foulingGrowthFactor: nonNegative.max(5).default(d("options[].plateExchanger.foulingGrowthFactor")),
+});
+
+const coolerSchema = z
+  .object({
+    fluidFlowKgPerS: positive.max(50000),
+    enteringFluidC: waterC,
+    leavingFluidC: waterC,
+    designWetBulbC: airC,
+    designFluidToAirRatio: num.gt(0.1).max(5).default(d("options[].cooler.designFluidToAirRatio")),
+    internalResistanceFraction: num.gt(0).lt(1).default(d("options[].cooler.internalResistanceFraction")),
+    dryRating: z.object({ enteringFluidC: waterC, leavingFluidC: waterC, dryBulbC: airC }).optional(),
+    dryExternalConductanceFactor: num.gt(0).max(2).default(d("options[].cooler.dryExternalConductanceFactor")),
+    allowDryMode: z.boolean().default(d("options[].cooler.allowDryMode")),
+    dryModeMaxDryBulbC: airC.optional(),
+    glycol: z
+      .object({ kind: z.enum(["none", "ethyleneGlycol", "propyleneGlycol"]), massFraction: num.min(0).max(0.5) })
+      .default(() => ({ ...d("options[].cooler.glycol") })),
+    ratingFluid: z.enum(["water", "loopFluid"]).default(d("options[].cooler.ratingFluid")),
+  })
+  .superRefine((c, ctx) => {
+    if (c.leavingFluidC >= c.enteringFluidC)
+      ctx.addIssue({ code: "custom", path: ["leavingFluidC"], message: "the leaving fluid must be colder than the entering fluid" });
+    if (c.leavingFluidC <= c.designWetBulbC)
+      ctx.addIssue({ code: "custom", path: ["leavingFluidC"], message: "a cooler cannot cool the fluid to or below the entering wet-bulb" });
+    if (c.dryRating) {
+      if (c.dryRating.leavingFluidC >= c.dryRating.enteringFluidC)
+        ctx.addIssue({ code: "custom", path: ["dryRating", "leavingFluidC"], message: "the dry rating's leaving fluid must be colder than its entering fluid" });
+      if (c.dryRating.leavingFluidC <= c.dryRating.dryBulbC)
+        ctx.addIssue({ code: "custom", path: ["dryRating", "leavingFluidC"], message: "dry, the fluid cannot leave at or below the dry-bulb" });
+    }
+    if (c.glycol.kind === "none" && c.glycol.massFraction > 0)
+      ctx.addIssue({ code: "custom", path: ["glycol", "massFraction"], message: "a glycol fraction needs a glycol kind" });
+  });
+
+const sprayPumpSchema = z.object({
+  flowKgPerS: positive.max(50000),
+  headM: nonNegative.max(50).default(d("options[].sprayPump.headM")),
+  efficiency: efficiency.default(d("options[].sprayPump.efficiency")),
+  powerKW: nonNegative.max(1000).optional(),
+});
+
+const optionBase = {
+  id: z.string().min(1).max(64),
+  label: z.string().min(1).max(120),
+  costs: optionCostsSchema,
+  fan: fanSchema,
+  condenser: condenserSchema,
+  condenserPump: pumpSchema(d("options[].condenserPump.headM"), d("options[].condenserPump.efficiency")).prefault({}),
+  basinHeater: basinHeaterSchema.prefault({}),
+  driftFractionOfFlow: num.min(0).max(0.01).default(d("options[].driftFractionOfFlow")),
+  wetLoopVolumeM3: positive.max(1e5).optional(),
+};
+
+export const openTowerDirectOptionSchema = z.object({ ...optionBase, kind: z.literal("openTowerDirect"), tower: towerSchema });
+export const openTowerPlateHxOptionSchema = z.object({
+  ...optionBase,
+  kind: z.literal("openTowerPlateHx"),
+  tower: towerSchema,
+  plateExchanger: plateExchangerSchema.prefault({}),
+  towerPump: pumpSchema(d("options[].towerPump.headM"), d("options[].towerPump.efficiency")).prefault({}),
+});
+export const closedCircuitCoolerOptionSchema = z.object({
+  ...optionBase,
+  kind: z.literal("closedCircuitCooler"),
+  cooler: coolerSchema,
+  sprayPump: sprayPumpSchema,
+});
+
+export const optionSchema = z.discriminatedUnion("kind", [openTowerDirectOptionSchema, openTowerPlateHxOptionSchema, closedCircuitCoolerOptionSchema], {
+  error: `an option's kind must be one of ${OPTION_KINDS.join(", ")}`,
+});
+
+const concentrationMgPerL = nonNegative.max(1e5);
+export const makeupAnalysisSchema = z.object({
+  conductivityUSPerCm: nonNegative.max(1e5).optional(),
+  calciumHardnessMgPerLAsCaCO3: concentrationMgPerL,
+  mAlkalinityMgPerLAsCaCO3: concentrationMgPerL,
+  silicaMgPerL: concentrationMgPerL,
+  chlorideMgPerL: concentrationMgPerL,
+  ph: num.min(4).max(11),
+  tdsMgPerL: concentrationMgPerL,
+});
+
+export const waterSchema = z
+  .object({
+    makeup: makeupAnalysisSchema,
+    limits: z
+      .object({
+        silicaMgPerL: positive.max(1e5).default(d("water.limits.silicaMgPerL")),
+        chlorideMgPerL: positive.max(1e5).default(d("water.limits.chlorideMgPerL")),
+        tdsMgPerL: positive.max(1e6).default(d("water.limits.tdsMgPerL")),
+        calciumHardnessMgPerLAsCaCO3: positive.max(1e5).default(d("water.limits.calciumHardnessMgPerLAsCaCO3")),
+      })
+      .prefault({}),
+    cyclesMode: z.enum(["entered", "fromChemistry"]).default(d("water.cyclesMode")),
+    cyclesOfConcentration: num.gt(1).max(50).optional(),
+    recirculatingPh: num.min(5).max(10).default(d("water.recirculatingPh")),
+    sewerEvaporationCredit: z.boolean().default(d("water.sewerEvaporationCredit")),
+    dosing: z
+      .object({
+        inhibitorMgPerLOutflow: nonNegative.max(10000).default(d("water.dosing.inhibitorMgPerLOutflow")),
+        biocideMgPerLSystemVolume: nonNegative.max(10000).default(d("water.dosing.biocideMgPerLSystemVolume")),
+        biocideSlugsPerYear: nonNegative.max(365).default(d("water.dosing.biocideSlugsPerYear")),
+      })
+      .prefault({}),
+  })
+  .refine((w) => w.cyclesMode !== "entered" || w.cyclesOfConcentration !== undefined, {
+    message: "enter the cycles of concentration, or derive them from the chemistry",
+    path: ["cyclesOfConcentration"],
+  });
+
+const months = num.int().min(1).max(120);
+export const foulingSchema = z.object({
+  model: z.enum(["asymptotic", "linear"]).default(d("fouling.model")),
+  asymptoticM2KPerW: nonNegative.max(0.01).default(d("fouling.asymptoticM2KPerW")),
+  timeConstantMonths: positive.max(240).default(d("fouling.timeConstantMonths")),
+  linearRateM2KPerWPerMonth: nonNegative.max(0.001).default(d("fouling.linearRateM2KPerWPerMonth")),
+  limitM2KPerW: positive.max(0.01).default(d("fouling.limitM2KPerW")),
+  condenserCleaningIntervalMonths: months.default(d("fouling.condenserCleaningIntervalMonths")),
+  plateExchangerCleaningIntervalMonths: months.default(d("fouling.plateExchangerCleaningIntervalMonths")),
+  closedLoopFoulingM2KPerW: nonNegative.max(0.005).default(d("fouling.closedLoopFoulingM2KPerW")),
+});
+
+// --- the scenario --------------------------------------------------------------------------------------
+
+const scenarioObject = z.object({
+  inputVersion: z.literal(1),
+  name: z.string().min(1).max(200),
+  site: siteSchema,
+  climate: climateInputSchema,
+  duty: dutySchema,
+  options: z.array(optionSchema).min(2, "compare at least two options").max(4, "compare at most four options"),
+  water: waterSchema,
+  fouling: foulingSchema.prefault({}),
+  tariffs: tariffsSchema.prefault({}),
+  upkeep: upkeepSchema.prefault({}),
+  economics: economicsSchema.prefault({}),
+  sensitivity: sensitivitySchema.optional(),
+  monteCarlo: monteCarloSchema.optional(),
+});
+
+/** The scenario schema: parse a document into the engine's ScenarioInput (defaults filled). */
+export const scenarioSchema = scenarioObject.superRefine((s, ctx) => {
+  const seen = new Map<string, number>();
+  s.options.forEach((o, i) => {
+    const first = seen.get(o.id);
+    if (first !== undefined)
+      ctx.addIssue({ code: "custom", path: ["options", i, "id"], message: `option id "${o.id}" is already used by option ${first + 1}` });
+    else seen.set(o.id, i);
+  });
+  if (s.economics.baseOptionId !== undefined && !seen.has(s.economics.baseOptionId))
+    ctx.addIssue({ code: "custom", path: ["economics", "baseOptionId"], message: "the base option must be one of the scenario's option ids" });
+  const lp = s.duty.loadProfile;
+  if (lp.kind === "perBin") {
+    if (s.climate.source === "hourly")
+      ctx.addIssue({ code: "custom", path: ["duty", "loadProfile", "kind"], message: "a per-bin load profile needs a bin climate" });
+    else if (lp.fractions.length !== s.climate.bins.length)
+      ctx.addIssue({
+        code: "custom",
+        path: ["duty", "loadProfile", "fractions"],
+        message: `a per-bin profile needs one fraction per bin (${s.climate.bins.length}), not ${lp.fractions.length}`,
+      });
+  }
+  s.options.forEach((o, i) => {
+    const supplyC =
+      o.kind === "closedCircuitCooler" ? o.cooler.leavingFluidC : o.kind === "openTowerPlateHx" ? o.tower.leavingWaterC + o.plateExchanger.designApproachK : o.tower.leavingWaterC;
+    const entering = o.condenser.designEnteringWaterC ?? supplyC;
+    if (o.condenser.designCondensingC <= entering)
+      ctx.addIssue({
+        code: "custom",
+        path: ["options", i, "condenser", "designCondensingC"],
+        message: `the design condensing temperature must be above the condenser's design entering water (${Math.round(entering * 10) / 10} °C)`,
+      });
+    if (o.fan.control === "twoSpeed" && o.fan.lowSpeedFraction <= o.fan.naturalDraftAirflowFraction)
+      ctx.addIssue({ code: "custom", path: ["options", i, "fan", "lowSpeedFraction"], message: "the low speed must be above the fan-off airflow" });
+  });
+});
+
+/** The document as written and stored (defaults may be omitted). */
+export type ScenarioDocument = z.input<typeof scenarioSchema>;
+/** The parsed scenario with every default filled: the engine's input. */
+export type ParsedScenario = z.output<typeof scenarioSchema>;
+
+/** JSON Schema of the scenario document (input side: defaulted fields are optional). */
+export const scenarioJsonSchema = z.toJSONSchema(scenarioObject, { io: "input", unrepresentable: "any" });
+
+/** A field error with its dotted path, e.g. "options.1.tower.leavingWaterC". */
+export interface FieldError {
+  path: string;
+  message: string;
+}
+
+/** Parse a scenario document: the engine input, or every field error with its path. */
+export function parseScenario(doc: unknown): { ok: true; value: ScenarioInput } | { ok: false; errors: FieldError[] } {
+  const r = scenarioSchema.safeParse(doc);
+  if (r.success) return { ok: true, value: r.data };
+  return { ok: false, errors: r.error.issues.map((i) => ({ path: i.path.map(String).join("."), message: i.message })) };
+}
+
+/** A starting scenario for the editor: what `defaultScenario` returns; first costs are left to be entered. */
+export type ScenarioDraft = Omit<ScenarioDocument, "options"> & {
+  options: Array<DistributiveOmit<z.input<typeof optionSchema>, "costs"> & { costs: Omit<z.input<typeof optionCostsSchema>, "firstCost"> }>;
+};
+type DistributiveOmit<T, K extends PropertyKey> = T extends unknown ? Omit<T, K> : never;
+
+/**
+ * A starting scenario for the forms around a climate: a 1000 kW heat-rejection duty (ammonia-like
+ * temperatures), the three option kinds sized for it, defaults everywhere else. First costs have no
+ * default: the draft fails validation at `options.N.costs.firstCost` until they are entered.
+ * The equipment figures are placeholders to overwrite with certified manufacturer selections.
+ */
+export function defaultScenario(climate: ClimateInput, site: { elevationM: number; locationLabel: string } = { elevationM: 0, locationLabel: "" }): ScenarioDraft {
+  const flow = 1000 / (4.186 * 5.5);
+  return {
+    inputVersion: 1,
+    name: "New scenario",
+    site,
+    climate,
+    duty: {
+      designBasis: "heatRejection",
+      designHeatRejectionKW: 1000,
+      designCop: 2.5,
+      evaporatingC: -10,
+      condensingSetPointC: 35,
+      minimumCondensingC: 25,
+    },
+    options: [
+      {
+        id: "tower-direct",
+        kind: "openTowerDirect",
+        label: "Open tower, direct",
+        costs: {},
+        fan: { designPowerKW: 11 },
+        condenser: { designCondensingC: 35 },
+        tower: { waterFlowKgPerS: flow, enteringWaterC: 33, leavingWaterC: 27.5, designWetBulbC: 23 },
+      },
+      {
+        id: "tower-plate",
+        kind: "openTowerPlateHx",
+        label: "Open tower + plate exchanger",
+        costs: {},
+        fan: { designPowerKW: 15 },
+        condenser: { designCondensingC: 35 },
+        tower: { waterFlowKgPerS: flow, enteringWaterC: 31.5, leavingWaterC: 26, designWetBulbC: 23 },
+      },
+      {
+        id: "cooler",
+        kind: "closedCircuitCooler",
+        label: "Closed-circuit cooler",
+        costs: {},
+        fan: { designPowerKW: 22 },
+        condenser: { designCondensingC: 35 },
+        cooler: { fluidFlowKgPerS: flow, enteringFluidC: 33, leavingFluidC: 27.5, designWetBulbC: 23 },
+        sprayPump: { flowKgPerS: 0.4 * flow },
+      },
+    ],
+    water: {
+      makeup: { calciumHardnessMgPerLAsCaCO3: 100, mAlkalinityMgPerLAsCaCO3: 80, silicaMgPerL: 15, chlorideMgPerL: 30, ph: 7.6, tdsMgPerL: 250 },
+    },
+  };
+}
+
+// --- compile-time check: the parsed scenario is the engine's input ----------------------------------
+type Assignable<From, To> = [From] extends [To] ? true : false;
+const assertTrue = <T extends true>(): T => true as T;
+assertTrue<Assignable<ParsedScenario, ScenarioInput>>();
