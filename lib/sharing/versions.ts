@@ -66,7 +66,7 @@ export async function issueScenario(
       versionNumber,
       name: draft.name,
       note: parsed.data.note,
-      input: draft.input,
+      input: current.input,
       inputVersion: draft.inputVersion,
       result: current.result,
       engineVersion: current.engineVersion,

@@ -211,7 +211,8 @@ describe("revoking access", () => {
 
 describe("issued versions", () => {
   const frozenResult = { headline: "option B lowest", lccUsd: [1234567.5, 1200000.25] };
-  const stub: CurrentResultResolver = async () => ({ engineVersion: "9.9.9", inputsHash: "h".repeat(64), result: frozenResult });
+  // Freezes whatever the draft holds at issue time (the real resolver builds the engine input from it).
+  const stub: CurrentResultResolver = async (_db, draft) => ({ engineVersion: "9.9.9", inputsHash: "h".repeat(64), input: draft.input, result: frozenResult });
   const none: CurrentResultResolver = async () => null;
 
   it("issuing needs scenario.issue and a current result", async () => {

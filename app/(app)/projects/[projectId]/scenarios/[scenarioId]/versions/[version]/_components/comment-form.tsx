@@ -1,0 +1,45 @@
+"use client";
+
+import { useActionState, useEffect, useRef } from "react";
+import { FormMessage } from "@/app/invite/_components/form-bits";
+import { IDLE } from "@/lib/sharing/form-state";
+import { commentAction } from "../../actions";
+
+export function CommentForm({ projectId, versionId }: { projectId: string; versionId: string }) {
+  const [state, action, pending] = useActionState(commentAction.bind(null, projectId, versionId), IDLE);
+  const ref = useRef<HTMLFormElement>(null);
+  useEffect(() => {
+    if (state.status === "ok") ref.current?.reset();
+  }, [state]);
+  const errors = state.status === "error" ? state.fieldErrors?.body : undefined;
+  return (
+    <form ref={ref} action={action} className="space-y-3" data-testid="comment-form">
+      <label htmlFor="comment-body" className="block text-sm font-medium">
+        Add a comment for the consultant
+      </label>
+      <textarea
+        id="comment-body"
+        name="body"
+        rows={3}
+        maxLength={4000}
+        required
+        aria-invalid={errors?.length ? true : undefined}
+        aria-describedby={errors?.length ? "comment-body-error" : undefined}
+        className="w-full rounded-md border border-line-strong bg-paper-raised px-3 py-2 text-sm"
+      />
+      {errors?.length ? (
+        <p id="comment-body-error" className="text-xs text-danger-700">
+          {errors.join(" ")}
+        </p>
+      ) : null}
+      <FormMessage state={state} testId="comment-message" />
+      <button
+        type="submit"
+        disabled={pending}
+        className="rounded-md bg-basin-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-basin-700 disabled:bg-basin-300"
+      >
+        {pending ? "Posting…" : "Post comment"}
+      </button>
+    </form>
+  );
+}
