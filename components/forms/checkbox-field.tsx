@@ -19,7 +19,10 @@ export interface CheckboxFieldProps<T extends FieldValues> {
 }
 
 export function CheckboxField<T extends FieldValues>(props: CheckboxFieldProps<T>) {
-  const { field, fieldState } = useController({ name: props.name, ...(props.control ? { control: props.control } : {}) });
+  const {
+    field: { ref: inputRef, name, value, onChange, onBlur },
+    fieldState,
+  } = useController({ name: props.name, ...(props.control ? { control: props.control } : {}) });
   const id = props.id ?? fieldId(props.name);
   const errorId = errorIdOf(id);
   const hintId = hintIdOf(id);
@@ -31,11 +34,11 @@ export function CheckboxField<T extends FieldValues>(props: CheckboxFieldProps<T
         <input
           id={id}
           type="checkbox"
-          name={field.name}
-          ref={field.ref}
-          checked={field.value === true}
-          onChange={(e) => field.onChange(e.target.checked)}
-          onBlur={field.onBlur}
+          name={name}
+          ref={inputRef}
+          checked={value === true}
+          onChange={(e) => onChange(e.target.checked)}
+          onBlur={onBlur}
           disabled={props.disabled}
           aria-invalid={error ? true : undefined}
           aria-describedby={describedBy(hasHint ? hintId : null, errorId)}

@@ -63,8 +63,11 @@ export function NumberField<T extends FieldValues>(props: NumberFieldProps<T>) {
   const system = props.system ?? units.system;
   const currency = props.currency ?? units.currency;
   const { kind, emptyValue } = props;
-  const { field, fieldState } = useController({ name: props.name, ...(props.control ? { control: props.control } : {}) });
-  const value: unknown = field.value;
+  const {
+    field: { ref: inputRef, name: fieldName, value: fieldValue, onChange: fieldOnChange, onBlur: fieldOnBlur },
+    fieldState,
+  } = useController({ name: props.name, ...(props.control ? { control: props.control } : {}) });
+  const value: unknown = fieldValue;
 
   const textOf = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? inputText(fromSI(kind, v, system), props.inputSig ?? 6) : "");
   const [text, setText] = useState(() => textOf(value));
@@ -85,7 +88,7 @@ export function NumberField<T extends FieldValues>(props: NumberFieldProps<T>) {
   const atDefault = hasDefault && sameNumber(value, props.defaultSI);
 
   const emit = (v: number | null | undefined) => {
-    field.onChange(v);
+    fieldOnChange(v);
     props.onValueChange?.(v);
   };
 
@@ -137,8 +140,8 @@ export function NumberField<T extends FieldValues>(props: NumberFieldProps<T>) {
       <div className="flex items-stretch">
         <input
           id={id}
-          name={field.name}
-          ref={field.ref}
+          name={fieldName}
+          ref={inputRef}
           type="text"
           inputMode="decimal"
           autoComplete="off"
@@ -159,7 +162,7 @@ export function NumberField<T extends FieldValues>(props: NumberFieldProps<T>) {
             setSeen({ value: si, system });
             emit(si);
           }}
-          onBlur={field.onBlur}
+          onBlur={fieldOnBlur}
           className={`${inputClass} ${inputBorder(Boolean(error))} num ${unit ? "rounded-r-none" : ""}`}
         />
         {unit ? (

@@ -31,7 +31,10 @@ export interface SelectFieldProps<T extends FieldValues, V extends string | numb
 
 /** A native select (keyboard and screen-reader friendly). Number option values are stored as numbers. */
 export function SelectField<T extends FieldValues, V extends string | number = string>(props: SelectFieldProps<T, V>) {
-  const { field, fieldState } = useController({ name: props.name, ...(props.control ? { control: props.control } : {}) });
+  const {
+    field: { ref: inputRef, name: fieldName, value: fieldValue, onChange: fieldOnChange, onBlur: fieldOnBlur },
+    fieldState,
+  } = useController({ name: props.name, ...(props.control ? { control: props.control } : {}) });
   const id = props.id ?? fieldId(props.name);
   const errorId = errorIdOf(id);
   const hintId = hintIdOf(id);
@@ -43,7 +46,7 @@ export function SelectField<T extends FieldValues, V extends string | number = s
         {props.defaultSource ? <span>Default choice · {props.defaultSource}</span> : null}
       </>
     ) : null;
-  const current = field.value == null ? "" : String(field.value);
+  const current = fieldValue == null ? "" : String(fieldValue);
   return (
     <FieldShell
       id={id}
@@ -57,16 +60,16 @@ export function SelectField<T extends FieldValues, V extends string | number = s
     >
       <select
         id={id}
-        name={field.name}
-        ref={field.ref}
+        name={fieldName}
+        ref={inputRef}
         value={current}
         onChange={(e) => {
           const raw = e.target.value;
-          if (raw === "") return field.onChange(props.emptyValue);
+          if (raw === "") return fieldOnChange(props.emptyValue);
           const opt = props.options.find((o) => String(o.value) === raw);
-          field.onChange(opt ? opt.value : raw);
+          fieldOnChange(opt ? opt.value : raw);
         }}
-        onBlur={field.onBlur}
+        onBlur={fieldOnBlur}
         disabled={props.disabled}
         required={props.required}
         aria-invalid={error ? true : undefined}

@@ -26,17 +26,20 @@ export interface TextFieldProps<T extends FieldValues> {
 }
 
 export function TextField<T extends FieldValues>(props: TextFieldProps<T>) {
-  const { field, fieldState } = useController({ name: props.name, ...(props.control ? { control: props.control } : {}) });
+  const {
+    field: { ref: inputRef, name: fieldName, value: fieldValue, onChange: fieldOnChange, onBlur: fieldOnBlur },
+    fieldState,
+  } = useController({ name: props.name, ...(props.control ? { control: props.control } : {}) });
   const id = props.id ?? fieldId(props.name);
   const errorId = errorIdOf(id);
   const hintId = hintIdOf(id);
   const error = fieldState.error?.message;
   const common = {
     id,
-    name: field.name,
-    value: typeof field.value === "string" ? field.value : field.value == null ? "" : String(field.value),
-    onChange: (e: { target: { value: string } }) => field.onChange(props.uppercase ? e.target.value.toUpperCase() : e.target.value),
-    onBlur: field.onBlur,
+    name: fieldName,
+    value: typeof fieldValue === "string" ? fieldValue : fieldValue == null ? "" : String(fieldValue),
+    onChange: (e: { target: { value: string } }) => fieldOnChange(props.uppercase ? e.target.value.toUpperCase() : e.target.value),
+    onBlur: fieldOnBlur,
     placeholder: props.placeholder,
     maxLength: props.maxLength,
     required: props.required,
@@ -57,9 +60,9 @@ export function TextField<T extends FieldValues>(props: TextFieldProps<T>) {
       className={props.className}
     >
       {props.rows ? (
-        <textarea {...common} ref={field.ref} rows={props.rows} />
+        <textarea {...common} ref={inputRef} rows={props.rows} />
       ) : (
-        <input {...common} ref={field.ref} type={props.type ?? "text"} autoComplete={props.autoComplete ?? "off"} />
+        <input {...common} ref={inputRef} type={props.type ?? "text"} autoComplete={props.autoComplete ?? "off"} />
       )}
     </FieldShell>
   );

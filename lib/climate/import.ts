@@ -5,17 +5,15 @@ import type { Database } from "@/db/schema";
 import { insertClimateDataset } from "@/db/queries/climate";
 import { writeAudit } from "@/db/queries/audit";
 import { parseEpw, parseHourlyCsv, type ClimateIssue } from "@/lib/engine/climate";
-import {
-  dryBulbBinsClimateInputSchema,
-  wetBulbBinsClimateInputSchema,
-} from "@/lib/scenarios/schema-climate";
+import { binTableSubmissionSchema } from "./bins-schema";
 import { toFieldErrors, type FieldErrorMap } from "@/components/forms/errors";
 import { datasetFromBins, datasetFromParsedFile, type NewDataset } from "./build";
 import { csvMappingSchema, previewCsv, toHourlyCsvMapping, type CsvPreview } from "./csv-mapping";
 import { z } from "zod";
 
-/** Largest weather file accepted, stated in the upload form. An hourly EPW year is ~1.4–1.7 MB. */
-export const MAX_CLIMATE_UPLOAD_BYTES = 10 * 1024 * 1024;
+import { MAX_CLIMATE_UPLOAD_BYTES } from "./limits";
+
+export { MAX_CLIMATE_UPLOAD_BYTES };
 /** Multipart overhead allowed on top of the file (boundaries, the name and mapping fields). */
 const MULTIPART_OVERHEAD_BYTES = 256 * 1024;
 
@@ -235,11 +233,6 @@ export async function importClimateFile(
   const datasetId = await store(db, target, ds);
   return { status: 201, body: { ok: true, datasetId, name: ds.name, warnings: ds.provenance.warnings } };
 }
-
-export const binTableSubmissionSchema = z.discriminatedUnion("source", [
-  wetBulbBinsClimateInputSchema.extend({ name: z.string().trim().min(1, "Name the bin table.").max(200) }),
-  dryBulbBinsClimateInputSchema.extend({ name: z.string().trim().min(1, "Name the bin table.").max(200) }),
-]);
 
 /** Save an entered bin table (SI values; validated with the scenario climate schema). All field errors, or the new id. */
 export async function saveBinTable(
