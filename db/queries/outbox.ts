@@ -98,6 +98,21 @@ export async function cancelPendingMail(db: Executor, kind: string, refId: strin
     .execute();
 }
 
+/**
+ * An invitation e-mail still waiting (the mail server was down) whose invitation was accepted, withdrawn or
+ * has expired in the meantime would only deliver a dead link: it is marked failed with the reason instead.
+ */
+export async function cancelStaleInvitationMail(db: Executor) {
+  await sql`
+    update mail_outbox m set status = 'failed', text_body = '', html_body = null,
+      last_error = case when i.accepted_at is not null then 'Invitation already accepted; not sent.'
+                        when i.revoked_at is not null then 'Invitation withdrawn before it was sent.'
+                        else 'Invitation expired before it could be sent.' end
+    from invitations i
+    where m.kind = 'invitation' and m.status = 'pending' and m.ref_id = i.id::text
+      and (i.accepted_at is not null or i.revoked_at is not null or i.expires_at <= now())`.execute(db);
+}
+
 /** Delivery state only (never the body) of the messages about these references. */
 export async function mailStatusByRef(db: Executor, kind: string, refIds: string[]) {
   if (refIds.length === 0) return [];

@@ -1,6 +1,6 @@
 import type { Kysely, Transaction } from "kysely";
 import type { Database } from "@/db/schema";
-import { claimDueMail, insertOutboxMail, markMailAttemptFailed, markMailSent, type OutgoingMail } from "@/db/queries/outbox";
+import { cancelStaleInvitationMail, claimDueMail, insertOutboxMail, markMailAttemptFailed, markMailSent, type OutgoingMail } from "@/db/queries/outbox";
 import type { MailTransport } from "./transport";
 
 type Executor = Kysely<Database> | Transaction<Database>;
@@ -38,6 +38,7 @@ export async function deliverDueMail(
   opts: { asOf?: Date; onlyIds?: string[]; batch?: number; leaseS?: number } = {},
 ): Promise<DeliveryReport> {
   const report: DeliveryReport = { sent: 0, retrying: 0, failed: 0 };
+  await cancelStaleInvitationMail(db);
   for (let round = 0; round < 20; round++) {
     const claimed = await claimDueMail(db, {
       limit: opts.batch ?? 20,

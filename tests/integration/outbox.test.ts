@@ -99,3 +99,24 @@ describe("mail outbox", () => {
     expect([1, 2, 3, 4, 5, 6, 7, 8, 9].map(retryDelayS)).toEqual([30, 60, 120, 240, 480, 960, 1920, 3600, 3600]);
   });
 });
+
+describe("invitation e-mails that could not go out in time", () => {
+  it("are not sent once their invitation expired, and say why", async () => {
+    const { buildWorld } = await import("./sharing-fixtures");
+    const { createInvitation } = await import("@/lib/sharing/invitations");
+    const w = await buildWorld(db);
+    const r = await createInvitation(db, await w.viewer("consultant"), w.P.id, { email: `${uniq("late")}@example.test`, role: "owner" }, { appUrl: "http://127.0.0.1:1" });
+    if (!r.ok) throw new Error(r.error);
+    await db.updateTable("invitations").set({ expires_at: sql`now() - interval '1 second'` }).where("id", "=", r.value.invitationId).execute();
+    const port = await freePort();
+    const smtp = await startCaptureServer({ port });
+    try {
+      const transport = smtpTransport({ host: "127.0.0.1", port, from: "x@loopledger.test" });
+      expect(await deliverDueMail(db, transport, { onlyIds: [r.value.mailId] })).toEqual({ sent: 0, retrying: 0, failed: 0 });
+      expect(await findOutboxStatus(db, r.value.mailId)).toMatchObject({ status: "failed", lastError: "Invitation expired before it could be sent." });
+      expect(smtp.messages).toHaveLength(0);
+    } finally {
+      await smtp.close();
+    }
+  });
+});
