@@ -16,8 +16,9 @@ import type { ScenarioResult } from "@/lib/engine";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { analyzeAndStore, storedFor, type StoredAnalysis } from "./analysis";
 import { kickJobs } from "./jobs";
-import { buildEngineInput, cloneScenario, createScenario, loadScenarioContext, saveScenario, archiveScenario, type ScenarioContext, type SaveOutcome } from "./store";
+import { buildEngineInput, withClimateData, cloneScenario, createScenario, loadScenarioContext, saveScenario, archiveScenario, type ScenarioContext, type SaveOutcome } from "./store";
 import type { ScenarioDocument } from "./mappers";
+import { Lru } from "./cache";
 
 export interface ScenarioAccess {
   access: ProjectAccess;
@@ -25,10 +26,15 @@ export interface ScenarioAccess {
 }
 
 /** 401 anonymous; 404 unknown scenario or no relation to its project; 403 a relation without `action`. */
-export async function authorizeScenario(viewer: Viewer | null, scenarioId: string, action: Action): Promise<({ ok: true } & ScenarioAccess) | Refusal> {
+export async function authorizeScenario(
+  viewer: Viewer | null,
+  scenarioId: string,
+  action: Action,
+  opts: { withClimateData?: boolean } = {},
+): Promise<({ ok: true } & ScenarioAccess) | Refusal> {
   if (!viewer) return REFUSALS.anonymous;
   if (!isUuid(scenarioId)) return REFUSALS.notFound;
-  const ctx = await loadScenarioContext(db, scenarioId);
+  const ctx = await loadScenarioContext(db, scenarioId, opts);
   if (!ctx) return REFUSALS.notFound;
   const auth = await authorizeProject(db, viewer, ctx.row.projectId, action);
   if (!auth.ok) return auth;
@@ -36,8 +42,8 @@ export async function authorizeScenario(viewer: Viewer | null, scenarioId: strin
 }
 
 /** For route handlers: the request's viewer, authorized on the scenario. */
-export async function authorizeScenarioApi(scenarioId: string, action: Action) {
-  return authorizeScenario(await currentViewer(), scenarioId, action);
+export async function authorizeScenarioApi(scenarioId: string, action: Action, opts: { withClimateData?: boolean } = {}) {
+  return authorizeScenario(await currentViewer(), scenarioId, action, opts);
 }
 
 /** For pages: the scenario in this project (404 when it is another project's), or 404/403. */
@@ -210,7 +216,51 @@ export async function draftView(sa: ScenarioAccess, schedule: (task: () => void)
   return { input: built.input, inputErrors: null, result: a.result, inputsHash: a.inputsHash, monteCarlo: a.monteCarlo };
 }
 
-/** The issued version a client viewer may see (a number, or the latest), with its frozen input and result. */
+/** The issued version a viewer may see (a number, or the latest), with its frozen input and result. */
 export async function issuedVersionOf(scenarioId: string, versionNumber?: number) {
   return findIssuedVersion(db, scenarioId, versionNumber);
+}
+
+/** Write an audit event for a scenario (views, downloads). */
+export async function auditScenario(sa: ScenarioAccess, action: string, detail: Record<string, unknown> = {}) {
+  await writeAudit(db, {
+    actorId: sa.access.viewer.id,
+    firmId: sa.access.project.firmId,
+    projectId: sa.access.project.id,
+    action,
+    targetType: "scenario",
+    targetId: sa.ctx.row.id,
+    detail,
+  });
+}
+
+// --- what-if and results sources ------------------------------------------------------------------
+
+type Source = { input: ScenarioInput; result: ScenarioResult; inputsHash: string; version: number | null };
+const g = globalThis as unknown as { loopledgerWhatIfCache?: Lru<Source> };
+const draftCache = (g.loopledgerWhatIfCache ??= new Lru<Source>(32));
+
+/** The draft's input and its stored result (null when the current inputs have none yet). */
+export async function draftSource(sa: ScenarioAccess): Promise<Source | null> {
+  const { ctx } = sa;
+  const key = [ctx.row.id, ctx.row.revision, ctx.row.climateDatasetId, ctx.project.elevationM, ctx.project.locationLabel].join("|");
+  const hit = draftCache.get(key);
+  if (hit) return hit;
+  const full = await withClimateData(db, ctx);
+  const built = buildEngineInput(full.dto.document, full.dataset, full.project);
+  if (!built.ok) return null;
+  const stored = await storedFor(db, ctx.row.id, built.input);
+  if (!stored.result) return null;
+  const src = { input: built.input, result: stored.result, inputsHash: stored.inputsHash, version: null };
+  draftCache.set(key, src);
+  return src;
+}
+
+/**
+ * An issued version's frozen input and result, in the engine's shape. Versions freeze either the full
+ * engine input or the stored document (climate as a dataset reference); the economics need neither the
+ * climate nor the site, so both work for the what-if and the results API.
+ */
+export function issuedSource(v: NonNullable<Awaited<ReturnType<typeof findIssuedVersion>>>): Source {
+  return { input: v.input as ScenarioInput, result: v.result as ScenarioResult, inputsHash: v.inputsHash, version: v.versionNumber };
 }

@@ -9,6 +9,7 @@
  */
 import type { ClimateInput } from "@/lib/engine/climate/types";
 import type { ScenarioInput } from "@/lib/engine/input";
+import { climateInputFromStored, type StoredClimateData } from "@/lib/climate/build";
 import type { ScenarioDocument as SchemaDocument } from "./schema";
 
 /** Where a stored scenario takes its climate from. */
@@ -104,6 +105,10 @@ const isNumArray = (v: unknown): v is number[] => Array.isArray(v) && v.every((x
 export function climateInputFromDataset(ds: ClimateDatasetLike): ClimateInput {
   const data = (typeof ds.data === "string" ? JSON.parse(ds.data) : ds.data) as Record<string, unknown> | null;
   if (!data || typeof data !== "object") throw new Error(`climate dataset ${ds.id} holds no data`);
+  // The climate import's own format (lib/climate/build.ts) first; older or hand-made shapes below.
+  if (typeof data.version === "number" && (data.kind === "hourly" || data.kind === "bins")) {
+    return climateInputFromStored(ds.id, ds.name, data as unknown as StoredClimateData);
+  }
   const kind = ds.source_kind ?? ds.sourceKind;
   const label = typeof data.label === "string" && data.label ? data.label : ds.name;
   const hourly = (data.hourly && typeof data.hourly === "object" ? data.hourly : data) as Record<string, unknown>;

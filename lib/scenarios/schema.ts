@@ -128,7 +128,7 @@ export const physicsFieldDefaults = {
     source: "[memory] TEMA RGP-T-2.4: treated cooling-tower water 0.001 h·ft²·°F/Btu = 0.000176 m²·K/W",
   },
   "fouling.timeConstantMonths": { default: 3, source: "[practice] treated tower water approaches its asymptote within a season" },
-  "fouling.linearRateM2KPerWPerMonth": { default: 0.0000147, source: "[practice] the TEMA allowance reached in 12 months" },
+  "fouling.linearRateM2KPerWPerMonth": { default: 0.0000146, source: "[practice] about the TEMA allowance (0.000176 m²·K/W) reached in 12 months" },
   "fouling.limitM2KPerW": { default: 0.000176, source: "[memory] TEMA allowance for treated tower water" },
   "fouling.condenserCleaningIntervalMonths": { default: 12, source: "[practice] yearly mechanical tube cleaning" },
   "fouling.plateExchangerCleaningIntervalMonths": { default: 24, source: "[practice] plate exchangers opened every 1–3 years" },

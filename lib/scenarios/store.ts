@@ -47,25 +47,35 @@ async function loadProjectSite(db: Executor, projectId: string) {
     .executeTakeFirst();
 }
 
-/** A climate dataset of this project (never another project's), with its stored data. */
-export async function loadDataset(db: Executor, projectId: string, datasetId: string | null) {
+/**
+ * A climate dataset of this project (never another project's), with its stored data — or without it
+ * (`data: null`) where only its name is needed: the hourly arrays are the bulk of a scenario's reads.
+ */
+export async function loadDataset(db: Executor, projectId: string, datasetId: string | null, withData = true) {
   if (!datasetId) return null;
   const ds = await db
     .selectFrom("climate_datasets")
-    .select(["id", "name", "source_kind", "data", "project_id as projectId"])
+    .select(["id", "name", "source_kind", "project_id as projectId"])
+    .$if(withData, (q) => q.select("data"))
     .where("id", "=", datasetId)
     .where("project_id", "=", projectId)
     .executeTakeFirst();
-  return ds ?? null;
+  return ds ? { data: null as unknown, ...ds } : null;
 }
 
-export async function loadScenarioContext(db: Executor, scenarioId: string): Promise<ScenarioContext | null> {
+export async function loadScenarioContext(db: Executor, scenarioId: string, opts: { withClimateData?: boolean } = {}): Promise<ScenarioContext | null> {
   const row = await findScenario(db, scenarioId);
   if (!row) return null;
   const project = await loadProjectSite(db, row.projectId);
   if (!project) return null;
-  const dataset = await loadDataset(db, row.projectId, row.climateDatasetId);
+  const dataset = await loadDataset(db, row.projectId, row.climateDatasetId, opts.withClimateData ?? true);
   return { row, dto: toScenarioDTO(row), project, dataset };
+}
+
+/** The context with the dataset's data, loading it when the context was read without. */
+export async function withClimateData(db: Executor, ctx: ScenarioContext): Promise<ScenarioContext> {
+  if (!ctx.dataset || ctx.dataset.data !== null) return ctx;
+  return { ...ctx, dataset: await loadDataset(db, ctx.row.projectId, ctx.dataset.id, true) };
 }
 
 export type EngineInputOutcome =

@@ -1,0 +1,24 @@
+import { downloadHeaders, jsonError, prepareReportRequest, reportFileName } from "@/lib/reports/http";
+import { buildWorkbook } from "@/lib/reports/workbook";
+
+export const runtime = "nodejs";
+export const dynamic = "force-dynamic";
+
+const XLSX = "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet";
+
+/** The cash-flow workbook with live discounting formulas (finance and the firm). */
+export async function GET(req: Request, ctx: { params: Promise<{ scenarioId: string }> }) {
+  const { scenarioId } = await ctx.params;
+  const prep = await prepareReportRequest(req, scenarioId, "report.downloadWorkbook");
+  if (!prep.ok) return prep.response;
+  let xlsx: Buffer;
+  try {
+    xlsx = await buildWorkbook(prep.source);
+  } catch (e) {
+    console.error("report: workbook failed", e);
+    return jsonError(500, "The workbook could not be generated.");
+  }
+  await prep.audit("xlsx", { bytes: xlsx.length });
+  const name = reportFileName(prep.source, "cash-flows", "xlsx");
+  return new Response(new Uint8Array(xlsx), { status: 200, headers: downloadHeaders(name, XLSX, xlsx.length) });
+}
