@@ -686,7 +686,7 @@ export function computeOptionsPhysics(
         });
       }
     }
-    if ((isDirect || isPlate) && peakFoulingM2KPerW(growth, intervalMonths) > fouling.limitM2KPerW) {
+    if ((isDirect || isPlate) && peakFoulingM2KPerW(growth, intervalMonths) > fouling.limitM2KPerW * (1 + 1e-6)) {
       warnings.push({
         code: "fouling.exceedsLimit",
         severity: "warning",
@@ -775,7 +775,9 @@ function finishOption(
   const phs = saturationPh(hottest, recirc.tdsMgPerL, recirc.calciumHardnessMgPerLAsCaCO3, recirc.mAlkalinityMgPerLAsCaCO3);
   const lsi = langelierIndex(water.recirculatingPh, phs);
   const rsi = ryznarIndex(water.recirculatingPh, phs);
-  if (w.makeup > 0 && (lsi > 2.5 || rsi < 5.5)) {
+  // [practice] treated towers commonly run up to LSI ≈ 2.5 with a scale inhibitor; beyond that, or at a
+  // Ryznar index below 4, scale control needs more than an inhibitor (acid feed, softening, fewer cycles).
+  if (w.makeup > 0 && (lsi > 2.5 || rsi < 4)) {
     warnings.push({
       code: "water.scaleForming",
       severity: "info",

@@ -1,0 +1,116 @@
+import { describe, expect, it } from "vitest";
+import fc from "fast-check";
+import { enteringAir } from "@/lib/engine/air-side";
+import type { FanModel } from "@/lib/engine/fans";
+import {
+  type CoolerSelection,
+  calibrateCooler,
+  coolerCapacityKW,
+  coolerLeavingFluidAtAirflowC,
+  solveCoolerHour,
+} from "@/lib/engine/fluid-cooler";
+import { fluidProperties } from "@/lib/engine/glycol";
+import { counterflowEffectiveness, counterflowNtu } from "@/lib/engine/heat-exchanger";
+
+const P = 98_500;
+const sel: CoolerSelection = {
+  fluidFlowKgPerS: 72,
+  enteringFluidC: 33.3,
+  leavingFluidC: 28.3,
+  designWetBulbC: 24,
+  designFluidToAirRatio: 1,
+  internalResistanceFraction: 0.3,
+  dryRating: { enteringFluidC: 33.3, leavingFluidC: 30.5, dryBulbC: 5 },
+  dryExternalConductanceFactor: 0.7,
+  allowDryMode: true,
+  glycol: { kind: "none", massFraction: 0 },
+  ratingFluid: "water",
+};
+const { model } = calibrateCooler(sel, P, "c");
+const cpRating = fluidProperties("none", 0, 30.8).specificHeatKJPerKgK;
+const qWet = 72 * cpRating * 5;
+const fan: FanModel = {
+  designPowerKW: 37,
+  control: "variableSpeed",
+  minSpeedFraction: 0.25,
+  powerFloorFraction: 0.05,
+  lowSpeedFraction: 0.5,
+  naturalDraftAirflowFraction: 0.1,
+};
+
+describe("counterflow effectiveness-NTU", () => {
+  // Source: Incropera & DeWitt, Fundamentals of Heat and Mass Transfer, Table 11.3 (counterflow):
+  // ε = [1 − e^(−NTU(1−Cr))]/[1 − Cr·e^(−NTU(1−Cr))]; ε = NTU/(1 + NTU) for Cr = 1; 1 − e^(−NTU) for Cr = 0.
+  it("matches the closed forms and inverts exactly", () => {
+    expect(counterflowEffectiveness(1, 1)).toBeCloseTo(0.5, 12);
+    expect(counterflowEffectiveness(1, 0)).toBeCloseTo(1 - Math.exp(-1), 12);
+    expect(counterflowEffectiveness(1, 0.5)).toBeCloseTo((1 - Math.exp(-0.5)) / (1 - 0.5 * Math.exp(-0.5)), 12);
+    fc.assert(
+      fc.property(fc.double({ min: 0.05, max: 6, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), (ntu, cr) => {
+        expect(counterflowNtu(counterflowEffectiveness(ntu, cr), cr)).toBeCloseTo(ntu, 6);
+      }),
+    );
+  });
+});
+
+describe("closed-circuit cooler calibration", () => {
+  it("reproduces its wet rating point after calibration", () => {
+    const air = enteringAir(31, 24, P);
+    expect(coolerLeavingFluidAtAirflowC(model, air, qWet, 1, true, P)).toBeCloseTo(28.3, 3);
+    expect(coolerCapacityKW(model, 33.3, air, 1, true, P) / qWet).toBeCloseTo(1, 4);
+  });
+
+  it("reproduces its dry rating point after calibration (moist-air cp at a typical humidity)", () => {
+    const qDry = 72 * cpRating * (33.3 - 30.5);
+    // Dry rating's air: 5 °C dry-bulb with W ≈ 0.005 (wet-bulb ≈ 3.3 °C at this pressure)
+    const air = enteringAir(5, 3.3, P);
+    expect(Math.abs(coolerLeavingFluidAtAirflowC(model, air, qDry, 1, false, P) - 30.5)).toBeLessThan(0.05);
+  });
+
+  it("without a dry rating uses the default dry factor", () => {
+    const { model: m } = calibrateCooler({ ...sel, dryRating: undefined }, P, "c");
+    expect(m.dryFactor).toBe(0.7);
+  });
+
+  // Glycol: lower cp and tube-side coefficient (Dittus–Boelter with Melinder's properties) cut capacity.
+  it("30 % propylene glycol rated on water loses capacity", () => {
+    const { model: g } = calibrateCooler({ ...sel, glycol: { kind: "propyleneGlycol", massFraction: 0.3 } }, P, "c");
+    const air = enteringAir(31, 24, P);
+    expect(g.internalUaKWPerK).toBeLessThan(model.internalUaKWPerK * 0.8);
+    expect(coolerCapacityKW(g, 33.3, air, 1, true, P)).toBeLessThan(coolerCapacityKW(model, 33.3, air, 1, true, P));
+  });
+});
+
+describe("cooler mode selection", () => {
+  it("runs dry only when dry operation holds the set-point, and wet hours use the spray", () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -15, max: 32, noNaN: true }),
+        fc.double({ min: 0, max: 8, noNaN: true }),
+        fc.double({ min: 0.3, max: 1, noNaN: true }),
+        (db, depression, load) => {
+          const air = enteringAir(db, db - depression, P);
+          const q = qWet * load;
+          const r = solveCoolerHour(model, fan, air, q, 28.3, P);
+          const dryAtFull = coolerLeavingFluidAtAirflowC(model, air, q, 1, false, P);
+          if (r.mode === "dry") {
+            expect(dryAtFull).toBeLessThanOrEqual(28.3 + 1e-6);
+            expect(r.evaporationKgPerS).toBe(0);
+            expect(r.sprayOn).toBe(false);
+          } else {
+            expect(dryAtFull).toBeGreaterThan(28.3 - 1e-6);
+            expect(r.sprayOn).toBe(true);
+          }
+          if (r.held) expect(r.leavingFluidC).toBe(28.3);
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+
+  it("respects a dry-bulb limit on dry operation", () => {
+    const { model: m } = calibrateCooler({ ...sel, dryModeMaxDryBulbC: -5 }, P, "c");
+    const r = solveCoolerHour(m, fan, enteringAir(0, -2, P), qWet * 0.4, 28.3, P);
+    expect(r.mode).toBe("wet");
+  });
+});

@@ -1,0 +1,129 @@
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join, resolve } from "node:path";
+import { describe, expect, it } from "vitest";
+import { analyzeScenario } from "@/lib/engine";
+import {
+  defaultScenario,
+  fieldDefaults,
+  parseScenario,
+  physicsFieldDefaults,
+  scenarioJsonSchema,
+  scenarioSchema,
+} from "@/lib/scenarios/schema";
+import { FIXTURES, fixtureDocument, readFixture } from "./helpers";
+
+const ROOT = resolve(__dirname, "../../..");
+
+function errorsOf(doc: unknown): { path: string; message: string }[] {
+  const r = parseScenario(doc);
+  return r.ok ? [] : r.errors;
+}
+
+describe("scenario schema", () => {
+  it("parses both example scenarios and fills the defaults from fieldDefaults", () => {
+    const r = parseScenario(readFixture("scenario-bins.json"));
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const direct = r.value.options[0];
+    expect(direct?.fan.minSpeedFraction).toBe(fieldDefaults["options[].fan.minSpeedFraction"]?.default);
+    expect(direct?.condenserPump.headM).toBe(22);
+    expect(r.value.fouling.asymptoticM2KPerW).toBe(physicsFieldDefaults["fouling.asymptoticM2KPerW"].default);
+    expect(r.value.water.limits.silicaMgPerL).toBe(150);
+    expect(r.value.tariffs.escalation.water).toBe(fieldDefaults["tariffs.escalation.water"]?.default);
+    expect(parseScenario(fixtureDocument("scenario-hourly.json")).ok).toBe(true);
+  });
+
+  it("round-trips: the parsed scenario, as JSON, parses to itself", () => {
+    const first = scenarioSchema.parse(readFixture("scenario-bins.json"));
+    const again = scenarioSchema.parse(JSON.parse(JSON.stringify(first)));
+    expect(again).toEqual(first);
+  });
+
+  it("reports cross-field problems at the field to fix", () => {
+    const doc = readFixture("scenario-bins.json") as any;
+    doc.options[0].tower.leavingWaterC = 34;
+    doc.duty.minimumCondensingC = 36;
+    doc.options[2].id = doc.options[1].id;
+    doc.duty.loadProfile.fractions = [1, 1];
+    doc.options[1].condenser.designCondensingC = 20;
+    const paths = errorsOf(doc).map((e) => e.path);
+    expect(paths).toContain("options.0.tower.leavingWaterC");
+    expect(paths).toContain("duty.minimumCondensingC");
+    expect(paths).toContain("options.2.id");
+    expect(paths).toContain("duty.loadProfile.fractions");
+    expect(paths).toContain("options.1.condenser.designCondensingC");
+  });
+
+  it("reports missing and mistyped fields with their paths; 2–4 options; known kinds only", () => {
+    const doc = readFixture("scenario-bins.json") as any;
+    delete doc.options[0].tower.waterFlowKgPerS;
+    doc.options[1].fan.designPowerKW = "thirty";
+    doc.water = { ...doc.water, cyclesMode: "entered", cyclesOfConcentration: undefined };
+    const paths = errorsOf(doc).map((e) => e.path);
+    expect(paths).toContain("options.0.tower.waterFlowKgPerS");
+    expect(paths).toContain("options.1.fan.designPowerKW");
+    expect(paths).toContain("water.cyclesOfConcentration");
+    const one = readFixture("scenario-bins.json") as any;
+    one.options = one.options.slice(0, 1);
+    expect(errorsOf(one).map((e) => e.path)).toContain("options");
+    const bad = readFixture("scenario-bins.json") as any;
+    bad.options[0].kind = "evaporativeCondenser";
+    expect(errorsOf(bad).some((e) => e.path.startsWith("options.0"))).toBe(true);
+  });
+
+  it("every defaulted field carries a source", () => {
+    for (const [path, d] of Object.entries(fieldDefaults)) {
+      expect(d.source.length, path).toBeGreaterThan(3);
+      expect(d.default, path).not.toBeUndefined();
+    }
+  });
+
+  it("exports a JSON Schema of the document", () => {
+    const s = scenarioJsonSchema as { type?: string; properties?: Record<string, unknown>; required?: string[] };
+    expect(s.type).toBe("object");
+    expect(Object.keys(s.properties ?? {})).toEqual(expect.arrayContaining(["site", "climate", "duty", "options", "water", "fouling", "tariffs"]));
+    expect(s.required).toEqual(expect.arrayContaining(["inputVersion", "site", "climate", "duty", "options", "water"]));
+  });
+
+  it("defaultScenario needs only the first costs to become a valid, analysable scenario", () => {
+    const doc = readFixture("scenario-bins.json") as any;
+    const draft = defaultScenario(doc.climate, { elevationM: 100, locationLabel: "test" });
+    const paths = errorsOf(draft).map((e) => e.path);
+    expect(paths.length).toBeGreaterThan(0);
+    expect(paths.every((p) => /^options\.\d\.costs\.firstCost/.test(p))).toBe(true);
+    const firstCost = { equipment: 1, installation: 0, structureAndCrane: 0, electrical: 0, controls: 0, plateExchanger: 0, waterTreatmentEquipment: 0, meters: 0, other: 0 };
+    const complete = { ...draft, options: draft.options.map((o) => ({ ...o, costs: { ...o.costs, firstCost } })) };
+    const r = parseScenario(complete);
+    expect(r.ok).toBe(true);
+    if (r.ok) expect(analyzeScenario(r.value).physics).toHaveLength(3);
+  });
+});
+
+describe("npm run analyze", () => {
+  const run = (file: string) =>
+    spawnSync(process.execPath, ["--import", "tsx", join(ROOT, "scripts/analyze.ts"), file], { cwd: ROOT, encoding: "utf8", timeout: 120_000 });
+
+  it("prints the result of a valid scenario", () => {
+    const r = run(join(FIXTURES, "scenario-bins.json"));
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.physics).toHaveLength(3);
+    expect(out.economics.options).toHaveLength(3);
+  }, 120_000);
+
+  it("prints field-path errors and exits with 2 for a malformed scenario", () => {
+    const doc = readFixture("scenario-bins.json") as any;
+    doc.options[0].tower.leavingWaterC = 40;
+    delete doc.duty.designCop;
+    const dir = mkdtempSync(join(tmpdir(), "loopledger-"));
+    const file = join(dir, "bad.json");
+    writeFileSync(file, JSON.stringify(doc));
+    const r = run(file);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain("options.0.tower.leavingWaterC:");
+    expect(r.stderr).toContain("duty.designCop:");
+    expect(r.stdout).toBe("");
+  }, 120_000);
+});
