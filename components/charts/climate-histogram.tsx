@@ -40,7 +40,7 @@ export function ClimateHistogram({ bars, unitSystem, designWetBulb04C, height = 
             tickSize: 4,
             tickPadding: 4,
             tickValues: data.filter((_, i) => i % every(width) === 0).map((d) => d.band),
-            legend: `Wet-bulb band centre, ${unit}`,
+            legend: unitSystem === "IP" ? `Wet-bulb band centre, ${unit} (bands 1 K = 1.8 °F wide)` : `Wet-bulb band centre, ${unit} (1 K bands)`,
             legendPosition: "middle",
             legendOffset: 36,
           }}

@@ -323,3 +323,20 @@ describe("upload body limits", () => {
     expect(notMultipart.ok ? 0 : notMultipart.outcome.status).toBe(415);
   });
 });
+
+describe("pasting a bin table from a spreadsheet", () => {
+  it("reads tab-separated rows with a header and decimal commas; reports a short row by its line", async () => {
+    const { parsePastedBins } = await import("@/lib/climate/paste");
+    const r = parsePastedBins("Wet-bulb\tDry-bulb\tHours\n24,5\t30\t40\n22\t28\t300\t7\n\n18\t23\n");
+    expect(r.delimiter).toBe("\t");
+    expect(r.rows).toEqual([
+      { bin: 24.5, coincident: 30, hours: 40, line: 2 },
+      { bin: 22, coincident: 28, hours: 300, month: 7, line: 3 },
+    ]);
+    expect(r.problems).toEqual([{ line: 5, message: expect.stringMatching(/3 or 4 cells/) }]);
+    // Comma-separated: commas cannot be decimals, so "1,5" would be two cells.
+    expect(parsePastedBins("10,12,300").rows).toEqual([{ bin: 10, coincident: 12, hours: 300, line: 1 }]);
+    expect(parsePastedBins("10;12,5;300").rows).toEqual([{ bin: 10, coincident: 12.5, hours: 300, line: 1 }]);
+    expect(parsePastedBins("10\twarm\t300").problems[0]).toMatchObject({ line: 1, message: expect.stringMatching(/cell 2/) });
+  });
+});

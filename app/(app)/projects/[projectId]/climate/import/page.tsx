@@ -4,6 +4,7 @@ import { requireProjectAction } from "@/lib/auth/session";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { MAX_CLIMATE_UPLOAD_BYTES } from "@/lib/climate/limits";
 import { ClimateUpload } from "./climate-upload";
+import { formatQuantity } from "@/lib/units";
 
 export const metadata: Metadata = { title: "Import climate" };
 
@@ -36,7 +37,7 @@ export default async function ImportClimatePage({ params }: { params: Promise<{ 
           </p>
           <p>
             Wet-bulbs are computed at the station pressure when the file has it, otherwise at the pressure of the site&apos;s
-            elevation ({Math.round(project.elevationM)} m). Gaps of up to 6 h are interpolated; longer gaps are refused.
+            elevation ({formatQuantity("elevationM", project.elevationM, project.unitSystem, { decimals: 0 })}). Gaps of up to 6 h are interpolated; longer gaps are refused.
           </p>
           <p>
             Only a bin table? <Link className="text-basin-700 hover:underline" href={`/projects/${project.id}/climate/bins`}>Enter bins</Link>.
