@@ -86,7 +86,7 @@ describe("sessions", () => {
     await page.fill("#pw-new", "a-new-long-passphrase-2026");
     await page.fill("#pw-confirm", "a-new-long-passphrase-2026");
     await page.click("[data-testid=password-form] button[type=submit]");
-    await expect(page.getByTestId("password-message").innerText()).resolves.toMatch(/Password changed/);
+    await page.getByTestId("password-message").filter({ hasText: /Password changed/ }).waitFor({ timeout: 15_000 });
     await page.waitForTimeout(1500);
     // This browser signed in again with the new password and stays in.
     expect((await page.goto("/account"))?.status()).toBe(200);

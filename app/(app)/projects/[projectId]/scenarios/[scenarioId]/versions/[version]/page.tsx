@@ -8,7 +8,8 @@ import { openIssuedVersion, parseVersionParam } from "@/lib/sharing/versions";
 import { versionComments } from "@/lib/sharing/comments";
 import { formatWhen } from "@/lib/sharing/form-state";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
-import { VersionSummary } from "./_components/version-summary";
+import { ComparisonView } from "@/components/comparison/comparison-view";
+import { displayableVersion, VersionSummary } from "./_components/version-summary";
 import { CommentForm } from "./_components/comment-form";
 
 export const metadata: Metadata = { title: "Issued version" };
@@ -24,6 +25,7 @@ export default async function VersionPage({ params }: { params: Promise<{ projec
   const { access, version: v } = opened.value;
   const comments = await versionComments(db, viewer, projectId, v.id);
   const isFirm = access.can("scenario.viewDraft");
+  const drawable = displayableVersion(v.input, v.result);
   return (
     <>
       <PageHeader
@@ -62,9 +64,27 @@ export default async function VersionPage({ params }: { params: Promise<{ projec
             </p>
           </Panel>
         )}
-        <Panel title="Comparison">
-          <VersionSummary result={v.result} unitSystem={access.project.unitSystem} currency={access.project.currency} />
-        </Panel>
+        {drawable ? (
+          <ComparisonView
+            project={{
+              name: access.project.name,
+              currency: access.project.currency,
+              clientName: access.project.clientName,
+              siteName: access.project.siteName,
+              locationLabel: access.project.locationLabel,
+            }}
+            scenarioName={v.name}
+            input={drawable.input}
+            result={drawable.result}
+            unitSystem={access.project.unitSystem}
+            canSeeCashFlows={access.can("scenario.viewCashFlows")}
+            whatIfEndpoint={access.can("scenario.whatIf") ? `/api/scenarios/${scenarioId}/what-if?version=${v.versionNumber}` : null}
+          />
+        ) : (
+          <Panel title="Comparison">
+            <VersionSummary result={v.result} unitSystem={access.project.unitSystem} currency={access.project.currency} />
+          </Panel>
+        )}
         <Panel title={`Comments (${comments.ok ? comments.value.length : 0})`}>
           <div id="comments" className="space-y-4">
             {comments.ok && comments.value.length > 0 ? (

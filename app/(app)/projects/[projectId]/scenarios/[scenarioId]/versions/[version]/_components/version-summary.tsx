@@ -1,4 +1,5 @@
 import type { ScenarioResult } from "@/lib/engine";
+import type { ScenarioInput } from "@/lib/engine/input";
 import type { UnitSystem } from "@/lib/units";
 import { buildHeadline, money } from "@/components/comparison/headline";
 
@@ -6,6 +7,18 @@ import { buildHeadline, money } from "@/components/comparison/headline";
 export function isDisplayableResult(r: unknown): r is ScenarioResult {
   const e = (r as { economics?: { options?: unknown; comparisons?: unknown } } | null)?.economics;
   return Boolean(e && Array.isArray(e.options) && e.options.length > 0 && Array.isArray(e.comparisons));
+}
+
+/**
+ * A version the full comparison view can draw: the frozen engine input (climate and options) and a result
+ * of the shape this release writes. Versions issued by an older engine keep their stored JSON untouched
+ * and are shown through VersionSummary instead of being drawn wrongly.
+ */
+export function displayableVersion(input: unknown, result: unknown): { input: ScenarioInput; result: ScenarioResult } | null {
+  const i = input as { climate?: unknown; options?: unknown } | null;
+  const r = result as { physics?: unknown; climateSummary?: unknown } | null;
+  const ok = i && typeof i.climate === "object" && Array.isArray(i.options) && isDisplayableResult(result) && Array.isArray(r?.physics) && r?.climateSummary;
+  return ok ? { input: input as ScenarioInput, result: result as ScenarioResult } : null;
 }
 
 /**
