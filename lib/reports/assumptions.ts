@@ -57,6 +57,28 @@ export const FIRST_COST_LABELS: Record<FirstCostItem, string> = {
   other: "Other",
 };
 
+const COMPONENT_LABELS: Record<string, string> = {
+  fill: "fill",
+  coil: "coil",
+  fanMotor: "fan motor",
+  gearbox: "gearbox",
+  exchangerPlates: "exchanger plates",
+  pumps: "pumps",
+  sprayPump: "spray pump",
+  variableSpeedDrive: "variable-speed drive",
+  driftEliminators: "drift eliminators",
+  other: "other component",
+};
+
+const PERIODIC_LABELS: Record<string, string> = {
+  eddyCurrentTesting: "eddy-current testing",
+  basinDisinfection: "basin disinfection",
+  exchangerCleaning: "exchanger cleaning",
+  coilExteriorDescaling: "coil exterior descaling",
+  fillCleaning: "fill cleaning",
+  other: "other upkeep",
+};
+
 class Rows {
   readonly rows: AssumptionRow[] = [];
   constructor(
@@ -213,14 +235,14 @@ function optionGroup(o: Partial<OptionInput> & { kind?: OptionKind }, physicsCyc
     r.money("First cost, total", total, "sum of the items");
     r.n("Service life", costs.serviceLifeYears, 0, "years", sourceOf("options[].costs.serviceLifeYears", costs.serviceLifeYears));
     for (const c of costs.components ?? []) {
-      r.text(`Replacement: ${c.label ?? c.component}`, `${fmtMoney(c.replacementCost, currency)} every ${fmtNumber(c.lifeYears, 0)} years`, ENTERED);
+      r.text(`Replacement: ${c.label ?? COMPONENT_LABELS[c.component] ?? c.component}`, `${fmtMoney(c.replacementCost, currency)} every ${fmtNumber(c.lifeYears, 0)} years`, ENTERED);
     }
     if (costs.upkeep) {
       r.n("Own staff, routine upkeep", costs.upkeep.annualLabourHours, 0, "h/yr", sourceOf("options[].costs.upkeep.annualLabourHours", costs.upkeep.annualLabourHours));
       r.money("Service contract and parts", costs.upkeep.annualServiceCost, ENTERED);
       if (costs.upkeep.cleaningCostPerEvent > 0) r.money("Cost per tube / exchanger cleaning", costs.upkeep.cleaningCostPerEvent, ENTERED);
       for (const p of costs.upkeep.periodicItems ?? []) {
-        r.text(`Periodic: ${p.label ?? p.kind}`, `${fmtMoney(p.costPerEvent, currency)} + ${fmtNumber(p.labourHoursPerEvent, 0)} h every ${fmtNumber(p.everyYears, 1)} yr`, ENTERED);
+        r.text(`Periodic: ${p.label ?? PERIODIC_LABELS[p.kind] ?? p.kind}`, `${fmtMoney(p.costPerEvent, currency)} + ${fmtNumber(p.labourHoursPerEvent, 0)} h every ${fmtNumber(p.everyYears, 1)} yr`, ENTERED);
       }
     }
   }

@@ -88,18 +88,20 @@ export function CostStackChart({
   currency: string;
   width?: number;
 }) {
-  const labelW = 118;
-  const totalW = 62;
-  const rowH = 22;
-  const top = 6;
-  const height = top + bars.length * rowH + 18;
+  // Labels sit above their bar so long option names never crowd the plot.
+  const left = 4;
+  const totalW = 44;
+  const rowH = 30;
+  const barH = 14;
+  const top = 2;
+  const height = top + bars.length * rowH + 14;
   const neg = Math.min(0, ...bars.map((b) => b.segments.filter((s) => s.value < 0).reduce((a, s) => a + s.value, 0)));
   const pos = Math.max(0, ...bars.map((b) => b.segments.filter((s) => s.value > 0).reduce((a, s) => a + s.value, 0)));
-  const ticks = niceTicks(neg, pos, 5);
+  const ticks = niceTicks(neg, pos, 6);
   const lo = ticks[0] ?? 0;
   const hi = ticks[ticks.length - 1] ?? 1;
-  const plotW = width - labelW - totalW;
-  const x = (v: number) => labelW + ((v - lo) / (hi - lo || 1)) * plotW;
+  const plotW = width - left - totalW;
+  const x = (v: number) => left + ((v - lo) / (hi - lo || 1)) * plotW;
   const axisY = top + bars.length * rowH;
   return (
     <Svg width={width} height={height} viewBox={`0 0 ${width} ${height}`}>
@@ -110,13 +112,13 @@ export function CostStackChart({
         </G>
       ))}
       {bars.map((b, i) => {
-        const y = top + i * rowH + 4;
-        const h = rowH - 8;
+        const labelY = top + i * rowH + 9;
+        const y = labelY + 3;
         let right = 0;
-        let left = 0;
+        let leftEdge = 0;
         return (
           <G key={i}>
-            <Label x={labelW - 6} y={y + h / 2 + 2.3} text={b.label} anchor="end" color={COLORS.ink} size={7} />
+            <Label x={x(0) + 1} y={labelY} text={b.label} color={COLORS.ink} size={7} weight={600} />
             {b.segments.map((s, j) => {
               if (s.value === 0) return null;
               let x0: number;
@@ -126,13 +128,13 @@ export function CostStackChart({
                 right += s.value;
                 x1 = x(right);
               } else {
-                x1 = x(left);
-                left += s.value;
-                x0 = x(left);
+                x1 = x(leftEdge);
+                leftEdge += s.value;
+                x0 = x(leftEdge);
               }
-              return <Rect key={j} x={x0} y={y} width={Math.max(0.3, x1 - x0)} height={h} fill={colors[s.key] ?? COLORS.inkFaint} />;
+              return <Rect key={j} x={x0} y={y} width={Math.max(0.3, x1 - x0)} height={barH} fill={colors[s.key] ?? COLORS.inkFaint} />;
             })}
-            <Label x={width - 2} y={y + h / 2 + 2.3} text={fmtMoneyShort(b.total, currency)} anchor="end" color={COLORS.ink} size={7} weight={600} />
+            <Label x={width - 2} y={y + barH / 2 + 2.3} text={fmtMoneyShort(b.total, currency)} anchor="end" color={COLORS.ink} size={7.5} weight={600} />
           </G>
         );
       })}

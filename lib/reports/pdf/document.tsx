@@ -35,10 +35,9 @@ function Chrome({ source }: { source: ReportSource }) {
         <T style={{ fontWeight: 600, color: COLORS.basin700 }}>{`LoopLedger  ·  ${source.preparedBy.firmName}`}</T>
         <T>{`${source.scenarioName}  ·  ${source.versionLabel}`}</T>
       </View>
-      <View style={S.footer} fixed>
-        <T>{`${source.project.name}  ·  screening estimate, see cautions`}</T>
-        <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-      </View>
+      <View style={S.footerRule} fixed />
+      <T style={S.footerLeft} fixed>{`${source.project.name}  ·  screening estimate, see cautions`}</T>
+      <Text style={S.footerRight} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
     </>
   );
 }
@@ -67,9 +66,9 @@ function Cover({ source, summary, size }: { source: ReportSource; summary: Repor
   const dateLine = source.issuedAt ? `Issued ${fmtDate(source.issuedAt)}` : `Draft generated ${fmtDate(new Date())}`;
   const p = source.project;
   return (
-    <Page size={size} style={{ fontFamily: "Plex Sans", fontSize: 9, color: COLORS.ink }}>
+    <Page size={size} wrap={false} style={{ fontFamily: "Plex Sans", fontSize: 9, color: COLORS.ink, flexDirection: "column" }}>
       <View style={{ backgroundColor: COLORS.basin700, paddingHorizontal: 48, paddingTop: 40, paddingBottom: 30 }}>
-        <View style={{ flexDirection: "row", alignItems: "center", marginBottom: 46 }}>
+        <View style={{ flexDirection: "row", alignItems: "center", marginBottom: 36 }}>
           <Mark />
           <T style={{ color: "#ffffff", fontSize: 14, fontWeight: 600, marginLeft: 8 }}>LoopLedger</T>
           <T style={{ color: COLORS.basin100, fontSize: 8, marginLeft: 12 }}>{source.preparedBy.firmName}</T>
@@ -79,7 +78,7 @@ function Cover({ source, summary, size }: { source: ReportSource; summary: Repor
         <T style={{ color: COLORS.basin100, fontSize: 11, marginTop: 8 }}>Condenser heat rejection: open cooling tower and closed-circuit cooler options compared over their life</T>
       </View>
       <View style={{ height: 4, backgroundColor: COLORS.copper500 }} />
-      <View style={{ paddingHorizontal: 48, paddingTop: 28, flexGrow: 1 }}>
+      <View style={{ paddingHorizontal: 48, paddingTop: 24, flexGrow: 1 }}>
         <Facts
           labelWidth={120}
           items={[

@@ -4,9 +4,13 @@ import { pdfText } from "./glyphs";
 import { COLORS, S, type Style } from "./theme";
 
 /** Text whose string children are mapped onto the glyphs the shipped fonts have. */
-export function T({ children, style }: { children: ReactNode; style?: Style | Style[] }) {
+export function T({ children, style, fixed }: { children: ReactNode; style?: Style | Style[]; fixed?: boolean }) {
   const map = (c: ReactNode): ReactNode => (typeof c === "string" ? pdfText(c) : Array.isArray(c) ? c.map(map) : c);
-  return <Text style={style}>{map(children)}</Text>;
+  return (
+    <Text style={[{ lineHeight: 1.4 }, ...(Array.isArray(style) ? style : style ? [style] : [])]} {...(fixed ? { fixed: true } : {})}>
+      {map(children)}
+    </Text>
+  );
 }
 
 export function H1({ children }: { children: string }) {

@@ -37,21 +37,27 @@ export const COLORS = {
 /** One colour per option, in option order (teal, copper, slate, deep teal). */
 export const OPTION_COLORS = [COLORS.basin600, COLORS.copper500, "#56697a", COLORS.basin300];
 
+/** The faces the report uses, as file names in fonts/ (the worker thread registers the same list). */
+export const FONT_FACES: { family: string; file: string; fontWeight: number; fontStyle?: "italic" }[] = [
+  { family: "Plex Sans", file: "ibm-plex-sans-latin-400-normal.woff", fontWeight: 400 },
+  { family: "Plex Sans", file: "ibm-plex-sans-latin-400-italic.woff", fontWeight: 400, fontStyle: "italic" },
+  { family: "Plex Sans", file: "ibm-plex-sans-latin-500-normal.woff", fontWeight: 500 },
+  { family: "Plex Sans", file: "ibm-plex-sans-latin-600-normal.woff", fontWeight: 600 },
+  { family: "Plex Sans", file: "ibm-plex-sans-latin-700-normal.woff", fontWeight: 700 },
+];
+
+export function fontsDir(): string {
+  return path.join(process.cwd(), "fonts");
+}
+
 let registered = false;
 
 /** Register the Plex faces once per process; never fetch a font. */
-export function registerFonts(fontsDir = path.join(process.cwd(), "fonts")): void {
+export function registerFonts(dir = fontsDir()): void {
   if (registered) return;
-  const f = (name: string) => path.join(fontsDir, name);
   Font.register({
     family: "Plex Sans",
-    fonts: [
-      { src: f("ibm-plex-sans-latin-400-normal.woff"), fontWeight: 400 },
-      { src: f("ibm-plex-sans-latin-400-italic.woff"), fontWeight: 400, fontStyle: "italic" },
-      { src: f("ibm-plex-sans-latin-500-normal.woff"), fontWeight: 500 },
-      { src: f("ibm-plex-sans-latin-600-normal.woff"), fontWeight: 600 },
-      { src: f("ibm-plex-sans-latin-700-normal.woff"), fontWeight: 700 },
-    ],
+    fonts: FONT_FACES.map((f) => ({ src: path.join(dir, f.file), fontWeight: f.fontWeight, ...(f.fontStyle ? { fontStyle: f.fontStyle } : {}) })),
   });
   // Words are never split with a hyphen: engineering terms and numbers must stay whole.
   Font.registerHyphenationCallback((word) => [word]);
@@ -62,7 +68,8 @@ export const S = StyleSheet.create({
   page: {
     fontFamily: "Plex Sans",
     fontSize: 9,
-    lineHeight: 1.4,
+    // No lineHeight here: inherited by the page-number <Text render>, it makes react-pdf drop that text.
+    // Prose gets its line height from the T component instead.
     color: COLORS.ink,
     paddingTop: 62,
     paddingBottom: 52,
@@ -83,19 +90,9 @@ export const S = StyleSheet.create({
     fontSize: 7.5,
     color: COLORS.inkSoft,
   },
-  footer: {
-    position: "absolute",
-    bottom: 22,
-    left: 48,
-    right: 48,
-    flexDirection: "row",
-    justifyContent: "space-between",
-    borderTopWidth: 0.5,
-    borderTopColor: COLORS.line,
-    paddingTop: 5,
-    fontSize: 7,
-    color: COLORS.inkFaint,
-  },
+  footerRule: { position: "absolute", bottom: 34, left: 48, right: 48, borderTopWidth: 0.5, borderTopColor: COLORS.line },
+  footerLeft: { position: "absolute", bottom: 22, left: 48, fontSize: 7, color: COLORS.inkFaint },
+  footerRight: { position: "absolute", bottom: 22, left: 48, right: 48, fontSize: 7, color: COLORS.inkFaint, textAlign: "right" },
   h1: { fontSize: 17, fontWeight: 600, color: COLORS.basin900, lineHeight: 1.25, marginBottom: 8 },
   h2: { fontSize: 11.5, fontWeight: 600, color: COLORS.basin700, marginTop: 12, marginBottom: 5 },
   h3: { fontSize: 9.5, fontWeight: 600, color: COLORS.ink, marginTop: 8, marginBottom: 3 },

@@ -1,0 +1,85 @@
+import type { Kysely, Transaction } from "kysely";
+import type { Database } from "../schema";
+
+type Executor = Kysely<Database> | Transaction<Database>;
+
+/** The scenario's project (for authorization) and what a draft report needs; undefined when no such scenario. */
+export async function findReportScenario(db: Executor, scenarioId: string) {
+  return db
+    .selectFrom("scenarios")
+    .select([
+      "scenarios.id",
+      "scenarios.project_id as projectId",
+      "scenarios.name",
+      "scenarios.input",
+      "scenarios.updated_at as updatedAt",
+      "scenarios.archived_at as archivedAt",
+      "scenarios.created_by as createdBy",
+      "scenarios.updated_by as updatedBy",
+    ])
+    .where("scenarios.id", "=", scenarioId)
+    .executeTakeFirst();
+}
+
+/** An issued version: the given number, or the latest when `versionNumber` is null. */
+export async function findIssuedVersion(db: Executor, scenarioId: string, versionNumber: number | null) {
+  let q = db
+    .selectFrom("scenario_versions")
+    .select([
+      "scenario_versions.id",
+      "scenario_versions.version_number as versionNumber",
+      "scenario_versions.name",
+      "scenario_versions.input",
+      "scenario_versions.result",
+      "scenario_versions.engine_version as engineVersion",
+      "scenario_versions.inputs_hash as inputsHash",
+      "scenario_versions.issued_at as issuedAt",
+      "scenario_versions.issued_by as issuedBy",
+    ])
+    .where("scenario_versions.scenario_id", "=", scenarioId);
+  q = versionNumber === null ? q.orderBy("scenario_versions.version_number", "desc") : q.where("scenario_versions.version_number", "=", versionNumber);
+  return q.limit(1).executeTakeFirst();
+}
+
+/** The latest finished full analysis of the scenario, preferring the current engine version. */
+export async function findLatestDoneResult(db: Executor, scenarioId: string, engineVersion: string) {
+  return db
+    .selectFrom("scenario_results")
+    .select(["id", "result", "engine_version as engineVersion", "inputs_hash as inputsHash", "finished_at as finishedAt", "created_at as createdAt"])
+    .where("scenario_id", "=", scenarioId)
+    .where("kind", "=", "full")
+    .where("status", "=", "done")
+    .where("result", "is not", null)
+    .orderBy((eb) => eb.case().when("engine_version", "=", engineVersion).then(0).else(1).end())
+    .orderBy("finished_at", "desc")
+    .orderBy("created_at", "desc")
+    .limit(1)
+    .executeTakeFirst();
+}
+
+/** A finished Monte Carlo run stored apart from the full result (same engine version and inputs). */
+export async function findMonteCarloResult(db: Executor, scenarioId: string, engineVersion: string, inputsHash: string) {
+  return db
+    .selectFrom("scenario_results")
+    .select(["result"])
+    .where("scenario_id", "=", scenarioId)
+    .where("kind", "=", "monteCarlo")
+    .where("status", "=", "done")
+    .where("engine_version", "=", engineVersion)
+    .where("inputs_hash", "=", inputsHash)
+    .orderBy("finished_at", "desc")
+    .limit(1)
+    .executeTakeFirst();
+}
+
+/** The name of a member of the firm (the consultant who prepared the work), if that user still belongs to it. */
+export async function findFirmMemberName(db: Executor, userId: string, firmId: string) {
+  const row = await db
+    .selectFrom("firm_members")
+    .innerJoin("users", "users.id", "firm_members.user_id")
+    .select(["users.name"])
+    .where("firm_members.user_id", "=", userId)
+    .where("firm_members.firm_id", "=", firmId)
+    .executeTakeFirst();
+  return row?.name ?? null;
+}
