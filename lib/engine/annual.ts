@@ -718,8 +718,9 @@ function foulingCostPerMonthPerUnit(
   const sched = monthlyFoulingM2KPerW(growth, intervalMonths);
   let rRef = sched.reduce((a, b) => a + b, 0) / 12;
   if (!(rRef > 0)) rRef = fouling.limitM2KPerW > 0 ? fouling.limitM2KPerW : 1.76e-4;
-  // Every 4th hour of an hourly year (weighted ×4) is plenty for a year-average slope.
-  const stride = ctx.climate.kind === "hourly" ? 4 : 1;
+  // Every 7th hour of an hourly year (weighted ×7; 7 and 24 share no factor, so every hour of the day
+  // is sampled) is plenty for a year-average slope.
+  const stride = ctx.climate.kind === "hourly" ? 7 : 1;
   const clean = simulateOptionYear(po, ctx, new Array<number>(12).fill(0), stride);
   const fouled = simulateOptionYear(po, ctx, new Array<number>(12).fill(rRef), stride);
   const s = ((opts.electricityPricePerKWh ?? 0) * (fouled.energyKWh.total - clean.energyKWh.total)) / (12 * rRef);

@@ -18,7 +18,6 @@ import { type EnteringAir, evaporationKgPerS } from "./air-side";
 import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } from "./fans";
 import { type GlycolKind, fluidProperties, tubeSideCoefficientRatio } from "./glycol";
 import { counterflowEffectiveness, counterflowNtu } from "./heat-exchanger";
-import { brentRoot } from "./solvers";
 import type { EngineWarning } from "./types";
 
 /** The manufacturer's selection of a closed-circuit cooler. */
@@ -263,13 +262,31 @@ export function coolerCapacityKW(
  */
 function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, needKWPerK: number, cs: number | undefined): number {
   if (!(needKWPerK > 0)) return Number.POSITIVE_INFINITY;
-  const g = (f: number): number => coolerConductanceKWPerK(model, f, air, cs) - needKWPerK;
-  const gHi = g(1);
+  let hi = 1;
+  let gHi = coolerConductanceKWPerK(model, hi, air, cs) - needKWPerK;
   if (gHi < 0) return Number.POSITIVE_INFINITY;
-  const lo = 1e-3;
-  const gLo = g(lo);
+  let lo = 1e-3;
+  let gLo = coolerConductanceKWPerK(model, lo, air, cs) - needKWPerK;
   if (gLo >= 0) return lo;
-  return brentRoot(g, lo, 1, gLo, gHi, 1e-9);
+  // Illinois (modified regula falsi) on a monotone, smooth function: no closure in the hot path.
+  let side = 0;
+  for (let i = 0; i < 60; i++) {
+    const f = (lo * gHi - hi * gLo) / (gHi - gLo);
+    const g = coolerConductanceKWPerK(model, f, air, cs) - needKWPerK;
+    if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) return f;
+    if (g > 0) {
+      hi = f;
+      gHi = g;
+      if (side === 1) gLo *= 0.5;
+      side = 1;
+    } else {
+      lo = f;
+      gLo = g;
+      if (side === -1) gHi *= 0.5;
+      side = -1;
+    }
+  }
+  return 0.5 * (lo + hi);
 }
 
 /**
@@ -315,17 +332,17 @@ function finishMode(
 ): CoolerHourResult {
   const cf = model.fluidCapacityKWPerK;
   const op = fanOperationForRequiredAirflow(fan, requiredFraction);
-  const evap = (f: number): number => (wet ? evaporationKgPerS(heatKW, f * model.designAirFlowKgPerS, pPa, air) : 0);
+  const ma = model.designAirFlowKgPerS;
   const mode = wet ? "wet" : "dry";
   if (op.kind === "insufficient") {
     const tout = coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, pPa, cs);
-    return { mode, held: false, leavingFluidC: tout, enteringFluidC: tout + heatKW / cf, airflowFraction: 1, fanPowerKW: op.state.powerKW, evaporationKgPerS: evap(1), sprayOn: wet };
+    return { mode, held: false, leavingFluidC: tout, enteringFluidC: tout + heatKW / cf, airflowFraction: 1, fanPowerKW: op.state.powerKW, evaporationKgPerS: wet ? evaporationKgPerS(heatKW, ma, pPa, air) : 0, sprayOn: wet };
   }
   if (op.kind === "continuous") {
     // Fan off with natural draft to spare: the loop's control holds the set-point; the air that
     // actually takes the heat is about the required airflow.
     const f = op.state.powerKW > 0 ? op.state.airflowFraction : Math.max(requiredFraction, 1e-3);
-    return { mode, held: true, leavingFluidC: requiredLeavingFluidC, enteringFluidC: requiredLeavingFluidC + heatKW / cf, airflowFraction: f, fanPowerKW: op.state.powerKW, evaporationKgPerS: evap(f), sprayOn: wet };
+    return { mode, held: true, leavingFluidC: requiredLeavingFluidC, enteringFluidC: requiredLeavingFluidC + heatKW / cf, airflowFraction: f, fanPowerKW: op.state.powerKW, evaporationKgPerS: wet ? evaporationKgPerS(heatKW, f * ma, pPa, air) : 0, sprayOn: wet };
   }
   const tLow = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.low.airflowFraction, wet, pPa, cs);
   const tHigh = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.high.airflowFraction, wet, pPa, cs);
@@ -337,7 +354,10 @@ function finishMode(
     enteringFluidC: requiredLeavingFluidC + heatKW / cf,
     airflowFraction: x * op.high.airflowFraction + (1 - x) * op.low.airflowFraction,
     fanPowerKW: x * op.high.powerKW + (1 - x) * op.low.powerKW,
-    evaporationKgPerS: wet ? x * evap(op.high.airflowFraction) + (1 - x) * evap(op.low.airflowFraction) : 0,
+    evaporationKgPerS: wet
+      ? x * evaporationKgPerS(heatKW, op.high.airflowFraction * ma, pPa, air) +
+        (1 - x) * evaporationKgPerS(heatKW, op.low.airflowFraction * ma, pPa, air)
+      : 0,
     sprayOn: wet,
   };
 }

@@ -159,7 +159,7 @@ function pinchLiquidToGasRatio(coldWaterC: number, rangeK: number, haIn: number,
  * L/G at which a tower with characteristic C·(L/G)^−n delivers a given cold-water temperature at a
  * given range, from the four saturated enthalpies hs(Tc + kᵢR) (fixed once Tc and R are fixed):
  * solve (cpw·R/4)·Σ 1/(hsᵢ − ha,in − (L/G)·cpw·kᵢR) = C·(L/G)^−n, a monotone 1-D root in ln(L/G)
- * (safeguarded Newton) that needs no further saturated-enthalpy evaluation. Returns 0 when no airflow can do it
+ * (safeguarded Newton on 1/demand − 1/supply) that needs no further saturated-enthalpy evaluation. Returns 0 when no airflow can do it
  * (cold water at or below the wet-bulb).
  */
 export function requiredLiquidToGasRatio(
@@ -186,30 +186,39 @@ export function requiredLiquidToGasRatio(
   const s2 = 0.6 * c;
   const s3 = 0.9 * c;
   const lgMax = Math.min(d0 / s0, d1 / s1, d2 / s2, d3 / s3);
-  const uMax = Math.log(lgMax);
-  const lnC = Math.log(coefficientC);
-  // φ(u) = ln demand(e^u) − ln C + n·u, increasing in u = ln(L/G); safeguarded Newton.
-  let lo = Number.NEGATIVE_INFINITY;
-  let hi = uMax;
-  let u = Math.log(Math.min(guessLiquidToGasRatio, 0.7 * lgMax));
+  // ψ(L/G) = 1/demand − 1/supply: 1/demand falls almost linearly to 0 at the pinch, 1/supply =
+  // (L/G)^n/C is concave, so ψ is smooth, convex and decreasing; bracketed Newton converges in a few steps.
+  let lo = 0;
+  let hi = lgMax;
+  const k4 = 4 / c;
+  let psiLo = k4 / (1 / d0 + 1 / d1 + 1 / d2 + 1 / d3);
+  let psiHi = -Math.pow(lgMax, exponentN) / coefficientC;
+  let lg = Math.min(guessLiquidToGasRatio, 0.5 * lgMax);
   for (let iter = 0; iter < 60; iter++) {
-    const lg = Math.exp(u);
     const r0 = d0 - lg * s0;
     const r1 = d1 - lg * s1;
     const r2 = d2 - lg * s2;
     const r3 = d3 - lg * s3;
     const sum = 1 / r0 + 1 / r1 + 1 / r2 + 1 / r3;
     const dsum = s0 / (r0 * r0) + s1 / (r1 * r1) + s2 / (r2 * r2) + s3 / (r3 * r3);
-    const phi = Math.log((c / 4) * sum) - lnC + exponentN * u;
-    if (phi > 0) hi = u;
-    else lo = u;
-    const dphi = (lg * dsum) / sum + exponentN;
-    let next = u - phi / dphi;
-    if (!(next < hi && next > lo)) next = Number.isFinite(lo) ? 0.5 * (lo + hi) : Math.min(u, hi) - 2;
-    if (Math.abs(next - u) < 1e-10) return Math.exp(next);
-    u = next;
+    const lgn = Math.pow(lg, exponentN);
+    const psi = k4 / sum - lgn / coefficientC;
+    if (psi > 0) {
+      lo = lg;
+      psiLo = psi;
+    } else {
+      hi = lg;
+      psiHi = psi;
+    }
+    const dpsi = (-k4 * dsum) / (sum * sum) - (exponentN * lgn) / (lg * coefficientC);
+    let next = lg - psi / dpsi;
+    // Outside the bracket: a secant step between its ends (bisection only if that degenerates).
+    if (!(next > lo && next < hi)) next = lo + (psiLo * (hi - lo)) / (psiLo - psiHi);
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - lg) < 1e-10 * lg) return next;
+    lg = next;
   }
-  return Math.exp(u);
+  return lg;
 }
 
 /**
@@ -367,7 +376,7 @@ export function solveTowerHour(
     if (lg > 0) requiredFraction = model.waterFlowKgPerS / lg / model.designAirFlowKgPerS;
   }
   const op = fanOperationForRequiredAirflow(fan, requiredFraction);
-  const airFlow = (f: number): number => f * model.designAirFlowKgPerS;
+  const gd = model.designAirFlowKgPerS;
   if (op.kind === "insufficient") {
     const known = haveHs ? { tC: requiredColdWaterC, saturatedEnthalpiesKJPerKg: hs } : undefined;
     const tc = towerColdWaterAtAirflowC(model, air, heatKW, 1, pPa, requiredColdWaterC, known);
@@ -377,7 +386,7 @@ export function solveTowerHour(
       hotWaterC: tc + rangeK,
       airflowFraction: 1,
       fanPowerKW: op.state.powerKW,
-      evaporationKgPerS: evaporationKgPerS(heatKW, airFlow(1), pPa, air),
+      evaporationKgPerS: evaporationKgPerS(heatKW, gd, pPa, air),
     };
   }
   if (op.kind === "continuous") {
@@ -390,7 +399,7 @@ export function solveTowerHour(
       hotWaterC: requiredColdWaterC + rangeK,
       airflowFraction: f,
       fanPowerKW: op.state.powerKW,
-      evaporationKgPerS: evaporationKgPerS(heatKW, airFlow(f), pPa, air),
+      evaporationKgPerS: evaporationKgPerS(heatKW, f * gd, pPa, air),
     };
   }
   const known = haveHs ? { tC: requiredColdWaterC, saturatedEnthalpiesKJPerKg: hs } : undefined;
@@ -398,8 +407,8 @@ export function solveTowerHour(
   const tLow = towerColdWaterAtAirflowC(model, air, heatKW, op.low.airflowFraction, pPa, requiredColdWaterC, known, MIX_STATE_TOLERANCE_K, MIX_STATE_RELATIVE_TOLERANCE);
   const tHigh = towerColdWaterAtAirflowC(model, air, heatKW, op.high.airflowFraction, pPa, requiredColdWaterC, known, MIX_STATE_TOLERANCE_K, MIX_STATE_RELATIVE_TOLERANCE);
   const x = highStateTimeFraction(tLow, tHigh, requiredColdWaterC);
-  const eLow = evaporationKgPerS(heatKW, airFlow(op.low.airflowFraction), pPa, air);
-  const eHigh = evaporationKgPerS(heatKW, airFlow(op.high.airflowFraction), pPa, air);
+  const eLow = evaporationKgPerS(heatKW, op.low.airflowFraction * gd, pPa, air);
+  const eHigh = evaporationKgPerS(heatKW, op.high.airflowFraction * gd, pPa, air);
   return {
     held: true,
     coldWaterC: requiredColdWaterC,
