@@ -6,8 +6,14 @@ import { COLORS, S, type Style } from "./theme";
 /** Text whose string children are mapped onto the glyphs the shipped fonts have. */
 export function T({ children, style, fixed }: { children: ReactNode; style?: Style | Style[]; fixed?: boolean }) {
   const map = (c: ReactNode): ReactNode => (typeof c === "string" ? pdfText(c) : Array.isArray(c) ? c.map(map) : c);
+  // react-pdf turns a unitless lineHeight into points with the element's OWN fontSize (18 when it has
+  // none) and children inherit those points, so line height is set here, in points, only where the
+  // font size is known; elsewhere the font's natural line height (about 1.3) applies.
+  const list = Array.isArray(style) ? style : style ? [style] : [];
+  const fontSize = list.reduce<number | undefined>((fs, st) => (typeof st?.fontSize === "number" ? st.fontSize : fs), undefined);
+  const withLead = fontSize !== undefined && !list.some((st) => st?.lineHeight !== undefined) ? [...list, { lineHeight: 1.35 }] : list;
   return (
-    <Text style={[{ lineHeight: 1.4 }, ...(Array.isArray(style) ? style : style ? [style] : [])]} {...(fixed ? { fixed: true } : {})}>
+    <Text style={withLead} {...(fixed ? { fixed: true } : {})}>
       {map(children)}
     </Text>
   );

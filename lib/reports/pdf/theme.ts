@@ -68,8 +68,8 @@ export const S = StyleSheet.create({
   page: {
     fontFamily: "Plex Sans",
     fontSize: 9,
-    // No lineHeight here: inherited by the page-number <Text render>, it makes react-pdf drop that text.
-    // Prose gets its line height from the T component instead.
+    // No lineHeight here: react-pdf would turn it into points inherited by every text (and it drops the
+    // page-number <Text render> that inherits one). The T component sets line heights.
     color: COLORS.ink,
     paddingTop: 62,
     paddingBottom: 52,
@@ -97,7 +97,7 @@ export const S = StyleSheet.create({
   h2: { fontSize: 11.5, fontWeight: 600, color: COLORS.basin700, marginTop: 12, marginBottom: 5 },
   h3: { fontSize: 9.5, fontWeight: 600, color: COLORS.ink, marginTop: 8, marginBottom: 3 },
   kicker: { fontSize: 7.5, fontWeight: 600, color: COLORS.copper500, letterSpacing: 1.2, textTransform: "uppercase", marginBottom: 2 },
-  p: { marginBottom: 5 },
+  p: { marginBottom: 5, fontSize: 9 },
   small: { fontSize: 7.5, color: COLORS.inkSoft },
     note: {
     backgroundColor: COLORS.basin50,
