@@ -120,11 +120,13 @@ describe("invitation flow in a real browser", () => {
     expect(versionHtml).not.toContain(draftOnlyName);
     await screenshot(page, "invite-05-viewer-version");
 
-    // Nothing else: the draft, the unissued scenario, the access page, the demo project.
-    for (const path of [
-      `/projects/${fx.projectId}/scenarios/${fx.scenarioId}`,
-      `/projects/${fx.projectId}/scenarios/${fx.draftOnlyId}/versions`,
-    ]) {
+    // Nothing else. The draft's address sends a client viewer to the issued versions, never to the draft.
+    const toDraft = await page.goto(`/projects/${fx.projectId}/scenarios/${fx.scenarioId}`);
+    expect(new URL(page.url()).pathname).toBe(`/projects/${fx.projectId}/scenarios/${fx.scenarioId}/versions`);
+    expect(toDraft?.status()).toBe(200);
+    expect(await page.locator("[data-testid=issue-form]").count()).toBe(0);
+    // A scenario with nothing issued does not exist for them, under either address.
+    for (const path of [`/projects/${fx.projectId}/scenarios/${fx.draftOnlyId}`, `/projects/${fx.projectId}/scenarios/${fx.draftOnlyId}/versions`]) {
       const r = await page.goto(path);
       expect(r?.status(), path).toBe(404);
       expect(await page.content()).not.toContain(draftOnlyName);
