@@ -3,6 +3,7 @@ import type { Database } from "./schema";
 import { createUser } from "./queries/users";
 import { grantProjectAccess, insertProject } from "./queries/projects";
 import { hashPassword } from "@/lib/auth/password";
+import { seedDemoScenario } from "@/lib/scenarios/demo-seed";
 
 /** Development-only demo accounts (also listed in README.md). Invented firm, client and site. */
 export const DEMO_PASSWORD = "ledger-demo-2026";
@@ -26,6 +27,8 @@ export interface SeedResult {
   firmId: string;
   projectId: string;
   userIds: Record<keyof typeof DEMO_ACCOUNTS, string>;
+  /** The demo's invented climate dataset, its complete three-option scenario and that scenario's issued version 1. */
+  demo: { datasetId: string; scenarioId: string; versionId: string; inputsHash: string };
 }
 
 /** Seed the demo when the database has no users; a no-op otherwise (nothing a user saved is touched). */
@@ -59,6 +62,7 @@ export async function seedDemo(db: Kysely<Database>): Promise<SeedResult | { see
     });
     await grantProjectAccess(trx, { projectId: project.id, userId: ids.owner, role: "owner", grantedBy: ids.consultant });
     await grantProjectAccess(trx, { projectId: project.id, userId: ids.finance, role: "finance", grantedBy: ids.consultant });
-    return { seeded: true, firmId: firm.id, projectId: project.id, userIds: ids };
+    const demo = await seedDemoScenario(trx, { projectId: project.id, firmId: firm.id, siteElevationM: DEMO_PROJECT.elevationM, consultantId: ids.consultant });
+    return { seeded: true, firmId: firm.id, projectId: project.id, userIds: ids, demo };
   });
 }

@@ -1,0 +1,47 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { listProjectDatasets, requireScenario } from "@/lib/scenarios/data";
+import { prefillDocument } from "@/lib/scenarios/prefill";
+import { PageHeader } from "@/components/ui/panel";
+import { ScenarioEditor } from "./_components/scenario-editor";
+
+export const metadata: Metadata = { title: "Edit scenario" };
+
+/** The scenario editor: every input in the project's units with its default and source. */
+export default async function EditScenarioPage({ params }: { params: Promise<{ projectId: string; scenarioId: string }> }) {
+  const { projectId, scenarioId } = await params;
+  const { access, ctx } = await requireScenario(projectId, scenarioId, "scenario.edit");
+  const datasets = await listProjectDatasets(projectId);
+  const initial = {
+    ...(prefillDocument(ctx.dto.document) as unknown as Record<string, unknown>),
+    name: ctx.row.name,
+    climateDatasetId: ctx.row.climateDatasetId ?? "",
+  };
+  return (
+    <>
+      <PageHeader
+        title={`Edit: ${ctx.row.name}`}
+        subtitle={
+          <>
+            <Link href={`/projects/${projectId}`} className="text-basin-700 hover:underline">
+              {access.project.name}
+            </Link>{" "}
+            · values in {access.project.unitSystem === "IP" ? "IP" : "SI"} units, {access.project.currency}
+          </>
+        }
+      />
+      {ctx.row.archivedAt ? (
+        <p className="mb-4 rounded-md border border-caution-600 bg-caution-50 px-3 py-2 text-sm text-caution-800">This scenario is archived: it cannot be saved. Clone it to continue.</p>
+      ) : null}
+      <ScenarioEditor
+        projectId={projectId}
+        scenarioId={scenarioId}
+        revision={ctx.row.revision}
+        unitSystem={access.project.unitSystem}
+        currency={access.project.currency}
+        datasets={datasets.map((d) => ({ id: d.id, name: d.name }))}
+        initial={initial}
+      />
+    </>
+  );
+}

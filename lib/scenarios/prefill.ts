@@ -1,0 +1,90 @@
+/**
+ * The editor's starting values: the stored document with every schema default written out, so that
+ * each field shows a value (and its default's source beside it). First costs stay empty where none was
+ * entered — they have no default. Client-safe.
+ */
+import { FIRST_COST_ITEMS } from "@/lib/engine/economics/types";
+import { OPTION_KINDS, OPTION_KIND_LABELS, type OptionKind } from "@/lib/engine/types";
+import type { ScenarioDocument } from "./mappers";
+import { defaultScenario, fieldDefaults, scenarioSchema, type FieldDefault } from "./schema";
+import { PLACEHOLDER_CLIMATE, withPlaceholders } from "./validate";
+
+type Obj = Record<string, unknown>;
+const isObj = (v: unknown): v is Obj => typeof v === "object" && v !== null && !Array.isArray(v);
+
+/** The document with defaults filled; unchanged when it cannot be parsed even with placeholders. */
+export function prefillDocument(document: ScenarioDocument): ScenarioDocument {
+  const doc = structuredClone(document) as unknown as Obj;
+  // Sensitivity and Monte Carlo are optional in the schema; the editor starts with them on (their defaults).
+  if (doc.sensitivity === undefined) doc.sensitivity = {};
+  if (doc.monteCarlo === undefined) doc.monteCarlo = {};
+  const options = Array.isArray(doc.options) ? (doc.options as Obj[]) : [];
+  const missingFirstCost = new Map<number, Obj>();
+  options.forEach((o, i) => {
+    const costs = (isObj(o.costs) ? o.costs : (o.costs = {})) as Obj;
+    const given = isObj(costs.firstCost) ? (costs.firstCost as Obj) : {};
+    const complete = FIRST_COST_ITEMS.every((k) => typeof given[k] === "number");
+    if (!complete) {
+      missingFirstCost.set(i, given);
+      costs.firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, typeof given[k] === "number" ? given[k] : 0]));
+    }
+  });
+  const parsed = scenarioSchema.safeParse(withPlaceholders(doc));
+  if (!parsed.success) {
+    // Keep what is there; still give unentered first costs their empty slots.
+    return document;
+  }
+  const out = parsed.data as unknown as Obj;
+  delete out.climate;
+  delete out.site;
+  for (const [i, given] of missingFirstCost) {
+    const o = (out.options as Obj[])[i];
+    if (o && isObj(o.costs)) {
+      (o.costs as Obj).firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, typeof given[k] === "number" ? given[k] : undefined]));
+    }
+  }
+  return out as unknown as ScenarioDocument;
+}
+
+/** The editor's values for a new scenario: `defaultScenario` prefilled. */
+export function defaultEditorDocument(): ScenarioDocument {
+  const { climate: _c, site: _s, ...rest } = defaultScenario(PLACEHOLDER_CLIMATE) as unknown as Obj;
+  void _c;
+  void _s;
+  return prefillDocument(rest as unknown as ScenarioDocument);
+}
+
+/** A new option of a kind with every default filled and no first cost, with an id not yet used. */
+export function newOptionOfKind(kind: OptionKind, usedIds: string[]): Obj {
+  const base = defaultEditorDocument() as unknown as { options: Obj[] };
+  const template = structuredClone(base.options.find((o) => o.kind === kind) ?? base.options[0]!) as Obj;
+  let n = 1;
+  const stem = kind === "openTowerDirect" ? "tower-direct" : kind === "openTowerPlateHx" ? "tower-plate" : "cooler";
+  let id = stem;
+  while (usedIds.includes(id)) id = `${stem}-${++n}`;
+  template.id = id;
+  template.label = n > 1 ? `${OPTION_KIND_LABELS[kind]} ${n}` : OPTION_KIND_LABELS[kind];
+  return template;
+}
+
+export { OPTION_KINDS };
+
+/**
+ * The default and its source for a form path: "options.2.fan.minSpeedFraction" looks up
+ * "options[].fan.minSpeedFraction"; a field inside a defaulted object (e.g. "sensitivity.tornado.waterPrice.low")
+ * reads the parent default's member.
+ */
+export function defaultFor(path: string): FieldDefault | null {
+  const key = path.replace(/^options\.\d+\./, "options[].");
+  const direct = fieldDefaults[key];
+  if (direct) return direct;
+  const parts = key.split(".");
+  for (let cut = parts.length - 1; cut > 0; cut--) {
+    const parent = fieldDefaults[parts.slice(0, cut).join(".")];
+    if (!parent) continue;
+    let v: unknown = parent.default;
+    for (const p of parts.slice(cut)) v = isObj(v) ? v[p] : undefined;
+    return v === undefined ? null : { default: v, source: parent.source };
+  }
+  return null;
+}
