@@ -56,12 +56,14 @@ export async function listClimateDatasets(access: ProjectAccess): Promise<Climat
   return rows.map(listItem);
 }
 
-/** One dataset's summary and provenance (no hourly arrays), or null when it is not this project's. Audited as a view. */
+/** One dataset's summary and provenance (no hourly arrays), or null when it is not this project's. A client viewer's view is audited. */
 export async function getClimateDataset(access: ProjectAccess, datasetId: string): Promise<ClimateDatasetDTO | null> {
   if (!access.can("project.view") || !isUuid(datasetId)) return null;
   const r = await findClimateDatasetSummary(db, access.project.id, datasetId);
   if (!r) return null;
-  await writeAudit(db, {
+  // Client viewers' views are the ones worth a trail entry ("the owner looked at the climate"); the firm's own
+  // page loads would bury the changes in the project's audit list.
+  if (!access.can("climate.manage")) await writeAudit(db, {
     actorId: access.viewer.id,
     firmId: access.project.firmId,
     projectId: access.project.id,

@@ -54,10 +54,10 @@ export async function ClimateSection({ access }: { access: ProjectAccess }) {
                     {d.fileName ? <div className="text-xs text-ink-faint">{d.fileName}</div> : null}
                   </td>
                   <td className="py-2 pr-4">{SOURCE_LABELS[d.sourceKind]}</td>
-                  <td className="num py-2 pr-4">{formatNumber(d.recordCount, { decimals: 0 })}</td>
-                  <td className="num py-2 pr-4">{formatNumber(d.hoursTotal, { decimals: 0 })} h</td>
-                  <td className="num py-2 pr-4">{formatNumber(d.missingCount, { decimals: 0 })}</td>
-                  <td className="num py-2 pr-4">{formatQuantity("temperatureC", d.designWetBulb04C, unitSystem, { decimals: 1 })}</td>
+                  <td className="num whitespace-nowrap py-2 pr-4">{formatNumber(d.recordCount, { decimals: 0 })}</td>
+                  <td className="num whitespace-nowrap py-2 pr-4">{`${formatNumber(d.hoursTotal, { decimals: 0 })}\u00a0h`}</td>
+                  <td className="num whitespace-nowrap py-2 pr-4">{formatNumber(d.missingCount, { decimals: 0 })}</td>
+                  <td className="num whitespace-nowrap py-2 pr-4">{formatQuantity("temperatureC", d.designWetBulb04C, unitSystem, { decimals: 1 })}</td>
                   <td className="py-2 text-xs text-ink-soft">
                     {isoDate(d.createdAt)}
                     {d.createdByName ? ` · ${d.createdByName}` : ""}

@@ -82,7 +82,7 @@ export default async function ClimateSummaryPage({ params }: { params: Promise<{
             </Row>
             <Row label="Station elevation">
               <span className="font-mono">{formatQuantity("elevationM", p.stationElevationM, u, { decimals: 0 })}</span>
-              <span className="text-ink-faint"> · site {formatQuantity("elevationM", p.siteElevationM, u, { decimals: 0 })}</span>
+              <span className="text-ink-faint"> · site {formatQuantity("elevationM", p.siteElevationM, u, { decimals: 0 })} when imported</span>
             </Row>
             <Row label="Records">
               <span className="font-mono" data-testid="climate-records">{formatNumber(ds.recordCount, { decimals: 0 })}</span>
