@@ -31,7 +31,7 @@ import {
   peakFoulingM2KPerW,
   scaleGrowth,
 } from "./fouling";
-import { fluidProperties } from "./glycol";
+import { fluidProperties, freezingPointC } from "./glycol";
 import type { DutyInput, FoulingInput, OptionInput, WaterInput } from "./input";
 import { calibratePlateExchangerUaKWPerK, plateExchangerApproachK } from "./plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "./psychrometrics";
@@ -338,6 +338,9 @@ interface Accumulator {
   hottestSurfaceC: number;
   compressorKWh: number;
   peakRfM2KPerW: number;
+  /** Hours of wet operation (water on the fill or coil) below 0 °C dry-bulb, and the year's lowest dry-bulb. */
+  wetHoursBelowFreezing: number;
+  minDryBulbC: number;
 }
 
 function emptyEnergy(): EnergyByComponentKWh {
@@ -472,6 +475,8 @@ export function simulateOptionYear(
     hottestSurfaceC: Number.NEGATIVE_INFINITY,
     compressorKWh: 0,
     peakRfM2KPerW: 0,
+    wetHoursBelowFreezing: 0,
+    minDryBulbC: Number.POSITIVE_INFINITY,
   };
   const meanRf = foulingByMonth.reduce((a, b) => a + b, 0) / 12;
   const cycles = ctx.cycles;
@@ -504,6 +509,8 @@ export function simulateOptionYear(
       if (r.hottestSurfaceC > acc.hottestSurfaceC) acc.hottestSurfaceC = r.hottestSurfaceC;
     }
     acc.heatKWh += (r.running ? heatKW : 0) * w;
+    if (w > 0 && air.dryBulbC < acc.minDryBulbC) acc.minDryBulbC = air.dryBulbC;
+    if (r.running && !r.dry && air.dryBulbC < 0) acc.wetHoursBelowFreezing += w;
     // Spread over months: an hour or a monthly bin goes to its month; a bin without month pro rata by days.
     const shares = month > 0 ? null : DAYS_IN_MONTH;
     for (let mi = 0; mi < 12; mi++) {
@@ -558,6 +565,8 @@ export interface OptionYearTotals {
   meanReferenceCondensingC: number;
   compressorKWh: number;
   hottestSurfaceC: number;
+  wetHoursBelowFreezing: number;
+  minDryBulbC: number;
 }
 
 function totalsFrom(acc: Accumulator): OptionYearTotals {
@@ -587,6 +596,8 @@ function totalsFrom(acc: Accumulator): OptionYearTotals {
     meanReferenceCondensingC: acc.runningHours > 0 ? acc.refSum / acc.runningHours : Number.NaN,
     compressorKWh: acc.compressorKWh,
     hottestSurfaceC: acc.hottestSurfaceC,
+    wetHoursBelowFreezing: acc.wetHoursBelowFreezing,
+    minDryBulbC: acc.minDryBulbC,
   };
 }
 
@@ -769,6 +780,27 @@ function finishOption(
       path: `${po.path}`,
       optionId: o.id,
     });
+  }
+  if (t.wetHoursBelowFreezing > 0) {
+    warnings.push({
+      code: "caution.winterOperation",
+      severity: "warning",
+      message: `${Math.round(t.wetHoursBelowFreezing)} h of wet operation below 0 °C: icing of fill, louvres and basin, and freezing of exposed piping must be designed out (basin heat, bypass to the basin, fan de-icing, heat tracing) — follow the manufacturer and local codes.`,
+      path: `${po.path}.basinHeater`,
+      optionId: o.id,
+    });
+  }
+  if (o.kind === "closedCircuitCooler" && Number.isFinite(t.minDryBulbC)) {
+    const fp = freezingPointC(o.cooler.glycol.kind, o.cooler.glycol.massFraction);
+    if (t.minDryBulbC < fp + 2) {
+      warnings.push({
+        code: "caution.coilFreeze",
+        severity: "warning",
+        message: `The outdoor air reaches ${round1(t.minDryBulbC)} °C and the coil fluid freezes near ${round1(fp)} °C: a coil that stands idle or loses flow can burst — use enough glycol, or keep flow and a minimum heat load, or drain the coil; follow the manufacturer.`,
+        path: `${po.path}.cooler.glycol`,
+        optionId: o.id,
+      });
+    }
   }
   // Scaling indices at the hottest wetted surface (tower fill inlet / wetted coil).
   const hottest = Number.isFinite(t.hottestSurfaceC) ? t.hottestSurfaceC : po.designHottestSurfaceC;
