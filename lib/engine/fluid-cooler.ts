@@ -7,7 +7,9 @@
  * (fluid → tube, ∝ fluid flow^0.8, derated for glycol) and an external (film → air, ∝ airflow^0.8·cs/cs,design)
  * resistance in series, calibrated on the manufacturer's wet rating; counterflow effectiveness;
  * Q = ε·Cmin·(Tfluid,in − Twb) with the air capacity ma·cs.
- * cs is the chord slope of hs between the entering wet-bulb and the mean fluid temperature.
+ * cs is the chord slope of hs between the entering wet-bulb and the mean fluid temperature. The process
+ * pump runs at constant speed at the rated flow, so the internal flow^0.8 factor stays 1; the external
+ * conductance follows the fan's airflow.
  *
  * Dry mode (spray pump off): sensible only, air capacity ma·cp,moist, external conductance from the
  * Lewis analogy hc = hD·cp times a dry factor (calibrated on the dry rating when given, else
