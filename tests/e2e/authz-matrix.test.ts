@@ -198,7 +198,8 @@ export const EXPECTATIONS: Record<string, Rule> = {
     body: (w, v) => ({ versionId: v === "own" ? w.P.versionId : w.C.versionId, body: "Matrix comment" }),
   },
   "GET /api/projects/[projectId]/climate": api("project.view"),
-  "POST /api/projects/[projectId]/climate": { ...api("climate.manage", { authorizedButInvalid: 400 }), body: () => ({}) },
+  // A JSON body is not the multipart upload the route reads: past authorization it is refused as 415.
+  "POST /api/projects/[projectId]/climate": { ...api("climate.manage", { authorizedButInvalid: 415 }), body: () => ({}) },
 
   "GET /api/scenarios/[scenarioId]/results": api("project.view"),
   "GET /api/scenarios/[scenarioId]/export": api("project.view"),
