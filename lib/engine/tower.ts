@@ -212,10 +212,10 @@ export function requiredLiquidToGasRatio(
     }
     const dpsi = (-k4 * dsum) / (sum * sum) - (exponentN * lgn) / (lg * coefficientC);
     let next = lg - psi / dpsi;
+    if (psi === 0 || Math.abs(next - lg) < 1e-10 * lg) return next;
     // Outside the bracket: a secant step between its ends (bisection only if that degenerates).
     if (!(next > lo && next < hi)) next = lo + (psiLo * (hi - lo)) / (psiLo - psiHi);
     if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - lg) < 1e-10 * lg) return next;
     lg = next;
   }
   return lg;
@@ -293,9 +293,9 @@ export function towerColdWaterAtAirflowC(
     else hi = Math.min(hi, t);
     const dRho = (((CPW * rangeK) / 4) * dsum) / (demand * demand);
     let next = t - rho / dRho;
-    if (!(next > lo && next < hi)) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : t + Math.max(2, rangeK);
     const tol = toleranceK + (guessC !== undefined ? relativeTolerance * Math.abs(next - guessC) : 0);
-    if (Math.abs(next - t) < tol) return Math.max(next, floorC);
+    if (rho === 0 || Math.abs(next - t) < tol) return Math.max(next, floorC);
+    if (!(next > lo && next < hi)) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : t + Math.max(2, rangeK);
     t = next;
   }
   return Math.max(t, floorC);
