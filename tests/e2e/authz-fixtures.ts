@@ -52,7 +52,7 @@ export interface MatrixWorld {
 const EPW = path.resolve(__dirname, "../fixtures/weather/harrowgate-flats.epw");
 const SCENARIO = path.resolve(__dirname, "../fixtures/scenario-hourly.json");
 
-async function uploadDataset(cookie: string, projectId: string, name: string): Promise<string> {
+export async function uploadDataset(cookie: string, projectId: string, name: string): Promise<string> {
   const form = new FormData();
   form.set("file", new Blob([readFileSync(EPW)], { type: "text/plain" }), "harrowgate-flats.epw");
   form.set("name", name);
@@ -63,7 +63,7 @@ async function uploadDataset(cookie: string, projectId: string, name: string): P
   return id;
 }
 
-async function analysedScenario(db: Kysely<Database>, projectId: string, datasetId: string, name: string, userId: string): Promise<string> {
+export async function analysedScenario(db: Kysely<Database>, projectId: string, datasetId: string, name: string, userId: string): Promise<string> {
   const doc = JSON.parse(readFileSync(SCENARIO, "utf8")) as Record<string, unknown>;
   const stored = toStoredInput({ ...doc, name }, datasetId);
   const s = await db

@@ -1,34 +1,23 @@
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
-import { DEMO_PROJECT } from "@/db/seed";
-import { buildEngineInput, loadScenarioContext } from "@/lib/scenarios/store";
-import { analyzeAndStore } from "@/lib/scenarios/analysis";
-import type { ScenarioDocument } from "@/lib/scenarios/mappers";
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_PROJECT } from "@/db/seed";
+import { analysedScenario, uploadDataset } from "./authz-fixtures";
+import { signInHttp } from "./http-session";
 
 /**
- * A project of the demo firm with a copy of the demo climate dataset and the demo scenario, its result
- * computed and stored the way a save does (lib/scenarios/analysis.ts), so that it can be issued from the UI.
- * Everything is new rows with unique names; the seed's own rows are only read.
+ * A new project of the demo firm (so the demo consultant works on it in the browser) with the test
+ * weather file uploaded through the real climate import route and the fixture scenario on it, analysed and
+ * stored the way a save does — ready to be issued from the UI. Only new rows; the seed is read, never changed.
  */
 export async function projectWithAnalysedScenario(db: Kysely<Database>, tag: string, extra: { draftOnlyName?: string } = {}) {
   const demo = await db.selectFrom("projects").selectAll().where("name", "=", DEMO_PROJECT.name).executeTakeFirstOrThrow();
-  const scenario = await db
-    .selectFrom("scenarios")
-    .selectAll()
-    .where("project_id", "=", demo.id)
-    .where("climate_dataset_id", "is not", null)
-    .where("archived_at", "is", null)
-    .orderBy("created_at")
-    .executeTakeFirst();
-  if (!scenario?.climate_dataset_id) throw new Error("The demo seed has no scenario on a climate dataset: the e2e fixtures copy it.");
-  const ds = await db.selectFrom("climate_datasets").selectAll().where("id", "=", scenario.climate_dataset_id).executeTakeFirstOrThrow();
-  const consultant = await db.selectFrom("users").select("id").where("email", "=", "cole.consultant@corrandale.example").executeTakeFirstOrThrow();
-
+  const consultant = await db.selectFrom("users").select("id").where("email", "=", DEMO_ACCOUNTS.consultant.email).executeTakeFirstOrThrow();
+  const projectName = `Invite flow ${tag}`;
   const project = await db
     .insertInto("projects")
     .values({
       firm_id: demo.firm_id,
-      name: `Invite flow ${tag}`,
+      name: projectName,
       client_name: `Client ${tag}`,
       site_name: `Site ${tag}`,
       location_label: demo.location_label,
@@ -39,47 +28,11 @@ export async function projectWithAnalysedScenario(db: Kysely<Database>, tag: str
     })
     .returning("id")
     .executeTakeFirstOrThrow();
-  const newDs = await db
-    .insertInto("climate_datasets")
-    .values({
-      project_id: project.id,
-      name: ds.name,
-      source_kind: ds.source_kind,
-      file_name: ds.file_name,
-      provenance: JSON.stringify(ds.provenance),
-      record_count: ds.record_count,
-      missing_count: ds.missing_count,
-      hours_total: ds.hours_total,
-      data: JSON.stringify(ds.data),
-      summary: JSON.stringify(ds.summary),
-      created_by: consultant.id,
-    })
-    .returning("id")
-    .executeTakeFirstOrThrow();
-  const copyScenario = async (name: string) => {
-    const input = { ...(scenario.input as Record<string, unknown>), name, climate: { datasetId: newDs.id } };
-    return (
-      await db
-        .insertInto("scenarios")
-        .values({
-          project_id: project.id,
-          name,
-          climate_dataset_id: newDs.id,
-          input: JSON.stringify(input),
-          input_version: scenario.input_version,
-          created_by: consultant.id,
-          updated_by: consultant.id,
-        })
-        .returning("id")
-        .executeTakeFirstOrThrow()
-    ).id;
-  };
+  const cookie = await signInHttp(DEMO_ACCOUNTS.consultant.email, DEMO_PASSWORD, { "x-forwarded-for": `192.0.2.200-${tag}` });
+  if (!cookie) throw new Error("the demo consultant could not sign in");
+  const datasetId = await uploadDataset(cookie, project.id, `Harrowgate Flats weather ${tag}`);
   const scenarioName = `Loop comparison ${tag}`;
-  const scenarioId = await copyScenario(scenarioName);
-  const ctx = await loadScenarioContext(db, scenarioId);
-  const built = ctx && buildEngineInput(ctx.dto.document as ScenarioDocument, ctx.dataset, ctx.project);
-  if (!built || !built.ok) throw new Error(`The copied demo scenario does not build: ${JSON.stringify(built && !built.ok ? built.fieldErrors : null)}`);
-  await analyzeAndStore(db, scenarioId, built.input);
-  const draftOnlyId = extra.draftOnlyName ? await copyScenario(extra.draftOnlyName) : null;
-  return { projectId: project.id, projectName: `Invite flow ${tag}`, scenarioId, scenarioName, draftOnlyId };
+  const scenarioId = await analysedScenario(db, project.id, datasetId, scenarioName, consultant.id);
+  const draftOnlyId = extra.draftOnlyName ? await analysedScenario(db, project.id, datasetId, extra.draftOnlyName, consultant.id) : null;
+  return { projectId: project.id, projectName, scenarioId, scenarioName, draftOnlyId };
 }
