@@ -1,10 +1,13 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { analyzeScenario, physicsOf, prepareScenario, rerunPhysics } from "@/lib/engine";
 import { designHeatRejectionKW, linearLoadFraction } from "@/lib/engine/duty";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { psychroCounters } from "@/lib/engine/psychrometrics";
 import type { OptionAnnualPhysics } from "@/lib/engine/types";
 import { fixtureInput } from "./helpers";
+
+// Whole-year runs and property tests: generous time on a shared CI machine.
+vi.setConfig({ testTimeout: 60_000 });
 
 const hourly = fixtureInput("scenario-hourly.json");
 const bins = fixtureInput("scenario-bins.json");

@@ -1,4 +1,4 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import fc from "fast-check";
 import { enteringAir } from "@/lib/engine/air-side";
 import type { FanModel } from "@/lib/engine/fans";
@@ -11,6 +11,9 @@ import {
 } from "@/lib/engine/fluid-cooler";
 import { fluidProperties } from "@/lib/engine/glycol";
 import { counterflowEffectiveness, counterflowNtu } from "@/lib/engine/heat-exchanger";
+
+// Whole-year runs and property tests: generous time on a shared CI machine.
+vi.setConfig({ testTimeout: 60_000 });
 
 const P = 98_500;
 const sel: CoolerSelection = {

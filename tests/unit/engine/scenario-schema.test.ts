@@ -2,7 +2,7 @@ import { spawnSync } from "node:child_process";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { analyzeScenario } from "@/lib/engine";
 import {
   defaultScenario,
@@ -13,6 +13,9 @@ import {
   scenarioSchema,
 } from "@/lib/scenarios/schema";
 import { FIXTURES, fixtureDocument, readFixture } from "./helpers";
+
+// Whole-year runs and property tests: generous time on a shared CI machine.
+vi.setConfig({ testTimeout: 60_000 });
 
 const ROOT = resolve(__dirname, "../../..");
 

@@ -1,4 +1,4 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import fc from "fast-check";
 import psychrolib from "psychrolib";
 import { enteringAir } from "@/lib/engine/air-side";
@@ -15,6 +15,9 @@ import {
   CHEBYSHEV_RANGE_FRACTIONS,
 } from "@/lib/engine/tower";
 import type { FanModel } from "@/lib/engine/fans";
+
+// Whole-year runs and property tests: generous time on a shared CI machine.
+vi.setConfig({ testTimeout: 60_000 });
 
 const P = 101325;
 const CPW = 4.186;
