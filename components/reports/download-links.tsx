@@ -16,7 +16,9 @@ export interface DownloadLinksProps {
 }
 
 /** The two report rights of a viewer, from the DAL's project access. */
-export function reportRights(access: { can: (action: "report.downloadPdf" | "report.downloadWorkbook") => boolean }) {
+export function reportRights(access: {
+  can: (action: "report.downloadPdf" | "report.downloadWorkbook") => boolean;
+}) {
   return { canPdf: access.can("report.downloadPdf"), canWorkbook: access.can("report.downloadWorkbook") };
 }
 
@@ -32,32 +34,69 @@ const primary =
   "inline-flex items-center gap-2 rounded-md bg-basin-600 px-3 py-1.5 text-sm font-medium text-white hover:bg-basin-700 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-basin-600";
 const secondary =
   "inline-flex items-center gap-2 rounded-md border border-line-strong bg-paper-raised px-3 py-1.5 text-sm font-medium text-ink hover:bg-paper-sunk focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-basin-600";
-const quiet = "text-sm text-basin-700 underline-offset-2 hover:underline focus-visible:outline focus-visible:outline-2 focus-visible:outline-basin-600";
+const quiet =
+  "text-sm text-basin-700 underline-offset-2 hover:underline focus-visible:outline focus-visible:outline-2 focus-visible:outline-basin-600";
 
-export function DownloadLinks({ scenarioId, version, canPdf, canWorkbook, units, className = "" }: DownloadLinksProps) {
+export function DownloadLinks({
+  scenarioId,
+  version,
+  canPdf,
+  canWorkbook,
+  units,
+  className = "",
+}: DownloadLinksProps) {
   if (!canPdf && !canWorkbook) return null;
   return (
-    <nav aria-label="Report downloads" className={`flex flex-wrap items-center gap-2 ${className}`} data-testid="report-downloads">
+    <nav
+      aria-label="Report downloads"
+      className={`flex flex-wrap items-center gap-2 ${className}`}
+      data-testid="report-downloads"
+    >
       {canPdf ? (
-        <a className={primary} href={href(scenarioId, "report", version, units)} download data-testid="download-pdf">
+        <a
+          className={primary}
+          href={href(scenarioId, "report", version, units)}
+          download
+          data-testid="download-pdf"
+        >
           Cost report <span className="text-xs opacity-80">PDF</span>
         </a>
       ) : null}
       {canWorkbook ? (
         <>
-          <a className={secondary} href={href(scenarioId, "workbook", version, units)} download data-testid="download-workbook">
+          <a
+            className={secondary}
+            href={href(scenarioId, "workbook", version, units)}
+            download
+            data-testid="download-workbook"
+          >
             Cash-flow workbook <span className="text-xs text-ink-faint">XLSX</span>
           </a>
           <span className="text-xs text-ink-faint" aria-hidden="true">
             CSV:
           </span>
-          <a className={quiet} href={href(scenarioId, "csv/cashflows", version, units)} download data-testid="download-csv-cashflows">
+          <a
+            className={quiet}
+            href={href(scenarioId, "csv/cashflows", version, units)}
+            download
+            data-testid="download-csv-cashflows"
+          >
             cash flows
           </a>
-          <a className={quiet} href={href(scenarioId, "csv/water-energy", version, units)} download data-testid="download-csv-water-energy">
+          <a
+            className={quiet}
+            href={href(scenarioId, "csv/water-energy", version, units)}
+            download
+            data-testid="download-csv-water-energy"
+          >
             water &amp; energy
           </a>
-          <a className={quiet} href={href(scenarioId, "csv/climate-bins", version, units)} download data-testid="download-csv-climate-bins">
+          <a
+            className={quiet}
+            href={href(scenarioId, "csv/climate-bins", version, units)}
+            download
+            data-testid="download-csv-climate-bins"
+          >
             climate bins
           </a>
         </>

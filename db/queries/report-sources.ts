@@ -37,7 +37,10 @@ export async function findIssuedVersion(db: Executor, scenarioId: string, versio
       "scenario_versions.issued_by as issuedBy",
     ])
     .where("scenario_versions.scenario_id", "=", scenarioId);
-  q = versionNumber === null ? q.orderBy("scenario_versions.version_number", "desc") : q.where("scenario_versions.version_number", "=", versionNumber);
+  q =
+    versionNumber === null
+      ? q.orderBy("scenario_versions.version_number", "desc")
+      : q.where("scenario_versions.version_number", "=", versionNumber);
   return q.limit(1).executeTakeFirst();
 }
 
@@ -45,7 +48,14 @@ export async function findIssuedVersion(db: Executor, scenarioId: string, versio
 export async function findLatestDoneResult(db: Executor, scenarioId: string, engineVersion: string) {
   return db
     .selectFrom("scenario_results")
-    .select(["id", "result", "engine_version as engineVersion", "inputs_hash as inputsHash", "finished_at as finishedAt", "created_at as createdAt"])
+    .select([
+      "id",
+      "result",
+      "engine_version as engineVersion",
+      "inputs_hash as inputsHash",
+      "finished_at as finishedAt",
+      "created_at as createdAt",
+    ])
     .where("scenario_id", "=", scenarioId)
     .where("kind", "=", "full")
     .where("status", "=", "done")
@@ -58,7 +68,12 @@ export async function findLatestDoneResult(db: Executor, scenarioId: string, eng
 }
 
 /** A finished Monte Carlo run stored apart from the full result (same engine version and inputs). */
-export async function findMonteCarloResult(db: Executor, scenarioId: string, engineVersion: string, inputsHash: string) {
+export async function findMonteCarloResult(
+  db: Executor,
+  scenarioId: string,
+  engineVersion: string,
+  inputsHash: string,
+) {
   return db
     .selectFrom("scenario_results")
     .select(["result"])

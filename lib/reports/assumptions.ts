@@ -87,7 +87,12 @@ class Rows {
   ) {}
   q(label: string, kind: QuantityKind, valueSI: number | undefined, decimals: number, source: string): this {
     if (valueSI === undefined || !Number.isFinite(valueSI)) return this;
-    this.rows.push({ label, value: fmtNumber(convert(kind, valueSI, this.system), decimals), unit: unitOf(kind, this.system, this.currency), source });
+    this.rows.push({
+      label,
+      value: fmtNumber(convert(kind, valueSI, this.system), decimals),
+      unit: unitOf(kind, this.system, this.currency),
+      source,
+    });
     return this;
   }
   money(label: string, v: number | undefined, source: string, decimals = 0): this {
@@ -98,7 +103,12 @@ class Rows {
   /** A price per SI unit shown per the viewer's unit (per kgal in IP). */
   price(label: string, kind: QuantityKind, v: number | undefined, source: string, decimals = 2): this {
     if (v === undefined || !Number.isFinite(v)) return this;
-    this.rows.push({ label, value: fmtNumber(convert(kind, v, this.system), decimals), unit: unitOf(kind, this.system, this.currency), source });
+    this.rows.push({
+      label,
+      value: fmtNumber(convert(kind, v, this.system), decimals),
+      unit: unitOf(kind, this.system, this.currency),
+      source,
+    });
     return this;
   }
   pct(label: string, fraction: number | undefined, source: string, unit = "%", decimals = 1): this {
@@ -118,33 +128,62 @@ class Rows {
   }
 }
 
-const CONTROL_WORDS: Record<string, string> = { variableSpeed: "variable speed", twoSpeed: "two-speed", cycling: "on/off cycling" };
-const GLYCOL_WORDS: Record<string, string> = { none: "water", ethyleneGlycol: "ethylene glycol", propyleneGlycol: "propylene glycol" };
+const CONTROL_WORDS: Record<string, string> = {
+  variableSpeed: "variable speed",
+  twoSpeed: "two-speed",
+  cycling: "on/off cycling",
+};
+const GLYCOL_WORDS: Record<string, string> = {
+  none: "water",
+  ethyleneGlycol: "ethylene glycol",
+  propyleneGlycol: "propylene glycol",
+};
 
-function climateGroup(input: Partial<ScenarioInput>, climate: ClimateSummary | undefined, system: UnitSystem, currency: string): AssumptionGroup {
+function climateGroup(
+  input: Partial<ScenarioInput>,
+  climate: ClimateSummary | undefined,
+  system: UnitSystem,
+  currency: string,
+): AssumptionGroup {
   const r = new Rows(system, currency);
   r.text("Site", input.site?.locationLabel, ENTERED);
   r.q("Site elevation", "elevationM", input.site?.elevationM, 0, ENTERED);
   const c = input.climate;
   if (c) {
-    const kind = c.source === "hourly" ? "hourly typical year" : c.source === "wetBulbBins" ? "wet-bulb bin table" : "dry-bulb bin table";
+    const kind =
+      c.source === "hourly"
+        ? "hourly typical year"
+        : c.source === "wetBulbBins"
+          ? "wet-bulb bin table"
+          : "dry-bulb bin table";
     r.text("Climate data", `${c.label ?? "climate"} (${kind})`, "imported climate dataset");
   }
   if (climate) {
     r.n("Hours represented", climate.hours, 0, "h", "climate dataset");
     r.q("Dry-bulb, minimum / mean", "temperatureC", climate.dryBulb.minC, 1, "climate dataset");
-    r.rows[r.rows.length - 1]!.value += ` / ${fmtNumber(convert("temperatureC", climate.dryBulb.meanC, system), 1)}`;
+    r.rows[r.rows.length - 1]!.value +=
+      ` / ${fmtNumber(convert("temperatureC", climate.dryBulb.meanC, system), 1)}`;
     r.q("Dry-bulb, maximum", "temperatureC", climate.dryBulb.maxC, 1, "climate dataset");
     r.q("Wet-bulb, mean", "temperatureC", climate.wetBulb.meanC, 1, "climate dataset");
     r.q("Wet-bulb, maximum", "temperatureC", climate.wetBulb.maxC, 1, "climate dataset");
     for (const d of climate.designWetBulbC) {
-      r.q(`Design wet-bulb, ${fmtNumber(d.exceedancePercent, 1)}% exceedance`, "temperatureC", d.wetBulbC, 1, "from the dataset's hours (ASHRAE Fundamentals ch. 14 convention)");
+      r.q(
+        `Design wet-bulb, ${fmtNumber(d.exceedancePercent, 1)}% exceedance`,
+        "temperatureC",
+        d.wetBulbC,
+        1,
+        "from the dataset's hours (ASHRAE Fundamentals ch. 14 convention)",
+      );
     }
   }
   return { title: "Site and climate", rows: r.rows };
 }
 
-function dutyGroup(duty: Partial<DutyInput> | undefined, system: UnitSystem, currency: string): AssumptionGroup {
+function dutyGroup(
+  duty: Partial<DutyInput> | undefined,
+  system: UnitSystem,
+  currency: string,
+): AssumptionGroup {
   const r = new Rows(system, currency);
   if (duty) {
     if (duty.designBasis === "refrigeration") {
@@ -158,7 +197,15 @@ function dutyGroup(duty: Partial<DutyInput> | undefined, system: UnitSystem, cur
     r.q("Evaporating temperature", "temperatureC", duty.evaporatingC, 1, ENTERED);
     r.q("Condensing set-point", "temperatureC", duty.condensingSetPointC, 1, ENTERED);
     r.q("Minimum condensing temperature", "temperatureC", duty.minimumCondensingC, 1, ENTERED);
-    r.text("Head-pressure control", duty.headPressureControl === "floating" ? "floating head pressure" : duty.headPressureControl ? "fixed set-point" : undefined, ENTERED);
+    r.text(
+      "Head-pressure control",
+      duty.headPressureControl === "floating"
+        ? "floating head pressure"
+        : duty.headPressureControl
+          ? "fixed set-point"
+          : undefined,
+      ENTERED,
+    );
     const lp = duty.loadProfile;
     if (lp) {
       const words =
@@ -173,31 +220,56 @@ function dutyGroup(duty: Partial<DutyInput> | undefined, system: UnitSystem, cur
     }
     const cm = duty.compressorModel;
     if (cm) {
-      r.text("Compressor penalty model", cm.kind === "carnotFraction" ? "Carnot fraction (about 1/(Tc - Te) per K)" : `${fmtNumber(cm.percentPerK, 1)}% per K of condensing temperature`, ENTERED);
+      r.text(
+        "Compressor penalty model",
+        cm.kind === "carnotFraction"
+          ? "Carnot fraction (about 1/(Tc - Te) per K)"
+          : `${fmtNumber(cm.percentPerK, 1)}% per K of condensing temperature`,
+        ENTERED,
+      );
     }
   }
   return { title: "Duty", rows: r.rows };
 }
 
-function optionGroup(o: Partial<OptionInput> & { kind?: OptionKind }, physicsCycles: number | undefined, system: UnitSystem, currency: string): AssumptionGroup {
+function optionGroup(
+  o: Partial<OptionInput> & { kind?: OptionKind },
+  physicsCycles: number | undefined,
+  system: UnitSystem,
+  currency: string,
+): AssumptionGroup {
   const r = new Rows(system, currency);
   const kindLabel = o.kind ? OPTION_KIND_LABELS[o.kind] : "";
   if ("tower" in o && o.tower) {
     const t = o.tower;
     r.q("Tower water flow (at 1 kg/L)", "waterFlowLPerS", t.waterFlowKgPerS / WATER_KG_PER_L, 1, SELECTION);
     r.q("Entering / leaving water", "temperatureC", t.enteringWaterC, 1, SELECTION);
-    r.rows[r.rows.length - 1]!.value += ` / ${fmtNumber(convert("temperatureC", t.leavingWaterC, system), 1)}`;
+    r.rows[r.rows.length - 1]!.value +=
+      ` / ${fmtNumber(convert("temperatureC", t.leavingWaterC, system), 1)}`;
     r.q("Design wet-bulb of the selection", "temperatureC", t.designWetBulbC, 1, SELECTION);
     r.n("Design L/G", t.designLiquidToGasRatio, 2, "", SELECTION);
-    r.n("Tower characteristic exponent n", t.characteristicExponent, 2, "", "default 0.6 [practice] unless entered");
+    r.n(
+      "Tower characteristic exponent n",
+      t.characteristicExponent,
+      2,
+      "",
+      "default 0.6 [practice] unless entered",
+    );
   }
   if ("cooler" in o && o.cooler) {
     const c = o.cooler;
     r.q("Process fluid flow (at 1 kg/L)", "waterFlowLPerS", c.fluidFlowKgPerS / WATER_KG_PER_L, 1, SELECTION);
     r.q("Entering / leaving fluid", "temperatureC", c.enteringFluidC, 1, SELECTION);
-    r.rows[r.rows.length - 1]!.value += ` / ${fmtNumber(convert("temperatureC", c.leavingFluidC, system), 1)}`;
+    r.rows[r.rows.length - 1]!.value +=
+      ` / ${fmtNumber(convert("temperatureC", c.leavingFluidC, system), 1)}`;
     r.q("Design wet-bulb of the selection", "temperatureC", c.designWetBulbC, 1, SELECTION);
-    r.text("Loop fluid", c.glycol ? `${GLYCOL_WORDS[c.glycol.kind] ?? c.glycol.kind}${c.glycol.kind !== "none" ? `, ${fmtPercent(c.glycol.massFraction, 0)} by mass` : ""}` : undefined, ENTERED);
+    r.text(
+      "Loop fluid",
+      c.glycol
+        ? `${GLYCOL_WORDS[c.glycol.kind] ?? c.glycol.kind}${c.glycol.kind !== "none" ? `, ${fmtPercent(c.glycol.massFraction, 0)} by mass` : ""}`
+        : undefined,
+      ENTERED,
+    );
     r.text("Dry operation", c.allowDryMode ? "allowed (spray pump off)" : "not allowed", ENTERED);
     if (c.allowDryMode) r.q("Dry operation up to dry-bulb", "temperatureC", c.dryModeMaxDryBulbC, 1, ENTERED);
   }
@@ -206,7 +278,11 @@ function optionGroup(o: Partial<OptionInput> & { kind?: OptionKind }, physicsCyc
   }
   if (o.fan) {
     r.q("Fan motor power at full speed", "powerKW", o.fan.designPowerKW, 1, SELECTION);
-    r.text("Fan control", `${CONTROL_WORDS[o.fan.control] ?? o.fan.control}${o.fan.control === "variableSpeed" ? `, minimum ${fmtPercent(o.fan.minSpeedFraction, 0)} speed` : ""}`, ENTERED);
+    r.text(
+      "Fan control",
+      `${CONTROL_WORDS[o.fan.control] ?? o.fan.control}${o.fan.control === "variableSpeed" ? `, minimum ${fmtPercent(o.fan.minSpeedFraction, 0)} speed` : ""}`,
+      ENTERED,
+    );
   }
   if (o.condenserPump) {
     r.q("Condenser pump head", "headM", o.condenserPump.headM, 1, ENTERED);
@@ -214,47 +290,87 @@ function optionGroup(o: Partial<OptionInput> & { kind?: OptionKind }, physicsCyc
   }
   if ("towerPump" in o && o.towerPump) r.q("Tower-side pump head", "headM", o.towerPump.headM, 1, ENTERED);
   if ("sprayPump" in o && o.sprayPump) {
-    if (o.sprayPump.powerKW !== undefined) r.q("Spray pump power", "powerKW", o.sprayPump.powerKW, 2, SELECTION);
+    if (o.sprayPump.powerKW !== undefined)
+      r.q("Spray pump power", "powerKW", o.sprayPump.powerKW, 2, SELECTION);
     else r.q("Spray pump head", "headM", o.sprayPump.headM, 1, ENTERED);
   }
-  if (o.condenser) r.q("Design condensing temperature", "temperatureC", o.condenser.designCondensingC, 1, SELECTION);
+  if (o.condenser)
+    r.q("Design condensing temperature", "temperatureC", o.condenser.designCondensingC, 1, SELECTION);
   r.pct("Drift, share of circulating flow", o.driftFractionOfFlow, ENTERED, "%", 3);
   if (o.basinHeater && o.basinHeater.powerKW > 0) {
     r.q("Basin heater", "powerKW", o.basinHeater.powerKW, 1, ENTERED);
     r.q("Basin heater runs below dry-bulb", "temperatureC", o.basinHeater.belowDryBulbC, 1, ENTERED);
   }
-  if (physicsCycles !== undefined && physicsCycles > 1) r.n("Cycles of concentration (as run)", physicsCycles, 1, "", "from the water input");
+  if (physicsCycles !== undefined && physicsCycles > 1)
+    r.n("Cycles of concentration (as run)", physicsCycles, 1, "", "from the water input");
   const costs = o.costs;
   if (costs) {
     let total = 0;
     for (const item of FIRST_COST_ITEMS) {
       const v = costs.firstCost?.[item] ?? 0;
       total += v;
-      if (v > 0) r.money(`First cost: ${FIRST_COST_LABELS[item].toLowerCase()}`, v, "consultant's selection and quotes (no default)");
+      if (v > 0)
+        r.money(
+          `First cost: ${FIRST_COST_LABELS[item].toLowerCase()}`,
+          v,
+          "consultant's selection and quotes (no default)",
+        );
     }
     r.money("First cost, total", total, "sum of the items");
-    r.n("Service life", costs.serviceLifeYears, 0, "years", sourceOf("options[].costs.serviceLifeYears", costs.serviceLifeYears));
+    r.n(
+      "Service life",
+      costs.serviceLifeYears,
+      0,
+      "years",
+      sourceOf("options[].costs.serviceLifeYears", costs.serviceLifeYears),
+    );
     for (const c of costs.components ?? []) {
-      r.text(`Replacement: ${c.label ?? COMPONENT_LABELS[c.component] ?? c.component}`, `${fmtMoney(c.replacementCost, currency)} every ${fmtNumber(c.lifeYears, 0)} years`, ENTERED);
+      r.text(
+        `Replacement: ${c.label ?? COMPONENT_LABELS[c.component] ?? c.component}`,
+        `${fmtMoney(c.replacementCost, currency)} every ${fmtNumber(c.lifeYears, 0)} years`,
+        ENTERED,
+      );
     }
     if (costs.upkeep) {
-      r.n("Own staff, routine upkeep", costs.upkeep.annualLabourHours, 0, "h/yr", sourceOf("options[].costs.upkeep.annualLabourHours", costs.upkeep.annualLabourHours));
+      r.n(
+        "Own staff, routine upkeep",
+        costs.upkeep.annualLabourHours,
+        0,
+        "h/yr",
+        sourceOf("options[].costs.upkeep.annualLabourHours", costs.upkeep.annualLabourHours),
+      );
       r.money("Service contract and parts", costs.upkeep.annualServiceCost, ENTERED);
-      if (costs.upkeep.cleaningCostPerEvent > 0) r.money("Cost per tube / exchanger cleaning", costs.upkeep.cleaningCostPerEvent, ENTERED);
+      if (costs.upkeep.cleaningCostPerEvent > 0)
+        r.money("Cost per tube / exchanger cleaning", costs.upkeep.cleaningCostPerEvent, ENTERED);
       for (const p of costs.upkeep.periodicItems ?? []) {
-        r.text(`Periodic: ${p.label ?? PERIODIC_LABELS[p.kind] ?? p.kind}`, `${fmtMoney(p.costPerEvent, currency)} + ${fmtNumber(p.labourHoursPerEvent, 0)} h every ${fmtNumber(p.everyYears, 1)} yr`, ENTERED);
+        r.text(
+          `Periodic: ${p.label ?? PERIODIC_LABELS[p.kind] ?? p.kind}`,
+          `${fmtMoney(p.costPerEvent, currency)} + ${fmtNumber(p.labourHoursPerEvent, 0)} h every ${fmtNumber(p.everyYears, 1)} yr`,
+          ENTERED,
+        );
       }
     }
   }
   return { title: o.label ?? kindLabel, note: kindLabel, rows: r.rows };
 }
 
-function waterGroup(w: Partial<WaterInput> | undefined, f: Partial<FoulingInput> | undefined, system: UnitSystem, currency: string): AssumptionGroup {
+function waterGroup(
+  w: Partial<WaterInput> | undefined,
+  f: Partial<FoulingInput> | undefined,
+  system: UnitSystem,
+  currency: string,
+): AssumptionGroup {
   const r = new Rows(system, currency);
   if (w) {
     const m = w.makeup;
     if (m) {
-      r.q("Makeup calcium hardness (as CaCO3)", "concentrationMgPerL", m.calciumHardnessMgPerLAsCaCO3, 0, ENTERED);
+      r.q(
+        "Makeup calcium hardness (as CaCO3)",
+        "concentrationMgPerL",
+        m.calciumHardnessMgPerLAsCaCO3,
+        0,
+        ENTERED,
+      );
       r.q("Makeup M-alkalinity (as CaCO3)", "concentrationMgPerL", m.mAlkalinityMgPerLAsCaCO3, 0, ENTERED);
       r.q("Makeup silica", "concentrationMgPerL", m.silicaMgPerL, 1, ENTERED);
       r.q("Makeup chloride", "concentrationMgPerL", m.chlorideMgPerL, 0, ENTERED);
@@ -264,14 +380,40 @@ function waterGroup(w: Partial<WaterInput> | undefined, f: Partial<FoulingInput>
     const l = w.limits;
     if (l) {
       r.q("Limit: silica", "concentrationMgPerL", l.silicaMgPerL, 0, "treatment programme limit, entered");
-      r.q("Limit: chloride", "concentrationMgPerL", l.chlorideMgPerL, 0, "treatment programme limit, entered");
+      r.q(
+        "Limit: chloride",
+        "concentrationMgPerL",
+        l.chlorideMgPerL,
+        0,
+        "treatment programme limit, entered",
+      );
       r.q("Limit: TDS", "concentrationMgPerL", l.tdsMgPerL, 0, "treatment programme limit, entered");
     }
-    r.text("Cycles of concentration", w.cyclesMode === "entered" ? `${fmtNumber(w.cyclesOfConcentration ?? NaN, 1)} (entered)` : w.cyclesMode ? "from makeup chemistry and limits" : undefined, ENTERED);
-    r.text("Sewer evaporation credit", w.sewerEvaporationCredit === undefined ? undefined : w.sewerEvaporationCredit ? "yes (sewer billed on makeup less evaporation)" : "no (sewer billed on makeup)", ENTERED);
+    r.text(
+      "Cycles of concentration",
+      w.cyclesMode === "entered"
+        ? `${fmtNumber(w.cyclesOfConcentration ?? NaN, 1)} (entered)`
+        : w.cyclesMode
+          ? "from makeup chemistry and limits"
+          : undefined,
+      ENTERED,
+    );
+    r.text(
+      "Sewer evaporation credit",
+      w.sewerEvaporationCredit === undefined
+        ? undefined
+        : w.sewerEvaporationCredit
+          ? "yes (sewer billed on makeup less evaporation)"
+          : "no (sewer billed on makeup)",
+      ENTERED,
+    );
   }
   if (f) {
-    r.text("Condenser fouling growth", f.model === "linear" ? "linear between cleanings" : f.model ? "asymptotic (Kern-Seaton)" : undefined, ENTERED);
+    r.text(
+      "Condenser fouling growth",
+      f.model === "linear" ? "linear between cleanings" : f.model ? "asymptotic (Kern-Seaton)" : undefined,
+      ENTERED,
+    );
     r.q("Asymptotic fouling resistance", "foulingM2KPerW", f.asymptoticM2KPerW, 5, ENTERED);
     r.n("Fouling time constant", f.timeConstantMonths, 1, "months", ENTERED);
     r.n("Condenser tube cleaning interval", f.condenserCleaningIntervalMonths, 0, "months", ENTERED);
@@ -280,26 +422,90 @@ function waterGroup(w: Partial<WaterInput> | undefined, f: Partial<FoulingInput>
   return { title: "Water, chemistry and fouling", rows: r.rows };
 }
 
-function tariffGroup(t: ScenarioInput["tariffs"] | undefined, labourRate: number | undefined, system: UnitSystem, currency: string): AssumptionGroup {
+function tariffGroup(
+  t: ScenarioInput["tariffs"] | undefined,
+  labourRate: number | undefined,
+  system: UnitSystem,
+  currency: string,
+): AssumptionGroup {
   const r = new Rows(system, currency);
   if (t) {
     const e = t.electricity;
     if (e) {
       if (e.pricing === "monthHour" && e.energyPricePerKWhByMonthHour?.length) {
         const arr = e.energyPricePerKWhByMonthHour;
-        r.price("Electricity energy price, mean of month x hour table", "pricePerKWh", arr.reduce((a, b) => a + b, 0) / arr.length, ENTERED, 4);
-      } else r.price("Electricity energy price", "pricePerKWh", e.energyPricePerKWh, sourceOf("tariffs.electricity.energyPricePerKWh", e.energyPricePerKWh), 4);
-      r.price("Demand charge", "pricePerKW", e.demandChargePerKWMonth, sourceOf("tariffs.electricity.demandChargePerKWMonth", e.demandChargePerKWMonth), 2);
-      r.rows[r.rows.length - 1] && (r.rows[r.rows.length - 1]!.unit += " per month");
-      r.pct("Demand coincidence with the billed peak", e.demandCoincidenceFactor, sourceOf("tariffs.electricity.demandCoincidenceFactor", e.demandCoincidenceFactor), "%", 0);
+        r.price(
+          "Electricity energy price, mean of month x hour table",
+          "pricePerKWh",
+          arr.reduce((a, b) => a + b, 0) / arr.length,
+          ENTERED,
+          4,
+        );
+      } else
+        r.price(
+          "Electricity energy price",
+          "pricePerKWh",
+          e.energyPricePerKWh,
+          sourceOf("tariffs.electricity.energyPricePerKWh", e.energyPricePerKWh),
+          4,
+        );
+      r.price(
+        "Demand charge",
+        "pricePerKW",
+        e.demandChargePerKWMonth,
+        sourceOf("tariffs.electricity.demandChargePerKWMonth", e.demandChargePerKWMonth),
+        2,
+      );
+      const demandRow = r.rows[r.rows.length - 1];
+      if (demandRow && e.demandChargePerKWMonth !== undefined) demandRow.unit += " per month";
+      r.pct(
+        "Demand coincidence with the billed peak",
+        e.demandCoincidenceFactor,
+        sourceOf("tariffs.electricity.demandCoincidenceFactor", e.demandCoincidenceFactor),
+        "%",
+        0,
+      );
     }
-    r.price("Water price", "pricePerM3", t.water?.pricePerM3, sourceOf("tariffs.water.pricePerM3", t.water?.pricePerM3));
-    r.money("Water fixed charge per month", t.water?.fixedChargePerMonth, sourceOf("tariffs.water.fixedChargePerMonth", t.water?.fixedChargePerMonth), 2);
-    r.price("Sewer price", "pricePerM3", t.sewer?.pricePerM3, sourceOf("tariffs.sewer.pricePerM3", t.sewer?.pricePerM3));
-    r.money("Sewer fixed charge per month", t.sewer?.fixedChargePerMonth, sourceOf("tariffs.sewer.fixedChargePerMonth", t.sewer?.fixedChargePerMonth), 2);
-    r.price("Treatment chemicals per volume of blowdown + drift", "pricePerM3", t.chemicals?.costPerM3Outflow, sourceOf("tariffs.chemicals.costPerM3Outflow", t.chemicals?.costPerM3Outflow));
-    r.money("Treatment service, per wet loop and year", t.chemicals?.fixedCostPerYear, sourceOf("tariffs.chemicals.fixedCostPerYear", t.chemicals?.fixedCostPerYear));
-    r.money("Water-management programme, per wet loop and year", t.waterManagementProgrammeCostPerYear, sourceOf("tariffs.waterManagementProgrammeCostPerYear", t.waterManagementProgrammeCostPerYear));
+    r.price(
+      "Water price",
+      "pricePerM3",
+      t.water?.pricePerM3,
+      sourceOf("tariffs.water.pricePerM3", t.water?.pricePerM3),
+    );
+    r.money(
+      "Water fixed charge per month",
+      t.water?.fixedChargePerMonth,
+      sourceOf("tariffs.water.fixedChargePerMonth", t.water?.fixedChargePerMonth),
+      2,
+    );
+    r.price(
+      "Sewer price",
+      "pricePerM3",
+      t.sewer?.pricePerM3,
+      sourceOf("tariffs.sewer.pricePerM3", t.sewer?.pricePerM3),
+    );
+    r.money(
+      "Sewer fixed charge per month",
+      t.sewer?.fixedChargePerMonth,
+      sourceOf("tariffs.sewer.fixedChargePerMonth", t.sewer?.fixedChargePerMonth),
+      2,
+    );
+    r.price(
+      "Treatment chemicals per volume of blowdown + drift",
+      "pricePerM3",
+      t.chemicals?.costPerM3Outflow,
+      sourceOf("tariffs.chemicals.costPerM3Outflow", t.chemicals?.costPerM3Outflow),
+    );
+    r.money(
+      "Treatment service, per wet loop and year",
+      t.chemicals?.fixedCostPerYear,
+      sourceOf("tariffs.chemicals.fixedCostPerYear", t.chemicals?.fixedCostPerYear),
+    );
+    r.money(
+      "Water-management programme, per wet loop and year",
+      t.waterManagementProgrammeCostPerYear,
+      sourceOf("tariffs.waterManagementProgrammeCostPerYear", t.waterManagementProgrammeCostPerYear),
+    );
     const esc = t.escalation;
     if (esc) {
       for (const [k, label] of [
@@ -320,28 +526,72 @@ function tariffGroup(t: ScenarioInput["tariffs"] | undefined, labourRate: number
   return { title: "Tariffs and prices", rows: r.rows };
 }
 
-function economicsGroup(input: Partial<ScenarioInput>, result: ReportEngineResult, system: UnitSystem, currency: string): AssumptionGroup {
+function economicsGroup(
+  input: Partial<ScenarioInput>,
+  result: ReportEngineResult,
+  system: UnitSystem,
+  currency: string,
+): AssumptionGroup {
   const r = new Rows(system, currency);
   const e = input.economics;
   const eco = result.economics;
   r.n("Base year (1 January = base date)", eco.baseYear, 0, "", sourceOf("economics.baseYear", e?.baseYear));
   r.rows[r.rows.length - 1]!.value = String(eco.baseYear);
-  r.n("Study period", eco.studyPeriodYears, 0, "years", sourceOf("economics.studyPeriodYears", e?.studyPeriodYears));
-  r.text("Analysis", eco.analysis === "real" ? "constant dollars (real)" : "then-current dollars (nominal)", sourceOf("economics.analysis", e?.analysis));
-  r.text("Discounting", eco.discounting === "midYear" ? "mid-year for recurring costs" : "end of year", sourceOf("economics.discounting", e?.discounting));
-  r.pct("Real discount rate", eco.realDiscountRate, sourceOf("economics.realDiscountRate", e?.realDiscountRate), "%/yr", 2);
-  r.pct("General inflation", eco.inflationRate, sourceOf("economics.inflationRate", e?.inflationRate), "%/yr", 2);
-  if (eco.analysis === "nominal") r.pct("Nominal discount rate (1 + d)(1 + I) - 1", eco.nominalDiscountRate, "derived", "%/yr", 2);
-  r.text("Residual value", e?.residualValueMethod === "none" ? "none" : "linear by remaining life", sourceOf("economics.residualValueMethod", e?.residualValueMethod));
+  r.n(
+    "Study period",
+    eco.studyPeriodYears,
+    0,
+    "years",
+    sourceOf("economics.studyPeriodYears", e?.studyPeriodYears),
+  );
+  r.text(
+    "Analysis",
+    eco.analysis === "real" ? "constant dollars (real)" : "then-current dollars (nominal)",
+    sourceOf("economics.analysis", e?.analysis),
+  );
+  r.text(
+    "Discounting",
+    eco.discounting === "midYear" ? "mid-year for recurring costs" : "end of year",
+    sourceOf("economics.discounting", e?.discounting),
+  );
+  r.pct(
+    "Real discount rate",
+    eco.realDiscountRate,
+    sourceOf("economics.realDiscountRate", e?.realDiscountRate),
+    "%/yr",
+    2,
+  );
+  r.pct(
+    "General inflation",
+    eco.inflationRate,
+    sourceOf("economics.inflationRate", e?.inflationRate),
+    "%/yr",
+    2,
+  );
+  if (eco.analysis === "nominal")
+    r.pct("Nominal discount rate (1 + d)(1 + I) - 1", eco.nominalDiscountRate, "derived", "%/yr", 2);
+  r.text(
+    "Residual value",
+    e?.residualValueMethod === "none" ? "none" : "linear by remaining life",
+    sourceOf("economics.residualValueMethod", e?.residualValueMethod),
+  );
   const base = eco.options.find((o) => o.optionId === eco.baseOptionId);
   r.text("Base option for savings measures", base?.label, e?.baseOptionId ? ENTERED : "first option");
   return { title: "Economics", rows: r.rows };
 }
 
 /** Every assumption group of the report, in reading order. */
-export function buildAssumptions(rawInput: unknown, result: ReportEngineResult, system: UnitSystem, currency: string): AssumptionGroup[] {
+export function buildAssumptions(
+  rawInput: unknown,
+  result: ReportEngineResult,
+  system: UnitSystem,
+  currency: string,
+): AssumptionGroup[] {
   const input = (typeof rawInput === "object" && rawInput !== null ? rawInput : {}) as Partial<ScenarioInput>;
-  const groups: AssumptionGroup[] = [climateGroup(input, result.climate, system, currency), dutyGroup(input.duty, system, currency)];
+  const groups: AssumptionGroup[] = [
+    climateGroup(input, result.climate, system, currency),
+    dutyGroup(input.duty, system, currency),
+  ];
   for (const o of input.options ?? []) {
     const phys = result.physics.find((p) => p.optionId === o.id);
     groups.push(optionGroup(o, phys?.cyclesOfConcentration, system, currency));

@@ -29,7 +29,10 @@ export function csvField(v: Cell, userText = true): string {
 }
 
 export function toCsv(header: string[], rows: Cell[][]): string {
-  const lines = [header.map((h) => csvField(h, false)).join(","), ...rows.map((r) => r.map((c) => csvField(c)).join(","))];
+  const lines = [
+    header.map((h) => csvField(h, false)).join(","),
+    ...rows.map((r) => r.map((c) => csvField(c)).join(",")),
+  ];
   return lines.join("\r\n") + "\r\n";
 }
 
@@ -52,7 +55,16 @@ export function cashFlowsCsv(src: ReportSource): string {
   const rows: Cell[][] = [];
   for (const o of eco.options) {
     for (const c of o.cashFlows) {
-      rows.push([o.label, c.yearIndex, c.calendarYear, ...COST_CATEGORIES.map((k) => round(c.byCategory[k], 2)), round(c.total, 2), round(c.presentValue, 2), round(c.cumulativePresentValue, 2), eco.discountRate]);
+      rows.push([
+        o.label,
+        c.yearIndex,
+        c.calendarYear,
+        ...COST_CATEGORIES.map((k) => round(c.byCategory[k], 2)),
+        round(c.total, 2),
+        round(c.presentValue, 2),
+        round(c.cumulativePresentValue, 2),
+        eco.discountRate,
+      ]);
     }
   }
   return toCsv(header, rows);
@@ -60,7 +72,9 @@ export function cashFlowsCsv(src: ReportSource): string {
 
 function climateOf(input: unknown): ClimateInput | undefined {
   const c = (input as { climate?: unknown } | null)?.climate as ClimateInput | undefined;
-  return c && (c.source === "hourly" || c.source === "wetBulbBins" || c.source === "dryBulbBins") ? c : undefined;
+  return c && (c.source === "hourly" || c.source === "wetBulbBins" || c.source === "dryBulbBins")
+    ? c
+    : undefined;
 }
 
 /** Wet-bulb bins (1 K) with their hours and mean coincident dry-bulb; from the climate in the input, else the result's histogram. */
@@ -69,28 +83,62 @@ export function climateBinsCsv(src: ReportSource): string {
   const t = unitOf("temperatureC", sys);
   const climate = climateOf(src.input);
   if (climate?.source === "hourly") {
-    const table = binHourly({ kind: "hourly", month: climate.month, day: climate.day, hour: climate.hour, dryBulbC: climate.dryBulbC, wetBulbC: climate.wetBulbC });
+    const table = binHourly({
+      kind: "hourly",
+      month: climate.month,
+      day: climate.day,
+      hour: climate.hour,
+      dryBulbC: climate.dryBulbC,
+      wetBulbC: climate.wetBulbC,
+    });
     return toCsv(
-      [`Wet-bulb bin low (${t})`, `Wet-bulb bin high (${t})`, `Mean wet-bulb (${t})`, `Mean coincident dry-bulb (${t})`, "Hours (h)"],
-      table.rows.map((r) => [round(convert("temperatureC", r.lowC, sys), 2), round(convert("temperatureC", r.highC, sys), 2), round(convert("temperatureC", r.meanC, sys), 2), round(convert("temperatureC", r.meanCoincidentC, sys), 2), r.hours]),
+      [
+        `Wet-bulb bin low (${t})`,
+        `Wet-bulb bin high (${t})`,
+        `Mean wet-bulb (${t})`,
+        `Mean coincident dry-bulb (${t})`,
+        "Hours (h)",
+      ],
+      table.rows.map((r) => [
+        round(convert("temperatureC", r.lowC, sys), 2),
+        round(convert("temperatureC", r.highC, sys), 2),
+        round(convert("temperatureC", r.meanC, sys), 2),
+        round(convert("temperatureC", r.meanCoincidentC, sys), 2),
+        r.hours,
+      ]),
     );
   }
   if (climate?.source === "wetBulbBins") {
     return toCsv(
       [`Wet-bulb (${t})`, `Mean coincident dry-bulb (${t})`, "Hours (h)", "Month (1-12, blank = whole year)"],
-      climate.bins.map((b) => [round(convert("temperatureC", b.wetBulbC, sys), 2), round(convert("temperatureC", b.meanCoincidentDryBulbC, sys), 2), b.hours, b.month ?? null]),
+      climate.bins.map((b) => [
+        round(convert("temperatureC", b.wetBulbC, sys), 2),
+        round(convert("temperatureC", b.meanCoincidentDryBulbC, sys), 2),
+        b.hours,
+        b.month ?? null,
+      ]),
     );
   }
   if (climate?.source === "dryBulbBins") {
     return toCsv(
       [`Dry-bulb (${t})`, `Mean coincident wet-bulb (${t})`, "Hours (h)", "Month (1-12, blank = whole year)"],
-      climate.bins.map((b) => [round(convert("temperatureC", b.dryBulbC, sys), 2), round(convert("temperatureC", b.meanCoincidentWetBulbC, sys), 2), b.hours, b.month ?? null]),
+      climate.bins.map((b) => [
+        round(convert("temperatureC", b.dryBulbC, sys), 2),
+        round(convert("temperatureC", b.meanCoincidentWetBulbC, sys), 2),
+        b.hours,
+        b.month ?? null,
+      ]),
     );
   }
   const hist = src.result.climate?.wetBulbHistogram ?? [];
   return toCsv(
     [`Wet-bulb bin low (${t})`, `Wet-bulb bin high (${t})`, `Bin centre (${t})`, "Hours (h)"],
-    hist.map((b) => [round(convert("temperatureC", b.lowC, sys), 2), round(convert("temperatureC", b.highC, sys), 2), round(convert("temperatureC", b.centerC, sys), 2), b.hours]),
+    hist.map((b) => [
+      round(convert("temperatureC", b.lowC, sys), 2),
+      round(convert("temperatureC", b.highC, sys), 2),
+      round(convert("temperatureC", b.centerC, sys), 2),
+      b.hours,
+    ]),
   );
 }
 
@@ -126,8 +174,24 @@ export function waterEnergyCsv(src: ReportSource): string {
   for (const p of src.result.physics) {
     const peak = Math.max(0, ...p.monthly.map((m) => m.peakDemandKW));
     const periods = [
-      ...p.monthly.map((m) => ({ period: MONTHS[m.month - 1] ?? String(m.month), hours: m.hours, w: m.waterM3, e: m.energyKWh, peak: m.peakDemandKW, dry: m.dryModeHours, unmet: m.unmetHours })),
-      { period: "Year", hours: p.hoursTotal, w: p.waterM3, e: p.energyKWh, peak, dry: p.dryModeHours, unmet: p.unmetHours },
+      ...p.monthly.map((m) => ({
+        period: MONTHS[m.month - 1] ?? String(m.month),
+        hours: m.hours,
+        w: m.waterM3,
+        e: m.energyKWh,
+        peak: m.peakDemandKW,
+        dry: m.dryModeHours,
+        unmet: m.unmetHours,
+      })),
+      {
+        period: "Year",
+        hours: p.hoursTotal,
+        w: p.waterM3,
+        e: p.energyKWh,
+        peak,
+        dry: p.dryModeHours,
+        unmet: p.unmetHours,
+      },
     ];
     for (const x of periods) {
       rows.push([

@@ -11,10 +11,18 @@ function moneyFormatter(currency: string, decimals: number): Intl.NumberFormat {
   let f = moneyFormatters.get(key);
   if (!f) {
     try {
-      f = new Intl.NumberFormat("en-US", { style: "currency", currency, minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+      f = new Intl.NumberFormat("en-US", {
+        style: "currency",
+        currency,
+        minimumFractionDigits: decimals,
+        maximumFractionDigits: decimals,
+      });
     } catch {
       // An unknown ISO code: plain grouping with the code in front.
-      const plain = new Intl.NumberFormat("en-US", { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+      const plain = new Intl.NumberFormat("en-US", {
+        minimumFractionDigits: decimals,
+        maximumFractionDigits: decimals,
+      });
       f = { format: (v: number) => `${currency} ${plain.format(v)}` } as Intl.NumberFormat;
     }
     moneyFormatters.set(key, f);
@@ -34,7 +42,9 @@ export function fmtMoney(value: number, currency: string, decimals = 0): string 
 export function fmtMoneyShort(value: number, currency: string): string {
   const abs = Math.abs(value);
   const sign = value < 0 ? "-" : "";
-  const symbol = moneyFormatter(currency, 0).format(0).replace(/[0.,\s]/g, "");
+  const symbol = moneyFormatter(currency, 0)
+    .format(0)
+    .replace(/[0.,\s]/g, "");
   if (abs >= 1e6) return `${sign}${symbol}${(abs / 1e6).toFixed(abs >= 1e7 ? 0 : 1)}M`;
   if (abs >= 1e3) return `${sign}${symbol}${(abs / 1e3).toFixed(0)}k`;
   return `${sign}${symbol}${abs.toFixed(0)}`;
@@ -84,7 +94,12 @@ export function fmtYears(value: number | null | undefined, decimals = 1): string
 
 /** "1 December 2026" in UTC, for cover pages. */
 export function fmtDate(d: Date): string {
-  return new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" }).format(d);
+  return new Intl.DateTimeFormat("en-GB", {
+    day: "numeric",
+    month: "long",
+    year: "numeric",
+    timeZone: "UTC",
+  }).format(d);
 }
 
 /** "2026-12-01" for file names and tables. */

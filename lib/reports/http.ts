@@ -18,18 +18,33 @@ export function jsonError(status: number, error: string): NextResponse {
 /** ASCII file-name part: letters, digits, dot, dash; everything else collapsed to one dash. */
 export function fileNamePart(s: string, max = 60): string {
   const ascii = s.normalize("NFKD").replace(/[\u0300-\u036f]/g, "");
-  const clean = ascii.replace(/[^A-Za-z0-9.]+/g, "-").replace(/-+/g, "-").replace(/^[-.]+|[-.]+$/g, "");
+  const clean = ascii
+    .replace(/[^A-Za-z0-9.]+/g, "-")
+    .replace(/-+/g, "-")
+    .replace(/^[-.]+|[-.]+$/g, "");
   return clean.slice(0, max).replace(/[-.]+$/g, "") || "report";
 }
 
 /** "harrowgate-flats-cold-store_base-case_v1_2026-12-01.pdf" */
-export function reportFileName(src: Pick<ReportSource, "project" | "scenarioName" | "versionNumber" | "issuedAt" | "resultAt">, kind: string, ext: string): string {
+export function reportFileName(
+  src: Pick<ReportSource, "project" | "scenarioName" | "versionNumber" | "issuedAt" | "resultAt">,
+  kind: string,
+  ext: string,
+): string {
   const date = src.issuedAt ?? src.resultAt ?? new Date();
   const version = src.versionNumber !== null ? `v${src.versionNumber}` : "draft";
-  return [fileNamePart(src.project.name, 40), fileNamePart(src.scenarioName, 40), version, kind, isoDate(date)].join("_").toLowerCase() + `.${ext}`;
+  return (
+    [fileNamePart(src.project.name, 40), fileNamePart(src.scenarioName, 40), version, kind, isoDate(date)]
+      .join("_")
+      .toLowerCase() + `.${ext}`
+  );
 }
 
-export function downloadHeaders(fileName: string, contentType: string, length: number): Record<string, string> {
+export function downloadHeaders(
+  fileName: string,
+  contentType: string,
+  length: number,
+): Record<string, string> {
   return {
     ...NO_STORE,
     "Content-Type": contentType,
@@ -42,7 +57,11 @@ export function downloadHeaders(fileName: string, contentType: string, length: n
 
 export type ReportRequest =
   | { ok: false; response: NextResponse }
-  | { ok: true; source: ReportSource; audit: (format: string, extra?: Record<string, unknown>) => Promise<void> };
+  | {
+      ok: true;
+      source: ReportSource;
+      audit: (format: string, extra?: Record<string, unknown>) => Promise<void>;
+    };
 
 function parseVersion(v: string | null): number | null | "bad" {
   if (v === null || v === "") return null;
@@ -54,18 +73,31 @@ function parseVersion(v: string | null): number | null | "bad" {
  * cannot see, with no hint it exists), then the action (401 anonymous, 403 lacking it), then what the
  * viewer may download (the issued version for client viewers, the draft or a version for the firm).
  */
-export async function prepareReportRequest(req: Request, scenarioId: string, action: Action): Promise<ReportRequest> {
+export async function prepareReportRequest(
+  req: Request,
+  scenarioId: string,
+  action: Action,
+): Promise<ReportRequest> {
   if (!isUuid(scenarioId)) {
     // Same answer as an unknown id, but an anonymous caller still learns only that they must sign in.
     const auth = await authorizeProjectApi("not-a-project", action);
-    return { ok: false, response: jsonError(auth.ok ? 404 : auth.status, auth.ok ? "Not found." : auth.body.error) };
+    return {
+      ok: false,
+      response: jsonError(auth.ok ? 404 : auth.status, auth.ok ? "Not found." : auth.body.error),
+    };
   }
   const url = new URL(req.url);
   const version = parseVersion(url.searchParams.get("version"));
   const unitsParam = url.searchParams.get("units");
-  const units = unitsParam && (UNIT_SYSTEMS as readonly string[]).includes(unitsParam) ? (unitsParam as UnitSystem) : null;
+  const units =
+    unitsParam && (UNIT_SYSTEMS as readonly string[]).includes(unitsParam)
+      ? (unitsParam as UnitSystem)
+      : null;
   const scenario = await reportScenario(scenarioId);
-  const auth = await authorizeProjectApi(scenario?.projectId ?? "00000000-0000-4000-8000-000000000000", action);
+  const auth = await authorizeProjectApi(
+    scenario?.projectId ?? "00000000-0000-4000-8000-000000000000",
+    action,
+  );
   if (!auth.ok) return { ok: false, response: jsonError(auth.status, auth.body.error) };
   if (!scenario || version === "bad") return { ok: false, response: jsonError(404, "Not found.") };
   const outcome = await resolveReportSource(auth.access, scenario, { version, units });

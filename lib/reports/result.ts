@@ -15,7 +15,11 @@ export function readEngineResult(raw: unknown): ReportEngineResult {
   if (!Array.isArray(physics) || !isObject(economics) || !Array.isArray(economics.options)) {
     throw new ReportDataError("The stored result has no physics or economics to report.");
   }
-  const climate = isObject(raw.climate) ? raw.climate : isObject(raw.climateSummary) ? raw.climateSummary : undefined;
+  const climate = isObject(raw.climate)
+    ? raw.climate
+    : isObject(raw.climateSummary)
+      ? raw.climateSummary
+      : undefined;
   const out: ReportEngineResult = {
     physics: physics as ReportEngineResult["physics"],
     economics: economics as unknown as ReportEngineResult["economics"],

@@ -17,7 +17,8 @@ import { ReportDataError, type ReportEngineResult, type ReportSource } from "./t
 
 export type ReportScenario = NonNullable<Awaited<ReturnType<typeof findReportScenario>>>;
 
-export type SourceOutcome = { ok: true; source: ReportSource } | { ok: false; status: 404 | 409; error: string };
+export type SourceOutcome =
+  { ok: true; source: ReportSource } | { ok: false; status: 404 | 409; error: string };
 
 /** The scenario row a report is for (undefined when it does not exist; authorization comes after). */
 export async function reportScenario(scenarioId: string): Promise<ReportScenario | undefined> {
@@ -29,15 +30,28 @@ function isObject(v: unknown): v is Record<string, unknown> {
 }
 
 function isMonteCarlo(v: unknown): v is MonteCarloResult {
-  return isObject(v) && typeof v.draws === "number" && isObject(v.probabilityLowest) && Array.isArray(v.netSavings);
+  return (
+    isObject(v) && typeof v.draws === "number" && isObject(v.probabilityLowest) && Array.isArray(v.netSavings)
+  );
 }
 
 /** A Monte Carlo run stored as its own row: merged into the economics when the full result has none. */
-async function withMonteCarlo(scenarioId: string, result: ReportEngineResult, engineVersion: string, inputsHash: string): Promise<ReportEngineResult> {
+async function withMonteCarlo(
+  scenarioId: string,
+  result: ReportEngineResult,
+  engineVersion: string,
+  inputsHash: string,
+): Promise<ReportEngineResult> {
   if (result.economics.monteCarlo) return result;
   const row = await findMonteCarloResult(db, scenarioId, engineVersion, inputsHash);
   const raw = row?.result;
-  const mc = isMonteCarlo(raw) ? raw : isObject(raw) && isMonteCarlo(raw.monteCarlo) ? raw.monteCarlo : isObject(raw) && isObject(raw.economics) && isMonteCarlo(raw.economics.monteCarlo) ? raw.economics.monteCarlo : undefined;
+  const mc = isMonteCarlo(raw)
+    ? raw
+    : isObject(raw) && isMonteCarlo(raw.monteCarlo)
+      ? raw.monteCarlo
+      : isObject(raw) && isObject(raw.economics) && isMonteCarlo(raw.economics.monteCarlo)
+        ? raw.economics.monteCarlo
+        : undefined;
   return mc ? { ...result, economics: { ...result.economics, monteCarlo: mc } } : result;
 }
 
@@ -45,7 +59,10 @@ async function withMonteCarlo(scenarioId: string, result: ReportEngineResult, en
 function withSite(input: unknown, access: ProjectAccess): unknown {
   const doc = isObject(input) ? input : {};
   if (isObject(doc.site)) return doc;
-  return { ...doc, site: { elevationM: access.project.elevationM, locationLabel: access.project.locationLabel } };
+  return {
+    ...doc,
+    site: { elevationM: access.project.elevationM, locationLabel: access.project.locationLabel },
+  };
 }
 
 /**
@@ -60,7 +77,8 @@ export async function resolveReportSource(
   opts: { version: number | null; units?: UnitSystem | null },
 ): Promise<SourceOutcome> {
   const seesDrafts = access.can("scenario.viewDraft");
-  if (!seesDrafts && !access.can("scenario.viewIssued")) return { ok: false, status: 404, error: "Not found." };
+  if (!seesDrafts && !access.can("scenario.viewIssued"))
+    return { ok: false, status: 404, error: "Not found." };
   if (!seesDrafts && scenario.archivedAt) return { ok: false, status: 404, error: "Not found." };
   const unitSystem = opts.units ?? access.project.unitSystem;
   const project = {
@@ -78,7 +96,12 @@ export async function resolveReportSource(
       const v = await findIssuedVersion(db, scenario.id, opts.version);
       if (!v) return { ok: false, status: 404, error: "Not found." };
       const consultant = v.issuedBy ? await findFirmMemberName(db, v.issuedBy, access.project.firmId) : null;
-      const result = await withMonteCarlo(scenario.id, readEngineResult(v.result), v.engineVersion, v.inputsHash);
+      const result = await withMonteCarlo(
+        scenario.id,
+        readEngineResult(v.result),
+        v.engineVersion,
+        v.inputsHash,
+      );
       return {
         ok: true,
         source: {
@@ -98,10 +121,16 @@ export async function resolveReportSource(
       };
     }
     const r = await findLatestDoneResult(db, scenario.id, ENGINE_VERSION);
-    if (!r) return { ok: false, status: 409, error: "This scenario has no finished analysis yet: run it first." };
+    if (!r)
+      return { ok: false, status: 409, error: "This scenario has no finished analysis yet: run it first." };
     const author = scenario.updatedBy ?? scenario.createdBy;
     const consultant = author ? await findFirmMemberName(db, author, access.project.firmId) : null;
-    const result = await withMonteCarlo(scenario.id, readEngineResult(r.result), r.engineVersion, r.inputsHash);
+    const result = await withMonteCarlo(
+      scenario.id,
+      readEngineResult(r.result),
+      r.engineVersion,
+      r.inputsHash,
+    );
     const at = r.finishedAt ?? r.createdAt;
     const stale = at && scenario.updatedAt > at ? ", inputs edited since" : "";
     return {

@@ -4,7 +4,12 @@
  * Pure; shared by the PDF and the tests (which look for these exact strings in the PDF's text).
  */
 import type { UnitSystem } from "@/lib/auth/roles";
-import type { BreakEvenResult, OptionComparison, OptionEconomics, TornadoBar } from "@/lib/engine/economics/types";
+import type {
+  BreakEvenResult,
+  OptionComparison,
+  OptionEconomics,
+  TornadoBar,
+} from "@/lib/engine/economics/types";
 import { fmtMoney, fmtNumber, fmtPercent, fmtSignificant, fmtYears } from "./format";
 import type { ReportEngineResult } from "./types";
 import { convert, unitOf } from "./units";
@@ -63,13 +68,15 @@ function breakEvenText(be: BreakEvenResult, currency: string, system: UnitSystem
       return `Water and sewer prices: the two options cost the same over their life at ×${fmtNumber(be.value, 2)} the entered prices${abs}.`;
     }
     case "electricityPrice": {
-      const abs = be.absoluteValue === null ? "" : ` (a mean of ${fmtMoney(be.absoluteValue, currency, 3)} per kWh)`;
+      const abs =
+        be.absoluteValue === null ? "" : ` (a mean of ${fmtMoney(be.absoluteValue, currency, 3)} per kWh)`;
       return `Electricity price: they tie at ×${fmtNumber(be.value, 2)} the entered energy prices${abs}.`;
     }
     case "cyclesOfConcentration":
       return `Cycles of concentration: they tie at ${fmtNumber(be.value, 1)} cycles in every wet loop.`;
     case "firstCostPremium": {
-      const abs = be.absoluteValue === null ? "" : ` (an extra first cost of ${fmtMoney(be.absoluteValue, currency)})`;
+      const abs =
+        be.absoluteValue === null ? "" : ` (an extra first cost of ${fmtMoney(be.absoluteValue, currency)})`;
       return `First-cost premium: they tie at ×${fmtNumber(be.value, 2)} the alternative's extra first cost${abs}.`;
     }
   }
@@ -130,11 +137,16 @@ export function buildSummary(r: ReportEngineResult, currency: string, system: Un
         `${runnerUp.label} at ${fmtMoney(runnerUp.lcc, currency)}.`,
     );
   } else if (lowest) {
-    paragraphs.push(`Its present-value life-cycle cost over ${eco.studyPeriodYears} years is ${fmtMoney(lowest.lcc, currency)}.`);
+    paragraphs.push(
+      `Its present-value life-cycle cost over ${eco.studyPeriodYears} years is ${fmtMoney(lowest.lcc, currency)}.`,
+    );
   }
   if (keyComparison) {
     const payer = labelOf(r, keyComparison.paybackOfOptionId);
-    const other = keyComparison.paybackOfOptionId === keyComparison.baseOptionId ? keyComparison.alternativeOptionId : keyComparison.baseOptionId;
+    const other =
+      keyComparison.paybackOfOptionId === keyComparison.baseOptionId
+        ? keyComparison.alternativeOptionId
+        : keyComparison.baseOptionId;
     if (keyComparison.extraFirstCost > 0) {
       const simple = keyComparison.simplePaybackYears;
       const disc = keyComparison.discountedPaybackYears;
@@ -142,10 +154,16 @@ export function buildSummary(r: ReportEngineResult, currency: string, system: Un
         simple === null
           ? "its lower running costs do not pay that back within the study period"
           : `its lower running costs pay that back in ${fmtYears(simple)} (simple payback)` +
-            (disc === null ? ", but not within the study period once discounted" : ` or ${fmtYears(disc)} discounted`);
-      paragraphs.push(`${payer} costs ${fmtMoney(keyComparison.extraFirstCost, currency)} more to build than ${labelOf(r, other)}; ${back}.`);
+            (disc === null
+              ? ", but not within the study period once discounted"
+              : ` or ${fmtYears(disc)} discounted`);
+      paragraphs.push(
+        `${payer} costs ${fmtMoney(keyComparison.extraFirstCost, currency)} more to build than ${labelOf(r, other)}; ${back}.`,
+      );
     } else {
-      paragraphs.push(`${labelOf(r, keyComparison.alternativeOptionId)} and ${labelOf(r, keyComparison.baseOptionId)} cost the same to build.`);
+      paragraphs.push(
+        `${labelOf(r, keyComparison.alternativeOptionId)} and ${labelOf(r, keyComparison.baseOptionId)} cost the same to build.`,
+      );
     }
     const sir = keyComparison.sir;
     const airr = keyComparison.airr;
@@ -170,13 +188,19 @@ export function buildSummary(r: ReportEngineResult, currency: string, system: Un
   const noTies: string[] = [];
   if (keyComparison && eco.sensitivity) {
     for (const be of eco.sensitivity.breakEven) {
-      if (be.baseOptionId !== keyComparison.baseOptionId || be.alternativeOptionId !== keyComparison.alternativeOptionId) continue;
+      if (
+        be.baseOptionId !== keyComparison.baseOptionId ||
+        be.alternativeOptionId !== keyComparison.alternativeOptionId
+      )
+        continue;
       const t = breakEvenText(be, currency, system);
       if (t) flips.push(t);
       else noTies.push(BREAK_EVEN_NAMES[be.input]);
     }
     const pair = eco.sensitivity.tornado.find(
-      (p) => p.baseOptionId === keyComparison.baseOptionId && p.alternativeOptionId === keyComparison.alternativeOptionId,
+      (p) =>
+        p.baseOptionId === keyComparison.baseOptionId &&
+        p.alternativeOptionId === keyComparison.alternativeOptionId,
     );
     if (pair) {
       const sign = Math.sign(pair.baseNetSavings);
@@ -188,11 +212,22 @@ export function buildSummary(r: ReportEngineResult, currency: string, system: Un
         ] as const) {
           if (Math.sign(ns) !== sign && ns !== 0) {
             const winner = ns > 0 ? labelOf(r, pair.alternativeOptionId) : labelOf(r, pair.baseOptionId);
-            flips.push(`${bar.label} at its ${end} value (${tornadoValueText(bar, v)}): ${winner} would have the lower life-cycle cost (net savings ${fmtMoney(ns, currency)}).`);
+            flips.push(
+              `${bar.label} at its ${end} value (${tornadoValueText(bar, v)}): ${winner} would have the lower life-cycle cost (net savings ${fmtMoney(ns, currency)}).`,
+            );
           }
         }
       }
     }
   }
-  return { rows, baseOptionId: baseId, lowestOptionId: lowestId, ...(keyComparison ? { keyComparison } : {}), headline, paragraphs, flips, noTies };
+  return {
+    rows,
+    baseOptionId: baseId,
+    lowestOptionId: lowestId,
+    ...(keyComparison ? { keyComparison } : {}),
+    headline,
+    paragraphs,
+    flips,
+    noTies,
+  };
 }

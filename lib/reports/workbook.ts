@@ -8,15 +8,20 @@
  * change live is the discounting: the real discount rate, inflation and the analysis basis.
  */
 import ExcelJS from "exceljs";
-import { COST_CATEGORIES, COST_CATEGORY_LABELS, type CostCategory, type OptionEconomics } from "@/lib/engine/economics/types";
+import {
+  COST_CATEGORIES,
+  COST_CATEGORY_LABELS,
+  type CostCategory,
+  type OptionEconomics,
+} from "@/lib/engine/economics/types";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { isoDate } from "./format";
 import { neutraliseText } from "./neutralise";
 import type { ReportSource } from "./types";
 import { convert, unitOf } from "./units";
 
-const MONEY = '#,##0.00;[Red]-#,##0.00';
-const MONEY0 = '#,##0;[Red]-#,##0';
+const MONEY = "#,##0.00;[Red]-#,##0.00";
+const MONEY0 = "#,##0;[Red]-#,##0";
 const FACTOR = "0.000000";
 const PCT = "0.00%";
 
@@ -93,7 +98,10 @@ function addInputsSheet(wb: ExcelJS.Workbook, src: ReportSource): void {
     ["Site", src.project.siteName],
     ["Scenario", src.scenarioName],
     ["Version", src.versionLabel],
-    ["Prepared by", `${src.preparedBy.firmName}${src.preparedBy.consultantName ? `, ${src.preparedBy.consultantName}` : ""}`],
+    [
+      "Prepared by",
+      `${src.preparedBy.firmName}${src.preparedBy.consultantName ? `, ${src.preparedBy.consultantName}` : ""}`,
+    ],
     ["Issued", src.issuedAt ? isoDate(src.issuedAt) : "not issued (working draft)"],
     ["Engine version", src.engineVersion],
   ];
@@ -116,7 +124,15 @@ function addInputsSheet(wb: ExcelJS.Workbook, src: ReportSource): void {
   hdr.values = ["Input", "Value", "Unit", "Note"];
   headerStyle(hdr);
   r++;
-  const put = (label: string, value: number | string | { formula: string; result: number }, unit: string, notes: string, fmt?: string, name?: string, editable = false) => {
+  const put = (
+    label: string,
+    value: number | string | { formula: string; result: number },
+    unit: string,
+    notes: string,
+    fmt?: string,
+    name?: string,
+    editable = false,
+  ) => {
     ws.getCell(`A${r}`).value = label;
     const c = ws.getCell(`B${r}`);
     c.value = value as ExcelJS.CellValue;
@@ -127,14 +143,78 @@ function addInputsSheet(wb: ExcelJS.Workbook, src: ReportSource): void {
     ws.getCell(`D${r}`).value = notes;
     r++;
   };
-  put("Real discount rate", eco.realDiscountRate, "per year", "Change me: the owner's own real rate", PCT, NAMES.realRate, true);
-  put("General inflation", eco.inflationRate, "per year", "Change me: used by a nominal analysis", PCT, NAMES.inflation, true);
-  put("Analysis basis", eco.analysis, "real | nominal", "Change me: real = constant dollars; nominal = then-current dollars (the yearly amounts stay as analysed)", undefined, NAMES.basis, true);
-  put("Nominal discount rate", { formula: `(1+${NAMES.realRate})*(1+${NAMES.inflation})-1`, result: eco.nominalDiscountRate }, "per year", "(1 + d)(1 + I) - 1, NIST Handbook 135", PCT, NAMES.nominalRate);
-  put("Discount rate used", { formula: `IF(${NAMES.basis}="nominal",${NAMES.nominalRate},${NAMES.realRate})`, result: eco.discountRate }, "per year", "the rate every discount factor uses", PCT, NAMES.rate);
-  put("Study period", eco.studyPeriodYears, "years", "fixed by the analysis (one row per year)", "0", NAMES.period);
-  put("Base year (1 January = base date)", eco.baseYear, "", "year 0 of the cash-flow sheets", "0", NAMES.baseYear);
-  put("Discounting", eco.discounting === "midYear" ? "mid-year" : "end of year", "", eco.discounting === "midYear" ? "recurring costs at t - 0.5, events at t" : "every amount at the end of its year", undefined, NAMES.discounting);
+  put(
+    "Real discount rate",
+    eco.realDiscountRate,
+    "per year",
+    "Change me: the owner's own real rate",
+    PCT,
+    NAMES.realRate,
+    true,
+  );
+  put(
+    "General inflation",
+    eco.inflationRate,
+    "per year",
+    "Change me: used by a nominal analysis",
+    PCT,
+    NAMES.inflation,
+    true,
+  );
+  put(
+    "Analysis basis",
+    eco.analysis,
+    "real | nominal",
+    "Change me: real = constant dollars; nominal = then-current dollars (the yearly amounts stay as analysed)",
+    undefined,
+    NAMES.basis,
+    true,
+  );
+  put(
+    "Nominal discount rate",
+    { formula: `(1+${NAMES.realRate})*(1+${NAMES.inflation})-1`, result: eco.nominalDiscountRate },
+    "per year",
+    "(1 + d)(1 + I) - 1, NIST Handbook 135",
+    PCT,
+    NAMES.nominalRate,
+  );
+  put(
+    "Discount rate used",
+    {
+      formula: `IF(${NAMES.basis}="nominal",${NAMES.nominalRate},${NAMES.realRate})`,
+      result: eco.discountRate,
+    },
+    "per year",
+    "the rate every discount factor uses",
+    PCT,
+    NAMES.rate,
+  );
+  put(
+    "Study period",
+    eco.studyPeriodYears,
+    "years",
+    "fixed by the analysis (one row per year)",
+    "0",
+    NAMES.period,
+  );
+  put(
+    "Base year (1 January = base date)",
+    eco.baseYear,
+    "",
+    "year 0 of the cash-flow sheets",
+    "0",
+    NAMES.baseYear,
+  );
+  put(
+    "Discounting",
+    eco.discounting === "midYear" ? "mid-year" : "end of year",
+    "",
+    eco.discounting === "midYear"
+      ? "recurring costs at t - 0.5, events at t"
+      : "every amount at the end of its year",
+    undefined,
+    NAMES.discounting,
+  );
   r++;
   ws.getCell(`A${r}`).value = "Tariffs and prices (as analysed)";
   ws.getCell(`A${r}`).font = { bold: true, color: { argb: BASIN } };
@@ -145,12 +225,45 @@ function addInputsSheet(wb: ExcelJS.Workbook, src: ReportSource): void {
     if (v === undefined || !Number.isFinite(v)) return;
     put(label, v, unit, "", fmt, name);
   };
-  namedPrice("Electricity energy price (flat or mean)", e ? (e.pricing === "monthHour" && e.energyPricePerKWhByMonthHour?.length ? e.energyPricePerKWhByMonthHour.reduce((a, b) => a + b, 0) / e.energyPricePerKWhByMonthHour.length : e.energyPricePerKWh) : undefined, `${cur}/kWh`, "ElectricityPrice");
+  namedPrice(
+    "Electricity energy price (flat or mean)",
+    e
+      ? e.pricing === "monthHour" && e.energyPricePerKWhByMonthHour?.length
+        ? e.energyPricePerKWhByMonthHour.reduce((a, b) => a + b, 0) / e.energyPricePerKWhByMonthHour.length
+        : e.energyPricePerKWh
+      : undefined,
+    `${cur}/kWh`,
+    "ElectricityPrice",
+  );
   namedPrice("Demand charge", e?.demandChargePerKWMonth, `${cur}/kW per month`, "DemandCharge", "0.00");
-  namedPrice("Water price", t?.water ? convert("pricePerM3", t.water.pricePerM3, sys) : undefined, unitOf("pricePerM3", sys, cur), "WaterPrice", "0.00");
-  namedPrice("Sewer price", t?.sewer ? convert("pricePerM3", t.sewer.pricePerM3, sys) : undefined, unitOf("pricePerM3", sys, cur), "SewerPrice", "0.00");
-  namedPrice("Treatment chemicals per volume of blowdown + drift", t?.chemicals ? convert("pricePerM3", t.chemicals.costPerM3Outflow, sys) : undefined, unitOf("pricePerM3", sys, cur), "ChemicalsPrice", "0.00");
-  namedPrice("Water-management programme per wet loop", t?.waterManagementProgrammeCostPerYear, `${cur}/yr`, "WaterManagementCost", MONEY0);
+  namedPrice(
+    "Water price",
+    t?.water ? convert("pricePerM3", t.water.pricePerM3, sys) : undefined,
+    unitOf("pricePerM3", sys, cur),
+    "WaterPrice",
+    "0.00",
+  );
+  namedPrice(
+    "Sewer price",
+    t?.sewer ? convert("pricePerM3", t.sewer.pricePerM3, sys) : undefined,
+    unitOf("pricePerM3", sys, cur),
+    "SewerPrice",
+    "0.00",
+  );
+  namedPrice(
+    "Treatment chemicals per volume of blowdown + drift",
+    t?.chemicals ? convert("pricePerM3", t.chemicals.costPerM3Outflow, sys) : undefined,
+    unitOf("pricePerM3", sys, cur),
+    "ChemicalsPrice",
+    "0.00",
+  );
+  namedPrice(
+    "Water-management programme per wet loop",
+    t?.waterManagementProgrammeCostPerYear,
+    `${cur}/yr`,
+    "WaterManagementCost",
+    MONEY0,
+  );
   namedPrice("Maintenance labour rate", input.upkeep?.labourRatePerHour, `${cur}/h`, "LabourRate", "0.00");
   const esc = t?.escalation;
   if (esc) {
@@ -163,14 +276,26 @@ function addInputsSheet(wb: ExcelJS.Workbook, src: ReportSource): void {
       ["labour", "Labour"],
       ["replacements", "Replacements"],
     ] as const) {
-      put(`Real escalation: ${label.toLowerCase()}`, esc[k], "per year", "above general inflation", PCT, `Escalation${label}`);
+      put(
+        `Real escalation: ${label.toLowerCase()}`,
+        esc[k],
+        "per year",
+        "above general inflation",
+        PCT,
+        `Escalation${label}`,
+      );
     }
   }
   ws.views = [{ state: "frozen", ySplit: 1 }];
 }
 
 /** Split a mid-year upkeep amount A with present value P into its recurring (t − 0.5) and event (t) parts. */
-export function splitMidYear(amount: number, pv: number, d: number, t: number): { recurring: number; events: number } {
+export function splitMidYear(
+  amount: number,
+  pv: number,
+  d: number,
+  t: number,
+): { recurring: number; events: number } {
   const fEnd = Math.pow(1 + d, -t);
   const fMid = Math.pow(1 + d, -(t - 0.5));
   const recurring = Math.abs(fMid - fEnd) > 1e-15 ? (pv - amount * fEnd) / (fMid - fEnd) : amount;
@@ -196,15 +321,30 @@ function amountColumns(src: ReportSource): AmountColumn[] {
     if (c === "upkeep" && midYear) {
       const split = (o: OptionEconomics, i: number) => {
         const r = at(o, i);
-        return r && r.yearIndex > 0 ? splitMidYear(r.byCategory.upkeep, r.presentValueByCategory.upkeep, eco.discountRate, r.yearIndex) : { recurring: 0, events: r?.byCategory.upkeep ?? 0 };
+        return r && r.yearIndex > 0
+          ? splitMidYear(r.byCategory.upkeep, r.presentValueByCategory.upkeep, eco.discountRate, r.yearIndex)
+          : { recurring: 0, events: r?.byCategory.upkeep ?? 0 };
       };
-      const fEnd = (o: OptionEconomics, i: number) => Math.pow(1 + eco.discountRate, -(at(o, i)?.yearIndex ?? 0));
+      const fEnd = (o: OptionEconomics, i: number) =>
+        Math.pow(1 + eco.discountRate, -(at(o, i)?.yearIndex ?? 0));
       const fMid = (o: OptionEconomics, i: number) => {
         const t = at(o, i)?.yearIndex ?? 0;
         return t === 0 ? 1 : Math.pow(1 + eco.discountRate, -(t - 0.5));
       };
-      cols.push({ key: "upkeepRecurring", title: "Upkeep, yearly", mid: true, amount: (o, i) => split(o, i).recurring, pv: (o, i) => split(o, i).recurring * fMid(o, i) });
-      cols.push({ key: "upkeepEvents", title: "Upkeep, periodic events", mid: false, amount: (o, i) => split(o, i).events, pv: (o, i) => split(o, i).events * fEnd(o, i) });
+      cols.push({
+        key: "upkeepRecurring",
+        title: "Upkeep, yearly",
+        mid: true,
+        amount: (o, i) => split(o, i).recurring,
+        pv: (o, i) => split(o, i).recurring * fMid(o, i),
+      });
+      cols.push({
+        key: "upkeepEvents",
+        title: "Upkeep, periodic events",
+        mid: false,
+        amount: (o, i) => split(o, i).events,
+        pv: (o, i) => split(o, i).events * fEnd(o, i),
+      });
       continue;
     }
     cols.push({
@@ -218,7 +358,12 @@ function amountColumns(src: ReportSource): AmountColumn[] {
   return cols;
 }
 
-function addCashFlowSheet(wb: ExcelJS.Workbook, src: ReportSource, o: OptionEconomics, index: number): Layout {
+function addCashFlowSheet(
+  wb: ExcelJS.Workbook,
+  src: ReportSource,
+  o: OptionEconomics,
+  index: number,
+): Layout {
   const eco = src.result.economics;
   const cur = src.project.currency;
   const midYear = eco.discounting === "midYear";
@@ -244,7 +389,13 @@ function addCashFlowSheet(wb: ExcelJS.Workbook, src: ReportSource, o: OptionEcon
   const pvTotalCol = pvStart + amounts.length;
   const cumCol = pvTotalCol + 1;
 
-  const header: string[] = ["Study year t", "Calendar year", ...amounts.map((a) => `${a.title} (${cur})`), `Total (${cur})`, "Discount factor 1/(1+DiscountRate)^t"];
+  const header: string[] = [
+    "Study year t",
+    "Calendar year",
+    ...amounts.map((a) => `${a.title} (${cur})`),
+    `Total (${cur})`,
+    "Discount factor 1/(1+DiscountRate)^t",
+  ];
   if (midYear) header.push("Discount factor, mid-year 1/(1+DiscountRate)^(t-0.5)");
   header.push(...amounts.map((a) => `PV ${a.title} (${cur})`), `PV total (${cur})`, `Cumulative PV (${cur})`);
   const hr = ws.getRow(headerRow);
@@ -272,7 +423,10 @@ function addCashFlowSheet(wb: ExcelJS.Workbook, src: ReportSource, o: OptionEcon
     df.numFmt = FACTOR;
     if (midYear) {
       const dm = ws.getCell(r, dfMidCol);
-      dm.value = { formula: `IF(A${r}=0,1,1/(1+${NAMES.rate})^(A${r}-0.5))`, result: t === 0 ? 1 : Math.pow(1 + d, -(t - 0.5)) };
+      dm.value = {
+        formula: `IF(A${r}=0,1,1/(1+${NAMES.rate})^(A${r}-0.5))`,
+        result: t === 0 ? 1 : Math.pow(1 + d, -(t - 0.5)),
+      };
       dm.numFmt = FACTOR;
     }
     amounts.forEach((a, j) => {
@@ -285,28 +439,49 @@ function addCashFlowSheet(wb: ExcelJS.Workbook, src: ReportSource, o: OptionEcon
     pvt.value = { formula: `SUM(${col(pvStart)}${r}:${col(pvTotalCol - 1)}${r})`, result: cf.presentValue };
     pvt.numFmt = MONEY;
     const cum = ws.getCell(r, cumCol);
-    cum.value = { formula: i === 0 ? `${col(pvTotalCol)}${r}` : `${col(cumCol)}${r - 1}+${col(pvTotalCol)}${r}`, result: cf.cumulativePresentValue };
+    cum.value = {
+      formula: i === 0 ? `${col(pvTotalCol)}${r}` : `${col(cumCol)}${r - 1}+${col(pvTotalCol)}${r}`,
+      result: cf.cumulativePresentValue,
+    };
     cum.numFmt = MONEY;
   }
   // Totals: sums of every amount and present-value column; the PV total's sum is the option's LCC.
   const tr = ws.getRow(totalRow);
   ws.getCell(totalRow, 1).value = "Total";
-  const sumOf = (c: number, result: number) => ({ formula: `SUM(${col(c)}${first}:${col(c)}${last})`, result });
+  const sumOf = (c: number, result: number) => ({
+    formula: `SUM(${col(c)}${first}:${col(c)}${last})`,
+    result,
+  });
   amounts.forEach((a, j) => {
     const c = ws.getCell(totalRow, amountStart + j);
-    c.value = sumOf(amountStart + j, o.cashFlows.reduce((s, _, i) => s + a.amount(o, i), 0));
+    c.value = sumOf(
+      amountStart + j,
+      o.cashFlows.reduce((s, _, i) => s + a.amount(o, i), 0),
+    );
     c.numFmt = MONEY;
     const p = ws.getCell(totalRow, pvStart + j);
-    p.value = sumOf(pvStart + j, o.cashFlows.reduce((s, _, i) => s + a.pv(o, i), 0));
+    p.value = sumOf(
+      pvStart + j,
+      o.cashFlows.reduce((s, _, i) => s + a.pv(o, i), 0),
+    );
     p.numFmt = MONEY;
   });
-  ws.getCell(totalRow, totalCol).value = sumOf(totalCol, o.cashFlows.reduce((s, c) => s + c.total, 0));
+  ws.getCell(totalRow, totalCol).value = sumOf(
+    totalCol,
+    o.cashFlows.reduce((s, c) => s + c.total, 0),
+  );
   ws.getCell(totalRow, totalCol).numFmt = MONEY;
   const lcc = ws.getCell(totalRow, pvTotalCol);
   lcc.value = sumOf(pvTotalCol, o.lcc);
   lcc.numFmt = MONEY;
   tr.font = { bold: true };
-  tr.eachCell((c) => (c.border = { top: { style: "thin", color: { argb: INK } }, bottom: { style: "double", color: { argb: INK } } }));
+  tr.eachCell(
+    (c) =>
+      (c.border = {
+        top: { style: "thin", color: { argb: INK } },
+        bottom: { style: "double", color: { argb: INK } },
+      }),
+  );
 
   const lccRow = totalRow + 2;
   ws.getCell(lccRow, 1).value = `Life-cycle cost, present value (${cur})`;
@@ -336,7 +511,10 @@ function addSummarySheet(wb: ExcelJS.Workbook, src: ReportSource, lccNames: stri
   const ws = wb.addWorksheet("Summary", { properties: { tabColor: { argb: INK } } });
   titleCell(ws, "A1", "Life-cycle cost summary");
   ws.getCell("A2").value = neutraliseText(`${src.project.name} | ${src.scenarioName} | ${src.versionLabel}`);
-  const baseIndex = Math.max(0, eco.options.findIndex((o) => o.optionId === eco.baseOptionId));
+  const baseIndex = Math.max(
+    0,
+    eco.options.findIndex((o) => o.optionId === eco.baseOptionId),
+  );
   const baseName = lccNames[baseIndex] ?? lccName(0);
   const hr = ws.getRow(4);
   hr.values = [
@@ -357,7 +535,10 @@ function addSummarySheet(wb: ExcelJS.Workbook, src: ReportSource, lccNames: stri
     ws.getCell(r, 1).value = neutraliseText(`${o.label}${i === baseIndex ? " (base)" : ""}`);
     ws.getCell(r, 2).value = o.firstCost;
     ws.getCell(r, 3).value = { formula: name, result: o.lcc };
-    ws.getCell(r, 4).value = { formula: `C${r}*${NAMES.rate}/(1-(1+${NAMES.rate})^(-${NAMES.period}))`, result: o.annualisedCost };
+    ws.getCell(r, 4).value = {
+      formula: `C${r}*${NAMES.rate}/(1-(1+${NAMES.rate})^(-${NAMES.period}))`,
+      result: o.annualisedCost,
+    };
     ws.getCell(r, 5).value = { formula: `${baseName}-${name}`, result: base.lcc - o.lcc };
     ws.getCell(r, 6).value = o.lcc;
     ws.getCell(r, 7).value = { formula: `C${r}-F${r}`, result: 0 };
@@ -376,7 +557,14 @@ function addSummarySheet(wb: ExcelJS.Workbook, src: ReportSource, lccNames: stri
   ws.getCell(`A${r}`).font = { bold: true, color: { argb: BASIN } };
   r++;
   const mh = ws.getRow(r);
-  mh.values = ["Alternative vs base", `Net savings (${cur})`, "SIR", "AIRR", "Simple payback (years)", "Discounted payback (years)"];
+  mh.values = [
+    "Alternative vs base",
+    `Net savings (${cur})`,
+    "SIR",
+    "AIRR",
+    "Simple payback (years)",
+    "Discounted payback (years)",
+  ];
   headerStyle(mh);
   for (const c of eco.comparisons) {
     r++;
@@ -407,7 +595,11 @@ export async function buildWorkbook(src: ReportSource): Promise<Buffer> {
   wb.calcProperties = { fullCalcOnLoad: true };
   addInputsSheet(wb, src);
   // The summary refers to the cash-flow sheets by defined name only, so it can come before them.
-  addSummarySheet(wb, src, src.result.economics.options.map((_, i) => lccName(i)));
+  addSummarySheet(
+    wb,
+    src,
+    src.result.economics.options.map((_, i) => lccName(i)),
+  );
   src.result.economics.options.forEach((o, i) => addCashFlowSheet(wb, src, o, i));
   const out = await wb.xlsx.writeBuffer();
   return Buffer.from(out as ArrayBuffer);

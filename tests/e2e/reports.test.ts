@@ -47,7 +47,11 @@ async function signedIn(email: string, password: string): Promise<BrowserContext
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  const project = await db.selectFrom("projects").select(["id", "firm_id"]).where("name", "like", "Harrowgate Flats%").executeTakeFirstOrThrow();
+  const project = await db
+    .selectFrom("projects")
+    .select(["id", "firm_id"])
+    .where("name", "like", "Harrowgate Flats%")
+    .executeTakeFirstOrThrow();
   // The seed's issued demo scenario (W2's seed issues version 1).
   const v = await db
     .selectFrom("scenario_versions")
@@ -57,16 +61,25 @@ beforeAll(async () => {
     .executeTakeFirst();
   if (!v) throw new Error("The demo seed has no issued version: run the seed (db/seed.ts) first.");
   scenarioId = v.scenario_id;
-  const result = (typeof v.result === "string" ? JSON.parse(v.result) : v.result) as { economics: { options: { label: string; lcc: number }[] } };
+  const result = (typeof v.result === "string" ? JSON.parse(v.result) : v.result) as {
+    economics: { options: { label: string; lcc: number }[] };
+  };
   versionLcc = result.economics.options.map((o) => ({ label: o.label, lcc: o.lcc }));
   // A consultant of another firm, who must not learn the scenario exists.
-  const firm = await db.insertInto("firms").values({ name: `Elsewhere Engineering (report test ${Date.now()})` }).returning("id").executeTakeFirstOrThrow();
+  const firm = await db
+    .insertInto("firms")
+    .values({ name: `Elsewhere Engineering (report test ${Date.now()})` })
+    .returning("id")
+    .executeTakeFirstOrThrow();
   const user = await db
     .insertInto("users")
     .values({ email: rivalEmail, name: "Rhea Rival", password_hash: await hashPassword(rivalPassword) })
     .returning("id")
     .executeTakeFirstOrThrow();
-  await db.insertInto("firm_members").values({ firm_id: firm.id, user_id: user.id, role: "consultant" }).execute();
+  await db
+    .insertInto("firm_members")
+    .values({ firm_id: firm.id, user_id: user.id, role: "consultant" })
+    .execute();
 });
 
 afterAll(async () => {
@@ -78,25 +91,44 @@ describe("report downloads", () => {
   it("finance downloads the PDF of the issued version; an unrelated request is not held up meanwhile", async () => {
     const ctx = await signedIn(DEMO_ACCOUNTS.finance.email, DEMO_PASSWORD);
     const before = await auditCount();
+    // Baseline: how long the sign-in page takes with nothing else running.
+    const baseline: number[] = [];
+    for (let i = 0; i < 5; i++) {
+      const b0 = performance.now();
+      await (await fetch(`${BASE_URL}/signin`)).text();
+      baseline.push(performance.now() - b0);
+    }
     const t0 = performance.now();
-    const pdfReq = ctx.request.get(`/api/scenarios/${scenarioId}/report`, { timeout: 120_000 });
-    // While the PDF renders, time a cheap request to the same server (the sign-in page).
-    await new Promise((r) => setTimeout(r, 150));
-    const p0 = performance.now();
-    const ping = await fetch(`${BASE_URL}/signin`);
-    const pingMs = performance.now() - p0;
-    expect(ping.status).toBe(200);
+    let done = false;
+    const pdfReq = ctx.request
+      .get(`/api/scenarios/${scenarioId}/report`, { timeout: 120_000 })
+      .finally(() => (done = true));
+    // While the PDF renders, keep timing the cheap request (bounded: at most 200 requests).
+    const during: number[] = [];
+    for (let i = 0; i < 200 && !done; i++) {
+      const p0 = performance.now();
+      const ping = await fetch(`${BASE_URL}/signin`);
+      await ping.text();
+      expect(ping.status).toBe(200);
+      during.push(performance.now() - p0);
+      await new Promise((r) => setTimeout(r, 50));
+    }
+    const pingMs = Math.max(0, ...during);
     const res = await pdfReq;
     const pdfMs = performance.now() - t0;
     expect(res.status()).toBe(200);
     const h = res.headers();
     expect(h["content-type"]).toBe("application/pdf");
     expect(h["cache-control"]).toBe("private, no-store");
-    expect(h["content-disposition"]).toMatch(/^attachment; filename="harrowgate-flats-cold-store[a-z0-9.-]*_[a-z0-9.-]+_v1_report_\d{4}-\d{2}-\d{2}\.pdf"/);
+    expect(h["content-disposition"]).toMatch(
+      /^attachment; filename="harrowgate-flats-cold-store[a-z0-9.-]*_[a-z0-9.-]+_v1_report_\d{4}-\d{2}-\d{2}\.pdf"/,
+    );
     const body = await res.body();
     expect(body.subarray(0, 5).toString()).toBe("%PDF-");
     writeFileSync(path.join(OUT, "e2e-finance-report.pdf"), body);
-    const text = execFileSync("pdftotext", [path.join(OUT, "e2e-finance-report.pdf"), "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
+    const text = execFileSync("pdftotext", [path.join(OUT, "e2e-finance-report.pdf"), "-"], {
+      encoding: "utf8",
+    }).replace(/\s+/g, " ");
     // The issued version's LCCs, formatted as the report formats them.
     for (const o of versionLcc) expect(text.includes(fmtMoney(o.lcc, "USD"))).toBe(true);
     expect(text).toContain("Version 1");
@@ -109,7 +141,11 @@ describe("report downloads", () => {
       .orderBy("at", "desc")
       .executeTakeFirstOrThrow();
     expect((audit.detail as { format: string }).format).toBe("pdf");
-    console.log(`[report e2e] PDF ${body.length} bytes in ${pdfMs.toFixed(0)} ms; /signin answered in ${pingMs.toFixed(0)} ms while it rendered`);
+    const med = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] ?? NaN;
+    console.log(
+      `[report e2e] PDF ${body.length} bytes in ${pdfMs.toFixed(0)} ms; /signin alone: median ${med(baseline).toFixed(0)} ms; ` +
+        `during the render: ${during.length} requests, median ${med(during).toFixed(0)} ms, slowest ${pingMs.toFixed(0)} ms`,
+    );
     // A second PDF: the worker is warm now.
     const t1 = performance.now();
     const again = await ctx.request.get(`/api/scenarios/${scenarioId}/report`, { timeout: 120_000 });
@@ -125,8 +161,12 @@ describe("report downloads", () => {
     const res = await ctx.request.get(`/api/scenarios/${scenarioId}/workbook`);
     const ms = performance.now() - t0;
     expect(res.status()).toBe(200);
-    expect(res.headers()["content-type"]).toBe("application/vnd.openxmlformats-officedocument.spreadsheetml.sheet");
-    expect(res.headers()["content-disposition"]).toMatch(/filename="[a-z0-9._-]+_v1_cash-flows_\d{4}-\d{2}-\d{2}\.xlsx"/);
+    expect(res.headers()["content-type"]).toBe(
+      "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet",
+    );
+    expect(res.headers()["content-disposition"]).toMatch(
+      /filename="[a-z0-9._-]+_v1_cash-flows_\d{4}-\d{2}-\d{2}\.xlsx"/,
+    );
     const buf = await res.body();
     writeFileSync(path.join(OUT, "e2e-finance-workbook.xlsx"), buf);
     const wb = new ExcelJS.Workbook();

@@ -32,9 +32,31 @@ export function niceTicks(min: number, max: number, target = 5): number[] {
   return out;
 }
 
-function Label({ x, y, text, anchor = "start", color = LABEL, size = 6.5, weight }: { x: number; y: number; text: string; anchor?: "start" | "middle" | "end"; color?: string; size?: number; weight?: number }) {
+function Label({
+  x,
+  y,
+  text,
+  anchor = "start",
+  color = LABEL,
+  size = 6.5,
+  weight,
+}: {
+  x: number;
+  y: number;
+  text: string;
+  anchor?: "start" | "middle" | "end";
+  color?: string;
+  size?: number;
+  weight?: number;
+}) {
   return (
-    <SvgText x={x} y={y} fill={color} textAnchor={anchor} style={{ ...FONT, fontSize: size, ...(weight ? { fontWeight: weight } : {}) } as never}>
+    <SvgText
+      x={x}
+      y={y}
+      fill={color}
+      textAnchor={anchor}
+      style={{ ...FONT, fontSize: size, ...(weight ? { fontWeight: weight } : {}) } as never}
+    >
       {pdfText(text)}
     </SvgText>
   );
@@ -49,7 +71,10 @@ export function Legend({ items }: { items: LegendItem[] }) {
   return (
     <View style={{ flexDirection: "row", flexWrap: "wrap", marginTop: 3 }}>
       {items.map((it, i) => (
-        <View key={i} style={{ flexDirection: "row", alignItems: "center", marginRight: 10, marginBottom: 2 }}>
+        <View
+          key={i}
+          style={{ flexDirection: "row", alignItems: "center", marginRight: 10, marginBottom: 2 }}
+        >
           <View style={{ width: 7, height: 7, backgroundColor: it.color, marginRight: 3 }} />
           <T style={{ fontSize: 7, color: LABEL }}>{it.label}</T>
         </View>
@@ -58,7 +83,15 @@ export function Legend({ items }: { items: LegendItem[] }) {
   );
 }
 
-export function ChartFrame({ title, subtitle, children }: { title: string; subtitle?: string; children: React.ReactNode }) {
+export function ChartFrame({
+  title,
+  subtitle,
+  children,
+}: {
+  title: string;
+  subtitle?: string;
+  children: React.ReactNode;
+}) {
   return (
     <View wrap={false} style={{ marginBottom: 10 }}>
       <T style={{ fontSize: 9, fontWeight: 600, color: COLORS.ink }}>{title}</T>
@@ -89,14 +122,20 @@ export function CostStackChart({
   width?: number;
 }) {
   // Labels sit above their bar so long option names never crowd the plot.
-  const left = 4;
+  const left = 22;
   const totalW = 44;
   const rowH = 30;
   const barH = 14;
   const top = 2;
   const height = top + bars.length * rowH + 14;
-  const neg = Math.min(0, ...bars.map((b) => b.segments.filter((s) => s.value < 0).reduce((a, s) => a + s.value, 0)));
-  const pos = Math.max(0, ...bars.map((b) => b.segments.filter((s) => s.value > 0).reduce((a, s) => a + s.value, 0)));
+  const neg = Math.min(
+    0,
+    ...bars.map((b) => b.segments.filter((s) => s.value < 0).reduce((a, s) => a + s.value, 0)),
+  );
+  const pos = Math.max(
+    0,
+    ...bars.map((b) => b.segments.filter((s) => s.value > 0).reduce((a, s) => a + s.value, 0)),
+  );
   const ticks = niceTicks(neg, pos, 6);
   const lo = ticks[0] ?? 0;
   const hi = ticks[ticks.length - 1] ?? 1;
@@ -107,7 +146,14 @@ export function CostStackChart({
     <Svg width={width} height={height} viewBox={`0 0 ${width} ${height}`}>
       {ticks.map((t, i) => (
         <G key={i}>
-          <Line x1={x(t)} y1={top} x2={x(t)} y2={axisY} stroke={t === 0 ? AXIS : GRID} strokeWidth={t === 0 ? 0.8 : 0.5} />
+          <Line
+            x1={x(t)}
+            y1={top}
+            x2={x(t)}
+            y2={axisY}
+            stroke={t === 0 ? AXIS : GRID}
+            strokeWidth={t === 0 ? 0.8 : 0.5}
+          />
           <Label x={x(t)} y={axisY + 9} text={fmtMoneyShort(t, currency)} anchor="middle" />
         </G>
       ))}
@@ -132,9 +178,26 @@ export function CostStackChart({
                 leftEdge += s.value;
                 x0 = x(leftEdge);
               }
-              return <Rect key={j} x={x0} y={y} width={Math.max(0.3, x1 - x0)} height={barH} fill={colors[s.key] ?? COLORS.inkFaint} />;
+              return (
+                <Rect
+                  key={j}
+                  x={x0}
+                  y={y}
+                  width={Math.max(0.3, x1 - x0)}
+                  height={barH}
+                  fill={colors[s.key] ?? COLORS.inkFaint}
+                />
+              );
             })}
-            <Label x={width - 2} y={y + barH / 2 + 2.3} text={fmtMoneyShort(b.total, currency)} anchor="end" color={COLORS.ink} size={7.5} weight={600} />
+            <Label
+              x={width - 2}
+              y={y + barH / 2 + 2.3}
+              text={fmtMoneyShort(b.total, currency)}
+              anchor="end"
+              color={COLORS.ink}
+              size={7.5}
+              weight={600}
+            />
           </G>
         );
       })}
@@ -176,7 +239,14 @@ export function LineChart({
     <Svg width={width} height={height} viewBox={`0 0 ${width} ${height}`}>
       {yTicks.map((t, i) => (
         <G key={i}>
-          <Line x1={left} y1={py(t)} x2={width - right} y2={py(t)} stroke={t === 0 ? AXIS : GRID} strokeWidth={0.5} />
+          <Line
+            x1={left}
+            y1={py(t)}
+            x2={width - right}
+            y2={py(t)}
+            stroke={t === 0 ? AXIS : GRID}
+            strokeWidth={0.5}
+          />
           <Label x={left - 4} y={py(t) + 2.2} text={fmtMoneyShort(t, currency)} anchor="end" />
         </G>
       ))}
@@ -185,7 +255,9 @@ export function LineChart({
       ))}
       <Label x={(left + width - right) / 2} y={height - 3} text={xLabel} anchor="middle" />
       {series.map((s, i) => {
-        const d = s.points.map((p, j) => `${j === 0 ? "M" : "L"}${px(p[0]).toFixed(2)},${py(p[1]).toFixed(2)}`).join(" ");
+        const d = s.points
+          .map((p, j) => `${j === 0 ? "M" : "L"}${px(p[0]).toFixed(2)},${py(p[1]).toFixed(2)}`)
+          .join(" ");
         return <Path key={i} d={d} stroke={s.color} strokeWidth={1.4} fill="none" />;
       })}
     </Svg>
@@ -224,8 +296,20 @@ export function MonthlyBarsChart({
     <Svg width={width} height={height} viewBox={`0 0 ${width} ${height}`}>
       {ticks.map((t, i) => (
         <G key={i}>
-          <Line x1={left} y1={py(t)} x2={width - right} y2={py(t)} stroke={t === 0 ? AXIS : GRID} strokeWidth={0.5} />
-          <Label x={left - 4} y={py(t) + 2.2} text={fmtNumber(t, t < 10 && t % 1 !== 0 ? 1 : 0)} anchor="end" />
+          <Line
+            x1={left}
+            y1={py(t)}
+            x2={width - right}
+            y2={py(t)}
+            stroke={t === 0 ? AXIS : GRID}
+            strokeWidth={0.5}
+          />
+          <Label
+            x={left - 4}
+            y={py(t) + 2.2}
+            text={fmtNumber(t, t < 10 && t % 1 !== 0 ? 1 : 0)}
+            anchor="end"
+          />
         </G>
       ))}
       <Label x={4} y={top + 2} text={unit} />
@@ -235,7 +319,16 @@ export function MonthlyBarsChart({
           <G key={i}>
             {series.map((s, j) => {
               const v = s.values[i] ?? 0;
-              return <Rect key={j} x={gx + j * barW} y={py(v)} width={barW - 0.8} height={Math.max(0, py(0) - py(v))} fill={s.color} />;
+              return (
+                <Rect
+                  key={j}
+                  x={gx + j * barW}
+                  y={py(v)}
+                  width={barW - 0.8}
+                  height={Math.max(0, py(0) - py(v))}
+                  fill={s.color}
+                />
+              );
             })}
             <Label x={left + i * groupW + groupW / 2} y={height - 5} text={m} anchor="middle" />
           </G>
@@ -275,11 +368,26 @@ export function TornadoChart({
     <Svg width={width} height={height} viewBox={`0 0 ${width} ${height}`}>
       {ticks.map((t, i) => (
         <G key={i}>
-          <Line x1={x(t)} y1={top} x2={x(t)} y2={axisY} stroke={t === 0 ? COLORS.ink : GRID} strokeWidth={t === 0 ? 0.8 : 0.5} />
+          <Line
+            x1={x(t)}
+            y1={top}
+            x2={x(t)}
+            y2={axisY}
+            stroke={t === 0 ? COLORS.ink : GRID}
+            strokeWidth={t === 0 ? 0.8 : 0.5}
+          />
           <Label x={x(t)} y={axisY + 9} text={fmtMoneyShort(t, currency)} anchor="middle" />
         </G>
       ))}
-      <Line x1={x(base)} y1={top - 2} x2={x(base)} y2={axisY} stroke={COLORS.copper700} strokeWidth={0.8} strokeDasharray="2,1.5" />
+      <Line
+        x1={x(base)}
+        y1={top - 2}
+        x2={x(base)}
+        y2={axisY}
+        stroke={COLORS.copper700}
+        strokeWidth={0.8}
+        strokeDasharray="2,1.5"
+      />
       {bars.map((b, i) => {
         const y = top + i * rowH + 3;
         const h = rowH - 6;
@@ -289,7 +397,14 @@ export function TornadoChart({
         ];
         return (
           <G key={i}>
-            <Label x={labelW - 6} y={y + h / 2 + 2.3} text={b.label} anchor="end" color={COLORS.ink} size={6.8} />
+            <Label
+              x={labelW - 6}
+              y={y + h / 2 + 2.3}
+              text={b.label}
+              anchor="end"
+              color={COLORS.ink}
+              size={6.8}
+            />
             {segs.map(([v, color, txt], j) => {
               const x0 = Math.min(x(v), x(base));
               const w = Math.abs(x(v) - x(base));
@@ -297,14 +412,25 @@ export function TornadoChart({
               return (
                 <G key={j}>
                   <Rect x={x0} y={y} width={Math.max(0.4, w)} height={h} fill={color} />
-                  <Label x={outside} y={y + h / 2 + 2.2} text={txt} anchor={v < base ? "end" : "start"} size={5.8} />
+                  <Label
+                    x={outside}
+                    y={y + h / 2 + 2.2}
+                    text={txt}
+                    anchor={v < base ? "end" : "start"}
+                    size={5.8}
+                  />
                 </G>
               );
             })}
           </G>
         );
       })}
-      <Label x={width - right} y={height - 2} text="net savings of the alternative over the base" anchor="end" />
+      <Label
+        x={width - right}
+        y={height - 2}
+        text="net savings of the alternative over the base"
+        anchor="end"
+      />
     </Svg>
   );
 }
@@ -350,19 +476,47 @@ export function HistogramChart({
         </G>
       ))}
       {bins.map((b, i) => (
-        <Rect key={i} x={px(b.from)} y={py(b.count)} width={Math.max(0.3, px(b.to) - px(b.from) - 0.6)} height={py(0) - py(b.count)} fill={b.to <= 0 ? COLORS.copper400 : COLORS.basin500} />
+        <Rect
+          key={i}
+          x={px(b.from)}
+          y={py(b.count)}
+          width={Math.max(0.3, px(b.to) - px(b.from) - 0.6)}
+          height={py(0) - py(b.count)}
+          fill={b.to <= 0 ? COLORS.copper400 : COLORS.basin500}
+        />
       ))}
       <Line x1={px(0)} y1={top - 4} x2={px(0)} y2={py(0)} stroke={COLORS.ink} strokeWidth={0.8} />
       {markers.map((m, i) => (
         <G key={i}>
-          <Line x1={px(m.value)} y1={top - 2} x2={px(m.value)} y2={py(0)} stroke={COLORS.basin900} strokeWidth={0.7} strokeDasharray="2,1.5" />
-          <Label x={px(m.value)} y={top - 5 + (i % 2) * 0} text={m.label} anchor="middle" color={COLORS.basin900} size={6} weight={600} />
+          <Line
+            x1={px(m.value)}
+            y1={top - 2}
+            x2={px(m.value)}
+            y2={py(0)}
+            stroke={COLORS.basin900}
+            strokeWidth={0.7}
+            strokeDasharray="2,1.5"
+          />
+          <Label
+            x={px(m.value)}
+            y={top - 5 + (i % 2) * 0}
+            text={m.label}
+            anchor="middle"
+            color={COLORS.basin900}
+            size={6}
+            weight={600}
+          />
         </G>
       ))}
       {xt.map((t, i) => (
         <Label key={i} x={px(t)} y={height - bottom + 10} text={fmtMoneyShort(t, currency)} anchor="middle" />
       ))}
-      <Label x={(left + width - right) / 2} y={height - 3} text="net savings of the alternative over the base (draws per bin on the left)" anchor="middle" />
+      <Label
+        x={(left + width - right) / 2}
+        y={height - 3}
+        text="net savings of the alternative over the base (draws per bin on the left)"
+        anchor="middle"
+      />
     </Svg>
   );
 }

@@ -4,14 +4,34 @@
  * same stored input + result the comparison page shows, in the viewer's unit system.
  */
 import { Document, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
-import { COST_CATEGORIES, COST_CATEGORY_LABELS, type CostCategory, type OptionEconomics, type YearCashFlow } from "@/lib/engine/economics/types";
+import {
+  COST_CATEGORIES,
+  COST_CATEGORY_LABELS,
+  type CostCategory,
+  type OptionEconomics,
+  type YearCashFlow,
+} from "@/lib/engine/economics/types";
 import type { OptionAnnualPhysics } from "@/lib/engine/types";
 import { buildAssumptions } from "../assumptions";
 import { fmtDate, fmtMoney, fmtNumber, fmtPercent, fmtRatio, fmtYears } from "../format";
-import { buildSummary, labelOf, tornadoValueText, type OptionSummaryRow, type ReportSummary } from "../summary";
+import {
+  buildSummary,
+  labelOf,
+  tornadoValueText,
+  type OptionSummaryRow,
+  type ReportSummary,
+} from "../summary";
 import type { ReportSource } from "../types";
 import { convert, unitOf } from "../units";
-import { CostStackChart, ChartFrame, HistogramChart, Legend, LineChart, MonthlyBarsChart, TornadoChart } from "./charts";
+import {
+  CostStackChart,
+  ChartFrame,
+  HistogramChart,
+  Legend,
+  LineChart,
+  MonthlyBarsChart,
+  TornadoChart,
+} from "./charts";
 import { METHODS, REFERENCES, cautionsFor, SCREENING_NOTE } from "./text";
 import { Facts, H1, H2, H3, Note, P, T, Table, type Column } from "./primitives";
 import { COLORS, OPTION_COLORS, S } from "./theme";
@@ -32,21 +52,42 @@ function Chrome({ source }: { source: ReportSource }) {
   return (
     <>
       <View style={S.header} fixed>
-        <T style={{ fontWeight: 600, color: COLORS.basin700 }}>{`LoopLedger  ·  ${source.preparedBy.firmName}`}</T>
+        <T
+          style={{ fontWeight: 600, color: COLORS.basin700 }}
+        >{`LoopLedger  ·  ${source.preparedBy.firmName}`}</T>
         <T>{`${source.scenarioName}  ·  ${source.versionLabel}`}</T>
       </View>
       <View style={S.footerRule} fixed />
       <T style={S.footerLeft} fixed>{`${source.project.name}  ·  screening estimate, see cautions`}</T>
-      <Text style={S.footerRight} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+      <Text
+        style={S.footerRight}
+        fixed
+        render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`}
+      />
     </>
   );
 }
 
 /** One wrapped page run with the running header and footer. Sections get their own run: react-pdf lays out
  * the remaining content of a run again for every page it breaks, so short runs render much faster. */
-function Sheet({ source, size, children, landscape }: { source: ReportSource; size: "A4" | "LETTER"; children: React.ReactNode; landscape?: boolean }) {
+function Sheet({
+  source,
+  size,
+  children,
+  landscape,
+}: {
+  source: ReportSource;
+  size: "A4" | "LETTER";
+  children: React.ReactNode;
+  landscape?: boolean;
+}) {
   return (
-    <Page size={size} orientation={landscape ? "landscape" : "portrait"} style={landscape ? [S.page, { paddingHorizontal: 36 }] : S.page} wrap>
+    <Page
+      size={size}
+      orientation={landscape ? "landscape" : "portrait"}
+      style={landscape ? [S.page, { paddingHorizontal: 36 }] : S.page}
+      wrap
+    >
       <Chrome source={source} />
       {children}
     </Page>
@@ -57,25 +98,59 @@ function Mark({ size = 30 }: { size?: number }) {
   return (
     <Svg width={size} height={size} viewBox="0 0 24 24">
       <Rect x={2.5} y={5} width={19} height={14} rx={7} fill="none" stroke="#ffffff" strokeWidth={2.2} />
-      <Path d="M12 8.2c1.9 2.4 2.8 3.9 2.8 5a2.8 2.8 0 0 1-5.6 0c0-1.1.9-2.6 2.8-5z" fill={COLORS.copper400} />
+      <Path
+        d="M12 8.2c1.9 2.4 2.8 3.9 2.8 5a2.8 2.8 0 0 1-5.6 0c0-1.1.9-2.6 2.8-5z"
+        fill={COLORS.copper400}
+      />
     </Svg>
   );
 }
 
-function Cover({ source, summary, size }: { source: ReportSource; summary: ReportSummary; size: "A4" | "LETTER" }) {
-  const dateLine = source.issuedAt ? `Issued ${fmtDate(source.issuedAt)}` : `Draft generated ${fmtDate(new Date())}`;
+function Cover({
+  source,
+  summary,
+  size,
+}: {
+  source: ReportSource;
+  summary: ReportSummary;
+  size: "A4" | "LETTER";
+}) {
+  const dateLine = source.issuedAt
+    ? `Issued ${fmtDate(source.issuedAt)}`
+    : `Draft generated ${fmtDate(new Date())}`;
   const p = source.project;
   return (
-    <Page size={size} wrap={false} style={{ fontFamily: "Plex Sans", fontSize: 9, color: COLORS.ink, flexDirection: "column" }}>
-      <View style={{ backgroundColor: COLORS.basin700, paddingHorizontal: 48, paddingTop: 40, paddingBottom: 30 }}>
+    <Page
+      size={size}
+      wrap={false}
+      style={{ fontFamily: "Plex Sans", fontSize: 9, color: COLORS.ink, flexDirection: "column" }}
+    >
+      <View
+        style={{ backgroundColor: COLORS.basin700, paddingHorizontal: 48, paddingTop: 40, paddingBottom: 30 }}
+      >
         <View style={{ flexDirection: "row", alignItems: "center", marginBottom: 36 }}>
           <Mark />
           <T style={{ color: "#ffffff", fontSize: 14, fontWeight: 600, marginLeft: 8 }}>LoopLedger</T>
           <T style={{ color: COLORS.basin100, fontSize: 8, marginLeft: 12 }}>{source.preparedBy.firmName}</T>
         </View>
-        <T style={{ color: COLORS.copper100, fontSize: 8.5, fontWeight: 600, letterSpacing: 1.5, textTransform: "uppercase" }}>Life-cycle cost report</T>
-        <T style={{ color: "#ffffff", fontSize: 24, fontWeight: 600, marginTop: 6, lineHeight: 1.2 }}>{p.name}</T>
-        <T style={{ color: COLORS.basin100, fontSize: 11, marginTop: 8 }}>Condenser heat rejection: open cooling tower and closed-circuit cooler options compared over their life</T>
+        <T
+          style={{
+            color: COLORS.copper100,
+            fontSize: 8.5,
+            fontWeight: 600,
+            letterSpacing: 1.5,
+            textTransform: "uppercase",
+          }}
+        >
+          Life-cycle cost report
+        </T>
+        <T style={{ color: "#ffffff", fontSize: 24, fontWeight: 600, marginTop: 6, lineHeight: 1.2 }}>
+          {p.name}
+        </T>
+        <T style={{ color: COLORS.basin100, fontSize: 11, marginTop: 8 }}>
+          Condenser heat rejection: open cooling tower and closed-circuit cooler options compared over their
+          life
+        </T>
       </View>
       <View style={{ height: 4, backgroundColor: COLORS.copper500 }} />
       <View style={{ paddingHorizontal: 48, paddingTop: 24, flexGrow: 1 }}>
@@ -84,19 +159,51 @@ function Cover({ source, summary, size }: { source: ReportSource; summary: Repor
           items={[
             ["Client", p.clientName],
             ["Site", p.siteName],
-            ["Location", `${p.locationLabel}${p.locationLabel ? ", " : ""}elevation ${fmtNumber(convert("elevationM", p.elevationM, source.unitSystem), 0)} ${unitOf("elevationM", source.unitSystem)}`],
+            [
+              "Location",
+              `${p.locationLabel}${p.locationLabel ? ", " : ""}elevation ${fmtNumber(convert("elevationM", p.elevationM, source.unitSystem), 0)} ${unitOf("elevationM", source.unitSystem)}`,
+            ],
             ["Scenario", source.scenarioName],
             ["Version", source.versionLabel],
             ["Date", dateLine],
-            ["Prepared by", `${source.preparedBy.firmName}${source.preparedBy.consultantName ? `, ${source.preparedBy.consultantName}` : ""}`],
+            [
+              "Prepared by",
+              `${source.preparedBy.firmName}${source.preparedBy.consultantName ? `, ${source.preparedBy.consultantName}` : ""}`,
+            ],
             ["Prepared for", p.clientName],
-            ["Units", source.unitSystem === "IP" ? "US customary (IP); money in " + p.currency : "SI; money in " + p.currency],
+            [
+              "Units",
+              source.unitSystem === "IP"
+                ? "US customary (IP); money in " + p.currency
+                : "SI; money in " + p.currency,
+            ],
           ]}
         />
-        <View style={{ marginTop: 22, padding: 12, borderWidth: 0.75, borderColor: COLORS.basin300, backgroundColor: COLORS.basin50 }}>
-          <T style={{ fontSize: 7.5, fontWeight: 600, color: COLORS.basin700, letterSpacing: 1, textTransform: "uppercase", marginBottom: 3 }}>In one line</T>
+        <View
+          style={{
+            marginTop: 22,
+            padding: 12,
+            borderWidth: 0.75,
+            borderColor: COLORS.basin300,
+            backgroundColor: COLORS.basin50,
+          }}
+        >
+          <T
+            style={{
+              fontSize: 7.5,
+              fontWeight: 600,
+              color: COLORS.basin700,
+              letterSpacing: 1,
+              textTransform: "uppercase",
+              marginBottom: 3,
+            }}
+          >
+            In one line
+          </T>
           <T style={{ fontSize: 12, fontWeight: 600, color: COLORS.basin900 }}>{summary.headline}</T>
-          {summary.paragraphs[0] ? <T style={{ marginTop: 4, fontSize: 9 }}>{summary.paragraphs[0]}</T> : null}
+          {summary.paragraphs[0] ? (
+            <T style={{ marginTop: 4, fontSize: 9 }}>{summary.paragraphs[0]}</T>
+          ) : null}
         </View>
       </View>
       <View style={{ paddingHorizontal: 48, paddingBottom: 34 }}>
@@ -111,14 +218,64 @@ function Cover({ source, summary, size }: { source: ReportSource; summary: Repor
 
 function summaryColumns(currency: string): Column<OptionSummaryRow>[] {
   return [
-    { title: "Option", width: 2.3, cell: (r) => `${r.label}${r.isBase ? " (base)" : ""}`, emphasis: (r) => r.isLowest },
-    { title: "First cost", unit: currency, width: 1.2, align: "right", cell: (r) => fmtMoney(r.firstCost, currency) },
-    { title: "Life-cycle cost", unit: `${currency}, present value`, width: 1.4, align: "right", cell: (r) => fmtMoney(r.lcc, currency), emphasis: (r) => r.isLowest },
-    { title: "Annualised", unit: `${currency}/yr`, width: 1.1, align: "right", cell: (r) => fmtMoney(r.annualisedCost, currency) },
-    { title: "Net savings", unit: `${currency} vs base`, width: 1.2, align: "right", cell: (r) => (r.comparison ? fmtMoney(r.comparison.netSavings, currency) : "base") },
-    { title: "SIR", width: 0.6, align: "right", cell: (r) => (r.comparison ? fmtRatio(r.comparison.sir) : "") },
-    { title: "AIRR", unit: "%/yr", width: 0.7, align: "right", cell: (r) => (r.comparison ? fmtPercent(r.comparison.airr) : "") },
-    { title: "Payback", unit: "simple / disc.", width: 1.2, align: "right", cell: (r) => (r.comparison ? `${fmtYears(r.comparison.simplePaybackYears)} / ${fmtYears(r.comparison.discountedPaybackYears)}` : "") },
+    {
+      title: "Option",
+      width: 2.3,
+      cell: (r) => `${r.label}${r.isBase ? " (base)" : ""}`,
+      emphasis: (r) => r.isLowest,
+    },
+    {
+      title: "First cost",
+      unit: currency,
+      width: 1.2,
+      align: "right",
+      cell: (r) => fmtMoney(r.firstCost, currency),
+    },
+    {
+      title: "Life-cycle cost",
+      unit: `${currency}, present value`,
+      width: 1.4,
+      align: "right",
+      cell: (r) => fmtMoney(r.lcc, currency),
+      emphasis: (r) => r.isLowest,
+    },
+    {
+      title: "Annualised",
+      unit: `${currency}/yr`,
+      width: 1.1,
+      align: "right",
+      cell: (r) => fmtMoney(r.annualisedCost, currency),
+    },
+    {
+      title: "Net savings",
+      unit: `${currency} vs base`,
+      width: 1.2,
+      align: "right",
+      cell: (r) => (r.comparison ? fmtMoney(r.comparison.netSavings, currency) : "base"),
+    },
+    {
+      title: "SIR",
+      width: 0.6,
+      align: "right",
+      cell: (r) => (r.comparison ? fmtRatio(r.comparison.sir) : ""),
+    },
+    {
+      title: "AIRR",
+      unit: "%/yr",
+      width: 0.7,
+      align: "right",
+      cell: (r) => (r.comparison ? fmtPercent(r.comparison.airr) : ""),
+    },
+    {
+      title: "Payback",
+      unit: "simple / disc.",
+      width: 1.2,
+      align: "right",
+      cell: (r) =>
+        r.comparison
+          ? `${fmtYears(r.comparison.simplePaybackYears)} / ${fmtYears(r.comparison.discountedPaybackYears)}`
+          : "",
+    },
   ];
 }
 
@@ -144,17 +301,51 @@ function SummaryPage({ source, summary }: { source: ReportSource; summary: Repor
       <Table
         columns={[
           { title: "Option", width: 2.3, cell: (p: OptionAnnualPhysics) => p.label },
-          { title: "Makeup water", unit: `${unitOf("waterVolumeM3", sys)}/yr`, width: 1.1, align: "right", cell: (p) => fmtNumber(convert("waterVolumeM3", p.waterM3.makeup, sys), 0) },
-          { title: "Electric energy", unit: "kWh/yr", width: 1.1, align: "right", cell: (p) => fmtNumber(p.energyKWh.total, 0) },
-          { title: "Dry-mode hours", unit: "h/yr", width: 0.9, align: "right", cell: (p) => fmtNumber(p.dryModeHours, 0) },
-          { title: "Mean condensing", unit: unitOf("temperatureC", sys), width: 1, align: "right", cell: (p) => fmtNumber(convert("temperatureC", p.meanCondensingC, sys), 1) },
-          { title: "Hours set-point not held", unit: "h/yr", width: 1.1, align: "right", cell: (p) => fmtNumber(p.unmetHours, 0) },
+          {
+            title: "Makeup water",
+            unit: `${unitOf("waterVolumeM3", sys)}/yr`,
+            width: 1.1,
+            align: "right",
+            cell: (p) => fmtNumber(convert("waterVolumeM3", p.waterM3.makeup, sys), 0),
+          },
+          {
+            title: "Electric energy",
+            unit: "kWh/yr",
+            width: 1.1,
+            align: "right",
+            cell: (p) => fmtNumber(p.energyKWh.total, 0),
+          },
+          {
+            title: "Dry-mode hours",
+            unit: "h/yr",
+            width: 0.9,
+            align: "right",
+            cell: (p) => fmtNumber(p.dryModeHours, 0),
+          },
+          {
+            title: "Mean condensing",
+            unit: unitOf("temperatureC", sys),
+            width: 1,
+            align: "right",
+            cell: (p) => fmtNumber(convert("temperatureC", p.meanCondensingC, sys), 1),
+          },
+          {
+            title: "Hours set-point not held",
+            unit: "h/yr",
+            width: 1.1,
+            align: "right",
+            cell: (p) => fmtNumber(p.unmetHours, 0),
+          },
           {
             title: "First-year operating",
             unit: `${cur}/yr`,
             width: 1.2,
             align: "right",
-            cell: (p) => fmtMoney(eco.options.find((o) => o.optionId === p.optionId)?.firstYearOperatingCost ?? NaN, cur),
+            cell: (p) =>
+              fmtMoney(
+                eco.options.find((o) => o.optionId === p.optionId)?.firstYearOperatingCost ?? NaN,
+                cur,
+              ),
           },
         ]}
         rows={phys}
@@ -175,10 +366,14 @@ function SummaryPage({ source, summary }: { source: ReportSource; summary: Repor
         ))
       )}
       {summary.noTies.length > 0 ? (
-        <P style={{ marginTop: 3, color: COLORS.inkSoft }}>{`No tie within the searched range for: ${summary.noTies.join(", ")}.`}</P>
+        <P
+          style={{ marginTop: 3, color: COLORS.inkSoft }}
+        >{`No tie within the searched range for: ${summary.noTies.join(", ")}.`}</P>
       ) : null}
       {k ? (
-        <T style={S.small}>{`Break-even values and tornado ends compare ${labelOf(source.result, k.alternativeOptionId)} with ${labelOf(source.result, k.baseOptionId)}; each input is moved on its own with all others at their entered values.`}</T>
+        <T
+          style={S.small}
+        >{`Break-even values and tornado ends compare ${labelOf(source.result, k.alternativeOptionId)} with ${labelOf(source.result, k.baseOptionId)}; each input is moved on its own with all others at their entered values.`}</T>
       ) : null}
     </View>
   );
@@ -191,38 +386,69 @@ function ChartsSection({ source, summary }: { source: ReportSource; summary: Rep
   const width = 500;
   const optionColor = (i: number) => OPTION_COLORS[i % OPTION_COLORS.length] ?? COLORS.basin600;
   const k = summary.keyComparison;
-  const pair = k ? eco.sensitivity?.tornado.find((t) => t.baseOptionId === k.baseOptionId && t.alternativeOptionId === k.alternativeOptionId) : undefined;
-  const dist = k ? eco.monteCarlo?.netSavings.find((d) => d.baseOptionId === k.baseOptionId && d.alternativeOptionId === k.alternativeOptionId) : undefined;
-  const usedCategories = COST_CATEGORIES.filter((c) => eco.options.some((o) => Math.abs(o.pvByCategory[c]) > 0.5));
+  const pair = k
+    ? eco.sensitivity?.tornado.find(
+        (t) => t.baseOptionId === k.baseOptionId && t.alternativeOptionId === k.alternativeOptionId,
+      )
+    : undefined;
+  const dist = k
+    ? eco.monteCarlo?.netSavings.find(
+        (d) => d.baseOptionId === k.baseOptionId && d.alternativeOptionId === k.alternativeOptionId,
+      )
+    : undefined;
+  const usedCategories = COST_CATEGORIES.filter((c) =>
+    eco.options.some((o) => Math.abs(o.pvByCategory[c]) > 0.5),
+  );
   return (
     <View>
       <T style={S.kicker}>Charts</T>
       <H1>Where the money goes</H1>
-      <ChartFrame title="Life-cycle cost by category" subtitle={`Present value, ${cur}; residual value is a credit, drawn left of zero`}>
+      <ChartFrame
+        title="Life-cycle cost by category"
+        subtitle={`Present value, ${cur}; residual value is a credit, drawn left of zero`}
+      >
         <CostStackChart
           width={width}
           currency={cur}
           colors={CATEGORY_COLORS}
-          bars={eco.options.map((o) => ({ label: o.label, total: o.lcc, segments: usedCategories.map((c) => ({ key: c, value: o.pvByCategory[c] })) }))}
+          bars={eco.options.map((o) => ({
+            label: o.label,
+            total: o.lcc,
+            segments: usedCategories.map((c) => ({ key: c, value: o.pvByCategory[c] })),
+          }))}
         />
-        <Legend items={usedCategories.map((c) => ({ label: COST_CATEGORY_LABELS[c], color: CATEGORY_COLORS[c] }))} />
+        <Legend
+          items={usedCategories.map((c) => ({ label: COST_CATEGORY_LABELS[c], color: CATEGORY_COLORS[c] }))}
+        />
       </ChartFrame>
-      <ChartFrame title="Cumulative discounted cost" subtitle={`Present value of all costs to the end of each study year, ${cur}`}>
+      <ChartFrame
+        title="Cumulative discounted cost"
+        subtitle={`Present value of all costs to the end of each study year, ${cur}`}
+      >
         <LineChart
           width={width}
           currency={cur}
-          series={eco.options.map((o, i) => ({ label: o.label, color: optionColor(i), points: o.cashFlows.map((c) => [c.yearIndex, c.cumulativePresentValue] as [number, number]) }))}
+          series={eco.options.map((o, i) => ({
+            label: o.label,
+            color: optionColor(i),
+            points: o.cashFlows.map((c) => [c.yearIndex, c.cumulativePresentValue] as [number, number]),
+          }))}
         />
         <Legend items={eco.options.map((o, i) => ({ label: o.label, color: optionColor(i) }))} />
       </ChartFrame>
-      <ChartFrame title="Monthly makeup water" subtitle={`Evaporation + blowdown + drift, ${unitOf("waterVolumeM3", sys)} per month of the typical year`}>
+      <ChartFrame
+        title="Monthly makeup water"
+        subtitle={`Evaporation + blowdown + drift, ${unitOf("waterVolumeM3", sys)} per month of the typical year`}
+      >
         <MonthlyBarsChart
           width={width}
           unit={unitOf("waterVolumeM3", sys)}
           series={source.result.physics.map((p, i) => ({
             label: p.label,
             color: optionColor(i),
-            values: Array.from({ length: 12 }, (_, m) => convert("waterVolumeM3", p.monthly.find((x) => x.month === m + 1)?.waterM3.makeup ?? 0, sys)),
+            values: Array.from({ length: 12 }, (_, m) =>
+              convert("waterVolumeM3", p.monthly.find((x) => x.month === m + 1)?.waterM3.makeup ?? 0, sys),
+            ),
           }))}
         />
         <Legend items={source.result.physics.map((p, i) => ({ label: p.label, color: optionColor(i) }))} />
@@ -239,7 +465,13 @@ function ChartsSection({ source, summary }: { source: ReportSource; summary: Rep
             bars={pair.bars
               .filter((b) => !b.skippedReason)
               .slice(0, 9)
-              .map((b) => ({ label: b.label, atLow: b.netSavingsAtLow, atHigh: b.netSavingsAtHigh, lowText: tornadoValueText(b, b.low), highText: tornadoValueText(b, b.high) }))}
+              .map((b) => ({
+                label: b.label,
+                atLow: b.netSavingsAtLow,
+                atHigh: b.netSavingsAtHigh,
+                lowText: tornadoValueText(b, b.low),
+                highText: tornadoValueText(b, b.high),
+              }))}
           />
         </ChartFrame>
       ) : null}
@@ -258,7 +490,9 @@ function ChartsSection({ source, summary }: { source: ReportSource; summary: Rep
               { label: "P90", value: dist.p90 },
             ]}
           />
-          <T style={S.small}>{`P10 ${fmtMoney(dist.p10, cur)} · P50 ${fmtMoney(dist.p50, cur)} · P90 ${fmtMoney(dist.p90, cur)} · mean ${fmtMoney(dist.mean, cur)}`}</T>
+          <T
+            style={S.small}
+          >{`P10 ${fmtMoney(dist.p10, cur)} · P50 ${fmtMoney(dist.p50, cur)} · P90 ${fmtMoney(dist.p90, cur)} · mean ${fmtMoney(dist.mean, cur)}`}</T>
         </ChartFrame>
       ) : null}
     </View>
@@ -272,9 +506,9 @@ function AssumptionsSection({ source }: { source: ReportSource }) {
       <T style={S.kicker}>Assumptions</T>
       <H1>What the result rests on</H1>
       <P>
-        Every value below is an input of this version of the scenario, in the report's units. Where a value is the documented default, its
-        source is given; tariff defaults are placeholders that the local utility's tariff should replace. Tags: [practice] common practice, no
-        published source; [memory] a recalled value to verify.
+        {"Every value below is an input of this version of the scenario, in the report's units. Where a value is the documented default, its " +
+          "source is given; tariff defaults are placeholders that the local utility's tariff should replace. Tags: [practice] common practice, no " +
+          "published source; [memory] a recalled value to verify."}
       </P>
       {groups.map((g, i) => (
         <View key={i}>
@@ -318,23 +552,40 @@ function WaterEnergySection({ source }: { source: ReportSource }) {
     { label: "Tower-side pump", values: phys.map((p) => p.energyKWh.secondaryPump) },
     { label: "Spray pump", values: phys.map((p) => p.energyKWh.sprayPump) },
     { label: "Basin heater", values: phys.map((p) => p.energyKWh.basinHeater) },
-    { label: "Compressor penalty (vs clean reference)", values: phys.map((p) => p.energyKWh.compressorPenalty) },
+    {
+      label: "Compressor penalty (vs clean reference)",
+      values: phys.map((p) => p.energyKWh.compressorPenalty),
+    },
     { label: "Total", values: phys.map((p) => p.energyKWh.total) },
   ];
   const optionCols = (fmt: (v: number) => string, unit: string): Column<ComponentRow>[] => [
-    { title: "Component", width: 2.6, cell: (r) => r.label, emphasis: (r) => r.label.startsWith("Makeup") || r.label === "Total" },
-    ...phys.map((p, i) => ({ title: p.label, unit, width: 1.3, align: "right" as const, cell: (r: ComponentRow) => fmt(r.values[i] ?? 0) })),
+    {
+      title: "Component",
+      width: 2.6,
+      cell: (r) => r.label,
+      emphasis: (r) => r.label.startsWith("Makeup") || r.label === "Total",
+    },
+    ...phys.map((p, i) => ({
+      title: p.label,
+      unit,
+      width: 1.3,
+      align: "right" as const,
+      cell: (r: ComponentRow) => fmt(r.values[i] ?? 0),
+    })),
   ];
   return (
     <View>
       <T style={S.kicker}>Water and energy</T>
       <H1>Yearly water balance and energy by component</H1>
       <P>
-        Quantities of the typical year from the climate dataset, per option. Makeup equals evaporation plus drift plus blowdown exactly; blowdown
-        follows from the cycles of concentration, B = E/(C - 1) - D.
+        Quantities of the typical year from the climate dataset, per option. Makeup equals evaporation plus
+        drift plus blowdown exactly; blowdown follows from the cycles of concentration, B = E/(C - 1) - D.
       </P>
       <H3>Water</H3>
-      <Table columns={optionCols((v) => fmtNumber(convert("waterVolumeM3", v, sys), 1), `${volUnit}/yr`)} rows={water} />
+      <Table
+        columns={optionCols((v) => fmtNumber(convert("waterVolumeM3", v, sys), 1), `${volUnit}/yr`)}
+        rows={water}
+      />
       <H3>Electric energy</H3>
       <Table columns={optionCols((v) => fmtNumber(v, 0), "kWh/yr")} rows={energy} />
       <H3>Operation</H3>
@@ -342,23 +593,44 @@ function WaterEnergySection({ source }: { source: ReportSource }) {
         columns={optionCols((v) => fmtNumber(v, 1), "")}
         rows={[
           { label: "Cycles of concentration", values: phys.map((p) => p.cyclesOfConcentration) },
-          { label: `Treated outflow (blowdown + drift), ${volUnit}/yr`, values: phys.map((p) => convert("waterVolumeM3", p.chemicals.treatedOutflowM3, sys)) },
+          {
+            label: `Treated outflow (blowdown + drift), ${volUnit}/yr`,
+            values: phys.map((p) => convert("waterVolumeM3", p.chemicals.treatedOutflowM3, sys)),
+          },
           { label: "Hours in dry mode, h/yr", values: phys.map((p) => p.dryModeHours) },
           { label: "Hours the set-point was not held, h/yr", values: phys.map((p) => p.unmetHours) },
-          { label: `Mean condensing temperature, ${unitOf("temperatureC", sys)}`, values: phys.map((p) => convert("temperatureC", p.meanCondensingC, sys)) },
+          {
+            label: `Mean condensing temperature, ${unitOf("temperatureC", sys)}`,
+            values: phys.map((p) => convert("temperatureC", p.meanCondensingC, sys)),
+          },
           { label: "Tube or plate cleanings per year", values: phys.map((p) => p.cleaningsPerYear) },
-          { label: "Cost-minimising cleaning interval, months", values: phys.map((p) => p.optimalCleaningIntervalMonths ?? NaN) },
+          {
+            label: "Cost-minimising cleaning interval, months",
+            values: phys.map((p) => p.optimalCleaningIntervalMonths ?? NaN),
+          },
         ]}
       />
       {source.result.warnings.length > 0 ? (
         <View>
-          <H3>Engine notes</H3>
-          {source.result.warnings.slice(0, 12).map((w, i) => (
-            <View key={i} style={{ flexDirection: "row", marginBottom: 2 }} wrap={false}>
-              <T style={{ width: 10, color: w.severity === "warning" ? COLORS.caution600 : COLORS.inkFaint }}>•</T>
-              <T style={{ flex: 1, fontSize: 8 }}>{w.message}</T>
-            </View>
-          ))}
+          <H3>Notes from the analysis</H3>
+          <T style={[S.small, { marginBottom: 3 }]}>
+            As the engine words them (its messages quote SI values); warnings in copper.
+          </T>
+          {source.result.warnings.slice(0, 14).map((w, i) => {
+            const option = w.optionId
+              ? source.result.physics.find((p) => p.optionId === w.optionId)?.label
+              : undefined;
+            return (
+              <View key={i} style={{ flexDirection: "row", marginBottom: 2 }} wrap={false}>
+                <T
+                  style={{ width: 10, color: w.severity === "warning" ? COLORS.copper500 : COLORS.inkFaint }}
+                >
+                  •
+                </T>
+                <T style={{ flex: 1, fontSize: 8 }}>{option ? `${option}: ${w.message}` : w.message}</T>
+              </View>
+            );
+          })}
         </View>
       ) : null}
     </View>
@@ -379,18 +651,37 @@ function cashRows(flows: YearCashFlow[], deflate: ((t: number) => number) | null
     const f = deflate ? deflate(c.yearIndex) : 1;
     const amounts = { ...c.byCategory };
     for (const k of COST_CATEGORIES) amounts[k] = c.byCategory[k] * f;
-    return { label: c.yearIndex === 0 ? "0 (base)" : String(c.yearIndex), calendar: String(c.calendarYear), amounts, total: c.total * f, pv: c.presentValue, cumulative: c.cumulativePresentValue };
+    return {
+      label: c.yearIndex === 0 ? "0 (base)" : String(c.yearIndex),
+      calendar: String(c.calendarYear),
+      amounts,
+      total: c.total * f,
+      pv: c.presentValue,
+      cumulative: c.cumulativePresentValue,
+    };
   });
 }
 
-function CashFlowTable({ option, currency, deflate, basisText }: { option: OptionEconomics; currency: string; deflate: ((t: number) => number) | null; basisText: string }) {
+function CashFlowTable({
+  option,
+  currency,
+  deflate,
+  basisText,
+}: {
+  option: OptionEconomics;
+  currency: string;
+  deflate: ((t: number) => number) | null;
+  basisText: string;
+}) {
   const rows = cashRows(option.cashFlows, deflate);
   const used = COST_CATEGORIES.filter((c) => option.cashFlows.some((r) => Math.abs(r.byCategory[c]) > 0.5));
   const m = (v: number) => fmtMoney(v, currency);
   const total: CashRow = {
     label: "Total",
     calendar: "",
-    amounts: Object.fromEntries(COST_CATEGORIES.map((c) => [c, rows.reduce((a, r) => a + r.amounts[c], 0)])) as Record<CostCategory, number>,
+    amounts: Object.fromEntries(
+      COST_CATEGORIES.map((c) => [c, rows.reduce((a, r) => a + r.amounts[c], 0)]),
+    ) as Record<CostCategory, number>,
     total: rows.reduce((a, r) => a + r.total, 0),
     pv: option.lcc,
     cumulative: option.lcc,
@@ -398,7 +689,15 @@ function CashFlowTable({ option, currency, deflate, basisText }: { option: Optio
   const cols: Column<CashRow>[] = [
     { title: "Year", width: 0.75, cell: (r) => r.label },
     { title: "Calendar", width: 0.6, cell: (r) => r.calendar },
-    ...used.map((c) => ({ title: COST_CATEGORY_LABELS[c].replace(" & water-management programme", " & WMP").replace(" (labour, cleaning, testing)", ""), unit: currency, width: 1, align: "right" as const, cell: (r: CashRow) => m(r.amounts[c]) })),
+    ...used.map((c) => ({
+      title: COST_CATEGORY_LABELS[c]
+        .replace(" & water-management programme", " & WMP")
+        .replace(" (labour, cleaning, testing)", ""),
+      unit: currency,
+      width: 1,
+      align: "right" as const,
+      cell: (r: CashRow) => m(r.amounts[c]),
+    })),
     { title: "Total", unit: currency, width: 1.05, align: "right", cell: (r) => m(r.total) },
     { title: "Present value", unit: currency, width: 1.05, align: "right", cell: (r) => m(r.pv) },
     { title: "Cumulative PV", unit: currency, width: 1.1, align: "right", cell: (r) => m(r.cumulative) },
@@ -430,8 +729,20 @@ function CashFlowPages({ source, size }: { source: ReportSource; size: "A4" | "L
               <P>{intro}</P>
             </View>
           ) : null}
-          <CashFlowTable option={o} currency={cur} deflate={null} basisText={nominal ? "nominal" : "constant dollars (real)"} />
-          {nominal ? <CashFlowTable option={o} currency={cur} deflate={deflate} basisText="the same costs in constant dollars (real), deflated by general inflation" /> : null}
+          <CashFlowTable
+            option={o}
+            currency={cur}
+            deflate={null}
+            basisText={nominal ? "nominal" : "constant dollars (real)"}
+          />
+          {nominal ? (
+            <CashFlowTable
+              option={o}
+              currency={cur}
+              deflate={deflate}
+              basisText="the same costs in constant dollars (real), deflated by general inflation"
+            />
+          ) : null}
         </Sheet>
       ))}
     </>
@@ -466,7 +777,10 @@ function CautionsSection({ source }: { source: ReportSource }) {
     <View>
       <T style={S.kicker}>Cautions</T>
       <H1>Before anyone acts on this report</H1>
-      {cautionsFor(kinds, source.result.physics.some((p) => p.energyKWh.basinHeater > 0)).map((c, i) => (
+      {cautionsFor(
+        kinds,
+        source.result.physics.some((p) => p.energyKWh.basinHeater > 0),
+      ).map((c, i) => (
         <Note key={i} tone="caution">
           <T style={{ fontWeight: 600, marginBottom: 2 }}>{c.title}</T>
           <T>{c.text}</T>

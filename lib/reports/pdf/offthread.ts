@@ -24,7 +24,7 @@ let nextId = 1;
 const pending = new Map<number, Pending>();
 
 function workerPath(): string {
-  return path.join(process.cwd(), "lib", "reports", "pdf", "worker.mjs");
+  return path.join(/*turbopackIgnore: true*/ process.cwd(), "lib", "reports", "pdf", "worker.mjs");
 }
 
 function failAll(e: Error) {
@@ -37,7 +37,9 @@ function failAll(e: Error) {
 
 function getWorker(): Worker {
   if (worker) return worker;
-  const w = new Worker(workerPath(), { workerData: { fontsDir: fontsDir(), faces: FONT_FACES, marker: PAGE_OF_MARKER } });
+  const w = new Worker(workerPath(), {
+    workerData: { fontsDir: fontsDir(), faces: FONT_FACES, marker: PAGE_OF_MARKER },
+  });
   w.unref();
   w.on("message", (m: { id: number; ok: boolean; pdf?: Uint8Array; error?: string }) => {
     const p = pending.get(m.id);

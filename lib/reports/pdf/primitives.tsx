@@ -4,14 +4,29 @@ import { pdfText } from "./glyphs";
 import { COLORS, S, type Style } from "./theme";
 
 /** Text whose string children are mapped onto the glyphs the shipped fonts have. */
-export function T({ children, style, fixed }: { children: ReactNode; style?: Style | Style[]; fixed?: boolean }) {
-  const map = (c: ReactNode): ReactNode => (typeof c === "string" ? pdfText(c) : Array.isArray(c) ? c.map(map) : c);
+export function T({
+  children,
+  style,
+  fixed,
+}: {
+  children: ReactNode;
+  style?: Style | Style[];
+  fixed?: boolean;
+}) {
+  const map = (c: ReactNode): ReactNode =>
+    typeof c === "string" ? pdfText(c) : Array.isArray(c) ? c.map(map) : c;
   // react-pdf turns a unitless lineHeight into points with the element's OWN fontSize (18 when it has
   // none) and children inherit those points, so line height is set here, in points, only where the
   // font size is known; elsewhere the font's natural line height (about 1.3) applies.
   const list = Array.isArray(style) ? style : style ? [style] : [];
-  const fontSize = list.reduce<number | undefined>((fs, st) => (typeof st?.fontSize === "number" ? st.fontSize : fs), undefined);
-  const withLead = fontSize !== undefined && !list.some((st) => st?.lineHeight !== undefined) ? [...list, { lineHeight: 1.35 }] : list;
+  const fontSize = list.reduce<number | undefined>(
+    (fs, st) => (typeof st?.fontSize === "number" ? st.fontSize : fs),
+    undefined,
+  );
+  const withLead =
+    fontSize !== undefined && !list.some((st) => st?.lineHeight !== undefined)
+      ? [...list, { lineHeight: 1.35 }]
+      : list;
   return (
     <Text style={withLead} {...(fixed ? { fixed: true } : {})}>
       {map(children)}
@@ -93,14 +108,26 @@ export function Table<R>({
         {columns.map((c, i) => (
           <View key={i} style={[S.td, { flex: c.width }]}>
             <T style={c.align === "right" ? { textAlign: "right" } : {}}>{c.title}</T>
-            {c.unit ? <T style={[{ fontWeight: 400, color: COLORS.inkFaint, fontSize: 6.5 }, c.align === "right" ? { textAlign: "right" } : {}]}>{c.unit}</T> : null}
+            {c.unit ? (
+              <T
+                style={[
+                  { fontWeight: 400, color: COLORS.inkFaint, fontSize: 6.5 },
+                  c.align === "right" ? { textAlign: "right" } : {},
+                ]}
+              >
+                {c.unit}
+              </T>
+            ) : null}
           </View>
         ))}
       </View>
       {rows.map((r, i) => (
         <View key={i} style={[S.tr, zebra && i % 2 === 1 ? { backgroundColor: "#f8fafb" } : {}]} wrap={false}>
           {columns.map((c, j) => (
-            <T key={j} style={[...cellStyle(c), c.emphasis?.(r) ? { fontWeight: 600, color: COLORS.basin700 } : {}]}>
+            <T
+              key={j}
+              style={[...cellStyle(c), c.emphasis?.(r) ? { fontWeight: 600, color: COLORS.basin700 } : {}]}
+            >
               {c.cell(r)}
             </T>
           ))}
@@ -124,7 +151,16 @@ export function Facts({ items, labelWidth = 110 }: { items: [string, string][]; 
   return (
     <View>
       {items.map(([k, v], i) => (
-        <View key={i} style={{ flexDirection: "row", paddingVertical: 3, borderBottomWidth: 0.4, borderBottomColor: COLORS.line }} wrap={false}>
+        <View
+          key={i}
+          style={{
+            flexDirection: "row",
+            paddingVertical: 3,
+            borderBottomWidth: 0.4,
+            borderBottomColor: COLORS.line,
+          }}
+          wrap={false}
+        >
           <T style={{ width: labelWidth, color: COLORS.inkFaint, fontSize: 8 }}>{k}</T>
           <T style={{ flex: 1 }}>{v}</T>
         </View>

@@ -47,7 +47,7 @@ export const FONT_FACES: { family: string; file: string; fontWeight: number; fon
 ];
 
 export function fontsDir(): string {
-  return path.join(process.cwd(), "fonts");
+  return path.join(/*turbopackIgnore: true*/ process.cwd(), "fonts");
 }
 
 let registered = false;
@@ -57,7 +57,11 @@ export function registerFonts(dir = fontsDir()): void {
   if (registered) return;
   Font.register({
     family: "Plex Sans",
-    fonts: FONT_FACES.map((f) => ({ src: path.join(dir, f.file), fontWeight: f.fontWeight, ...(f.fontStyle ? { fontStyle: f.fontStyle } : {}) })),
+    fonts: FONT_FACES.map((f) => ({
+      src: path.join(/*turbopackIgnore: true*/ dir, f.file),
+      fontWeight: f.fontWeight,
+      ...(f.fontStyle ? { fontStyle: f.fontStyle } : {}),
+    })),
   });
   // Words are never split with a hyphen: engineering terms and numbers must stay whole.
   Font.registerHyphenationCallback((word) => [word]);
@@ -90,16 +94,38 @@ export const S = StyleSheet.create({
     fontSize: 7.5,
     color: COLORS.inkSoft,
   },
-  footerRule: { position: "absolute", bottom: 34, left: 48, right: 48, borderTopWidth: 0.5, borderTopColor: COLORS.line },
+  footerRule: {
+    position: "absolute",
+    bottom: 34,
+    left: 48,
+    right: 48,
+    borderTopWidth: 0.5,
+    borderTopColor: COLORS.line,
+  },
   footerLeft: { position: "absolute", bottom: 22, left: 48, fontSize: 7, color: COLORS.inkFaint },
-  footerRight: { position: "absolute", bottom: 22, left: 48, right: 48, fontSize: 7, color: COLORS.inkFaint, textAlign: "right" },
+  footerRight: {
+    position: "absolute",
+    bottom: 22,
+    left: 48,
+    right: 48,
+    fontSize: 7,
+    color: COLORS.inkFaint,
+    textAlign: "right",
+  },
   h1: { fontSize: 17, fontWeight: 600, color: COLORS.basin900, lineHeight: 1.25, marginBottom: 8 },
   h2: { fontSize: 11.5, fontWeight: 600, color: COLORS.basin700, marginTop: 12, marginBottom: 5 },
   h3: { fontSize: 9.5, fontWeight: 600, color: COLORS.ink, marginTop: 8, marginBottom: 3 },
-  kicker: { fontSize: 7.5, fontWeight: 600, color: COLORS.copper500, letterSpacing: 1.2, textTransform: "uppercase", marginBottom: 2 },
+  kicker: {
+    fontSize: 7.5,
+    fontWeight: 600,
+    color: COLORS.copper500,
+    letterSpacing: 1.2,
+    textTransform: "uppercase",
+    marginBottom: 2,
+  },
   p: { marginBottom: 5, fontSize: 9 },
   small: { fontSize: 7.5, color: COLORS.inkSoft },
-    note: {
+  note: {
     backgroundColor: COLORS.basin50,
     borderLeftWidth: 2,
     borderLeftColor: COLORS.basin600,

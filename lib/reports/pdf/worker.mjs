@@ -8,7 +8,11 @@ import { Font, renderToBuffer } from "@react-pdf/renderer";
 const { fontsDir, faces, marker } = workerData;
 Font.register({
   family: "Plex Sans",
-  fonts: faces.map((f) => ({ src: path.join(fontsDir, f.file), fontWeight: f.fontWeight, ...(f.fontStyle ? { fontStyle: f.fontStyle } : {}) })),
+  fonts: faces.map((f) => ({
+    src: path.join(fontsDir, f.file),
+    fontWeight: f.fontWeight,
+    ...(f.fontStyle ? { fontStyle: f.fontStyle } : {}),
+  })),
 });
 Font.registerHyphenationCallback((word) => [word]);
 

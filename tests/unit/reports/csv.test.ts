@@ -17,7 +17,8 @@ function parse(csv: string): string[][] {
 
 describe("formula-injection neutralising", () => {
   it("prefixes text that starts with = + - @ tab or CR, and nothing else", () => {
-    for (const s of ["=1+1", "+1+1", "-2", "@SUM(A1)", "\tx", "\rx", '=HYPERLINK("http://x","y")']) expect(neutraliseText(s)).toBe(`'${s}`);
+    for (const s of ["=1+1", "+1+1", "-2", "@SUM(A1)", "\tx", "\rx", '=HYPERLINK("http://x","y")'])
+      expect(neutraliseText(s)).toBe(`'${s}`);
     for (const s of ["Open tower", "1+1", " =x", "", "'already"]) expect(neutraliseText(s)).toBe(s);
     expect(csvField('=HYPERLINK("http://x","y")')).toBe(`"'=HYPERLINK(""http://x"",""y"")"`);
     expect(csvField(-1234.5)).toBe("-1234.5");
@@ -50,7 +51,9 @@ describe("CSV exports", () => {
     const h = rows[0]!;
     expect(h).toContain("Makeup (kgal)");
     expect(h).toContain("Total electric energy (kWh)");
-    const [e, d, b, m] = ["Evaporation (kgal)", "Drift (kgal)", "Blowdown (kgal)", "Makeup (kgal)"].map((x) => h.indexOf(x));
+    const [e, d, b, m] = ["Evaporation (kgal)", "Drift (kgal)", "Blowdown (kgal)", "Makeup (kgal)"].map((x) =>
+      h.indexOf(x),
+    );
     for (const r of rows.slice(1)) {
       // M = E + B + D exactly in the engine; here within the CSV's rounding (3 decimals).
       expect(Math.abs(Number(r[m!]) - Number(r[e!]) - Number(r[d!]) - Number(r[b!]))).toBeLessThan(0.002);

@@ -10,14 +10,61 @@ import { syntheticPhysics } from "@/lib/engine/economics/synthetic";
 import type { OptionAnnualPhysics, OptionKind } from "@/lib/engine/types";
 import { readEngineResult } from "@/lib/reports/result";
 import type { ReportSource } from "@/lib/reports/types";
-import { economicsSchema, monteCarloSchema, optionCostsSchema, sensitivitySchema, tariffsSchema, upkeepSchema } from "@/lib/scenarios/schema-economics";
+import {
+  economicsSchema,
+  monteCarloSchema,
+  optionCostsSchema,
+  sensitivitySchema,
+  tariffsSchema,
+  upkeepSchema,
+} from "@/lib/scenarios/schema-economics";
 
 const ROOT = path.resolve(__dirname, "../../..");
 
-const OPTIONS: { id: string; kind: OptionKind; label: string; kwh: number; kw: number; evapM3: number; equipment: number; plate: number; cleanings: number }[] = [
-  { id: "direct", kind: "openTowerDirect", label: "Open tower, direct", kwh: 420_000, kw: 95, evapM3: 21_000, equipment: 210_000, plate: 0, cleanings: 1 },
-  { id: "plate", kind: "openTowerPlateHx", label: "Open tower + plate exchanger", kwh: 470_000, kw: 105, evapM3: 21_500, equipment: 210_000, plate: 60_000, cleanings: 0.5 },
-  { id: "closed", kind: "closedCircuitCooler", label: "Closed-circuit cooler", kwh: 380_000, kw: 90, evapM3: 13_000, equipment: 390_000, plate: 0, cleanings: 0 },
+const OPTIONS: {
+  id: string;
+  kind: OptionKind;
+  label: string;
+  kwh: number;
+  kw: number;
+  evapM3: number;
+  equipment: number;
+  plate: number;
+  cleanings: number;
+}[] = [
+  {
+    id: "direct",
+    kind: "openTowerDirect",
+    label: "Open tower, direct",
+    kwh: 420_000,
+    kw: 95,
+    evapM3: 21_000,
+    equipment: 210_000,
+    plate: 0,
+    cleanings: 1,
+  },
+  {
+    id: "plate",
+    kind: "openTowerPlateHx",
+    label: "Open tower + plate exchanger",
+    kwh: 470_000,
+    kw: 105,
+    evapM3: 21_500,
+    equipment: 210_000,
+    plate: 60_000,
+    cleanings: 0.5,
+  },
+  {
+    id: "closed",
+    kind: "closedCircuitCooler",
+    label: "Closed-circuit cooler",
+    kwh: 380_000,
+    kw: 90,
+    evapM3: 13_000,
+    equipment: 390_000,
+    plate: 0,
+    cleanings: 0,
+  },
 ];
 
 const SUMMER = [0.55, 0.6, 0.75, 0.9, 1.1, 1.3, 1.45, 1.4, 1.15, 0.9, 0.7, 0.6];
@@ -89,7 +136,11 @@ export function syntheticInput(opts: FixtureOptions = {}) {
     })),
     tariffs: tariffsSchema.parse({}),
     upkeep: upkeepSchema.parse({}),
-    economics: economicsSchema.parse({ studyPeriodYears: 25, analysis: opts.analysis ?? "real", discounting: opts.discounting ?? "endOfYear" }),
+    economics: economicsSchema.parse({
+      studyPeriodYears: 25,
+      analysis: opts.analysis ?? "real",
+      discounting: opts.discounting ?? "endOfYear",
+    }),
   };
 }
 
@@ -107,29 +158,45 @@ export function syntheticResult(opts: FixtureOptions = {}) {
     monteCarlo: monteCarloSchema.parse({ draws: opts.monteCarloDraws ?? 2000 }),
     rerunPhysics: physics,
   });
-  return { input, result: { engineVersion: "synthetic", physics: p, economics, warnings: economics.warnings } };
+  return {
+    input,
+    result: { engineVersion: "synthetic", physics: p, economics, warnings: economics.warnings },
+  };
 }
 
 /** Engine fixture when present (analyzeScenario on tests/fixtures/scenario-bins.json), else synthetic. */
-export async function engineOrSynthetic(opts: FixtureOptions = {}): Promise<{ input: unknown; result: unknown; source: "engine" | "synthetic" }> {
+export async function engineOrSynthetic(
+  opts: FixtureOptions = {},
+): Promise<{ input: unknown; result: unknown; source: "engine" | "synthetic" }> {
   const fixture = path.join(ROOT, "tests/fixtures/scenario-bins.json");
-  if (existsSync(fixture) && existsSync(path.join(ROOT, "lib/scenarios/schema.ts")) && existsSync(path.join(ROOT, "lib/engine/index.ts"))) {
-    const schemaMod = (await import("@/lib/scenarios/schema")) as unknown as { scenarioSchema: { parse: (x: unknown) => Record<string, unknown> } };
-    const engine = (await import("@/lib/engine/index")) as unknown as { analyzeScenario: (i: unknown) => unknown };
+  if (
+    existsSync(fixture) &&
+    existsSync(path.join(ROOT, "lib/scenarios/schema.ts")) &&
+    existsSync(path.join(ROOT, "lib/engine/index.ts"))
+  ) {
+    const schemaMod = (await import("@/lib/scenarios/schema")) as unknown as {
+      scenarioSchema: { parse: (x: unknown) => Record<string, unknown> };
+    };
+    const engine = (await import("@/lib/engine/index")) as unknown as {
+      analyzeScenario: (i: unknown) => unknown;
+    };
     const raw = JSON.parse(readFileSync(fixture, "utf8")) as Record<string, unknown>;
     if (opts.scenarioName) raw.name = opts.scenarioName;
     const input = schemaMod.scenarioSchema.parse(raw);
     const economics = input.economics as Record<string, unknown>;
     if (opts.analysis) economics.analysis = opts.analysis;
     if (opts.discounting) economics.discounting = opts.discounting;
-    if (opts.monteCarloDraws && input.monteCarlo) (input.monteCarlo as Record<string, unknown>).draws = opts.monteCarloDraws;
+    if (opts.monteCarloDraws && input.monteCarlo)
+      (input.monteCarlo as Record<string, unknown>).draws = opts.monteCarloDraws;
     return { input, result: JSON.parse(JSON.stringify(engine.analyzeScenario(input))), source: "engine" };
   }
   const s = syntheticResult(opts);
   return { input: s.input, result: JSON.parse(JSON.stringify(s.result)), source: "synthetic" };
 }
 
-export async function reportSource(opts: FixtureOptions = {}): Promise<ReportSource & { fixture: "engine" | "synthetic" }> {
+export async function reportSource(
+  opts: FixtureOptions = {},
+): Promise<ReportSource & { fixture: "engine" | "synthetic" }> {
   const { input, result, source } = await engineOrSynthetic(opts);
   return {
     fixture: source,

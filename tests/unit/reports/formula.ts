@@ -34,7 +34,8 @@ export class WorkbookEvaluator {
   private readonly names = new Map<string, Ref>();
 
   constructor(private readonly wb: ExcelJS.Workbook) {
-    for (const entry of (wb.definedNames as unknown as { model: { name: string; ranges: string[] }[] }).model) {
+    for (const entry of (wb.definedNames as unknown as { model: { name: string; ranges: string[] }[] })
+      .model) {
       const range = entry.ranges[0];
       if (!range) continue;
       const bang = range.lastIndexOf("!");
@@ -72,7 +73,8 @@ export class WorkbookEvaluator {
     let out: Value;
     if (v === null || v === undefined) out = 0;
     else if (typeof v === "number" || typeof v === "string" || typeof v === "boolean") out = v;
-    else if (typeof v === "object" && v !== null && "formula" in v) out = this.evaluate((v as { formula: string }).formula, sheet);
+    else if (typeof v === "object" && v !== null && "formula" in v)
+      out = this.evaluate((v as { formula: string }).formula, sheet);
     else throw new Error(`unsupported cell value at ${key}`);
     this.cache.set(key, out);
     return out;
@@ -123,7 +125,9 @@ class Parser {
     const left = this.additive();
     if (this.eat("=")) {
       const right = this.additive();
-      return typeof left === "string" || typeof right === "string" ? String(left).toLowerCase() === String(right).toLowerCase() : left === right;
+      return typeof left === "string" || typeof right === "string"
+        ? String(left).toLowerCase() === String(right).toLowerCase()
+        : left === right;
     }
     return left;
   }
@@ -229,7 +233,8 @@ class Parser {
         const c1 = colNumber(range[3]!);
         const r1 = Number(range[4]);
         const vals: Value[] = [];
-        for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) vals.push(this.ev.value(this.sheet, r, c));
+        for (let r = r0; r <= r1; r++)
+          for (let c = c0; c <= c1; c++) vals.push(this.ev.value(this.sheet, r, c));
         out.push(vals);
       } else {
         this.i = save;

@@ -62,7 +62,9 @@ beforeAll(async () => {
   renderMs = performance.now() - t0;
   h.disable();
   maxLoopDelayMs = h.max / 1e6;
-  console.log(`[report] PDF ${pdf.length} bytes, ${pageCount(pdf)} pages, ${renderMs.toFixed(0)} ms on the worker thread (fixture: ${src.fixture}); event-loop delay max ${maxLoopDelayMs.toFixed(0)} ms`);
+  console.log(
+    `[report] PDF ${pdf.length} bytes, ${pageCount(pdf)} pages, ${renderMs.toFixed(0)} ms on the worker thread (fixture: ${src.fixture}); event-loop delay max ${maxLoopDelayMs.toFixed(0)} ms`,
+  );
   mkdirSync(PAGES, { recursive: true });
   for (const f of readdirSync(PAGES)) rmSync(path.join(PAGES, f), { recursive: true, force: true });
   writeFileSync(path.join(PAGES, "report.pdf"), pdf);
@@ -104,14 +106,34 @@ describe("PDF report", () => {
 
   it("has the cover facts, running header with scenario and version, page numbers, methods and cautions", () => {
     const text = pdfToText(pdf).replace(/\s+/g, " ");
-    for (const s of [src.project.name, src.project.clientName, src.project.siteName, src.preparedBy.firmName, "Cole Pereira", "Issued 1 December 2026"]) {
+    for (const s of [
+      src.project.name,
+      src.project.clientName,
+      src.project.siteName,
+      src.preparedBy.firmName,
+      "Cole Pereira",
+      "Issued 1 December 2026",
+    ]) {
       expectContains(text, s);
     }
     const pages = pageCount(pdf);
     expectContains(text, `Page 2 of ${pages}`);
     expectContains(text, `Page ${pages} of ${pages}`);
     expectContains(text, `${src.scenarioName} · ${src.versionLabel}`);
-    for (const s of ["Merkel", "ATC-105", "NIST Handbook 135", "ASTM E917", "Kern", "effectiveness-NTU", "Legionella", "water-management programme", "Freezing", "Ammonia", "Structural", "Screening estimate"]) {
+    for (const s of [
+      "Merkel",
+      "ATC-105",
+      "NIST Handbook 135",
+      "ASTM E917",
+      "Kern",
+      "effectiveness-NTU",
+      "Legionella",
+      "water-management programme",
+      "Freezing",
+      "Ammonia",
+      "Structural",
+      "Screening estimate",
+    ]) {
       expectContains(text, s);
     }
   });
@@ -129,7 +151,9 @@ describe("PDF report", () => {
 
   it("uses only characters the shipped latin font subset can draw", () => {
     const text = pdfToText(pdf);
-    const missing = [...new Set([...text].filter((ch) => ch.codePointAt(0)! >= 0x20 && !hasGlyph(ch.codePointAt(0)!)))];
+    const missing = [
+      ...new Set([...text].filter((ch) => ch.codePointAt(0)! >= 0x20 && !hasGlyph(ch.codePointAt(0)!))),
+    ];
     // pdftotext adds form feeds and new lines between pages; everything else must be drawable.
     expect(missing.filter((c) => c !== "\f")).toEqual([]);
   });

@@ -39,7 +39,8 @@ function resultOf(cell: ExcelJS.Cell): number {
 
 function headerIndex(ws: ExcelJS.Worksheet, startsWith: string): number {
   const row = ws.getRow(4);
-  for (let c = 1; c <= row.cellCount; c++) if (String(row.getCell(c).value ?? "").startsWith(startsWith)) return c;
+  for (let c = 1; c <= row.cellCount; c++)
+    if (String(row.getCell(c).value ?? "").startsWith(startsWith)) return c;
   throw new Error(`no column ${startsWith}`);
 }
 
@@ -67,14 +68,19 @@ describe("cash-flow workbook (end-of-year, real)", () => {
   });
 
   it("has an Inputs sheet of named cells, a summary and one cash-flow sheet per option", () => {
-    expect(wb.worksheets.map((w) => w.name)).toEqual(["Inputs", "Summary", ...src.result.economics.options.map((_, i) => cashFlowSheetName(i))]);
+    expect(wb.worksheets.map((w) => w.name)).toEqual([
+      "Inputs",
+      "Summary",
+      ...src.result.economics.options.map((_, i) => cashFlowSheetName(i)),
+    ]);
     const ev = new WorkbookEvaluator(wb);
     expect(ev.nameValue(NAMES.realRate)).toBeCloseTo(src.result.economics.realDiscountRate, 12);
     expect(ev.nameValue(NAMES.inflation)).toBeCloseTo(src.result.economics.inflationRate, 12);
     expect(ev.nameValue(NAMES.period)).toBe(src.result.economics.studyPeriodYears);
     expect(ev.nameValue(NAMES.baseYear)).toBe(src.result.economics.baseYear);
     expect(ev.nameValue(NAMES.basis)).toBe(src.result.economics.analysis);
-    for (const n of ["ElectricityPrice", "DemandCharge", "WaterPrice", "SewerPrice", "LabourRate"]) expect(ev.nameRef(n)).toBeDefined();
+    for (const n of ["ElectricityPrice", "DemandCharge", "WaterPrice", "SewerPrice", "LabourRate"])
+      expect(ev.nameRef(n)).toBeDefined();
   });
 
   it("writes discount factors, present values, totals and LCC as formulas with the engine's values cached", () => {
@@ -87,9 +93,14 @@ describe("cash-flow workbook (end-of-year, real)", () => {
         const r = 5 + k;
         expect(formulaOf(ws.getCell(r, df))).toBe(`1/(1+${NAMES.rate})^A${r}`);
         // Handbook 135 single present value factor (1 + d)^-t.
-        expect(resultOf(ws.getCell(r, df))).toBeCloseTo(Math.pow(1 + src.result.economics.discountRate, -cf.yearIndex), 12);
+        expect(resultOf(ws.getCell(r, df))).toBeCloseTo(
+          Math.pow(1 + src.result.economics.discountRate, -cf.yearIndex),
+          12,
+        );
         expect(formulaOf(ws.getCell(r, pvEnergy))).toMatch(new RegExp(`^[A-Z]+${r}\\*\\$[A-Z]+${r}$`));
-        expect(Math.abs(resultOf(ws.getCell(r, pvEnergy)) - cf.presentValueByCategory.energy)).toBeLessThan(CENT);
+        expect(Math.abs(resultOf(ws.getCell(r, pvEnergy)) - cf.presentValueByCategory.energy)).toBeLessThan(
+          CENT,
+        );
         expect(Math.abs(resultOf(ws.getCell(r, pvTotal)) - cf.presentValue)).toBeLessThan(CENT);
         expect(typeof ws.getCell(r, 4).value).toBe("number");
       });
@@ -112,7 +123,14 @@ describe("cash-flow workbook (end-of-year, real)", () => {
     eco.options.forEach((o, i) => {
       expect(Math.abs(Number(ev.nameValue(lccName(i))) - o.lcc)).toBeLessThan(CENT);
       // financial.npv discounts values[0] at t = 0 (numpy-financial convention), i.e. exactly an LCC.
-      expect(Math.abs(npv(eco.discountRate, o.cashFlows.map((c) => c.total)) - o.lcc)).toBeLessThan(CENT);
+      expect(
+        Math.abs(
+          npv(
+            eco.discountRate,
+            o.cashFlows.map((c) => c.total),
+          ) - o.lcc,
+        ),
+      ).toBeLessThan(CENT);
     });
     const newRate = 0.07;
     ev.setName(NAMES.realRate, newRate);
@@ -121,7 +139,15 @@ describe("cash-flow workbook (end-of-year, real)", () => {
       const sheetLcc = Number(ev.nameValue(lccName(i)));
       const engineLcc = engineAtNewRate.options.find((x) => x.optionId === o.optionId)!.lcc;
       expect(Math.abs(sheetLcc - engineLcc)).toBeLessThan(CENT);
-      expect(Math.abs(sheetLcc - npv(newRate, o.cashFlows.map((c) => c.total)))).toBeLessThan(CENT);
+      expect(
+        Math.abs(
+          sheetLcc -
+            npv(
+              newRate,
+              o.cashFlows.map((c) => c.total),
+            ),
+        ),
+      ).toBeLessThan(CENT);
       expect(sheetLcc).toBeLessThan(o.lcc);
     });
     // Net savings on the summary sheet follow too.
@@ -145,7 +171,8 @@ describe("cash-flow workbook (end-of-year, real)", () => {
     expect(summary.getCell(6, 1).value).toBe("'+1+1");
     expect(wb.getWorksheet(cashFlowSheetName(1))!.getCell("A1").value).toBe("'+1+1: yearly cash flows");
     // No formula anywhere carries the injected text.
-    for (const ws of wb.worksheets) ws.eachRow((row) => row.eachCell((c) => expect(formulaOf(c) ?? "").not.toMatch(/HYPERLINK/i)));
+    for (const ws of wb.worksheets)
+      ws.eachRow((row) => row.eachCell((c) => expect(formulaOf(c) ?? "").not.toMatch(/HYPERLINK/i)));
   });
 });
 

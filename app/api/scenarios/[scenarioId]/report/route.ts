@@ -18,5 +18,8 @@ export async function GET(req: Request, ctx: { params: Promise<{ scenarioId: str
   }
   await prep.audit("pdf", { bytes: pdf.length });
   const name = reportFileName(prep.source, "report", "pdf");
-  return new Response(new Uint8Array(pdf), { status: 200, headers: downloadHeaders(name, "application/pdf", pdf.length) });
+  return new Response(new Uint8Array(pdf), {
+    status: 200,
+    headers: downloadHeaders(name, "application/pdf", pdf.length),
+  });
 }

@@ -20,5 +20,8 @@ export async function GET(req: Request, ctx: { params: Promise<{ scenarioId: str
   }
   await prep.audit("xlsx", { bytes: xlsx.length });
   const name = reportFileName(prep.source, "cash-flows", "xlsx");
-  return new Response(new Uint8Array(xlsx), { status: 200, headers: downloadHeaders(name, XLSX, xlsx.length) });
+  return new Response(new Uint8Array(xlsx), {
+    status: 200,
+    headers: downloadHeaders(name, XLSX, xlsx.length),
+  });
 }

@@ -14,5 +14,8 @@ export async function GET(req: Request, ctx: { params: Promise<{ scenarioId: str
   const body = Buffer.from("\ufeff" + buildCsv(prep.source, table), "utf8");
   await prep.audit("csv", { table, bytes: body.length });
   const name = reportFileName(prep.source, table, "csv");
-  return new Response(new Uint8Array(body), { status: 200, headers: downloadHeaders(name, "text/csv; charset=utf-8", body.length) });
+  return new Response(new Uint8Array(body), {
+    status: 200,
+    headers: downloadHeaders(name, "text/csv; charset=utf-8", body.length),
+  });
 }
