@@ -3,7 +3,7 @@
 import { useActionState, useEffect, useRef, useState } from "react";
 import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
-import { Field, FormMessage } from "../_components/form-bits";
+import { Field, FormMessage, submitKeepingFields } from "../_components/form-bits";
 import { IDLE, type FormState } from "@/lib/sharing/form-state";
 import { acceptNewAccountAction, acceptSignedInAction } from "./actions";
 
@@ -31,7 +31,7 @@ export function NewAccountForm({ token, email }: { token: string; email: string 
   }, [state, router]);
 
   return (
-    <form action={action} className="space-y-4" data-testid="invite-new-account" noValidate>
+    <form onSubmit={submitKeepingFields(action)} className="space-y-4" data-testid="invite-new-account" noValidate>
       <Field id="invite-email" name="email" label="E-mail" state={state} defaultValue={email} readOnly />
       <Field id="invite-name" name="name" label="Your name" autoComplete="name" state={state} required />
       <Field

@@ -1,6 +1,6 @@
 "use client";
 
-import type { ReactNode } from "react";
+import { startTransition, type FormEvent, type ReactNode } from "react";
 import type { FormState } from "@/lib/sharing/form-state";
 
 /**
@@ -91,4 +91,16 @@ export function FormMessage({ state, testId = "form-message" }: { state: FormSta
       )}
     </div>
   );
+}
+
+/**
+ * Submit a form to a useActionState dispatcher without React's automatic reset of the fields: after a
+ * refusal the person corrects what they typed instead of typing it all again.
+ */
+export function submitKeepingFields(dispatch: (form: FormData) => void) {
+  return (e: FormEvent<HTMLFormElement>) => {
+    e.preventDefault();
+    const form = new FormData(e.currentTarget);
+    startTransition(() => dispatch(form));
+  };
 }

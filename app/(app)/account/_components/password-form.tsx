@@ -3,7 +3,7 @@
 import { useActionState, useEffect, useRef, useState } from "react";
 import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
-import { Field, FormMessage } from "@/app/invite/_components/form-bits";
+import { Field, FormMessage, submitKeepingFields } from "@/app/invite/_components/form-bits";
 import { IDLE, type FormState } from "@/lib/sharing/form-state";
 import { changePasswordAction } from "../actions";
 
@@ -31,7 +31,7 @@ export function PasswordForm() {
     });
   }, [state, router]);
   return (
-    <form ref={formRef} action={action} className="max-w-md space-y-4" data-testid="password-form" noValidate>
+    <form ref={formRef} onSubmit={submitKeepingFields(action)} className="max-w-md space-y-4" data-testid="password-form" noValidate>
       <Field id="pw-current" name="currentPassword" label="Current password" type="password" autoComplete="current-password" state={state} required />
       <Field
         id="pw-new"

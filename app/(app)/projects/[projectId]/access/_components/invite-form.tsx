@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState, useEffect, useRef } from "react";
-import { Field, FormMessage } from "@/app/invite/_components/form-bits";
+import { Field, FormMessage, submitKeepingFields } from "@/app/invite/_components/form-bits";
 import { IDLE } from "@/lib/sharing/form-state";
 import { inviteAction } from "../actions";
 
@@ -12,7 +12,7 @@ export function InviteForm({ projectId }: { projectId: string }) {
     if (state.status === "ok") formRef.current?.reset();
   }, [state]);
   return (
-    <form ref={formRef} action={action} className="grid gap-4 md:grid-cols-[2fr_1fr_auto] md:items-start" data-testid="invite-form" noValidate>
+    <form ref={formRef} onSubmit={submitKeepingFields(action)} className="grid gap-4 md:grid-cols-[2fr_1fr_auto] md:items-start" data-testid="invite-form" noValidate>
       <Field id="invite-email" name="email" label="E-mail address" type="email" autoComplete="off" state={state} required />
       <Field
         id="invite-role"

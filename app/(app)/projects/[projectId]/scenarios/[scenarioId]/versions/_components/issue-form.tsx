@@ -1,14 +1,14 @@
 "use client";
 
 import { useActionState } from "react";
-import { FormMessage } from "@/app/invite/_components/form-bits";
+import { FormMessage, submitKeepingFields } from "@/app/invite/_components/form-bits";
 import { IDLE } from "@/lib/sharing/form-state";
 import { issueAction } from "../actions";
 
 export function IssueForm({ projectId, scenarioId, nextNumber }: { projectId: string; scenarioId: string; nextNumber: number }) {
   const [state, action, pending] = useActionState(issueAction.bind(null, projectId, scenarioId), IDLE);
   return (
-    <form action={action} className="space-y-3" data-testid="issue-form">
+    <form onSubmit={submitKeepingFields(action)} className="space-y-3" data-testid="issue-form">
       <div>
         <label htmlFor="issue-note" className="block text-sm font-medium">
           Note to the client <span className="font-normal text-ink-faint">(optional)</span>

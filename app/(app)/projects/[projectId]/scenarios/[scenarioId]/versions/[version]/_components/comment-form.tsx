@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState, useEffect, useRef } from "react";
-import { FormMessage } from "@/app/invite/_components/form-bits";
+import { FormMessage, submitKeepingFields } from "@/app/invite/_components/form-bits";
 import { IDLE } from "@/lib/sharing/form-state";
 import { commentAction } from "../../actions";
 
@@ -13,7 +13,7 @@ export function CommentForm({ projectId, versionId }: { projectId: string; versi
   }, [state]);
   const errors = state.status === "error" ? state.fieldErrors?.body : undefined;
   return (
-    <form ref={ref} action={action} className="space-y-3" data-testid="comment-form">
+    <form ref={ref} onSubmit={submitKeepingFields(action)} className="space-y-3" data-testid="comment-form">
       <label htmlFor="comment-body" className="block text-sm font-medium">
         Add a comment for the consultant
       </label>
