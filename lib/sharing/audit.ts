@@ -14,13 +14,34 @@ export const AUDIT_LABELS: Record<string, string> = {
   "version.view": "viewed an issued version",
   "comment.create": "commented",
   "user.passwordChange": "changed their password",
+  "scenario.issue": "issued a version",
+  "scenario.create": "created a scenario",
+  "scenario.save": "saved a scenario",
+  "scenario.clone": "copied a scenario",
+  "scenario.archive": "archived a scenario",
+  "scenario.restore": "restored a scenario",
+  "scenario.export": "exported a scenario",
+  "scenario.results.view": "read results",
+  "report.download": "downloaded",
+  "project.create": "created the project",
+  "project.edit": "edited the project",
+  "climate.import": "imported climate data",
+  "climate.view": "viewed climate data",
 };
+
+/** "climate.binsSave" → "climate bins save": readable enough for an action this table does not know yet. */
+export function humanizeAction(action: string): string {
+  return action
+    .split(".")
+    .map((p) => p.replace(/([a-z])([A-Z])/g, "$1 $2").toLowerCase())
+    .join(" ");
+}
 
 /** The event kinds the trail groups by (filter chips on the project page). */
 export function auditCategory(action: string): "shared" | "revoked" | "issued" | "viewed" | "downloaded" | "changed" | "commented" {
   if (action.startsWith("invitation.create") || action === "invitation.accept") return "shared";
   if (action.endsWith(".revoke")) return "revoked";
-  if (action === "version.issue") return "issued";
+  if (action === "version.issue" || action === "scenario.issue") return "issued";
   if (action.endsWith(".view")) return "viewed";
   if (/download|export|report|workbook|csv/i.test(action)) return "downloaded";
   if (action.startsWith("comment.")) return "commented";
@@ -49,6 +70,7 @@ function summarize(detail: Record<string, unknown>): string {
   pick("role", (v) => `as ${String(v)}`);
   pick("scenarioName");
   pick("versionNumber", (v) => `v${String(v)}`);
+  pick("version", (v) => `v${String(v)}`);
   pick("format");
   pick("reason", (v) => `(${String(v)})`);
   return parts.join(" · ");
@@ -69,7 +91,7 @@ export async function projectAuditTrail(
       id: String(r.id),
       at: r.at,
       action: r.action,
-      label: AUDIT_LABELS[r.action] ?? r.action,
+      label: AUDIT_LABELS[r.action] ?? humanizeAction(r.action),
       category: auditCategory(r.action),
       actorName: r.actorName,
       actorEmail: r.actorEmail,

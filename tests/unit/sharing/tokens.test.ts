@@ -67,3 +67,18 @@ describe("mail content", () => {
     expect(commentRecipients(members, "c")).toEqual(["a@x"]);
   });
 });
+
+describe("audit wording", () => {
+  it("groups events and reads unknown ones", async () => {
+    const { auditCategory, humanizeAction } = await import("@/lib/sharing/audit");
+    expect(auditCategory("report.download")).toBe("downloaded");
+    expect(auditCategory("scenario.export")).toBe("downloaded");
+    expect(auditCategory("version.view")).toBe("viewed");
+    expect(auditCategory("scenario.issue")).toBe("issued");
+    expect(auditCategory("access.revoke")).toBe("revoked");
+    expect(auditCategory("invitation.revoke")).toBe("revoked");
+    expect(auditCategory("invitation.create")).toBe("shared");
+    expect(auditCategory("scenario.save")).toBe("changed");
+    expect(humanizeAction("climate.binsSave")).toBe("climate bins save");
+  });
+});
