@@ -3,6 +3,7 @@ import type { Browser } from "playwright-core";
 import { createDb } from "@/db/client";
 import { hashPassword } from "@/lib/auth/password";
 import { SIGN_IN_LIMITS } from "@/lib/auth/rate-limit";
+import { encode } from "next-auth/jwt";
 import { uniq } from "../support/db";
 import { BASE_URL, launchBrowser, newContext, screenshot, signIn } from "./support";
 import { signInHttp } from "./http-session";
@@ -100,5 +101,23 @@ describe("sessions", () => {
     expect(await signInHttp(email, PASSWORD, from(address()))).toBeNull();
     expect(await signInHttp(email, "a-new-long-passphrase-2026", from(address()))).not.toBeNull();
     await ctx.close();
+  });
+
+  it("a session older than SESSION_MAX_AGE_S is refused even while its cookie is still valid", async () => {
+    const email = await makeUser("aged");
+    const user = await db.selectFrom("users").select(["id", "password_changed_at"]).where("email", "=", email).executeTakeFirstOrThrow();
+    const maxAgeS = Number(process.env.SESSION_MAX_AGE_S ?? 8 * 3600);
+    // A token signed with the app's secret, as next-auth would have issued it, whose sign-in is one hour past the limit.
+    const mint = (authAtMs: number) =>
+      encode({
+        secret: process.env.NEXTAUTH_SECRET!,
+        maxAge: maxAgeS,
+        token: { userId: user.id, email, name: "Test aged", authAtMs, pwdAtMs: user.password_changed_at.getTime(), firmRoles: [], clientRoles: [] },
+      });
+    const fresh = await fetch(`${BASE_URL}/account`, { headers: { cookie: `next-auth.session-token=${await mint(Date.now() - 60_000)}` }, redirect: "manual" });
+    expect(fresh.status).toBe(200);
+    const aged = await fetch(`${BASE_URL}/account`, { headers: { cookie: `next-auth.session-token=${await mint(Date.now() - (maxAgeS + 3600) * 1000)}` }, redirect: "manual" });
+    expect(aged.status).toBe(307);
+    expect(aged.headers.get("location") ?? "").toMatch(/\/signin/);
   });
 });
