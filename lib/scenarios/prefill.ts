@@ -40,7 +40,9 @@ export function prefillDocument(document: ScenarioDocument): ScenarioDocument {
   for (const [i, given] of missingFirstCost) {
     const o = (out.options as Obj[])[i];
     if (o && isObj(o.costs)) {
-      (o.costs as Obj).firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, typeof given[k] === "number" ? given[k] : undefined]));
+      // An option without a plate exchanger has none to buy: that item is structurally 0, not a default price.
+      const fill = (k: string) => (typeof given[k] === "number" ? given[k] : k === "plateExchanger" && o.kind !== "openTowerPlateHx" ? 0 : undefined);
+      (o.costs as Obj).firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, fill(k)]));
     }
   }
   return out as unknown as ScenarioDocument;

@@ -2,7 +2,7 @@
 
 import { useCallback, useEffect, useMemo, useRef, useState, useTransition } from "react";
 import Link from "next/link";
-import { FormProvider, useForm, type FieldErrors, type Resolver } from "react-hook-form";
+import { FormProvider, useForm, useFormState, type Control, type FieldErrors, type Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { FormErrorSummary, SelectField, TextField, UnitsProvider, applyFieldErrors, type FieldErrorMap } from "@/components/forms";
 import { scenarioSchema } from "@/lib/scenarios/schema";
@@ -60,9 +60,8 @@ export function ScenarioEditor(props: {
   const [serverErrors, setServerErrors] = useState<FieldErrorMap>({});
   const [pending, startTransition] = useTransition();
   const [copied, setCopied] = useState<string | null>(null);
-  const dirty = form.formState.isDirty;
-  const dirtyRef = useRef(dirty);
-  dirtyRef.current = dirty;
+  // Read through child components (useFormState) so that a keystroke re-renders them, not the whole form.
+  const dirtyRef = useRef(false);
   const base = `/projects/${projectId}/scenarios/${scenarioId}`;
 
   // A warning before leaving with unsaved changes: closing or reloading the tab, and links in the app.
@@ -120,8 +119,9 @@ export function ScenarioEditor(props: {
           return;
         }
         if (r.kind === "invalid") {
-          setServerErrors(r.fieldErrors);
-          applyFieldErrors(form.setError, r.fieldErrors);
+          // Field errors go onto their fields (and from there into the summary); only form-level ones stay here.
+          const formLevel = applyFieldErrors(form.setError, r.fieldErrors);
+          setServerErrors(formLevel.length > 0 ? { "": formLevel } : {});
           setBanner({ kind: "error", text: r.message });
           return;
         }
@@ -168,7 +168,7 @@ export function ScenarioEditor(props: {
             </p>
           </nav>
           <div className="min-w-0 space-y-6">
-            <FormErrorSummary errors={form.formState.errors} serverErrors={serverErrors} focusKey={form.formState.submitCount} />
+            <ErrorSummary control={form.control} serverErrors={serverErrors} />
             <section id="general" aria-labelledby="general-title" className="scroll-mt-24 rounded-panel border border-line bg-paper-raised p-panel shadow-panel">
               <h2 id="general-title" className="text-lg font-semibold">
                 General
@@ -244,10 +244,7 @@ export function ScenarioEditor(props: {
                 >
                   {pending ? "Saving and analysing…" : "Save and analyse"}
                 </button>
-                <span className="text-xs text-ink-soft" aria-live="polite">
-                  Revision {revision}
-                  {dirty ? " · unsaved changes" : " · no unsaved changes"}
-                </span>
+                <DirtyNote control={form.control} revision={revision} dirtyRef={dirtyRef} />
                 <Link href={base} className="ml-auto text-sm text-basin-700 hover:underline">
                   Comparison
                 </Link>
@@ -257,5 +254,21 @@ export function ScenarioEditor(props: {
         </form>
       </FormProvider>
     </UnitsProvider>
+  );
+}
+
+function ErrorSummary({ control, serverErrors }: { control: Control<V>; serverErrors: FieldErrorMap }) {
+  const { errors, submitCount } = useFormState({ control });
+  return <FormErrorSummary errors={errors} serverErrors={serverErrors} focusKey={submitCount} />;
+}
+
+function DirtyNote({ control, revision, dirtyRef }: { control: Control<V>; revision: number; dirtyRef: React.MutableRefObject<boolean> }) {
+  const { isDirty } = useFormState({ control });
+  dirtyRef.current = isDirty;
+  return (
+    <span className="text-xs text-ink-soft" aria-live="polite" data-testid="dirty-note">
+      Revision {revision}
+      {isDirty ? " · unsaved changes" : " · no unsaved changes"}
+    </span>
   );
 }

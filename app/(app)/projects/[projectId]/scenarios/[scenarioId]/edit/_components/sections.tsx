@@ -632,8 +632,19 @@ function DistributionRow({ k }: { k: MonteCarloInputKey }) {
   );
 }
 
-export function EconomicsSection() {
+/** Its own component: it watches every option's id and label, and only it re-renders when they change. */
+function BaseOptionChoice() {
   const options = (useWatch<V>({ name: "options" }) as { id: string; label: string }[] | undefined) ?? [];
+  return (
+    <Choice
+      name="economics.baseOptionId"
+      label="Base option (measures are against it)"
+      options={[{ value: "", label: "The first option" }, ...options.map((o) => ({ value: o.id, label: o.label || o.id }))]}
+    />
+  );
+}
+
+export function EconomicsSection() {
   const sensitivityOn = useWatch<V>({ name: "sensitivity.enabled" });
   const mcOn = useWatch<V>({ name: "monteCarlo.enabled" });
   return (
@@ -667,11 +678,7 @@ export function EconomicsSection() {
             { value: "none", label: "None" },
           ]}
         />
-        <Choice
-          name="economics.baseOptionId"
-          label="Base option (measures are against it)"
-          options={[{ value: "", label: "The first option" }, ...options.map((o) => ({ value: o.id, label: o.label || o.id }))]}
-        />
+        <BaseOptionChoice />
       </Group>
       <fieldset className="rounded-md border border-line p-4">
         <legend className="px-1 text-sm font-semibold">Sensitivity: tornado and break-even ranges</legend>
