@@ -32,12 +32,12 @@ interface DiscoveredRoute {
   params: string[];
 }
 
-const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
+const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE", "HEAD", "OPTIONS"] as const;
 
 function handlerMethods(source: string): string[] {
   const found = new Set<string>();
-  for (const m of source.matchAll(/export\s+(?:async\s+)?function\s+(GET|POST|PUT|PATCH|DELETE)\b/g)) found.add(m[1]!);
-  for (const m of source.matchAll(/export\s+const\s+(GET|POST|PUT|PATCH|DELETE)\b/g)) found.add(m[1]!);
+  for (const m of source.matchAll(/export\s+(?:async\s+)?function\s+(GET|POST|PUT|PATCH|DELETE|HEAD|OPTIONS)\b/g)) found.add(m[1]!);
+  for (const m of source.matchAll(/export\s+const\s+(GET|POST|PUT|PATCH|DELETE|HEAD|OPTIONS)\b/g)) found.add(m[1]!);
   for (const m of source.matchAll(/export\s*\{([^}]*)\}/g)) {
     for (const part of m[1]!.split(",")) {
       const name = part.trim().split(/\s+as\s+/).pop()?.trim();
@@ -312,7 +312,7 @@ afterAll(async () => {
   const summary = {
     cases: observations.length,
     routes: new Set(observations.map((o) => o.key)).size,
-    failures: observations.filter((o) => !matches(o)).map(({ body: _b, ...o }) => o),
+    failures: observations.filter((o) => !matches(o)).map((o) => ({ ...o, body: o.body.slice(0, 200) })),
   };
   mkdirSync(path.resolve(__dirname, "../../test-results"), { recursive: true });
   writeFileSync(path.resolve(__dirname, "../../test-results/authz-matrix.json"), JSON.stringify(summary, null, 2));
