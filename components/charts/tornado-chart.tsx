@@ -16,6 +16,8 @@ export interface TornadoRow {
 export function TornadoChart({ rows, currency, pairLabel }: { rows: TornadoRow[]; currency: string; pairLabel: string }) {
   // nivo draws the first row at the bottom of a horizontal chart
   const data = [...rows].reverse().map((r) => ({ input: r.label, low: r.low, high: r.high }));
+  // A symmetric scale keeps zero in the middle, so bars that lower the savings never run under the labels.
+  const m = Math.max(1, ...rows.flatMap((r) => [Math.abs(r.low), Math.abs(r.high)])) * 1.05;
   return (
     <ChartFrame title={`Tornado — ${pairLabel}`} unit={`change of net savings, ${currency}`} testId="chart-tornado" height={Math.max(200, 34 * rows.length + 60)}>
       <ResponsiveBar
@@ -27,6 +29,7 @@ export function TornadoChart({ rows, currency, pairLabel }: { rows: TornadoRow[]
         innerPadding={0}
         margin={{ top: 8, right: 16, bottom: 40, left: 210 }}
         padding={0.3}
+        valueScale={{ type: "linear", min: -m, max: m }}
         colors={({ id }) => (id === "low" ? "#7cc4c6" : "#bf6a2e")}
         theme={chartTheme}
         enableLabel={false}

@@ -19,12 +19,13 @@ export function WetBulbBinsChart({ rows, unit, dryLabel }: { rows: WetBulbBinRow
   const keys = dryLabel ? ["dryHours", "wetHours"] : ["wetHours"];
   const labels: Record<string, string> = { wetHours: dryLabel ? "Spray on (wet)" : "Hours", dryHours: dryLabel ?? "Dry" };
   return (
+    <>
     <ChartFrame title="Wet-bulb bins" unit={`hours per ${unit} bin`} testId="chart-wet-bulb-bins" height={280}>
       <ResponsiveBar
         data={rows}
         keys={keys}
         indexBy="bin"
-        margin={{ top: 8, right: 8, bottom: 60, left: 48 }}
+        margin={{ top: 8, right: 8, bottom: 44, left: 48 }}
         padding={0.1}
         colors={({ id }) => (id === "dryHours" ? "#d9854a" : "#1f8a8f")}
         theme={chartTheme}
@@ -37,21 +38,18 @@ export function WetBulbBinsChart({ rows, unit, dryLabel }: { rows: WetBulbBinRow
         }}
         tooltipLabel={(d) => `${labels[String(d.id)] ?? d.id}, bin ${d.indexValue} ${unit}`}
         valueFormat={(v) => `${Math.round(v).toLocaleString("en-US")} h`}
-        legends={[
-          {
-            dataFrom: "keys",
-            anchor: "bottom",
-            direction: "row",
-            translateY: 56,
-            itemWidth: 150,
-            itemHeight: 14,
-            symbolSize: 10,
-            data: keys.map((k) => ({ id: k, label: labels[k] ?? k, color: k === "dryHours" ? "#d9854a" : "#1f8a8f" })),
-          },
-        ]}
         role="img"
         ariaLabel="Hours per wet-bulb bin"
       />
     </ChartFrame>
+    <ul className="mt-1 flex flex-wrap gap-x-4 text-xs text-ink-soft" aria-label="Legend">
+      {keys.map((k) => (
+        <li key={k} className="flex items-center gap-1.5">
+          <span aria-hidden="true" className="inline-block h-2.5 w-2.5 rounded-sm" style={{ background: k === "dryHours" ? "#d9854a" : "#1f8a8f" }} />
+          {labels[k] ?? k}
+        </li>
+      ))}
+    </ul>
+    </>
   );
 }

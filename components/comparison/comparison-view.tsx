@@ -88,7 +88,7 @@ export function ComparisonView(props: ComparisonViewProps) {
             {headline.flipSummary}
           </p>
         ) : null}
-        <dl className="mt-4 grid grid-cols-2 gap-3 text-sm md:grid-cols-4">
+        <dl className="mt-4 grid gap-3 text-sm sm:grid-cols-2 lg:grid-cols-4">
           {e.options.map((o) => (
             <div key={o.optionId} className={`rounded-md border px-3 py-2 ${o.optionId === headline.winnerOptionId ? "border-ok-600 bg-ok-50" : "border-line"}`}>
               <dt className="text-xs text-ink-soft">{o.label}</dt>

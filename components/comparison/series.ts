@@ -17,7 +17,7 @@ import type { WetBulbBinRow } from "@/components/charts/wet-bulb-bins-chart";
 export const MONTH_NAMES = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 
 /** Categories drawn in the yearly stack (the base-date investment is left to the table). */
-export const STACK_CATEGORIES = COST_CATEGORIES.map((k) => ({ key: k, label: COST_CATEGORY_LABELS[k] }));
+export const STACK_CATEGORIES = COST_CATEGORIES.filter((k) => k !== "investment").map((k) => ({ key: k, label: COST_CATEGORY_LABELS[k] }));
 
 export function costStackSeries(e: EconomicsResult): CostStackSeries[] {
   return e.options.map((o) => ({
