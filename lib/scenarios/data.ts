@@ -101,6 +101,13 @@ export async function listDraftScenarios(access: ProjectAccess): Promise<Scenari
   });
 }
 
+/** Archived scenarios of a project (firm members only), newest first. */
+export async function listArchivedScenarios(access: ProjectAccess): Promise<{ id: string; name: string; archivedAt: string }[]> {
+  if (!access.can("scenario.viewDraft")) return [];
+  const rows = await listScenarioSummaries(db, access.project.id, { includeArchived: true });
+  return rows.filter((r) => r.archivedAt).map((r) => ({ id: r.id, name: r.name, archivedAt: (r.archivedAt as Date).toISOString() }));
+}
+
 /** Climate datasets a scenario may use (this project's), newest first. */
 export async function listProjectDatasets(projectId: string) {
   return db

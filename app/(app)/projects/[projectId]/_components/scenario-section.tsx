@@ -1,6 +1,6 @@
 import Link from "next/link";
 import type { ProjectAccess } from "@/lib/auth/session";
-import { listDraftScenarios, listProjectDatasets } from "@/lib/scenarios/data";
+import { listArchivedScenarios, listDraftScenarios, listProjectDatasets } from "@/lib/scenarios/data";
 import { money } from "@/components/comparison/headline";
 import { EmptyState, Panel } from "@/components/ui/panel";
 import { formatNumber } from "@/lib/units";
@@ -14,7 +14,7 @@ const dateText = (iso: string) => new Date(iso).toISOString().slice(0, 16).repla
  */
 export async function ScenarioSection({ access }: { access: ProjectAccess }) {
   if (!access.can("scenario.viewDraft")) return null;
-  const [scenarios, datasets] = await Promise.all([listDraftScenarios(access), listProjectDatasets(access.project.id)]);
+  const [scenarios, datasets, archived] = await Promise.all([listDraftScenarios(access), listProjectDatasets(access.project.id), listArchivedScenarios(access)]);
   const canEdit = access.can("scenario.edit");
   const base = `/projects/${access.project.id}`;
   return (
@@ -53,6 +53,21 @@ export async function ScenarioSection({ access }: { access: ProjectAccess }) {
             ))}
           </ul>
         )}
+        {archived.length > 0 ? (
+          <details className="text-sm">
+            <summary className="cursor-pointer text-ink-soft">Archived ({archived.length})</summary>
+            <ul className="mt-2 space-y-1">
+              {archived.map((a) => (
+                <li key={a.id}>
+                  <Link href={`${base}/scenarios/${a.id}`} className="text-basin-700 hover:underline">
+                    {a.name}
+                  </Link>{" "}
+                  <span className="text-xs text-ink-faint">archived {dateText(a.archivedAt)}</span>
+                </li>
+              ))}
+            </ul>
+          </details>
+        ) : null}
         {canEdit && datasets.length > 0 ? (
           <NewScenarioForm
             projectId={access.project.id}

@@ -1,5 +1,5 @@
 import { ButtonLink } from "@/components/ui/button";
-import { cloneScenarioAction } from "./actions";
+import { archiveScenarioAction, cloneScenarioAction } from "./actions";
 
 /** Edit, clone, export and issue, for those allowed. Plain forms: they work before hydration and by keyboard. */
 export function ScenarioToolbar({
@@ -36,6 +36,17 @@ export function ScenarioToolbar({
       <ButtonLink href={`${base}/versions`} variant="secondary">
         {canIssue ? "Issue / versions" : "Issued versions"}
       </ButtonLink>
+      {canEdit ? (
+        <form action={archiveScenarioAction.bind(null, projectId, scenarioId, !archived)}>
+          <button
+            type="submit"
+            className="inline-flex items-center justify-center gap-2 rounded-md px-3.5 py-2 text-sm font-medium text-ink-soft hover:bg-paper-sunk"
+            title={archived ? "Show it in the project's list again" : "Hide it from the project's list; issued versions stay visible to clients"}
+          >
+            {archived ? "Restore" : "Archive"}
+          </button>
+        </form>
+      ) : null}
     </div>
   );
 }

@@ -8,7 +8,7 @@ import { FormErrorSummary, SelectField, TextField, UnitsProvider, applyFieldErro
 import { scenarioSchema } from "@/lib/scenarios/schema";
 import { withPlaceholders } from "@/lib/scenarios/validate";
 import type { UnitSystem } from "@/lib/units";
-import { saveScenarioAction, type SaveScenarioResult } from "../../actions";
+import { cloneScenarioAction, saveScenarioAction, type SaveScenarioResult } from "../../actions";
 import { DutySection, EconomicsSection, OptionsSection, TariffsSection, UpkeepSection, WaterSection } from "./sections";
 
 type V = Record<string, unknown>;
@@ -245,7 +245,19 @@ export function ScenarioEditor(props: {
                   {pending ? "Saving and analysing…" : "Save and analyse"}
                 </button>
                 <DirtyNote control={form.control} revision={revision} dirtyRef={dirtyRef} />
-                <Link href={base} className="ml-auto text-sm text-basin-700 hover:underline">
+                <button
+                  type="button"
+                  className="ml-auto rounded-md border border-line-strong bg-paper-raised px-3 py-1.5 text-sm hover:bg-paper-sunk"
+                  onClick={() => {
+                    const note = dirtyRef.current ? "The copy is made from the saved revision: your unsaved edits here are not in it. Clone anyway?" : "Make a copy of this scenario and open it?";
+                    if (!window.confirm(note)) return;
+                    dirtyRef.current = false;
+                    startTransition(() => cloneScenarioAction(projectId, scenarioId));
+                  }}
+                >
+                  Clone
+                </button>
+                <Link href={base} className="text-sm text-basin-700 hover:underline">
                   Comparison
                 </Link>
               </div>
