@@ -14,7 +14,9 @@ import type { Action } from "@/lib/auth/permissions";
 import { currentViewer, isUuid, requireViewer } from "@/lib/auth/session";
 import type { ScenarioResult } from "@/lib/engine";
 import type { ScenarioInput } from "@/lib/engine/input";
-import { analyzeAndStore, storedFor, type StoredAnalysis } from "./analysis";
+import { analyzeAndStore, monteCarloStatusOf, storedFor, type StoredAnalysis } from "./analysis";
+import { findResult } from "@/db/queries/results";
+import { ENGINE_VERSION } from "@/lib/engine";
 import { kickJobs } from "./jobs";
 import { buildEngineInput, withClimateData, cloneScenario, createScenario, loadScenarioContext, saveScenario, archiveScenario, type ScenarioContext, type SaveOutcome } from "./store";
 import type { ScenarioDocument } from "./mappers";
@@ -47,14 +49,14 @@ export async function authorizeScenarioApi(scenarioId: string, action: Action, o
 }
 
 /** For pages: the scenario in this project (404 when it is another project's), or 404/403. */
-export async function requireScenario(projectId: string, scenarioId: string, action: Action): Promise<ScenarioAccess> {
+export async function requireScenario(projectId: string, scenarioId: string, action: Action, opts: { withClimateData?: boolean } = {}): Promise<ScenarioAccess> {
   const viewer = await requireViewer();
   if (!isUuid(projectId) || !isUuid(scenarioId)) notFound();
   const access = await loadProjectAccess(db, viewer, projectId);
   if (!access) notFound();
   // Client viewers never learn whether a draft id exists.
   if (!access.can("scenario.viewDraft") && action !== "scenario.viewIssued") notFound();
-  const ctx = await loadScenarioContext(db, scenarioId);
+  const ctx = await loadScenarioContext(db, scenarioId, opts);
   if (!ctx || ctx.row.projectId !== projectId) notFound();
   if (!access.can(action)) forbidden();
   return { access, ctx };
@@ -211,13 +213,15 @@ export interface DraftView {
  * for the current engine version (a new engine, a changed dataset or site), it is analysed now.
  */
 export async function draftView(sa: ScenarioAccess, schedule: (task: () => void) => void): Promise<DraftView> {
-  const built = buildEngineInput(sa.ctx.dto.document as ScenarioDocument, sa.ctx.dataset, sa.ctx.project);
-  if (!built.ok) return { input: null, inputErrors: built.fieldErrors, result: null, inputsHash: null, monteCarlo: null };
-  const stored = await storedFor(db, sa.ctx.row.id, built.input);
-  if (stored.result) {
-    if (stored.monteCarlo && (stored.monteCarlo.status === "queued" || stored.monteCarlo.status === "running")) schedule(() => kickJobs(db));
-    return { input: built.input, inputErrors: null, result: stored.result, inputsHash: stored.inputsHash, monteCarlo: stored.monteCarlo };
+  const cached = await draftSource(sa);
+  if (cached) {
+    const mc = monteCarloStatusOf(await findResult(db, sa.ctx.row.id, ENGINE_VERSION, cached.inputsHash, "monteCarlo"));
+    if (mc && (mc.status === "queued" || mc.status === "running")) schedule(() => kickJobs(db));
+    return { input: cached.input, inputErrors: null, result: cached.result, inputsHash: cached.inputsHash, monteCarlo: mc };
   }
+  const full = await withClimateData(db, sa.ctx);
+  const built = buildEngineInput(full.dto.document as ScenarioDocument, full.dataset, full.project);
+  if (!built.ok) return { input: null, inputErrors: built.fieldErrors, result: null, inputsHash: null, monteCarlo: null };
   const a = await analyzeAndStore(db, sa.ctx.row.id, built.input);
   if (a.monteCarlo && (a.monteCarlo.status === "queued" || a.monteCarlo.status === "running")) schedule(() => kickJobs(db));
   return { input: built.input, inputErrors: null, result: a.result, inputsHash: a.inputsHash, monteCarlo: a.monteCarlo };

@@ -3,7 +3,9 @@ import { after } from "next/server";
 import { auditScenario, authorizeScenarioApi, draftSource, issuedSource, issuedVersionOf } from "@/lib/scenarios/data";
 import { jsonError } from "@/lib/scenarios/http";
 import { kickJobs } from "@/lib/scenarios/jobs";
-import { storedFor } from "@/lib/scenarios/analysis";
+import { monteCarloStatusOf } from "@/lib/scenarios/analysis";
+import { findResult } from "@/db/queries/results";
+import { ENGINE_VERSION } from "@/lib/engine";
 import { db } from "@/db";
 
 export const runtime = "nodejs";
@@ -40,25 +42,21 @@ export async function GET(request: Request, { params }: { params: Promise<{ scen
     );
   }
 
-  if (part === "monteCarlo") {
-    const src = await draftSource(auth);
-    if (!src) return NextResponse.json({ monteCarlo: null }, { headers });
-    const stored = await storedFor(db, auth.ctx.row.id, src.input);
-    if (stored.monteCarlo && (stored.monteCarlo.status === "queued" || stored.monteCarlo.status === "running")) after(() => kickJobs(db));
-    return NextResponse.json({ monteCarlo: stored.monteCarlo }, { headers });
-  }
   const src = await draftSource(auth);
+  if (part === "monteCarlo" && !src) return NextResponse.json({ monteCarlo: null }, { headers });
   if (!src) return jsonError(404, "The draft has no stored result for its current inputs: complete and save it to analyse it.");
-  const stored = await storedFor(db, auth.ctx.row.id, src.input);
+  const monteCarlo = monteCarloStatusOf(await findResult(db, auth.ctx.row.id, ENGINE_VERSION, src.inputsHash, "monteCarlo"));
+  if (monteCarlo && (monteCarlo.status === "queued" || monteCarlo.status === "running")) after(() => kickJobs(db));
+  if (part === "monteCarlo") return NextResponse.json({ monteCarlo }, { headers });
   after(() => auditScenario(auth, "scenario.results.view", { revision: auth.ctx.row.revision }));
   return NextResponse.json(
     {
       scenarioId,
       revision: auth.ctx.row.revision,
-      engineVersion: stored.engineVersion,
+      engineVersion: ENGINE_VERSION,
       inputsHash: src.inputsHash,
       result: src.result,
-      monteCarlo: stored.monteCarlo,
+      monteCarlo,
     },
     { headers },
   );

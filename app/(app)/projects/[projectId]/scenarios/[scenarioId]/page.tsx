@@ -19,7 +19,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ proje
   const viewer = await requireViewer();
   const pa = await loadProjectAccess(db, viewer, projectId);
   if (pa && !pa.can("scenario.viewDraft") && pa.can("scenario.viewIssued")) redirect(`/projects/${projectId}/scenarios/${scenarioId}/versions`);
-  const sa = await requireScenario(projectId, scenarioId, "scenario.viewDraft");
+  const sa = await requireScenario(projectId, scenarioId, "scenario.viewDraft", { withClimateData: false });
   const { access, ctx } = sa;
   const view = await draftView(sa, (task) => after(task));
   const base = `/projects/${projectId}/scenarios/${scenarioId}`;

@@ -10,7 +10,7 @@ export const metadata: Metadata = { title: "Edit scenario" };
 /** The scenario editor: every input in the project's units with its default and source. */
 export default async function EditScenarioPage({ params }: { params: Promise<{ projectId: string; scenarioId: string }> }) {
   const { projectId, scenarioId } = await params;
-  const { access, ctx } = await requireScenario(projectId, scenarioId, "scenario.edit");
+  const { access, ctx } = await requireScenario(projectId, scenarioId, "scenario.edit", { withClimateData: false });
   const datasets = await listProjectDatasets(projectId);
   const initial = {
     ...(prefillDocument(ctx.dto.document) as unknown as Record<string, unknown>),
