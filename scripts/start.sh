@@ -20,11 +20,12 @@ npx tsx scripts/migrate.ts
 npx tsx scripts/seed.ts
 
 pids=()
-cleanup() { for p in "${pids[@]}"; do kill "$p" 2>/dev/null || true; done; }
+# Each child runs in its own process group (setsid) so that stopping it stops what it spawned too.
+cleanup() { for p in "${pids[@]}"; do kill -TERM -- "-$p" 2>/dev/null || kill "$p" 2>/dev/null || true; done; }
 trap cleanup EXIT INT TERM
 
 if [ -f scripts/mail-catcher.ts ]; then
-  npx tsx scripts/mail-catcher.ts &
+  setsid node node_modules/tsx/dist/cli.mjs scripts/mail-catcher.ts &
   pids+=($!)
 fi
 
@@ -33,6 +34,6 @@ npx next build
 t1=$(date +%s)
 echo "[start] ready in $((t1 - t0)) s"
 echo "[start] LoopLedger is at http://127.0.0.1:${PORT:-3000}  (stop with Ctrl-C; 'npm run db:stop' stops PostgreSQL)"
-npx next start -H 127.0.0.1 -p "${PORT:-3000}" &
+setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "${PORT:-3000}" &
 pids+=($!)
 wait "${pids[-1]}"

@@ -16,7 +16,12 @@ results=test-results
 rm -rf "$results"; mkdir -p "$results"
 server_pid=""
 cleanup() {
-  [ -n "$server_pid" ] && kill "$server_pid" 2>/dev/null
+  # The server runs in its own process group (setsid): stop the whole group, not only its parent.
+  if [ -n "$server_pid" ]; then
+    kill -TERM -- "-$server_pid" 2>/dev/null || kill "$server_pid" 2>/dev/null
+    for _ in $(seq 1 20); do kill -0 "$server_pid" 2>/dev/null || break; sleep 0.2; done
+    kill -KILL -- "-$server_pid" 2>/dev/null || true
+  fi
   bash scripts/db.sh stop >/dev/null 2>&1 || true
 }
 trap cleanup EXIT
@@ -32,7 +37,11 @@ npx vitest run --project unit --project integration --reporter=default --reporte
 if [ "${SKIP_E2E:-0}" != "1" ]; then
   echo "[test] building the app for browser tests…"
   if npx next build > "$results/next-build.log" 2>&1; then
-    npx next start -H 127.0.0.1 -p "$TEST_PORT" > "$results/next-server.log" 2>&1 &
+    if curl -s -o /dev/null "http://127.0.0.1:${TEST_PORT}/"; then
+      echo "[test] something already listens on 127.0.0.1:${TEST_PORT}; stop it or set TEST_PORT" >&2
+      echo "0 passed, 1 failed"; exit 1
+    fi
+    setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$TEST_PORT" > "$results/next-server.log" 2>&1 &
     server_pid=$!
     for _ in $(seq 1 100); do curl -sf -o /dev/null "http://127.0.0.1:${TEST_PORT}/signin" && break; sleep 0.3; done
     E2E_BASE_URL="http://127.0.0.1:${TEST_PORT}" npx vitest run --project e2e --reporter=default --reporter=json \
