@@ -32,13 +32,13 @@ export {
   type DesignWetBulb,
   type HistogramBar,
 } from "./binning";
+export { mulberry32 } from "../random";
 export { summarizeClimate, type ClimateSummary, type TemperatureStats } from "./summary";
 export {
   generateSyntheticYear,
   syntheticYearToEpw,
   syntheticYearToCsv,
   formatEpw,
-  mulberry32,
   HARROWGATE_FLATS,
   DEFAULT_SYNTHETIC_MODEL,
   type SyntheticSite,

@@ -21,6 +21,7 @@
  * on every machine. Solar and sky fields are written as the EPW format's missing-value sentinels.
  */
 import { pressureFromElevationPa, saturationVaporPressurePa } from "../psychrometrics";
+import { mulberry32 } from "../random";
 import { calendarOfYear } from "./calendar";
 
 export interface SyntheticSite {
@@ -106,18 +107,6 @@ export interface SyntheticYear {
   seed: number;
   leapYear: boolean;
   hours: SyntheticHour[];
-}
-
-/** mulberry32: a small, well-mixed 32-bit PRNG (public domain, T. Ettinger); uniform in [0, 1). */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 function normalStream(uniform: () => number): () => number {

@@ -33,7 +33,8 @@ export {
   airrFromSir,
 } from "./factors";
 export { waterAtCycles } from "./cashflows";
-export { mulberry32, sampleDistribution } from "./montecarlo";
+export { sampleDistribution } from "./montecarlo";
+export { mulberry32 } from "../random";
 export { formatEconomicsSummary } from "./summary";
 
 /**

@@ -13,6 +13,7 @@
  *    once at each distinct node of its distribution (min, mode, max) and the yearly quantities are
  *    interpolated linearly between nodes (skipped with a note when no re-run is available).
  */
+import { mulberry32 } from "../random";
 import { basisAtCycles, evaluateOptionBasis, type OptionBasis, type Pricing } from "./cashflows";
 import { withPhysics, type EconomicsModel } from "./model";
 import type { PhysicsCache } from "./sensitivity";
@@ -25,22 +26,6 @@ import {
   type MonteCarloResult,
   type NetSavingsDistribution,
 } from "./types";
-
-/**
- * mulberry32: a small 32-bit PRNG with a full 2^32 period, returning uniforms in [0, 1).
- * Source: Tommy Ettinger's public-domain mulberry32 (widely reproduced); good enough for sampling,
- * not for cryptography.
- */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * Inverse CDF of a distribution at u ∈ [0, 1).

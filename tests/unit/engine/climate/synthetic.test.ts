@@ -1,7 +1,8 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { generateSyntheticYear, mulberry32, syntheticYearToEpw } from "@/lib/engine/climate/synthetic";
+import { generateSyntheticYear, syntheticYearToEpw } from "@/lib/engine/climate/synthetic";
+import { mulberry32 } from "@/lib/engine/random";
 import { parseEpw } from "@/lib/engine/climate/epw";
 import { unwrap } from "./helpers";
 
