@@ -18,20 +18,22 @@ import {
   type AnalyzeEconomicsArgs,
   type PhysicsOverrides,
 } from "@/lib/engine/economics";
-import { syntheticPhysics } from "@/lib/engine/economics/synthetic";
 import { parseEpw } from "@/lib/engine/climate";
 import { physicsOf, prepareScenario } from "@/lib/engine";
 import { pressureFromElevationPa } from "@/lib/engine/psychrometrics";
 import { parseScenario } from "@/lib/scenarios/schema";
-import type { OptionAnnualPhysics, OptionKind } from "@/lib/engine/types";
 import {
   economicsSchema,
   monteCarloSchema,
-  optionCostsSchema,
   sensitivitySchema,
   tariffsSchema,
   upkeepSchema,
 } from "@/lib/scenarios/schema-economics";
+import {
+  SYNTHETIC_OPTIONS,
+  syntheticOptionCosts,
+  syntheticOptionsPhysics,
+} from "@/tests/support/synthetic-options";
 
 const root = path.resolve(__dirname, "..");
 
@@ -52,113 +54,21 @@ function time(runs: number, f: () => void): number {
   return median(ts);
 }
 
-function firstCost(equipment: number, plateExchanger = 0) {
-  return {
-    equipment,
-    installation: 0.35 * equipment,
-    structureAndCrane: 25_000,
-    electrical: 30_000,
-    controls: 12_000,
-    plateExchanger,
-    waterTreatmentEquipment: 18_000,
-    meters: 3_000,
-    other: 0,
-  };
-}
-
-const SYNTHETIC: {
-  id: string;
-  kind: OptionKind;
-  label: string;
-  kwh: number;
-  kw: number;
-  evapM3: number;
-  equipment: number;
-  plate: number;
-  cleanings: number;
-}[] = [
-  {
-    id: "direct",
-    kind: "openTowerDirect",
-    label: "Open tower, direct",
-    kwh: 420_000,
-    kw: 95,
-    evapM3: 21_000,
-    equipment: 210_000,
-    plate: 0,
-    cleanings: 1,
-  },
-  {
-    id: "plate",
-    kind: "openTowerPlateHx",
-    label: "Open tower + plate exchanger",
-    kwh: 470_000,
-    kw: 105,
-    evapM3: 21_500,
-    equipment: 210_000,
-    plate: 60_000,
-    cleanings: 0.5,
-  },
-  {
-    id: "closed",
-    kind: "closedCircuitCooler",
-    label: "Closed-circuit cooler",
-    kwh: 380_000,
-    kw: 90,
-    evapM3: 13_000,
-    equipment: 390_000,
-    plate: 0,
-    cleanings: 0,
-  },
-];
-
-function syntheticRun(o: PhysicsOverrides): OptionAnnualPhysics[] {
-  const load = o.loadFactor ?? 1;
-  const fouling = o.foulingRateFactor ?? 1;
-  return SYNTHETIC.map((s) =>
-    syntheticPhysics({
-      optionId: s.id,
-      kind: s.kind,
-      label: s.label,
-      energyKWh: s.kwh * load * (s.cleanings > 0 ? 1 + 0.04 * (fouling - 1) : 1),
-      peakDemandKW: s.kw * load,
-      evaporationM3: s.evapM3 * load,
-      driftM3: 15,
-      cyclesOfConcentration: o.cyclesOfConcentration ?? 4,
-      sewerEvaporationCredit: false,
-      cleaningsPerYear: s.cleanings * fouling,
-    }),
-  );
-}
-
 function syntheticArgs(): { args: AnalyzeEconomicsArgs; source: string } {
   return {
-    source: "synthetic yearly physics (lib/engine/economics/synthetic.ts), three options",
+    source: "synthetic yearly physics (tests/support/synthetic-options.ts), three options",
     args: {
-      physics: syntheticRun({}),
-      options: SYNTHETIC.map((s) => ({
+      physics: syntheticOptionsPhysics(),
+      options: SYNTHETIC_OPTIONS.map((s) => ({
         optionId: s.id,
         kind: s.kind,
         label: s.label,
-        costs: optionCostsSchema.parse({
-          firstCost: firstCost(s.equipment, s.plate),
-          components: [
-            { component: "fill", lifeYears: 15, replacementCost: 40_000 },
-            { component: "fanMotor", lifeYears: 18, replacementCost: 9_000 },
-          ],
-          upkeep: {
-            cleaningCostPerEvent: 6_000,
-            periodicItems: [
-              { kind: "eddyCurrentTesting", everyYears: 3, costPerEvent: 4_500 },
-              { kind: "basinDisinfection", everyYears: 0.5, costPerEvent: 800, labourHoursPerEvent: 6 },
-            ],
-          },
-        }),
+        costs: syntheticOptionCosts(s),
       })),
       tariffs: tariffsSchema.parse({}),
       upkeep: upkeepSchema.parse({}),
       economics: economicsSchema.parse({ studyPeriodYears: 25 }),
-      rerunPhysics: syntheticRun,
+      rerunPhysics: (o: PhysicsOverrides) => syntheticOptionsPhysics(o),
     },
   };
 }

@@ -1,105 +1,33 @@
 /**
  * A report source for tests. Uses the engine's own analyzeScenario on tests/fixtures/scenario-bins.json
  * when that fixture and lib/scenarios/schema.ts exist; otherwise the economics engine on synthetic yearly
- * physics (round invented numbers, lib/engine/economics/synthetic.ts), which exercises every table and chart.
+ * physics (round invented numbers, tests/support/synthetic-options.ts), which exercises every table and chart.
  */
 import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { analyzeEconomics, type PhysicsOverrides } from "@/lib/engine/economics";
-import { syntheticPhysics } from "@/lib/engine/economics/synthetic";
-import type { OptionAnnualPhysics, OptionKind } from "@/lib/engine/types";
+import type { OptionAnnualPhysics } from "@/lib/engine/types";
 import { readEngineResult } from "@/lib/reports/result";
 import type { ReportSource } from "@/lib/reports/types";
 import {
   economicsSchema,
   monteCarloSchema,
-  optionCostsSchema,
   sensitivitySchema,
   tariffsSchema,
   upkeepSchema,
 } from "@/lib/scenarios/schema-economics";
+import {
+  SYNTHETIC_OPTIONS,
+  syntheticOptionCosts,
+  syntheticOptionsPhysics,
+} from "@/tests/support/synthetic-options";
 
 const ROOT = path.resolve(__dirname, "../../..");
-
-const OPTIONS: {
-  id: string;
-  kind: OptionKind;
-  label: string;
-  kwh: number;
-  kw: number;
-  evapM3: number;
-  equipment: number;
-  plate: number;
-  cleanings: number;
-}[] = [
-  {
-    id: "direct",
-    kind: "openTowerDirect",
-    label: "Open tower, direct",
-    kwh: 420_000,
-    kw: 95,
-    evapM3: 21_000,
-    equipment: 210_000,
-    plate: 0,
-    cleanings: 1,
-  },
-  {
-    id: "plate",
-    kind: "openTowerPlateHx",
-    label: "Open tower + plate exchanger",
-    kwh: 470_000,
-    kw: 105,
-    evapM3: 21_500,
-    equipment: 210_000,
-    plate: 60_000,
-    cleanings: 0.5,
-  },
-  {
-    id: "closed",
-    kind: "closedCircuitCooler",
-    label: "Closed-circuit cooler",
-    kwh: 380_000,
-    kw: 90,
-    evapM3: 13_000,
-    equipment: 390_000,
-    plate: 0,
-    cleanings: 0,
-  },
-];
 
 const SUMMER = [0.55, 0.6, 0.75, 0.9, 1.1, 1.3, 1.45, 1.4, 1.15, 0.9, 0.7, 0.6];
 
 function physics(o: PhysicsOverrides = {}): OptionAnnualPhysics[] {
-  const load = o.loadFactor ?? 1;
-  const fouling = o.foulingRateFactor ?? 1;
-  return OPTIONS.map((s) =>
-    syntheticPhysics({
-      optionId: s.id,
-      kind: s.kind,
-      label: s.label,
-      energyKWh: s.kwh * load * (s.cleanings > 0 ? 1 + 0.04 * (fouling - 1) : 1),
-      peakDemandKW: s.kw * load,
-      evaporationM3: s.evapM3 * load,
-      driftM3: 15,
-      cyclesOfConcentration: o.cyclesOfConcentration ?? 4,
-      cleaningsPerYear: s.cleanings * fouling,
-      monthlyWeights: SUMMER,
-    }),
-  );
-}
-
-function firstCost(equipment: number, plateExchanger: number) {
-  return {
-    equipment,
-    installation: 0.35 * equipment,
-    structureAndCrane: 25_000,
-    electrical: 30_000,
-    controls: 12_000,
-    plateExchanger,
-    waterTreatmentEquipment: 18_000,
-    meters: 3_000,
-    other: 0,
-  };
+  return syntheticOptionsPhysics(o, SUMMER);
 }
 
 export interface FixtureOptions {
@@ -115,24 +43,11 @@ export function syntheticInput(opts: FixtureOptions = {}) {
     inputVersion: 1,
     name: opts.scenarioName ?? "Base case, 2026 tariffs",
     site: { elevationM: 240, locationLabel: "Harrowgate Flats (invented inland valley site)" },
-    options: OPTIONS.map((s) => ({
+    options: SYNTHETIC_OPTIONS.map((s) => ({
       id: s.id,
       kind: s.kind,
       label: s.label,
-      costs: optionCostsSchema.parse({
-        firstCost: firstCost(s.equipment, s.plate),
-        components: [
-          { component: "fill", label: "PVC film fill", lifeYears: 15, replacementCost: 40_000 },
-          { component: "fanMotor", lifeYears: 18, replacementCost: 9_000 },
-        ],
-        upkeep: {
-          cleaningCostPerEvent: 6_000,
-          periodicItems: [
-            { kind: "eddyCurrentTesting", everyYears: 3, costPerEvent: 4_500 },
-            { kind: "basinDisinfection", everyYears: 0.5, costPerEvent: 800, labourHoursPerEvent: 6 },
-          ],
-        },
-      }),
+      costs: syntheticOptionCosts(s),
     })),
     tariffs: tariffsSchema.parse({}),
     upkeep: upkeepSchema.parse({}),
