@@ -16,6 +16,7 @@ import {
   type ParsedClimate,
   type WetBulbBinInput,
 } from "@/lib/engine/climate";
+import type { NewClimateDatasetRow } from "@/db/queries/climate";
 
 export const CLIMATE_DATA_VERSION = 1;
 
@@ -100,6 +101,23 @@ export interface NewDataset {
   hoursTotal: number;
   data: StoredClimateData;
   summary: StoredClimateSummary;
+}
+
+/** The climate_datasets row of a new dataset: the JSON parts serialized for their jsonb columns. */
+export function climateDatasetRow(ds: NewDataset, owner: { projectId: string; createdBy: string }): NewClimateDatasetRow {
+  return {
+    project_id: owner.projectId,
+    name: ds.name,
+    source_kind: ds.sourceKind,
+    file_name: ds.fileName,
+    provenance: JSON.stringify(ds.provenance),
+    record_count: ds.recordCount,
+    missing_count: ds.missingCount,
+    hours_total: ds.hoursTotal,
+    data: JSON.stringify(ds.data),
+    summary: JSON.stringify(ds.summary),
+    created_by: owner.createdBy,
+  };
 }
 
 /** Replace NaN/±Infinity by null throughout, as JSON would, so the stored and the returned shapes agree. */

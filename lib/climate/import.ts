@@ -7,7 +7,7 @@ import { writeAudit } from "@/db/queries/audit";
 import { parseEpw, parseHourlyCsv, type ClimateIssue } from "@/lib/engine/climate";
 import { binTableSubmissionSchema } from "./bins-schema";
 import { toFieldErrors, type FieldErrorMap } from "@/components/forms/errors";
-import { datasetFromBins, datasetFromParsedFile, type NewDataset } from "./build";
+import { climateDatasetRow, datasetFromBins, datasetFromParsedFile, type NewDataset } from "./build";
 import { csvMappingSchema, previewCsv, toHourlyCsvMapping, type CsvPreview } from "./csv-mapping";
 import { z } from "zod";
 
@@ -159,19 +159,10 @@ const datasetName = z.string().trim().max(200).optional();
 
 async function store(db: Kysely<Database>, target: ImportTarget, ds: NewDataset): Promise<string> {
   return db.transaction().execute(async (trx) => {
-    const { id } = await insertClimateDataset(trx, {
-      project_id: target.projectId,
-      name: ds.name,
-      source_kind: ds.sourceKind,
-      file_name: ds.fileName,
-      provenance: JSON.stringify(ds.provenance),
-      record_count: ds.recordCount,
-      missing_count: ds.missingCount,
-      hours_total: ds.hoursTotal,
-      data: JSON.stringify(ds.data),
-      summary: JSON.stringify(ds.summary),
-      created_by: target.actorId,
-    });
+    const { id } = await insertClimateDataset(
+      trx,
+      climateDatasetRow(ds, { projectId: target.projectId, createdBy: target.actorId }),
+    );
     await writeAudit(trx, {
       actorId: target.actorId,
       firmId: target.firmId,

@@ -6,8 +6,10 @@
 import type { Kysely, Transaction } from "kysely";
 import type { Database } from "@/db/schema";
 import { writeAudit } from "@/db/queries/audit";
+import { insertClimateDataset } from "@/db/queries/climate";
 import { upsertDoneResult } from "@/db/queries/results";
 import { insertIssuedVersion } from "@/db/queries/scenarios";
+import { climateDatasetRow } from "@/lib/climate/build";
 import { analyzeScenario, ENGINE_VERSION } from "@/lib/engine";
 import { monteCarloInput, runDeterministic } from "./analysis";
 import { demoClimateDataset, demoScenarioDocument, DEMO_SCENARIO_NAME } from "./demo";
@@ -21,23 +23,7 @@ export async function seedDemoScenario(
   a: { projectId: string; firmId: string; siteElevationM: number; consultantId: string },
 ): Promise<{ datasetId: string; scenarioId: string; versionId: string; inputsHash: string }> {
   const ds = demoClimateDataset(a.siteElevationM);
-  const dataset = await db
-    .insertInto("climate_datasets")
-    .values({
-      project_id: a.projectId,
-      name: ds.name,
-      source_kind: ds.sourceKind,
-      file_name: ds.fileName,
-      provenance: JSON.stringify(ds.provenance),
-      record_count: ds.recordCount,
-      missing_count: ds.missingCount,
-      hours_total: ds.hoursTotal,
-      data: JSON.stringify(ds.data),
-      summary: JSON.stringify(ds.summary),
-      created_by: a.consultantId,
-    })
-    .returning("id")
-    .executeTakeFirstOrThrow();
+  const dataset = await insertClimateDataset(db, climateDatasetRow(ds, { projectId: a.projectId, createdBy: a.consultantId }));
 
   const document = demoScenarioDocument();
   const created = await createScenario(db, { projectId: a.projectId, name: DEMO_SCENARIO_NAME, climateDatasetId: dataset.id, userId: a.consultantId, document });

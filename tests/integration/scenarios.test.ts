@@ -1,9 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "kysely";
 import { testDb, uniq } from "../support/db";
+import { insertClimateDataset } from "@/db/queries/climate";
 import { insertProject } from "@/db/queries/projects";
 import { findResult } from "@/db/queries/results";
 import { DEMO_PROJECT } from "@/db/seed";
+import { climateDatasetRow } from "@/lib/climate/build";
 import { ENGINE_VERSION, type ScenarioResult } from "@/lib/engine";
 import { analyzeAndStore, analyzeDocument, storedFor } from "@/lib/scenarios/analysis";
 import { demoClimateDataset, demoScenarioDocument, DEMO_SCENARIO_NAME } from "@/lib/scenarios/demo";
@@ -60,25 +62,7 @@ beforeAll(async () => {
     })
   ).id;
   const ds = demoClimateDataset(240);
-  datasetId = (
-    await db
-      .insertInto("climate_datasets")
-      .values({
-        project_id: projectId,
-        name: ds.name,
-        source_kind: ds.sourceKind,
-        file_name: ds.fileName,
-        provenance: JSON.stringify(ds.provenance),
-        record_count: ds.recordCount,
-        missing_count: ds.missingCount,
-        hours_total: ds.hoursTotal,
-        data: JSON.stringify(ds.data),
-        summary: JSON.stringify(ds.summary),
-        created_by: userId,
-      })
-      .returning("id")
-      .executeTakeFirstOrThrow()
-  ).id;
+  datasetId = (await insertClimateDataset(db, climateDatasetRow(ds, { projectId, createdBy: userId }))).id;
 });
 
 describe("save → analyse → stored result keyed by engine version and inputs hash", () => {
