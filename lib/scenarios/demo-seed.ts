@@ -8,7 +8,7 @@ import type { Database } from "@/db/schema";
 import { writeAudit } from "@/db/queries/audit";
 import { insertClimateDataset } from "@/db/queries/climate";
 import { upsertDoneResult } from "@/db/queries/results";
-import { insertIssuedVersion } from "@/db/queries/scenarios";
+import { insertVersionRow } from "@/db/queries/versions";
 import { climateDatasetRow } from "@/lib/climate/build";
 import { analyzeScenario, ENGINE_VERSION } from "@/lib/engine";
 import { monteCarloInput, runDeterministic } from "./analysis";
@@ -44,7 +44,7 @@ export async function seedDemoScenario(
   await upsertDoneResult(db, { scenarioId: created.id, engineVersion: ENGINE_VERSION, inputsHash: hash, kind: "full", result: det });
   if (mc) await upsertDoneResult(db, { scenarioId: created.id, engineVersion: ENGINE_VERSION, inputsHash: hash, kind: "monteCarlo", result: mc });
 
-  const version = await insertIssuedVersion(db, {
+  const version = await insertVersionRow(db, {
     scenarioId: created.id,
     projectId: a.projectId,
     versionNumber: 1,
