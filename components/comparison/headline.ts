@@ -40,10 +40,6 @@ export function findComparison(e: EconomicsResult, a: string, b: string): { c: O
   return null;
 }
 
-function optionLabel(e: EconomicsResult, id: string | null): string {
-  return e.options.find((o) => o.optionId === id)?.label ?? String(id);
-}
-
 function ranked(e: EconomicsResult): OptionEconomics[] {
   return [...e.options].sort((x, y) => x.lcc - y.lcc);
 }

@@ -151,7 +151,6 @@ function d<P extends PhysicsPath>(path: P): (typeof physicsFieldDefaults)[P]["de
 const num = z.number().finite();
 const positive = num.positive();
 const nonNegative = num.nonnegative();
-const fraction = num.min(0).max(1);
 const waterC = num.min(-10).max(90);
 const airC = num.min(-70).max(70);
 const efficiency = num.gt(0).max(1);

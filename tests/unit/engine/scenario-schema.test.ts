@@ -12,6 +12,7 @@ import {
   scenarioJsonSchema,
   scenarioSchema,
 } from "@/lib/scenarios/schema";
+import { climateInputSchema } from "@/lib/scenarios/schema-climate";
 import { FIXTURES, fixtureDocument, readFixture } from "./helpers";
 
 // Whole-year runs and property tests: generous time on a shared CI machine.
@@ -22,6 +23,26 @@ const ROOT = resolve(__dirname, "../../..");
 function errorsOf(doc: unknown): { path: string; message: string }[] {
   const r = parseScenario(doc);
   return r.ok ? [] : r.errors;
+}
+
+/**
+ * The object (or array) at a dotted path inside a fixture document, e.g. "options.0.tower", for breaking
+ * one field on purpose. Throws when the fixture has no such node, so a renamed field fails loudly.
+ */
+function at(doc: unknown, path: string): Record<string, unknown> {
+  let node: unknown = doc;
+  for (const key of path.split(".")) {
+    if (typeof node !== "object" || node === null || !(key in node)) throw new Error(`the fixture has no ${path}`);
+    node = (node as Record<string, unknown>)[key];
+  }
+  if (typeof node !== "object" || node === null) throw new Error(`${path} in the fixture is not an object`);
+  return node as Record<string, unknown>;
+}
+
+function arrayAt(doc: unknown, path: string): unknown[] {
+  const node = at(doc, path);
+  if (!Array.isArray(node)) throw new Error(`${path} in the fixture is not an array`);
+  return node;
 }
 
 describe("scenario schema", () => {
@@ -45,12 +66,12 @@ describe("scenario schema", () => {
   });
 
   it("reports cross-field problems at the field to fix", () => {
-    const doc = readFixture("scenario-bins.json") as any;
-    doc.options[0].tower.leavingWaterC = 34;
-    doc.duty.minimumCondensingC = 36;
-    doc.options[2].id = doc.options[1].id;
-    doc.duty.loadProfile.fractions = [1, 1];
-    doc.options[1].condenser.designCondensingC = 20;
+    const doc = readFixture("scenario-bins.json");
+    at(doc, "options.0.tower").leavingWaterC = 34;
+    at(doc, "duty").minimumCondensingC = 36;
+    at(doc, "options.2").id = at(doc, "options.1").id;
+    at(doc, "duty.loadProfile").fractions = [1, 1];
+    at(doc, "options.1.condenser").designCondensingC = 20;
     const paths = errorsOf(doc).map((e) => e.path);
     expect(paths).toContain("options.0.tower.leavingWaterC");
     expect(paths).toContain("duty.minimumCondensingC");
@@ -60,19 +81,19 @@ describe("scenario schema", () => {
   });
 
   it("reports missing and mistyped fields with their paths; 2–4 options; known kinds only", () => {
-    const doc = readFixture("scenario-bins.json") as any;
-    delete doc.options[0].tower.waterFlowKgPerS;
-    doc.options[1].fan.designPowerKW = "thirty";
-    doc.water = { ...doc.water, cyclesMode: "entered", cyclesOfConcentration: undefined };
+    const doc = readFixture("scenario-bins.json");
+    delete at(doc, "options.0.tower").waterFlowKgPerS;
+    at(doc, "options.1.fan").designPowerKW = "thirty";
+    doc.water = { ...at(doc, "water"), cyclesMode: "entered", cyclesOfConcentration: undefined };
     const paths = errorsOf(doc).map((e) => e.path);
     expect(paths).toContain("options.0.tower.waterFlowKgPerS");
     expect(paths).toContain("options.1.fan.designPowerKW");
     expect(paths).toContain("water.cyclesOfConcentration");
-    const one = readFixture("scenario-bins.json") as any;
-    one.options = one.options.slice(0, 1);
+    const one = readFixture("scenario-bins.json");
+    one.options = arrayAt(one, "options").slice(0, 1);
     expect(errorsOf(one).map((e) => e.path)).toContain("options");
-    const bad = readFixture("scenario-bins.json") as any;
-    bad.options[0].kind = "evaporativeCondenser";
+    const bad = readFixture("scenario-bins.json");
+    at(bad, "options.0").kind = "evaporativeCondenser";
     expect(errorsOf(bad).some((e) => e.path.startsWith("options.0"))).toBe(true);
   });
 
@@ -91,8 +112,8 @@ describe("scenario schema", () => {
   });
 
   it("defaultScenario needs only the first costs to become a valid, analysable scenario", () => {
-    const doc = readFixture("scenario-bins.json") as any;
-    const draft = defaultScenario(doc.climate, { elevationM: 100, locationLabel: "test" });
+    const doc = readFixture("scenario-bins.json");
+    const draft = defaultScenario(climateInputSchema.parse(doc.climate), { elevationM: 100, locationLabel: "test" });
     const paths = errorsOf(draft).map((e) => e.path);
     expect(paths.length).toBeGreaterThan(0);
     expect(paths.every((p) => /^options\.\d\.costs\.firstCost/.test(p))).toBe(true);
@@ -117,9 +138,9 @@ describe("npm run analyze", () => {
   }, 120_000);
 
   it("prints field-path errors and exits with 2 for a malformed scenario", () => {
-    const doc = readFixture("scenario-bins.json") as any;
-    doc.options[0].tower.leavingWaterC = 40;
-    delete doc.duty.designCop;
+    const doc = readFixture("scenario-bins.json");
+    at(doc, "options.0.tower").leavingWaterC = 40;
+    delete at(doc, "duty").designCop;
     const dir = mkdtempSync(join(tmpdir(), "loopledger-"));
     const file = join(dir, "bad.json");
     writeFileSync(file, JSON.stringify(doc));

@@ -82,8 +82,11 @@ export function ScaledField({
   className?: string;
 }) {
   const { control } = useFormContext<V>();
-  const { field, fieldState } = useController({ name, control });
-  const value: unknown = field.value;
+  const {
+    field: { ref: inputRef, name: fieldName, value: fieldValue, onChange: fieldOnChange, onBlur: fieldOnBlur },
+    fieldState,
+  } = useController({ name, control });
+  const value: unknown = fieldValue;
   const textOf = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? inputText(show(v), sig) : "");
   const [text, setText] = useState(() => textOf(value));
   const [seen, setSeen] = useState<unknown>(value);
@@ -116,7 +119,7 @@ export function ScaledField({
               · {d.source}
             </span>
             {hasDefault && !sameNumber(value, d.value) ? (
-              <button type="button" className="rounded px-1 text-basin-700 underline-offset-2 hover:underline" onClick={() => field.onChange(d.value)} aria-label={`Use the default for ${label}`}>
+              <button type="button" className="rounded px-1 text-basin-700 underline-offset-2 hover:underline" onClick={() => fieldOnChange(d.value)} aria-label={`Use the default for ${label}`}>
                 use default
               </button>
             ) : null}
@@ -129,8 +132,8 @@ export function ScaledField({
       <div className="flex items-stretch">
         <input
           id={id}
-          name={field.name}
-          ref={field.ref}
+          name={fieldName}
+          ref={inputRef}
           type="text"
           inputMode="decimal"
           autoComplete="off"
@@ -145,9 +148,9 @@ export function ScaledField({
             const n = parseNumberInput(raw);
             const v = n === null ? undefined : Number.isNaN(n) ? NaN : store(n);
             setSeen(v);
-            field.onChange(v);
+            fieldOnChange(v);
           }}
-          onBlur={field.onBlur}
+          onBlur={fieldOnBlur}
           className={`${inputClass} ${inputBorder(Boolean(fieldState.error))} num rounded-r-none`}
         />
         <span className="inline-flex min-w-12 items-center justify-center rounded-r-md border border-l-0 border-line-strong bg-paper-sunk px-2 text-xs text-ink-soft" title={unitTitle ?? unit} aria-hidden="true">

@@ -276,7 +276,11 @@ function ErrorSummary({ control, serverErrors }: { control: Control<V>; serverEr
 
 function DirtyNote({ control, revision, dirtyRef }: { control: Control<V>; revision: number; dirtyRef: React.MutableRefObject<boolean> }) {
   const { isDirty } = useFormState({ control });
-  dirtyRef.current = isDirty;
+  // After every commit (no deps on purpose): the guards read it in event handlers, and a handler that
+  // cleared it before leaving is overridden again by the next render, as when it was set during render.
+  useEffect(() => {
+    dirtyRef.current = isDirty;
+  });
   return (
     <span className="text-xs text-ink-soft" aria-live="polite" data-testid="dirty-note">
       Revision {revision}
