@@ -1,5 +1,5 @@
 import { z } from "zod";
-import type { Kysely } from "kysely";
+import type { Kysely, Transaction } from "kysely";
 import type { Database } from "@/db/schema";
 import type { Viewer } from "@/lib/auth/access";
 import type { ProjectRole } from "@/lib/auth/roles";
@@ -79,6 +79,33 @@ export const newAccountSchema = z
 /** Raised inside the transaction to roll it back when the link was spent in between. */
 class LinkSpent extends Error {}
 
+type OpenInvitation = NonNullable<Awaited<ReturnType<typeof lookUp>>>;
+
+/**
+ * Inside the acceptance transaction: spend the link for `userId`, grant exactly the invited role on its
+ * project and audit it. Throws LinkSpent (rolling everything back) when the link was spent in between.
+ */
+async function spendAndGrant(
+  trx: Transaction<Database>,
+  inv: OpenInvitation,
+  userId: string,
+  newAccount: boolean,
+): Promise<{ projectId: string; role: ProjectRole }> {
+  const spent = await consumeInvitation(trx, inv.id, userId);
+  if (!spent) throw new LinkSpent();
+  await grantProjectAccess(trx, { projectId: spent.projectId, userId, role: spent.role, grantedBy: inv.invitedBy });
+  await writeAudit(trx, {
+    actorId: userId,
+    firmId: inv.firmId,
+    projectId: spent.projectId,
+    action: "invitation.accept",
+    targetType: "invitation",
+    targetId: inv.id,
+    detail: { email: inv.email, role: spent.role, newAccount },
+  });
+  return { projectId: spent.projectId, role: spent.role };
+}
+
 /**
  * A person without an account accepts: the account (for the invited address only), the grant of exactly
  * the invited role on that project and the spent link are one transaction.
@@ -103,19 +130,8 @@ export async function acceptAsNewAccount(
   try {
     return await db.transaction().execute(async (trx) => {
       const user = await createUser(trx, { email: inv.email, name: parsed.data.name, passwordHash });
-      const spent = await consumeInvitation(trx, inv.id, user.id);
-      if (!spent) throw new LinkSpent();
-      await grantProjectAccess(trx, { projectId: spent.projectId, userId: user.id, role: spent.role, grantedBy: inv.invitedBy });
-      await writeAudit(trx, {
-        actorId: user.id,
-        firmId: inv.firmId,
-        projectId: spent.projectId,
-        action: "invitation.accept",
-        targetType: "invitation",
-        targetId: inv.id,
-        detail: { email: inv.email, role: spent.role, newAccount: true },
-      });
-      return success({ projectId: spent.projectId, email: user.email, userId: user.id });
+      const { projectId } = await spendAndGrant(trx, inv, user.id, true);
+      return success({ projectId, email: user.email, userId: user.id });
     });
   } catch (err) {
     if (err instanceof LinkSpent) return linkFailure(await inspectInvitation(db, token));
@@ -141,19 +157,7 @@ export async function acceptAsViewer(
   const inv = (await lookUp(db, token))!;
   try {
     return await db.transaction().execute(async (trx) => {
-      const spent = await consumeInvitation(trx, inv.id, viewer.id);
-      if (!spent) throw new LinkSpent();
-      await grantProjectAccess(trx, { projectId: spent.projectId, userId: viewer.id, role: spent.role, grantedBy: inv.invitedBy });
-      await writeAudit(trx, {
-        actorId: viewer.id,
-        firmId: inv.firmId,
-        projectId: spent.projectId,
-        action: "invitation.accept",
-        targetType: "invitation",
-        targetId: inv.id,
-        detail: { email: inv.email, role: spent.role, newAccount: false },
-      });
-      return success({ projectId: spent.projectId, role: spent.role });
+      return success(await spendAndGrant(trx, inv, viewer.id, false));
     });
   } catch (err) {
     if (err instanceof LinkSpent) return linkFailure(await inspectInvitation(db, token));
