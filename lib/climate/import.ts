@@ -9,6 +9,7 @@ import { binTableSubmissionSchema } from "./bins-schema";
 import { toFieldErrors, type FieldErrorMap } from "@/components/forms/errors";
 import { climateDatasetRow, datasetFromBins, datasetFromParsedFile, type NewDataset } from "./build";
 import { csvMappingSchema, previewCsv, toHourlyCsvMapping, type CsvPreview } from "./csv-mapping";
+import { readBodyLimited } from "@/lib/http/body";
 import { z } from "zod";
 
 import { MAX_CLIMATE_UPLOAD_BYTES } from "./limits";
@@ -41,39 +42,6 @@ const fail = (status: 400 | 413 | 415 | 422, error: string, extra: { issues?: Cl
   status,
   body: { ok: false, error, ...extra },
 });
-
-/**
- * Read a request body, refusing it as soon as it passes `limitBytes` (a Content-Length above the limit is
- * refused before anything is read; a chunked body is counted as it streams).
- */
-export async function readBodyLimited(
-  request: Request,
-  limitBytes: number,
-): Promise<{ ok: true; bytes: Uint8Array } | { ok: false; reason: "tooLarge" | "empty" }> {
-  const declared = Number(request.headers.get("content-length") ?? NaN);
-  if (Number.isFinite(declared) && declared > limitBytes) return { ok: false, reason: "tooLarge" };
-  if (!request.body) return { ok: false, reason: "empty" };
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limitBytes) {
-      await reader.cancel().catch(() => undefined);
-      return { ok: false, reason: "tooLarge" };
-    }
-    chunks.push(value);
-  }
-  const bytes = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    bytes.set(c, at);
-    at += c.byteLength;
-  }
-  return { ok: true, bytes };
-}
 
 export interface ClimateUploadForm {
   file: UploadedFile;

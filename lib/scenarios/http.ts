@@ -1,5 +1,6 @@
 import "server-only";
 import { NextResponse } from "next/server";
+import { readBodyLimited } from "@/lib/http/body";
 
 export type JsonBody = { ok: true; value: unknown } | { ok: false; response: NextResponse };
 
@@ -18,26 +19,18 @@ export async function readJsonBody(request: Request, maxBytes: number): Promise<
   if (!/^application\/(.+\+)?json\b/i.test(type)) {
     return { ok: false, response: jsonError(415, "Send the document as JSON (Content-Type: application/json).") };
   }
-  const declared = Number(request.headers.get("content-length") ?? "NaN");
   const limitText = `${(maxBytes / 1e6).toLocaleString("en-US", { maximumFractionDigits: 1 })} MB`;
-  if (Number.isFinite(declared) && declared > maxBytes) {
-    return { ok: false, response: jsonError(413, `The body is larger than ${limitText}.`, { maxBytes }) };
+  const body = await readBodyLimited(request, maxBytes);
+  if (!body.ok) {
+    return {
+      ok: false,
+      response:
+        body.reason === "tooLarge"
+          ? jsonError(413, `The body is larger than ${limitText}.`, { maxBytes })
+          : jsonError(400, "The request has no body."),
+    };
   }
-  const reader = request.body?.getReader();
-  if (!reader) return { ok: false, response: jsonError(400, "The request has no body.") };
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > maxBytes) {
-      await reader.cancel().catch(() => undefined);
-      return { ok: false, response: jsonError(413, `The body is larger than ${limitText}.`, { maxBytes }) };
-    }
-    chunks.push(value);
-  }
-  const text = new TextDecoder().decode(Buffer.concat(chunks));
+  const text = new TextDecoder().decode(body.bytes);
   try {
     return { ok: true, value: JSON.parse(text) };
   } catch (err) {
