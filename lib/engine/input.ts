@@ -12,7 +12,8 @@ import type {
   TariffsInput,
   UpkeepInput,
 } from "./economics/types";
-import type { GlycolKind } from "./glycol";
+import type { CoolerSelection } from "./fluid-cooler";
+import type { TowerSelection } from "./tower";
 
 export interface SiteInput {
   elevationM: number;
@@ -85,14 +86,8 @@ export interface CondenserInput {
   designFoulingM2KPerW: number;
 }
 
-export interface TowerSelectionInput {
-  waterFlowKgPerS: number;
-  enteringWaterC: number;
-  leavingWaterC: number;
-  designWetBulbC: number;
-  designLiquidToGasRatio: number;
-  characteristicExponent: number;
-}
+/** The tower's design point as entered: the same fields calibrateTower reads (documented there). */
+export type TowerSelectionInput = TowerSelection;
 
 export interface PlateExchangerInput {
   designApproachK: number;
@@ -105,20 +100,8 @@ export interface PlateExchangerInput {
   foulingGrowthFactor: number;
 }
 
-export interface CoolerSelectionInput {
-  fluidFlowKgPerS: number;
-  enteringFluidC: number;
-  leavingFluidC: number;
-  designWetBulbC: number;
-  designFluidToAirRatio: number;
-  internalResistanceFraction: number;
-  dryRating?: { enteringFluidC: number; leavingFluidC: number; dryBulbC: number };
-  dryExternalConductanceFactor: number;
-  allowDryMode: boolean;
-  dryModeMaxDryBulbC?: number;
-  glycol: { kind: GlycolKind; massFraction: number };
-  ratingFluid: "water" | "loopFluid";
-}
+/** The cooler's rating as entered: the same fields calibrateCooler reads (documented there). */
+export type CoolerSelectionInput = CoolerSelection;
 
 export interface SprayPumpInput {
   flowKgPerS: number;
