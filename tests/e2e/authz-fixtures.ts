@@ -10,6 +10,7 @@ import { toStoredInput, type ScenarioDocument } from "@/lib/scenarios/mappers";
 import { issueScenario } from "@/lib/sharing/versions";
 import { createInvitation, INVITATION_MAIL_KIND } from "@/lib/sharing/invitations";
 import { uniq } from "../support/db";
+import { grantWorldViewers, insertWorldPeople, ROLES, type WorldRole, type WorldUsers } from "../support/world";
 import { BASE_URL } from "./support";
 import { signInHttp } from "./http-session";
 
@@ -22,8 +23,8 @@ import { signInHttp } from "./http-session";
  * refused page can be searched for any trace of the object.
  */
 export const PASSWORD = "matrix-password-for-tests-2026";
-export const ROLES = ["admin", "consultant", "consultantOther", "owner", "finance", "ownerOther", "financeOther", "anonymous"] as const;
-export type Role = (typeof ROLES)[number];
+export { ROLES };
+export type Role = WorldRole;
 
 export interface ProjectFixture {
   id: string;
@@ -42,7 +43,7 @@ export interface MatrixWorld {
   tag: string;
   firmA: string;
   firmB: string;
-  users: Record<Exclude<Role, "anonymous">, { id: string; email: string }>;
+  users: WorldUsers;
   cookies: Record<Role, string | null>;
   P: ProjectFixture;
   C: ProjectFixture;
@@ -81,30 +82,7 @@ export async function analysedScenario(db: Kysely<Database>, projectId: string, 
 export async function buildMatrixWorld(db: Kysely<Database>): Promise<MatrixWorld> {
   const tag = uniq("mx");
   const hash = await hashPassword(PASSWORD);
-  const mkUser = async (key: string) => {
-    const email = `${key.toLowerCase()}.${tag}@example.test`;
-    const u = await db.insertInto("users").values({ email, name: `${key} ${tag}`, password_hash: hash }).returning("id").executeTakeFirstOrThrow();
-    return { id: u.id, email };
-  };
-  const users = {
-    admin: await mkUser("Admin"),
-    consultant: await mkUser("Consultant"),
-    consultantOther: await mkUser("ConsultantOther"),
-    owner: await mkUser("Owner"),
-    finance: await mkUser("Finance"),
-    ownerOther: await mkUser("OwnerOther"),
-    financeOther: await mkUser("FinanceOther"),
-  };
-  const firmA = (await db.insertInto("firms").values({ name: `Matrix firm A ${tag}` }).returning("id").executeTakeFirstOrThrow()).id;
-  const firmB = (await db.insertInto("firms").values({ name: `Matrix firm B ${tag}` }).returning("id").executeTakeFirstOrThrow()).id;
-  await db
-    .insertInto("firm_members")
-    .values([
-      { firm_id: firmA, user_id: users.admin.id, role: "admin" },
-      { firm_id: firmA, user_id: users.consultant.id, role: "consultant" },
-      { firm_id: firmB, user_id: users.consultantOther.id, role: "consultant" },
-    ])
-    .execute();
+  const { users, firmA, firmB } = await insertWorldPeople(db, { tag, passwordHash: hash, firmName: (k) => `Matrix firm ${k} ${tag}` });
   const newProject = async (firmId: string, key: string, by: string) => {
     const name = `MATRIX-${key}-${tag} project`;
     const clientName = `MATRIX-${key}-${tag} client`;
@@ -120,15 +98,7 @@ export async function buildMatrixWorld(db: Kysely<Database>): Promise<MatrixWorl
   const p = await newProject(firmA, "P", users.consultant.id);
   const q = await newProject(firmA, "Q", users.consultant.id);
   const c = await newProject(firmB, "C", users.consultantOther.id);
-  await db
-    .insertInto("project_access")
-    .values([
-      { project_id: p.id, user_id: users.owner.id, role: "owner" },
-      { project_id: p.id, user_id: users.finance.id, role: "finance" },
-      { project_id: q.id, user_id: users.ownerOther.id, role: "owner" },
-      { project_id: q.id, user_id: users.financeOther.id, role: "finance" },
-    ])
-    .execute();
+  await grantWorldViewers(db, users, p.id, q.id);
 
   const cookies = {} as Record<Role, string | null>;
   for (const role of ROLES) {

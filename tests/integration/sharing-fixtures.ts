@@ -3,6 +3,7 @@ import type { Database } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { loadViewer, type Viewer } from "@/lib/auth/access";
 import { uniq } from "../support/db";
+import { grantWorldViewers, insertWorldPeople, type WorldRole, type WorldUsers } from "../support/world";
 
 /**
  * A world of two firms for authorization tests, all with unique names (the seed is never touched):
@@ -10,14 +11,13 @@ import { uniq } from "../support/db";
  * finance); firm B with a consultant and project C. P and C each have a scenario with issued version 1.
  */
 export const WORLD_PASSWORD = "world-password-for-tests-2026";
-export const ROLES = ["admin", "consultant", "consultantOther", "owner", "finance", "ownerOther", "financeOther", "anonymous"] as const;
-export type WorldRole = (typeof ROLES)[number];
+export { ROLES, type WorldRole } from "../support/world";
 
 export interface World {
   tag: string;
   firmA: string;
   firmB: string;
-  users: Record<Exclude<WorldRole, "anonymous">, { id: string; email: string }>;
+  users: WorldUsers;
   P: { id: string; name: string; scenarioId: string; versionId: string };
   Q: { id: string; name: string };
   C: { id: string; name: string; scenarioId: string; versionId: string };
@@ -27,30 +27,7 @@ export interface World {
 export async function buildWorld(db: Kysely<Database>, passwordHash?: string): Promise<World> {
   const tag = uniq("w");
   const hash = passwordHash ?? (await hashPassword(WORLD_PASSWORD));
-  const mk = async (key: string) => {
-    const email = `${key.toLowerCase()}.${tag}@example.test`;
-    const u = await db.insertInto("users").values({ email, name: `${key} ${tag}`, password_hash: hash }).returning("id").executeTakeFirstOrThrow();
-    return { id: u.id, email };
-  };
-  const users = {
-    admin: await mk("Admin"),
-    consultant: await mk("Consultant"),
-    consultantOther: await mk("ConsultantOther"),
-    owner: await mk("Owner"),
-    finance: await mk("Finance"),
-    ownerOther: await mk("OwnerOther"),
-    financeOther: await mk("FinanceOther"),
-  };
-  const firmA = (await db.insertInto("firms").values({ name: `Firm A ${tag}` }).returning("id").executeTakeFirstOrThrow()).id;
-  const firmB = (await db.insertInto("firms").values({ name: `Firm B ${tag}` }).returning("id").executeTakeFirstOrThrow()).id;
-  await db
-    .insertInto("firm_members")
-    .values([
-      { firm_id: firmA, user_id: users.admin.id, role: "admin" },
-      { firm_id: firmA, user_id: users.consultant.id, role: "consultant" },
-      { firm_id: firmB, user_id: users.consultantOther.id, role: "consultant" },
-    ])
-    .execute();
+  const { users, firmA, firmB } = await insertWorldPeople(db, { tag, passwordHash: hash, firmName: (k) => `Firm ${k} ${tag}` });
   const project = async (firmId: string, name: string) =>
     (
       await db
@@ -65,15 +42,7 @@ export async function buildWorld(db: Kysely<Database>, passwordHash?: string): P
   const P = await project(firmA, pName);
   const Q = await project(firmA, qName);
   const C = await project(firmB, cName);
-  await db
-    .insertInto("project_access")
-    .values([
-      { project_id: P, user_id: users.owner.id, role: "owner" },
-      { project_id: P, user_id: users.finance.id, role: "finance" },
-      { project_id: Q, user_id: users.ownerOther.id, role: "owner" },
-      { project_id: Q, user_id: users.financeOther.id, role: "finance" },
-    ])
-    .execute();
+  await grantWorldViewers(db, users, P, Q);
   const scenarioWithVersion = async (projectId: string, name: string) => {
     const s = await db
       .insertInto("scenarios")
