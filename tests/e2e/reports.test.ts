@@ -218,4 +218,22 @@ describe("report downloads", () => {
     }
     expect(await auditCount()).toBe(before);
   });
+  it("the issued version's page offers finance the PDF, workbook and CSVs, the owner only the PDF, and the link downloads", async () => {
+    const project = await db.selectFrom("scenarios").select("project_id").where("id", "=", scenarioId).executeTakeFirstOrThrow();
+    const url = `/projects/${project.project_id}/scenarios/${scenarioId}/versions/1`;
+    const finance = await signedIn(DEMO_ACCOUNTS.finance.email, DEMO_PASSWORD);
+    const page = await finance.newPage();
+    await page.goto(url);
+    await expect(page.getByTestId("download-pdf").count()).resolves.toBe(1);
+    await expect(page.getByTestId("download-workbook").count()).resolves.toBe(1);
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("download-pdf").click()]);
+    expect(download.suggestedFilename()).toMatch(/\.pdf$/);
+    await finance.close();
+    const owner = await signedIn(DEMO_ACCOUNTS.owner.email, DEMO_PASSWORD);
+    const op = await owner.newPage();
+    await op.goto(url);
+    await expect(op.getByTestId("download-pdf").count()).resolves.toBe(1);
+    await expect(op.getByTestId("download-workbook").count()).resolves.toBe(0);
+    await owner.close();
+  });
 });

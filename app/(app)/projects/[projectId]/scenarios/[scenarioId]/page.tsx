@@ -7,6 +7,7 @@ import { loadProjectAccess } from "@/lib/auth/access";
 import { requireViewer } from "@/lib/auth/session";
 import { draftView, requireScenario } from "@/lib/scenarios/data";
 import { ComparisonView } from "@/components/comparison/comparison-view";
+import { DownloadLinks, reportRights } from "@/components/reports/download-links";
 import { EmptyState, PageHeader } from "@/components/ui/panel";
 import { ButtonLink } from "@/components/ui/button";
 import { ScenarioToolbar } from "./scenario-toolbar";
@@ -83,6 +84,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ proje
         }
         monteCarloPollUrl={`/api/scenarios/${scenarioId}/results?part=monteCarlo`}
         whatIfEndpoint={access.can("scenario.whatIf") ? `/api/scenarios/${scenarioId}/what-if` : null}
+        actions={<DownloadLinks scenarioId={scenarioId} {...reportRights(access)} />}
       />
     </>
   );

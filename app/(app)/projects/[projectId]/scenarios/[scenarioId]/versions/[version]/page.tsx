@@ -9,6 +9,7 @@ import { versionComments } from "@/lib/sharing/comments";
 import { formatWhen } from "@/lib/sharing/form-state";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { ComparisonView } from "@/components/comparison/comparison-view";
+import { DownloadLinks, reportRights } from "@/components/reports/download-links";
 import { displayableVersion, VersionSummary } from "./_components/version-summary";
 import { CommentForm } from "./_components/comment-form";
 
@@ -57,6 +58,7 @@ export default async function VersionPage({ params }: { params: Promise<{ projec
             </>
           )}
         </div>
+        {!drawable && <DownloadLinks scenarioId={scenarioId} version={v.versionNumber} {...reportRights(access)} />}
         {v.note && (
           <Panel title="Note from the consultant">
             <p className="whitespace-pre-wrap text-sm" data-testid="version-note">
@@ -79,6 +81,7 @@ export default async function VersionPage({ params }: { params: Promise<{ projec
             unitSystem={access.project.unitSystem}
             canSeeCashFlows={access.can("scenario.viewCashFlows")}
             whatIfEndpoint={access.can("scenario.whatIf") ? `/api/scenarios/${scenarioId}/what-if?version=${v.versionNumber}` : null}
+            actions={<DownloadLinks scenarioId={scenarioId} version={v.versionNumber} {...reportRights(access)} />}
           />
         ) : (
           <Panel title="Comparison">
