@@ -36,6 +36,8 @@ import { METHODS, REFERENCES, cautionsFor, SCREENING_NOTE } from "./text";
 import { Facts, H1, H2, H3, Note, P, T, Table, type Column } from "./primitives";
 import { COLORS, OPTION_COLORS, S } from "./theme";
 
+const SUMMARY_FLIPS_SHOWN = 6;
+
 export const CATEGORY_COLORS: Record<CostCategory, string> = {
   investment: COLORS.basin900,
   energy: COLORS.basin600,
@@ -358,12 +360,20 @@ function SummaryPage({ source, summary }: { source: ReportSource; summary: Repor
             : "Only one option is costed, so there is no ranking to change."}
         </P>
       ) : (
-        summary.flips.map((f, i) => (
-          <View key={i} style={{ flexDirection: "row", marginBottom: 3 }} wrap={false}>
-            <T style={{ width: 10, color: COLORS.copper500 }}>•</T>
-            <T style={{ flex: 1 }}>{f}</T>
-          </View>
-        ))
+        <>
+          {/* The summary must stay on one page: the strongest few here, every one in the sensitivity section. */}
+          {summary.flips.slice(0, SUMMARY_FLIPS_SHOWN).map((f, i) => (
+            <View key={i} style={{ flexDirection: "row", marginBottom: 3 }} wrap={false}>
+              <T style={{ width: 10, color: COLORS.copper500 }}>•</T>
+              <T style={{ flex: 1 }}>{f}</T>
+            </View>
+          ))}
+          {summary.flips.length > SUMMARY_FLIPS_SHOWN ? (
+            <P style={{ color: COLORS.inkSoft }}>
+              {`${summary.flips.length - SUMMARY_FLIPS_SHOWN} more inputs would also change the answer: see the sensitivity pages.`}
+            </P>
+          ) : null}
+        </>
       )}
       {summary.noTies.length > 0 ? (
         <P
