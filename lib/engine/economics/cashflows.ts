@@ -107,6 +107,7 @@ export interface EvaluatedOption {
   cashFlows?: YearCashFlow[];
 }
 
+/** A cost-by-category record with every category at 0 (money, project currency). */
 export function zeroCategories(): CategoryAmounts {
   return {
     investment: 0,
@@ -121,6 +122,7 @@ export function zeroCategories(): CategoryAmounts {
   };
 }
 
+/** Total of a cost-by-category record: Σ over categories, residual value counted as negative (money). */
 export function sumCategories(c: CategoryAmounts): number {
   let s = 0;
   for (const k of COST_CATEGORIES) s += c[k];
@@ -201,6 +203,7 @@ export function demandCostPerYear(physics: OptionAnnualPhysics, tariffs: Tariffs
   return c;
 }
 
+/** The yearly water volumes (m³) the water, sewer and chemical cost streams are priced on, from the physics. */
 export function waterQuantitiesFromPhysics(p: OptionAnnualPhysics): WaterQuantities {
   const w = p.waterM3;
   return {

@@ -32,6 +32,7 @@ export interface EconomicsModel {
   pricing: Pricing;
 }
 
+/** Per-option pricing bases: physical quantities and cost items at base-date prices, ready to be re-priced (what-if, Monte Carlo) without re-running the physics. */
 export function buildBases(
   physics: OptionAnnualPhysics[],
   options: EconomicsOptionInput[],
@@ -44,6 +45,7 @@ export function buildBases(
   return options.map((o) => buildOptionBasis(byId.get(o.optionId), o, tariffs, upkeep, economics, warnings));
 }
 
+/** The deterministic economics model of a scenario: bases, base pricing and the base option (NIST Handbook 135 life-cycle cost). */
 export function buildModel(
   physics: OptionAnnualPhysics[],
   options: EconomicsOptionInput[],
@@ -97,6 +99,7 @@ export function premiumScales(bases: readonly OptionBasis[], baseIndex: number, 
   });
 }
 
+/** Present-value life-cycle cost of each option (money) under one pricing, optionally with per-option first-cost scales. */
 export function lccsOf(
   bases: readonly OptionBasis[],
   pricing: Pricing,

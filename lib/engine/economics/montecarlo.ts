@@ -55,6 +55,7 @@ export function percentileSorted(sorted: ArrayLike<number>, q: number): number {
   return vlo + (h - lo) * (vhi - vlo);
 }
 
+/** Equal-width histogram of the values over [min, max] in `bins` bins (counts; for the Monte Carlo chart). */
 export function histogram(values: ArrayLike<number>, bins: number): HistogramBin[] {
   const n = values.length;
   if (n === 0) return [];

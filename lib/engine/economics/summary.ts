@@ -16,6 +16,7 @@ function table(rows: string[][]): string[] {
   );
 }
 
+/** Plain-text summary of an economics result (life-cycle costs, measures, sensitivity, Monte Carlo) for the command line. */
 export function formatEconomicsSummary(r: EconomicsResult): string {
   const label = new Map(r.options.map((o) => [o.optionId, o.label]));
   const name = (id: string) => label.get(id) ?? id;

@@ -19,6 +19,7 @@ export interface SyntheticPhysicsSpec {
   monthlyWeights?: number[];
 }
 
+/** Invented yearly physics of one option for tests and benchmarks; its water balance closes (B = E/(C − 1) − D, M = E + B + D). */
 export function syntheticPhysics(spec: SyntheticPhysicsSpec): OptionAnnualPhysics {
   const weights = spec.monthlyWeights ?? Array.from({ length: 12 }, () => 1);
   const wSum = weights.reduce((a, b) => a + b, 0);
