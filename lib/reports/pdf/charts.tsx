@@ -62,6 +62,32 @@ function Label({
   );
 }
 
+/** Horizontal gridlines with their value labels left of the plot; the zero line drawn as the axis. */
+function HorizontalGrid({
+  ticks,
+  py,
+  x1,
+  x2,
+  format,
+}: {
+  ticks: number[];
+  py: (v: number) => number;
+  x1: number;
+  x2: number;
+  format: (t: number) => string;
+}) {
+  return (
+    <>
+      {ticks.map((t, i) => (
+        <G key={i}>
+          <Line x1={x1} y1={py(t)} x2={x2} y2={py(t)} stroke={t === 0 ? AXIS : GRID} strokeWidth={0.5} />
+          <Label x={x1 - 4} y={py(t) + 2.2} text={format(t)} anchor="end" />
+        </G>
+      ))}
+    </>
+  );
+}
+
 export interface LegendItem {
   label: string;
   color: string;
@@ -237,19 +263,7 @@ export function LineChart({
   const xTicks = niceTicks(0, xMax, 6).filter((t) => t <= xMax);
   return (
     <Svg width={width} height={height} viewBox={`0 0 ${width} ${height}`}>
-      {yTicks.map((t, i) => (
-        <G key={i}>
-          <Line
-            x1={left}
-            y1={py(t)}
-            x2={width - right}
-            y2={py(t)}
-            stroke={t === 0 ? AXIS : GRID}
-            strokeWidth={0.5}
-          />
-          <Label x={left - 4} y={py(t) + 2.2} text={fmtMoneyShort(t, currency)} anchor="end" />
-        </G>
-      ))}
+      <HorizontalGrid ticks={yTicks} py={py} x1={left} x2={width - right} format={(t) => fmtMoneyShort(t, currency)} />
       {xTicks.map((t, i) => (
         <Label key={i} x={px(t)} y={height - bottom + 10} text={String(t)} anchor="middle" />
       ))}
@@ -294,24 +308,13 @@ export function MonthlyBarsChart({
   const py = (v: number) => top + (1 - v / (yMax || 1)) * plotH;
   return (
     <Svg width={width} height={height} viewBox={`0 0 ${width} ${height}`}>
-      {ticks.map((t, i) => (
-        <G key={i}>
-          <Line
-            x1={left}
-            y1={py(t)}
-            x2={width - right}
-            y2={py(t)}
-            stroke={t === 0 ? AXIS : GRID}
-            strokeWidth={0.5}
-          />
-          <Label
-            x={left - 4}
-            y={py(t) + 2.2}
-            text={fmtNumber(t, t < 10 && t % 1 !== 0 ? 1 : 0)}
-            anchor="end"
-          />
-        </G>
-      ))}
+      <HorizontalGrid
+        ticks={ticks}
+        py={py}
+        x1={left}
+        x2={width - right}
+        format={(t) => fmtNumber(t, t < 10 && t % 1 !== 0 ? 1 : 0)}
+      />
       <Label x={4} y={top + 2} text={unit} />
       {MONTHS.map((m, i) => {
         const gx = left + i * groupW + (groupW - barW * series.length) / 2;
