@@ -43,8 +43,11 @@ const designHeatKW = 72 * CPW * 5;
 describe("Merkel number", () => {
   // Source: CTI ATC-105 four-point Chebyshev rule vs a fine numerical integration (Simpson, 2000
   // intervals) of the same Merkel integral; they agree within ~0.3 % (LoopLedger engineering notes §2).
-  // Domain of real selections: range and approach ≥ 3 K, L/G ≤ 1.5, KaV/L ≤ 2.5. (Close to a pinch in
-  // mid-range, e.g. a 2 K range at L/G 1.9, four points are too few and the rule errs by several per cent.)
+  // Domain of real selections: range and approach ≥ 3 K, L/G ≤ 1.5, KaV/L ≤ 2.0 (typical design Merkel
+  // numbers are about 1–2: common practice, no source). A grid scan found a worst case of 0.24 % there.
+  // Up to KaV/L 2.5 at cold wet-bulbs (5–8 °C) the rule errs by up to 0.35 %: tested separately below.
+  // (Close to a pinch in mid-range, e.g. a 2 K range at L/G 1.9, four points are too few and the rule
+  // errs by several per cent.)
   it("Chebyshev agrees with a fine integration within 0.3 % over typical towers", () => {
     fc.assert(
       fc.property(
@@ -58,8 +61,37 @@ describe("Merkel number", () => {
           const cheb = merkelNumberChebyshev(cold, rangeK, lg, ha, P);
           const fine = merkelNumberNumerical(cold, rangeK, lg, ha, P, 2000);
           fc.pre(Number.isFinite(cheb) && Number.isFinite(fine));
-          fc.pre(fine < 2.5);
+          fc.pre(fine < 2.0);
           expect(Math.abs(cheb / fine - 1)).toBeLessThan(0.003);
+        },
+      ),
+      { numRuns: 300 },
+    );
+  });
+
+  it("stays within 0.4 % up to KaV/L 2.5, where cold wet-bulbs push it past 0.3 %", () => {
+    // Measured here, not from a source: the grid scan's worst case was 0.349 % at wet-bulb 5.5 °C,
+    // range 3.5 K, approach 6.25 K, L/G 1.45 (KaV/L 2.47). The rule's error grows with the curvature of
+    // the saturation curve over the range, which is largest relative to the driving force in cold air.
+    const ha = saturatedAirEnthalpyKJPerKg(5.5, P);
+    const cheb = merkelNumberChebyshev(5.5 + 6.25, 3.5, 1.45, ha, P);
+    const fine = merkelNumberNumerical(5.5 + 6.25, 3.5, 1.45, ha, P, 2000);
+    expect(fine).toBeGreaterThan(2.0);
+    expect(Math.abs(cheb / fine - 1)).toBeGreaterThan(0.003);
+    expect(Math.abs(cheb / fine - 1)).toBeLessThan(0.004);
+    fc.assert(
+      fc.property(
+        fc.double({ min: 5, max: 28, noNaN: true }),
+        fc.double({ min: 3, max: 12, noNaN: true }),
+        fc.double({ min: 3, max: 12, noNaN: true }),
+        fc.double({ min: 0.5, max: 1.5, noNaN: true }),
+        (wb, rangeK, approachK, lg) => {
+          const h = saturatedAirEnthalpyKJPerKg(wb, P);
+          const c = merkelNumberChebyshev(wb + approachK, rangeK, lg, h, P);
+          const f = merkelNumberNumerical(wb + approachK, rangeK, lg, h, P, 2000);
+          fc.pre(Number.isFinite(c) && Number.isFinite(f));
+          fc.pre(f < 2.5);
+          expect(Math.abs(c / f - 1)).toBeLessThan(0.004);
         },
       ),
       { numRuns: 300 },
