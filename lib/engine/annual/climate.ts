@@ -1,0 +1,55 @@
+/**
+ * Pipeline step 1 — climate preparation: the climate as the annual loop walks it, with the entering-air
+ * state (enthalpy, humidity) computed once per record.
+ */
+import { type EnteringAir, enteringAir } from "../air-side";
+import type { ClimateYear } from "../climate/types";
+
+/** The climate as the annual loop walks it, with the entering-air state computed once. */
+export interface PreparedClimate {
+  kind: "hourly" | "bins";
+  count: number;
+  /** 1…12, or 0 for a bin without a month. */
+  month: Int8Array;
+  /** 0…23, or −1 for a bin. */
+  hour: Int8Array;
+  hours: Float64Array;
+  air: EnteringAir[];
+  totalHours: number;
+  /** Bins carry no month: monthly results are spread pro rata by days. */
+  monthsUnknown: boolean;
+}
+
+/** Walk a ClimateYear once: entering-air enthalpy and humidity per record (one hs evaluation each). */
+export function prepareClimate(year: ClimateYear, pPa: number): PreparedClimate {
+  if (year.kind === "hourly") {
+    const n = year.dryBulbC.length;
+    const air: EnteringAir[] = new Array(n);
+    const month = new Int8Array(n);
+    const hour = new Int8Array(n);
+    const hours = new Float64Array(n).fill(1);
+    for (let i = 0; i < n; i++) {
+      month[i] = year.month[i] ?? 1;
+      hour[i] = year.hour[i] ?? 0;
+      air[i] = enteringAir(year.dryBulbC[i] ?? 0, year.wetBulbC[i] ?? 0, pPa);
+    }
+    return { kind: "hourly", count: n, month, hour, hours, air, totalHours: n, monthsUnknown: false };
+  }
+  const n = year.bins.length;
+  const air: EnteringAir[] = new Array(n);
+  const month = new Int8Array(n);
+  const hour = new Int8Array(n).fill(-1);
+  const hours = new Float64Array(n);
+  let total = 0;
+  let unknown = false;
+  for (let i = 0; i < n; i++) {
+    const b = year.bins[i];
+    if (!b) continue;
+    month[i] = b.month ?? 0;
+    if (b.month === undefined) unknown = true;
+    hours[i] = b.hours;
+    total += b.hours;
+    air[i] = enteringAir(b.meanCoincidentDryBulbC, b.wetBulbC, pPa);
+  }
+  return { kind: "bins", count: n, month, hour, hours, air, totalHours: total, monthsUnknown: unknown };
+}

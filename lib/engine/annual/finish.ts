@@ -1,0 +1,136 @@
+/**
+ * Pipeline step 6 — warnings and the option's result: water-side checks (cycles against the chemistry
+ * limit, drift beyond the blowdown), hours that could not hold the set-point, winter cautions, the
+ * scaling indices at the hottest wetted surface and the chemical quantities; assembles
+ * `OptionAnnualPhysics`.
+ */
+import { freezingPointC } from "../glycol";
+import type { WaterInput } from "../input";
+import type { EngineWarning, OptionAnnualPhysics } from "../types";
+import {
+  achievedCycles,
+  chemicalQuantitiesKg,
+  concentrated,
+  langelierIndex,
+  type maximumCyclesFromChemistry,
+  ryznarIndex,
+  saturationPh,
+} from "../water";
+import type { OptionYearTotals } from "./accumulate";
+import type { PreparedOption } from "./options";
+import { round1 } from "./shared";
+
+export function finishOption(
+  po: PreparedOption,
+  t: OptionYearTotals,
+  cycles: number,
+  limit: ReturnType<typeof maximumCyclesFromChemistry>,
+  water: WaterInput,
+  intervalMonths: number,
+  optimal: number | null,
+  warnings: EngineWarning[],
+  cyclesOverridden: boolean,
+): OptionAnnualPhysics {
+  const o = po.input;
+  const w = t.waterM3;
+  const achieved = achievedCycles(w.evaporation, w.blowdown, w.drift);
+  const reportedCycles = Number.isFinite(achieved) && w.makeup > 0 ? achieved : cycles;
+  if (!cyclesOverridden && water.cyclesMode === "entered" && cycles > limit.cycles + 1e-9) {
+    warnings.push({
+      code: "water.cyclesBeyondChemistryLimit",
+      severity: "warning",
+      message: `${round1(cycles)} cycles exceed the ${round1(limit.cycles)} the makeup chemistry allows (${limit.limitingSpecies ?? "—"} limit): scale or corrosion risk unless the treatment programme supports it.`,
+      path: "water.cyclesOfConcentration",
+      optionId: o.id,
+    });
+  }
+  if (w.makeup > 0 && achieved < cycles - 0.05) {
+    warnings.push({
+      code: "water.driftExceedsBlowdown",
+      severity: "info",
+      message: `Drift alone removes more water than the blowdown the cycles need in some hours: the loop achieves ${round1(achieved)} cycles instead of ${round1(cycles)}.`,
+      path: `${po.path}.driftFractionOfFlow`,
+      optionId: o.id,
+    });
+  }
+  if (t.unmetHours > 0) {
+    warnings.push({
+      code: "loop.unmetHours",
+      severity: "warning",
+      message: `${Math.round(t.unmetHours)} h in which the loop could not hold the condensing set-point at full fan speed.`,
+      path: `${po.path}`,
+      optionId: o.id,
+    });
+  }
+  if (t.wetHoursBelowFreezing > 0) {
+    warnings.push({
+      code: "caution.winterOperation",
+      severity: "warning",
+      message: `${Math.round(t.wetHoursBelowFreezing)} h of wet operation below 0 °C: icing of fill, louvres and basin, and freezing of exposed piping must be designed out (basin heat, bypass to the basin, fan de-icing, heat tracing) — follow the manufacturer and local codes.`,
+      path: `${po.path}.basinHeater`,
+      optionId: o.id,
+    });
+  }
+  if (o.kind === "closedCircuitCooler" && Number.isFinite(t.minDryBulbC)) {
+    const fp = freezingPointC(o.cooler.glycol.kind, o.cooler.glycol.massFraction);
+    if (t.minDryBulbC < fp + 2) {
+      warnings.push({
+        code: "caution.coilFreeze",
+        severity: "warning",
+        message: `The outdoor air reaches ${round1(t.minDryBulbC)} °C and the coil fluid freezes near ${round1(fp)} °C: a coil that stands idle or loses flow can burst — use enough glycol, or keep flow and a minimum heat load, or drain the coil; follow the manufacturer.`,
+        path: `${po.path}.cooler.glycol`,
+        optionId: o.id,
+      });
+    }
+  }
+  // Scaling indices at the hottest wetted surface (tower fill inlet / wetted coil).
+  const hottest = Number.isFinite(t.hottestSurfaceC) ? t.hottestSurfaceC : po.designHottestSurfaceC;
+  const recirc = concentrated(water.makeup, cycles);
+  const phs = saturationPh(hottest, recirc.tdsMgPerL, recirc.calciumHardnessMgPerLAsCaCO3, recirc.mAlkalinityMgPerLAsCaCO3);
+  const lsi = langelierIndex(water.recirculatingPh, phs);
+  const rsi = ryznarIndex(water.recirculatingPh, phs);
+  // [practice] treated towers commonly run up to LSI ≈ 2.5 with a scale inhibitor; beyond that, or at a
+  // Ryznar index below 4, scale control needs more than an inhibitor (acid feed, softening, fewer cycles).
+  if (w.makeup > 0 && (lsi > 2.5 || rsi < 4)) {
+    warnings.push({
+      code: "water.scaleForming",
+      severity: "info",
+      message: `At ${round1(hottest)} °C and ${round1(cycles)} cycles the recirculating water is strongly scale-forming (LSI ${lsi.toFixed(2)}, RSI ${rsi.toFixed(2)}): the treatment programme must control it.`,
+      path: "water",
+      optionId: o.id,
+    });
+  }
+  const outflow = w.blowdown + w.drift;
+  const yearFraction = t.hoursTotal / 8760;
+  const wetVolume = w.makeup > 0 ? po.wetLoopVolumeM3 : 0;
+  const chem = chemicalQuantitiesKg(outflow, wetVolume, water.dosing.inhibitorMgPerLOutflow, water.dosing.biocideMgPerLSystemVolume, water.dosing.biocideSlugsPerYear, yearFraction);
+  return {
+    optionId: o.id,
+    kind: o.kind,
+    label: o.label,
+    hoursTotal: t.hoursTotal,
+    heatRejectedKWh: t.heatRejectedKWh,
+    energyKWh: t.energyKWh,
+    energyKWhByMonthHour: t.byMonthHour,
+    waterM3: w,
+    monthly: t.monthly,
+    cyclesOfConcentration: reportedCycles,
+    dryModeHours: t.dryModeHours,
+    unmetHours: t.unmetHours,
+    meanCondensingC: t.meanCondensingC,
+    meanReferenceCondensingC: t.meanReferenceCondensingC,
+    cleaningsPerYear: intervalMonths > 0 ? 12 / intervalMonths : 0,
+    optimalCleaningIntervalMonths: optimal,
+    chemicals: { treatedOutflowM3: outflow, systemVolumeM3: wetVolume, inhibitorKg: chem.inhibitorKg, biocideKg: chem.biocideKg },
+    compressorEnergyKWh: t.compressorKWh,
+    waterChemistry: {
+      hottestWettedSurfaceC: hottest,
+      saturationPh: phs,
+      langelierIndex: lsi,
+      ryznarIndex: rsi,
+      cyclesLimitFromChemistry: limit.cycles,
+      limitingSpecies: limit.limitingSpecies,
+    },
+    warnings,
+  };
+}

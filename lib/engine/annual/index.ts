@@ -1,0 +1,113 @@
+/**
+ * Annual composition: every option's equipment model run over every hour (or bin) of the climate,
+ * summed into `OptionAnnualPhysics`. The pipeline, one file per step:
+ *
+ * 1. climate.ts — climate preparation (entering-air state once per record);
+ * 2. options.ts — option preparation and calibration (tower/cooler, condenser, exchanger, pumps);
+ * 3. record.ts (+ record-tower.ts, record-cooler.ts) — one record per equipment kind: duty Q → required
+ *    condenser entering water for the target condensing temperature (set-point, or the minimum under
+ *    floating head pressure) through the option's (fouled) condenser and exchanger → the tower or cooler
+ *    holds it with its fan control or floats at full speed → condensing temperature, fan, pump, spray and
+ *    heater power, compressor penalty against the clean reference (clean condenser, no exchanger, same
+ *    water from the tower/cooler), evaporation, drift;
+ * 4. accumulate.ts — blowdown, makeup, sewer and the weighting into months; balances close per record:
+ *    M − E − B − D = 0 and heat rejected = duty;
+ * 5. cleaning.ts — the cleaning-interval optimum;
+ * 6. finish.ts — warnings, water chemistry, the option's result.
+ */
+import type { FoulingInput, DutyInput, WaterInput } from "../input";
+import { designHeatRejectionKW, designRefrigerationLoadKW } from "../duty";
+import { optimalCleaningIntervalMonths, monthlyFoulingM2KPerW, peakFoulingM2KPerW, scaleGrowth } from "../fouling";
+import type { EngineWarning, OptionAnnualPhysics } from "../types";
+import { simulateOptionYear } from "./accumulate";
+import { foulingCostPerMonthPerUnit } from "./cleaning";
+import type { PreparedClimate } from "./climate";
+import { type YearContext, compressorModelFromDuty, foulingGrowthFromInput, scenarioCycles } from "./context";
+import { finishOption } from "./finish";
+import type { PreparedOption } from "./options";
+import { sci } from "./shared";
+
+export { type PreparedClimate, prepareClimate } from "./climate";
+export { type Device, type PreparedOption, prepareOption } from "./options";
+export { type YearContext, compressorModelFromDuty, foulingGrowthFromInput, scenarioCycles } from "./context";
+export { type OptionYearTotals, simulateOptionYear } from "./accumulate";
+export { WATER_DENSITY_KG_PER_M3 } from "./shared";
+
+export interface AnnualOptions {
+  cyclesOverride?: number;
+  foulingRateFactor?: number;
+  loadFactor?: number;
+  /** Flat electricity price for the cleaning-interval optimum (0 or undefined: not computed). */
+  electricityPricePerKWh?: number;
+  /** Cache of the energy cost per unit fouling (per option id, per load factor) across re-runs. */
+  foulingCostCache?: Map<string, number>;
+}
+
+/**
+ * All options over the year → OptionAnnualPhysics[]. Pure; the climate is prepared by the caller
+ * (once per analysis) so what-if re-runs skip the psychrometrics of the weather.
+ */
+export function computeOptionsPhysics(
+  prepared: PreparedOption[],
+  climate: PreparedClimate,
+  duty: DutyInput,
+  water: WaterInput,
+  fouling: FoulingInput,
+  pPa: number,
+  opts: AnnualOptions = {},
+): OptionAnnualPhysics[] {
+  const { cycles: baseCycles, limit } = scenarioCycles(water);
+  const cycles = Math.max(opts.cyclesOverride ?? baseCycles, 1.05);
+  const loadFactor = opts.loadFactor ?? 1;
+  const ctx: YearContext = {
+    pPa,
+    climate,
+    duty,
+    designHeatKW: designHeatRejectionKW(duty),
+    refrigerationPerRejection: designRefrigerationLoadKW(duty) / Math.max(designHeatRejectionKW(duty), 1e-9),
+    compressor: compressorModelFromDuty(duty),
+    water,
+    cycles,
+    loadFactor,
+  };
+  const baseGrowth = scaleGrowth(foulingGrowthFromInput(fouling), opts.foulingRateFactor ?? 1);
+  return prepared.map((po) => {
+    const o = po.input;
+    const warnings: EngineWarning[] = [...po.warnings];
+    const isDirect = o.kind === "openTowerDirect";
+    const isPlate = o.kind === "openTowerPlateHx";
+    const growth = isPlate ? scaleGrowth(baseGrowth, o.plateExchanger.foulingGrowthFactor) : baseGrowth;
+    const intervalMonths = isDirect
+      ? fouling.condenserCleaningIntervalMonths
+      : isPlate
+        ? fouling.plateExchangerCleaningIntervalMonths
+        : 0;
+    const monthlyRf = isDirect || isPlate ? monthlyFoulingM2KPerW(growth, intervalMonths) : new Array<number>(12).fill(0);
+    const totals = simulateOptionYear(po, ctx, monthlyRf);
+
+    let optimal: number | null = null;
+    if ((isDirect || isPlate) && (opts.electricityPricePerKWh ?? 0) > 0) {
+      const s = foulingCostPerMonthPerUnit(po, ctx, growth, intervalMonths, fouling, opts);
+      optimal = optimalCleaningIntervalMonths(growth, o.costs.upkeep.cleaningCostPerEvent, s);
+      if (optimal === null && o.costs.upkeep.cleaningCostPerEvent > 0 && s > 0) {
+        warnings.push({
+          code: "fouling.cleaningNeverPaysByEnergy",
+          severity: "info",
+          message: "With this asymptotic fouling the energy saved never repays a cleaning: clean on condition (inspection, eddy-current results) rather than on energy.",
+          path: "fouling",
+          optionId: o.id,
+        });
+      }
+    }
+    if ((isDirect || isPlate) && peakFoulingM2KPerW(growth, intervalMonths) > fouling.limitM2KPerW * (1 + 1e-6)) {
+      warnings.push({
+        code: "fouling.exceedsLimit",
+        severity: "warning",
+        message: `Fouling reaches ${sci(peakFoulingM2KPerW(growth, intervalMonths))} m²·K/W before each cleaning, above the limit of ${sci(fouling.limitM2KPerW)} m²·K/W: clean more often.`,
+        path: isDirect ? "fouling.condenserCleaningIntervalMonths" : "fouling.plateExchangerCleaningIntervalMonths",
+        optionId: o.id,
+      });
+    }
+    return finishOption(po, totals, cycles, limit, water, intervalMonths, optimal, warnings, opts.cyclesOverride !== undefined);
+  });
+}

@@ -1,0 +1,217 @@
+/**
+ * Pipeline step 2 — option preparation and calibration: each option's tower or cooler, condenser and
+ * plate exchanger calibrated once on their design points, the constant pump powers, and the design-point
+ * sanity checks (as warnings). Independent of the what-if overrides.
+ */
+import { calibrateCondenserCleanUaKWPerK } from "../condenser";
+import { designHeatRejectionKW } from "../duty";
+import type { FanModel } from "../fans";
+import { type CoolerModel, calibrateCooler } from "../fluid-cooler";
+import { fluidProperties } from "../glycol";
+import type { DutyInput, FoulingInput, OptionInput } from "../input";
+import { calibratePlateExchangerUaKWPerK } from "../plate-exchanger";
+import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
+import { glycolPumpPowerKW, pumpPowerKW, waterHeadFromPressureDropM } from "../pumps";
+import { type TowerModel, calibrateTower } from "../tower";
+import type { EngineWarning } from "../types";
+import { WATER_DENSITY_KG_PER_M3, round1 } from "./shared";
+
+const CPW = waterSpecificHeatKJPerKgK;
+
+export type Device = { kind: "tower"; model: TowerModel } | { kind: "cooler"; model: CoolerModel };
+
+/** An option with every model calibrated once. */
+export interface PreparedOption {
+  input: OptionInput;
+  path: string;
+  fan: FanModel;
+  device: Device;
+  condenserCleanUaKWPerK: number;
+  condenserCleanUWPerM2K: number;
+  /** ṁ·cp through the condenser, kW/K. */
+  condenserCapacityKWPerK: number;
+  /** Constant fouling of a condenser on a closed loop (plate and cooler options), m²·K/W. */
+  condenserFixedFoulingM2KPerW: number;
+  plate?: { cleanUaKWPerK: number; cleanUWPerM2K: number; hotCapacityKWPerK: number; coldCapacityKWPerK: number };
+  condenserPumpKW: number;
+  secondaryPumpKW: number;
+  sprayPumpKW: number;
+  /** Circulating water whose drift counts: tower flow, or the cooler's spray flow, kg/s. */
+  driftFlowKgPerS: number;
+  wetLoopVolumeM3: number;
+  /** Hot-water (tower) or entering-fluid (cooler) temperature at design, °C. */
+  designHottestSurfaceC: number;
+  warnings: EngineWarning[];
+}
+
+function fanModel(o: OptionInput): FanModel {
+  return {
+    designPowerKW: o.fan.designPowerKW,
+    control: o.fan.control,
+    minSpeedFraction: o.fan.minSpeedFraction,
+    powerFloorFraction: o.fan.powerFloorFraction,
+    lowSpeedFraction: o.fan.lowSpeedFraction,
+    naturalDraftAirflowFraction: o.fan.naturalDraftAirflowFraction,
+  };
+}
+
+function calibrateCondenser(
+  o: OptionInput,
+  path: string,
+  designHeatKW: number,
+  defaultEnteringC: number,
+  capacityKWPerK: number,
+  warnings: EngineWarning[],
+): number {
+  const entering = o.condenser.designEnteringWaterC ?? defaultEnteringC;
+  let ua = calibrateCondenserCleanUaKWPerK(
+    o.condenser.designCondensingC,
+    entering,
+    designHeatKW,
+    capacityKWPerK,
+    o.condenser.cleanUWPerM2K,
+    o.condenser.designFoulingM2KPerW,
+  );
+  if (!Number.isFinite(ua)) {
+    ua = -capacityKWPerK * Math.log(0.05);
+    warnings.push({
+      code: "condenser.designInfeasible",
+      severity: "warning",
+      message: `A condensing temperature of ${o.condenser.designCondensingC} °C cannot reject ${Math.round(designHeatKW)} kW into ${round1(entering)} °C water at this flow (it needs more than the water's temperature rise); a condenser effectiveness of 0.95 was assumed.`,
+      path: `${path}.condenser.designCondensingC`,
+      optionId: o.id,
+    });
+  }
+  return ua;
+}
+
+/**
+ * Calibrate an option's tower or cooler, condenser and exchanger on their design points and work out
+ * the constant pump powers. Design-point sanity checks become warnings.
+ */
+export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fouling: FoulingInput, pPa: number): PreparedOption {
+  const path = `options.${index}`;
+  const warnings: EngineWarning[] = [];
+  const qDesign = designHeatRejectionKW(duty);
+  const fan = fanModel(o);
+  const volumeFromFlow = (kgPerS: number): number => (kgPerS * 180) / WATER_DENSITY_KG_PER_M3;
+  if (o.kind === "closedCircuitCooler") {
+    const { model, warnings: w } = calibrateCooler(o.cooler, pPa, `${path}.cooler`);
+    warnings.push(...w.map((x) => ({ ...x, optionId: o.id })));
+    const c = o.cooler;
+    const meanC = 0.5 * (c.enteringFluidC + c.leavingFluidC);
+    const loop = fluidProperties(c.glycol.kind, c.glycol.massFraction, meanC);
+    const water = fluidProperties("none", 0, meanC);
+    const cw = model.fluidCapacityKWPerK;
+    const ua = calibrateCondenser(o, path, qDesign, c.leavingFluidC, cw, warnings);
+    designChecks(warnings, o, path, qDesign, model.fluidCapacityKWPerK * (c.enteringFluidC - c.leavingFluidC), c.leavingFluidC - c.designWetBulbC, 2.5, "cooler");
+    const sprayKW = o.sprayPump.powerKW ?? pumpPowerKW(o.sprayPump.flowKgPerS, o.sprayPump.headM, o.sprayPump.efficiency);
+    return {
+      input: o,
+      path,
+      fan,
+      device: { kind: "cooler", model },
+      condenserCleanUaKWPerK: ua,
+      condenserCleanUWPerM2K: o.condenser.cleanUWPerM2K,
+      condenserCapacityKWPerK: cw,
+      condenserFixedFoulingM2KPerW: fouling.closedLoopFoulingM2KPerW,
+      condenserPumpKW:
+        c.glycol.kind === "none"
+          ? pumpPowerKW(c.fluidFlowKgPerS, o.condenserPump.headM, o.condenserPump.efficiency)
+          : glycolPumpPowerKW(c.fluidFlowKgPerS, o.condenserPump.headM, o.condenserPump.efficiency, loop, water),
+      secondaryPumpKW: 0,
+      sprayPumpKW: sprayKW,
+      driftFlowKgPerS: o.sprayPump.flowKgPerS,
+      wetLoopVolumeM3: o.wetLoopVolumeM3 ?? volumeFromFlow(o.sprayPump.flowKgPerS),
+      designHottestSurfaceC: c.enteringFluidC,
+      warnings,
+    };
+  }
+  const { model, warnings: w } = calibrateTower(o.tower, pPa, `${path}.tower`);
+  warnings.push(...w.map((x) => ({ ...x, optionId: o.id })));
+  const t = o.tower;
+  const towerC = t.waterFlowKgPerS * CPW;
+  designChecks(warnings, o, path, qDesign, towerC * (t.enteringWaterC - t.leavingWaterC), t.leavingWaterC - t.designWetBulbC, 2, "tower");
+  if (o.kind === "openTowerDirect") {
+    const ua = calibrateCondenser(o, path, qDesign, t.leavingWaterC, towerC, warnings);
+    return {
+      input: o,
+      path,
+      fan,
+      device: { kind: "tower", model },
+      condenserCleanUaKWPerK: ua,
+      condenserCleanUWPerM2K: o.condenser.cleanUWPerM2K,
+      condenserCapacityKWPerK: towerC,
+      condenserFixedFoulingM2KPerW: 0,
+      condenserPumpKW: pumpPowerKW(t.waterFlowKgPerS, o.condenserPump.headM, o.condenserPump.efficiency),
+      secondaryPumpKW: 0,
+      sprayPumpKW: 0,
+      driftFlowKgPerS: t.waterFlowKgPerS,
+      wetLoopVolumeM3: o.wetLoopVolumeM3 ?? volumeFromFlow(t.waterFlowKgPerS),
+      designHottestSurfaceC: t.enteringWaterC,
+      warnings,
+    };
+  }
+  const px = o.plateExchanger;
+  const cleanFlow = px.cleanSideFlowKgPerS ?? t.waterFlowKgPerS;
+  const hotC = cleanFlow * CPW;
+  const uaHx = calibratePlateExchangerUaKWPerK(qDesign, px.designApproachK, hotC, towerC);
+  if (px.designApproachK < 0.5) {
+    warnings.push({
+      code: "plateExchanger.approachImplausiblySmall",
+      severity: "warning",
+      message: `A plate-exchanger approach of ${px.designApproachK} K is implausibly small for a screening study (1–2 K is usual).`,
+      path: `${path}.plateExchanger.designApproachK`,
+      optionId: o.id,
+    });
+  }
+  const ua = calibrateCondenser(o, path, qDesign, t.leavingWaterC + px.designApproachK, hotC, warnings);
+  return {
+    input: o,
+    path,
+    fan,
+    device: { kind: "tower", model },
+    condenserCleanUaKWPerK: ua,
+    condenserCleanUWPerM2K: o.condenser.cleanUWPerM2K,
+    condenserCapacityKWPerK: hotC,
+    condenserFixedFoulingM2KPerW: fouling.closedLoopFoulingM2KPerW,
+    plate: { cleanUaKWPerK: uaHx, cleanUWPerM2K: px.cleanUWPerM2K, hotCapacityKWPerK: hotC, coldCapacityKWPerK: towerC },
+    condenserPumpKW: pumpPowerKW(cleanFlow, o.condenserPump.headM + waterHeadFromPressureDropM(px.cleanSidePressureDropKPa), o.condenserPump.efficiency),
+    secondaryPumpKW: pumpPowerKW(t.waterFlowKgPerS, o.towerPump.headM + waterHeadFromPressureDropM(px.towerSidePressureDropKPa), o.towerPump.efficiency),
+    sprayPumpKW: 0,
+    driftFlowKgPerS: t.waterFlowKgPerS,
+    wetLoopVolumeM3: o.wetLoopVolumeM3 ?? volumeFromFlow(t.waterFlowKgPerS),
+    designHottestSurfaceC: t.enteringWaterC,
+    warnings,
+  };
+}
+
+function designChecks(
+  warnings: EngineWarning[],
+  o: OptionInput,
+  path: string,
+  dutyKW: number,
+  selectionKW: number,
+  approachK: number,
+  minApproachK: number,
+  what: "tower" | "cooler",
+): void {
+  if (approachK < minApproachK) {
+    warnings.push({
+      code: `${what}.approachImplausiblySmall`,
+      severity: "warning",
+      message: `The ${what} selection's approach to the design wet-bulb is ${round1(approachK)} K: below ${minApproachK} K is implausibly small for a real selection; check the rating.`,
+      path: `${path}.${what}.leavingWaterC`.replace("cooler.leavingWaterC", "cooler.leavingFluidC"),
+      optionId: o.id,
+    });
+  }
+  if (dutyKW > 0 && Math.abs(selectionKW / dutyKW - 1) > 0.1) {
+    warnings.push({
+      code: `${what}.selectionDutyMismatch`,
+      severity: "info",
+      message: `The ${what} is rated for ${Math.round(selectionKW)} kW at its design point, the duty is ${Math.round(dutyKW)} kW; the model uses the rating as the unit's characteristic and the duty as the load.`,
+      path: `${path}.${what}`,
+      optionId: o.id,
+    });
+  }
+}

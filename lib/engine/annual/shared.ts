@@ -1,0 +1,12 @@
+/** Shared constants and small formatting helpers of the annual pipeline. */
+
+/** Density of the metered water, kg/m³ (≈ 20 °C). */
+export const WATER_DENSITY_KG_PER_M3 = 998.2;
+export const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+export function round1(x: number): number {
+  return Math.round(x * 10) / 10;
+}
+export function sci(x: number): string {
+  return x.toExponential(2);
+}
