@@ -1,8 +1,16 @@
 /**
  * Air-side state of an evaporative device: entering air from the weather, leaving air saturated at
  * the enthalpy the energy balance gives (Merkel's assumption), and the water evaporated.
+ *
+ * Two entering-air enthalpies, each used where its method says:
+ *  - the rating (Merkel number, enthalpy-potential effectiveness) takes the saturated enthalpy at the
+ *    entering wet-bulb, hs(t*), as the cooling-tower test code does (CTI ATC-105 practice);
+ *  - the water evaporated (the air-side mass and energy balance) starts from the true enthalpy of the
+ *    entering air, h(t, W) = 1.006·t + W·(2501 + 1.86·t) (ASHRAE Fundamentals 2017 ch.1 eq. 32).
+ * They differ by (Ws* − W)·hw(t*) (the adiabatic-saturation balance): ~0.4 kJ/kg at 35/25.6 °C, which
+ * is ~1 % of the evaporation in warm dry air.
  */
-import { saturatedAirEnthalpyKJPerKg } from "./psychrometrics";
+import { moistAirEnthalpyKJPerKg, saturatedAirEnthalpyKJPerKg } from "./psychrometrics";
 import {
   humidityRatioFromWetBulbAndWs,
   saturatedEnthalpySlopeKJPerKgK,
@@ -70,8 +78,10 @@ export function tableSaturatedTemperatureC(table: SaturationTable, hKJPerKg: num
 export interface EnteringAir {
   dryBulbC: number;
   wetBulbC: number;
-  /** hs(wet-bulb): the Merkel entering-air enthalpy (CTI practice), kJ/kg dry air. */
+  /** hs(wet-bulb): the Merkel entering-air enthalpy of the rating (CTI practice), kJ/kg dry air. */
   enthalpyKJPerKg: number;
+  /** h(dry-bulb, W): the true entering-air enthalpy of the mass and energy balance, kJ/kg dry air. */
+  moistEnthalpyKJPerKg: number;
   /** dhs/dT at the wet-bulb, kJ/(kg·K). */
   slopeAtWetBulbKJPerKgK: number;
   /** Humidity ratio of the entering air from dry-bulb and wet-bulb, kg/kg. */
@@ -84,8 +94,9 @@ export interface EnteringAir {
 
 /**
  * Entering-air state from dry-bulb and wet-bulb at pressure p: one saturated-enthalpy evaluation.
- * ha,in = hs(t*) (CTI practice: the entering air enthalpy is taken at saturation at its wet-bulb);
- * Ws* recovered from hs(t*) exactly; W from the wet-bulb relation (ASHRAE Fundamentals 2017 ch.1 eq. 33/35).
+ * ha,in = hs(t*) for the rating (CTI practice: the entering air enthalpy is taken at saturation at its
+ * wet-bulb); Ws* recovered from hs(t*) exactly; W from the wet-bulb relation (ASHRAE Fundamentals 2017
+ * ch.1 eq. 33/35); the true enthalpy h(t, W) (eq. 32) for the evaporation balance.
  */
 export function enteringAir(dryBulbC: number, wetBulbC: number, pPa: number): EnteringAir {
   const twb = Math.min(wetBulbC, dryBulbC);
@@ -96,6 +107,7 @@ export function enteringAir(dryBulbC: number, wetBulbC: number, pPa: number): En
     dryBulbC,
     wetBulbC: twb,
     enthalpyKJPerKg: hs,
+    moistEnthalpyKJPerKg: moistAirEnthalpyKJPerKg(dryBulbC, w),
     slopeAtWetBulbKJPerKgK: saturatedEnthalpySlopeKJPerKgK(twb, hs),
     humidityRatio: w,
     moistSpecificHeatKJPerKgK: 1.006 + 1.86 * w,
@@ -124,13 +136,16 @@ export function saturatedTemperatureFromEnthalpyC(hKJPerKg: number, pPa: number,
 
 /**
  * Water evaporated into an air stream that leaves saturated at the enthalpy of the energy balance:
- * ha,out = ha,in + Q/G;  Wout = Ws(Tout) with hs(Tout) = ha,out;  E = G·(Wout − Win), kg/s.
- * (Merkel's assumption of saturated leaving air; in hot dry air E can exceed Q/hfg because the air's
- * sensible heat also evaporates water.) Q in kW, G in kg dry air/s.
+ * ha,out = h(t, W)in + Q/G;  Wout = Ws(Tout) with hs(Tout) = ha,out;  E = G·(Wout − Win), kg/s.
+ * The entering enthalpy is the air's true one, h(dry-bulb, W), not hs at the wet-bulb (see the module
+ * comment). Merkel's assumption of saturated leaving air; in hot dry air E can exceed Q/hfg because the
+ * air's sensible heat also evaporates water. Q in kW, G in kg dry air/s.
+ * Check (issue 10, ASHRAE psychrometrics, 14.696 psia, L/G 1.2, range 10 °F): 95/78 °F → E = 1.037 %
+ * of the circulating flow.
  */
 export function evaporationKgPerS(heatKW: number, airFlowKgPerS: number, pPa: number, air: EnteringAir): number {
   if (!(heatKW > 0) || !(airFlowKgPerS > 0)) return 0;
-  const hOut = air.enthalpyKJPerKg + heatKW / airFlowKgPerS;
+  const hOut = air.moistEnthalpyKJPerKg + heatKW / airFlowKgPerS;
   const tOut = saturatedTemperatureFromEnthalpyC(hOut, pPa, air);
   const wOut = saturationHumidityRatioFromEnthalpy(tOut, hOut);
   const e = airFlowKgPerS * (wOut - air.humidityRatio);

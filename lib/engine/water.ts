@@ -6,7 +6,7 @@
  * Cycles limit from the makeup chemistry: Cmax = min over species (limit/makeup concentration).
  * Scaling indices at the hottest wetted surface: Langelier (1936) and Ryznar (1944) with the
  * saturation pH by the standard (Carrier 1965) approximation
- *   pHs = (9.3 + A + B) − (C + D), A = (log10 TDS − 1)/10, B = −13.12·log10(T + 273) + 34.55,
+ *   pHs = (9.3 + A + B) − (C + D), A = (log10 TDS − 1)/10, B = −13.12·log10(T + 273.15) + 34.55,
  *   C = log10[Ca as CaCO3] − 0.4, D = log10[M-alkalinity as CaCO3]   (mg/L, °C).
  */
 
@@ -81,7 +81,7 @@ export function sewerBilled(makeup: number, evaporation: number, evaporationCred
  */
 export function saturationPh(tempC: number, tdsMgPerL: number, calciumMgPerLAsCaCO3: number, alkalinityMgPerLAsCaCO3: number): number {
   const a = (Math.log10(Math.max(tdsMgPerL, 1)) - 1) / 10;
-  const b = -13.12 * Math.log10(tempC + 273) + 34.55;
+  const b = -13.12 * Math.log10(tempC + 273.15) + 34.55;
   const c = Math.log10(Math.max(calciumMgPerLAsCaCO3, 0.01)) - 0.4;
   const d = Math.log10(Math.max(alkalinityMgPerLAsCaCO3, 0.01));
   return 9.3 + a + b - (c + d);

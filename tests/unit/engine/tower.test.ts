@@ -199,7 +199,7 @@ describe("tower control over an hour", () => {
 
 describe("evaporation", () => {
   // Reference: the same air-side balance evaluated with psychrolib (the ASHRAE-formula library):
-  // exit air saturated at ha,in + Q/G, E = G·(Wout − Win).
+  // exit air saturated at h(t, W)in + Q/G with the TRUE entering-air enthalpy, E = G·(Wout − Win).
   it("matches an independent psychrolib evaluation of E = G·(Wout − Win)", () => {
     psychrolib.SetUnitSystem(psychrolib.SI);
     const db = 32;
@@ -207,7 +207,8 @@ describe("evaporation", () => {
     const air = enteringAir(db, wb, P);
     const r = solveTowerHour(model, vsd, air, designHeatKW, 28.3, P);
     const g = r.airflowFraction * model.designAirFlowKgPerS;
-    const hIn = psychrolib.GetSatAirEnthalpy(wb, P) / 1000;
+    const wIn = psychrolib.GetHumRatioFromTWetBulb(db, wb, P);
+    const hIn = psychrolib.GetMoistAirEnthalpy(db, wIn) / 1000;
     const hOut = hIn + designHeatKW / g;
     let lo = wb;
     let hi = 60;
@@ -217,7 +218,6 @@ describe("evaporation", () => {
       else hi = mid;
     }
     const wOut = psychrolib.GetSatHumRatio(lo, P);
-    const wIn = psychrolib.GetHumRatioFromTWetBulb(db, wb, P);
     expect(r.evaporationKgPerS / (g * (wOut - wIn))).toBeCloseTo(1, 3);
   });
 

@@ -86,9 +86,16 @@ describe("scaling indices", () => {
     expect(Math.abs(saturationPh(25, tds, ca, alk) - thermo)).toBeLessThan(0.25);
   });
 
-  // Source: Ryznar (1944): RSI = 2·pHs − pH.
-  it("Ryznar index", () => {
-    const phs = saturationPh(35, 1800, 500, 375);
-    expect(ryznarIndex(8.4, phs)).toBeCloseTo(2 * phs - 8.4, 12);
+  // Source: issue check value (issue 10), Langelier (1936) saturation pH in the standard A–D
+  // approximation with the absolute temperature T + 273.15 K, Ryznar (1944) RSI = 2·pHs − pH:
+  // pH 7.5, TDS 500 mg/L, 25 °C, Ca hardness 200, M-alkalinity 150 mg/L as CaCO3 →
+  // pHs 7.4782, LSI 0.0218, RSI 7.4564. Hand check: A = (log10 500 − 1)/10 = 0.16990,
+  // B = −13.12·log10 298.15 + 34.55 = 2.08542, C = log10 200 − 0.4 = 1.90103, D = log10 150 = 2.17609.
+  // With T + 273 instead, pHs would be 7.4811 (outside the 5e−5 tolerance).
+  it("saturation pH, LSI and RSI reproduce the issue's check values", () => {
+    const phs = saturationPh(25, 500, 200, 150);
+    expect(Math.abs(phs - 7.4782)).toBeLessThan(5e-5);
+    expect(Math.abs(langelierIndex(7.5, phs) - 0.0218)).toBeLessThan(5e-5);
+    expect(Math.abs(ryznarIndex(7.5, phs) - 7.4564)).toBeLessThan(5e-5);
   });
 });
