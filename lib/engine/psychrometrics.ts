@@ -11,6 +11,7 @@
  * results sit ~0.4 % below the tabulated saturation values. That is the Handbook's own convention.
  */
 import psychrolib from "psychrolib";
+import { logSaturationPressureSlopePerK } from "./saturation";
 
 /** Standard atmosphere at sea level, Pa (ASHRAE Fundamentals 2017 ch.1 Table 1). */
 export const STANDARD_ATMOSPHERE_PA = 101325;
@@ -19,11 +20,12 @@ export const STANDARD_ATMOSPHERE_PA = 101325;
  * Counts of the expensive primitive, read by benchmarks. A plain object rather than a closure so the
  * increment in the hot path stays a single property write.
  */
-export const psychroCounters = { saturatedEnthalpyCalls: 0 };
+export const psychroCounters = { saturatedEnthalpyCalls: 0, exactSaturatedEnthalpyCalls: 0 };
 
 /** Zero the counters (benchmarks call it before a measured run). */
 export function resetPsychroCounters(): void {
   psychroCounters.saturatedEnthalpyCalls = 0;
+  psychroCounters.exactSaturatedEnthalpyCalls = 0;
 }
 
 /**
@@ -58,21 +60,7 @@ export function pressureFromElevationPa(elevationM: number): number {
  * Source: ASHRAE Fundamentals 2017 ch.1 eqs. 5–6. Valid −100…200 °C.
  */
 export function saturationVaporPressurePa(tC: number): number {
-  const t = tC + KELVIN_OFFSET;
-  if (tC > TRIPLE_POINT_C) {
-    return Math.exp(
-      -5.8002206e3 / t +
-        1.3914993 +
-        t * (-4.8640239e-2 + t * (4.1764768e-5 + t * -1.4452093e-8)) +
-        6.5459673 * Math.log(t),
-    );
-  }
-  return Math.exp(
-    -5.6745359e3 / t +
-      6.3925247 +
-      t * (-9.677843e-3 + t * (6.2215701e-7 + t * (2.0747825e-9 + t * -9.484024e-13))) +
-      4.1635019 * Math.log(t),
-  );
+  return Math.exp(lnSaturationPressure(tC + KELVIN_OFFSET, !(tC > TRIPLE_POINT_C)));
 }
 
 /**
@@ -103,36 +91,134 @@ export function moistAirEnthalpyKJPerKg(tC: number, wKgPerKg: number): number {
 }
 
 /**
- * Enthalpy of saturated air at temperature t (the hs of Merkel's equation), kJ/kg dry air.
- * hs = 1.006·t + Ws·(2501 + 1.86·t), Ws = 0.621945·pws/(p − pws), pws from Hyland–Wexler (eq. 6).
- * Source: ASHRAE Fundamentals 2017 ch.1 eqs. 6, 23, 32.
- *
- * The hot path of the tower and cooler solvers: one exp and one log, no allocation. Each call is
- * counted in `psychroCounters.saturatedEnthalpyCalls`. Where the water would boil at the given
- * pressure (pws ≥ p) the vapour pressure is capped at 99 % of p so solvers get a large finite value.
+ * ln pws(T) of the Hyland–Wexler correlations, T in K: over water (eq. 6) or over ice (eq. 5).
+ * Source: ASHRAE Fundamentals 2017 ch.1 eqs. 5–6.
  */
-export function saturatedAirEnthalpyKJPerKg(tC: number, pPa: number): number {
-  psychroCounters.saturatedEnthalpyCalls++;
-  const t = tC + KELVIN_OFFSET;
-  let pws: number;
-  if (tC > TRIPLE_POINT_C) {
-    pws = Math.exp(
-      -5.8002206e3 / t +
-        1.3914993 +
-        t * (-4.8640239e-2 + t * (4.1764768e-5 + t * -1.4452093e-8)) +
-        6.5459673 * Math.log(t),
-    );
-  } else {
-    pws = Math.exp(
-      -5.6745359e3 / t +
+function lnSaturationPressure(t: number, overIce: boolean): number {
+  return overIce
+    ? -5.6745359e3 / t +
         6.3925247 +
         t * (-9.677843e-3 + t * (6.2215701e-7 + t * (2.0747825e-9 + t * -9.484024e-13))) +
-        4.1635019 * Math.log(t),
-    );
-  }
+        4.1635019 * Math.log(t)
+    : -5.8002206e3 / t +
+        1.3914993 +
+        t * (-4.8640239e-2 + t * (4.1764768e-5 + t * -1.4452093e-8)) +
+        6.5459673 * Math.log(t);
+}
+
+/** hs and dhs/dT on one branch (water or ice) of the saturation curve, kJ/kg and kJ/(kg·K). */
+function saturatedEnthalpyOnBranch(tC: number, pPa: number, overIce: boolean): { hs: number; slope: number } {
+  const t = tC + KELVIN_OFFSET;
+  const pws = Math.exp(lnSaturationPressure(t, overIce));
+  const capped = pws >= 0.99 * pPa;
+  const pw = capped ? 0.99 * pPa : pws;
+  const ws = (MOLAR_MASS_RATIO * pw) / (pPa - pw);
+  const dWs = capped ? 0 : ((MOLAR_MASS_RATIO * pPa) / ((pPa - pw) * (pPa - pw))) * pw * logSaturationPressureSlopePerK(tC, overIce);
+  return { hs: 1.006 * tC + ws * (2501 + 1.86 * tC), slope: 1.006 + 1.86 * ws + (2501 + 1.86 * tC) * dWs };
+}
+
+/**
+ * Enthalpy of saturated air at temperature t by the Handbook formulas, evaluated in full (one exp, one
+ * log), kJ/kg dry air. hs = 1.006·t + Ws·(2501 + 1.86·t), Ws = 0.621945·pws/(p − pws), pws from
+ * Hyland–Wexler (eq. 6 over water above 0.01 °C, eq. 5 over ice at and below).
+ * Source: ASHRAE Fundamentals 2017 ch.1 eqs. 5–6, 23, 32. Where the water would boil at the given
+ * pressure (pws ≥ p) the vapour pressure is capped at 99 % of p so solvers get a large finite value.
+ * Builds the saturation tables and serves the temperatures outside them; counted in
+ * `psychroCounters.exactSaturatedEnthalpyCalls`.
+ */
+export function saturatedAirEnthalpyExactKJPerKg(tC: number, pPa: number): number {
+  psychroCounters.exactSaturatedEnthalpyCalls++;
+  const t = tC + KELVIN_OFFSET;
+  const pws = Math.exp(lnSaturationPressure(t, !(tC > TRIPLE_POINT_C)));
   const pw = pws < 0.99 * pPa ? pws : 0.99 * pPa;
   const ws = (MOLAR_MASS_RATIO * pw) / (pPa - pw);
   return 1.006 * tC + ws * (2501 + 1.86 * tC);
+}
+
+/**
+ * Saturated-air enthalpy tabulated once per pressure: nodes every 0.5 K from −39.99 °C so that the
+ * triple point 0.01 °C is a node (the ice and water branches never share an interval), up to 90.01 °C or
+ * the last node where pws ≤ 0.5·p, whichever is lower. On each interval a cubic Hermite polynomial through
+ * the end values and the end slopes of its own branch (analytic dhs/dT). Interpolation error
+ * ≤ h⁴·max|hs⁗|/384 ≈ 1e−5 kJ/kg at h = 0.5 K (checked against psychrolib in the tests).
+ * Coefficients interleaved per interval: c0 + u·(c1 + u·(c2 + u·c3)), u ∈ [0, 1).
+ */
+interface SaturatedEnthalpyTable {
+  pressurePa: number;
+  intervals: number;
+  coefficients: Float64Array;
+}
+
+const HS_TABLE_START_C = TRIPLE_POINT_C - 80 * 0.5;
+const HS_TABLE_STEP_K = 0.5;
+const HS_TABLE_MAX_INTERVALS = 180;
+
+function buildSaturatedEnthalpyTable(pPa: number): SaturatedEnthalpyTable {
+  const c = new Float64Array(4 * HS_TABLE_MAX_INTERVALS);
+  const h = HS_TABLE_STEP_K;
+  let intervals = 0;
+  for (let i = 0; i < HS_TABLE_MAX_INTERVALS; i++) {
+    const t0 = HS_TABLE_START_C + i * h;
+    const t1 = t0 + h;
+    if (saturationVaporPressurePa(t1) > 0.5 * pPa) break;
+    psychroCounters.exactSaturatedEnthalpyCalls += 2;
+    // The interval (t0, t1] lies on one branch: ice up to the triple point, water above it.
+    const overIce = t1 <= TRIPLE_POINT_C + 1e-9;
+    const a = saturatedEnthalpyOnBranch(t0, pPa, overIce);
+    const b = saturatedEnthalpyOnBranch(t1, pPa, overIce);
+    const d0 = a.slope * h;
+    const d1 = b.slope * h;
+    c[4 * i] = a.hs;
+    c[4 * i + 1] = d0;
+    c[4 * i + 2] = 3 * (b.hs - a.hs) - 2 * d0 - d1;
+    c[4 * i + 3] = 2 * (a.hs - b.hs) + d0 + d1;
+    intervals = i + 1;
+  }
+  return { pressurePa: pPa, intervals, coefficients: c };
+}
+
+const hsTables = new Map<number, SaturatedEnthalpyTable>();
+let currentHsTable: SaturatedEnthalpyTable = buildSaturatedEnthalpyTable(STANDARD_ATMOSPHERE_PA);
+hsTables.set(STANDARD_ATMOSPHERE_PA, currentHsTable);
+
+function hsTableFor(pPa: number): SaturatedEnthalpyTable {
+  let t = hsTables.get(pPa);
+  if (!t) {
+    if (hsTables.size >= 32) hsTables.clear();
+    t = buildSaturatedEnthalpyTable(pPa);
+    hsTables.set(pPa, t);
+  }
+  currentHsTable = t;
+  return t;
+}
+
+/**
+ * Enthalpy of saturated air at temperature t (the hs of Merkel's equation), kJ/kg dry air: the
+ * formula of `saturatedAirEnthalpyExactKJPerKg` (ASHRAE Fundamentals 2017 ch.1 eqs. 5–6, 23, 32) read
+ * from its per-pressure cubic table (within 1e−4 kJ/kg of the formula, see the table's comment), and
+ * evaluated in full outside the table.
+ *
+ * The hot path of the tower and cooler solvers: no exp, no log, no allocation. Each call is counted in
+ * `psychroCounters.saturatedEnthalpyCalls` (the count of hs values the solvers ask for).
+ */
+export function saturatedAirEnthalpyKJPerKg(tC: number, pPa: number): number {
+  psychroCounters.saturatedEnthalpyCalls++;
+  const table = currentHsTable.pressurePa === pPa ? currentHsTable : hsTableFor(pPa);
+  const x = (tC - HS_TABLE_START_C) / HS_TABLE_STEP_K;
+  const i = Math.floor(x);
+  if (!(i >= 0 && i < table.intervals)) {
+    psychroCounters.saturatedEnthalpyCalls--;
+    return saturatedAirEnthalpyExactKJPerKgCounted(tC, pPa);
+  }
+  const u = x - i;
+  const c = table.coefficients;
+  const k = 4 * i;
+  return c[k]! + u * (c[k + 1]! + u * (c[k + 2]! + u * c[k + 3]!));
+}
+
+function saturatedAirEnthalpyExactKJPerKgCounted(tC: number, pPa: number): number {
+  psychroCounters.saturatedEnthalpyCalls++;
+  return saturatedAirEnthalpyExactKJPerKg(tC, pPa);
 }
 
 function clampFraction(x: number): number {

@@ -13,12 +13,13 @@ const MOLAR_MASS_RATIO = 0.621945;
 const KELVIN_OFFSET = 273.15;
 
 /**
- * d(ln pws)/dT of the Hyland–Wexler saturation pressure, 1/K (over water above 0.01 °C, over ice below).
+ * d(ln pws)/dT of the Hyland–Wexler saturation pressure, 1/K (over water above 0.01 °C, over ice at
+ * and below; `overIce` picks the branch explicitly, e.g. for the one-sided slopes at the triple point).
  * Source: derivative of ASHRAE Fundamentals 2017 ch.1 eqs. 5 and 6.
  */
-export function logSaturationPressureSlopePerK(tC: number): number {
+export function logSaturationPressureSlopePerK(tC: number, overIce = !(tC > 0.01)): number {
   const t = tC + KELVIN_OFFSET;
-  if (tC > 0.01) {
+  if (!overIce) {
     return 5.8002206e3 / (t * t) - 4.8640239e-2 + 2 * 4.1764768e-5 * t - 3 * 1.4452093e-8 * t * t + 6.5459673 / t;
   }
   return (

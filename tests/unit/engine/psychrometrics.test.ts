@@ -12,6 +12,7 @@ import {
   psychroCounters,
   relativeHumidityFromWetBulb,
   resetPsychroCounters,
+  saturatedAirEnthalpyExactKJPerKg,
   saturatedAirEnthalpyKJPerKg,
   saturationHumidityRatio,
   saturationVaporPressurePa,
@@ -147,8 +148,8 @@ describe("cross-check against psychrolib (reference implementation of ASHRAE 201
         if (t > 85) continue; // near boiling at 2500 m the two cap W differently; not an operating range
         expect(relErr(saturationHumidityRatio(t, p), psychrolib.GetSatHumRatio(t, p))).toBeLessThan(1e-9);
         expect(
-          Math.abs(saturatedAirEnthalpyKJPerKg(t, p) - psychrolib.GetSatAirEnthalpy(t, p) / 1000),
-        ).toBeLessThan(1e-9 * Math.max(1, Math.abs(saturatedAirEnthalpyKJPerKg(t, p))));
+          Math.abs(saturatedAirEnthalpyExactKJPerKg(t, p) - psychrolib.GetSatAirEnthalpy(t, p) / 1000),
+        ).toBeLessThan(1e-9 * Math.max(1, Math.abs(saturatedAirEnthalpyExactKJPerKg(t, p))));
       }
     }
   });
@@ -229,7 +230,38 @@ describe("wet-bulb solvers", () => {
   );
 });
 
-describe("saturated enthalpy hot path", () => {
+describe("saturated enthalpy hot path (tabulated per pressure)", () => {
+  psychrolib.SetUnitSystem(psychrolib.SI);
+  // Working range of the solvers: entering wet-bulbs from −40 °C to water at 90 °C, site pressures from
+  // 4000 m (61.6 kPa) to 400 m below sea level (106.2 kPa). The table's cubic interpolation must stay
+  // within 1e−5 kJ/kg of psychrolib's GetSatAirEnthalpy (the reference implementation of ASHRAE 2017
+  // ch.1 eqs. 5–6, 23, 32) wherever the water is below half its boiling pressure (pws ≤ 0.5·p: beyond
+  // that no tower or cooler runs; the hot path there evaluates the formula itself).
+  const sites = [-400, 0, 240, 1000, 2500, 4000].map(pressureFromElevationPa);
+  it.each(sites)("matches psychrolib within 1e-5 kJ/kg over −40…90 °C at %d Pa", (p) => {
+    let worst = 0;
+    for (let t = -40; t <= 90; t += 0.0173) {
+      if (psychrolib.GetSatVapPres(t) > 0.5 * p) break;
+      const e = Math.abs(saturatedAirEnthalpyKJPerKg(t, p) - psychrolib.GetSatAirEnthalpy(t, p) / 1000);
+      if (e > worst) worst = e;
+    }
+    expect(worst).toBeLessThan(1e-5);
+  });
+
+  it("is exact at the triple point from both sides and continuous across it (no interval spans the ice/water switch)", () => {
+    for (const t of [0.01 - 1e-7, 0.01, 0.01 + 1e-7]) {
+      expect(Math.abs(saturatedAirEnthalpyKJPerKg(t, P0) - psychrolib.GetSatAirEnthalpy(t, P0) / 1000)).toBeLessThan(1e-6);
+    }
+  });
+
+  it("evaluates the formula outside the table (hot water at a high site)", () => {
+    const p = pressureFromElevationPa(2500);
+    for (const t of [-60, 88, 95]) {
+      expect(saturatedAirEnthalpyKJPerKg(t, p)).toBe(saturatedAirEnthalpyExactKJPerKg(t, p));
+    }
+  });
+
+
   test.prop([fc.double({ min: -30, max: 70, noNaN: true }), fc.double({ min: 0.01, max: 5, noNaN: true })])(
     "is strictly increasing in temperature (dhs/dt = 1.006 + … > 0)",
     (t, dt) => {
@@ -237,10 +269,12 @@ describe("saturated enthalpy hot path", () => {
     },
   );
 
-  it("counts every call", () => {
+  it("counts every call, and no exponential once the table for the pressure exists", () => {
+    saturatedAirEnthalpyKJPerKg(20, P0);
     resetPsychroCounters();
     for (let i = 0; i < 37; i++) saturatedAirEnthalpyKJPerKg(20 + i * 0.1, P0);
     expect(psychroCounters.saturatedEnthalpyCalls).toBe(37);
+    expect(psychroCounters.exactSaturatedEnthalpyCalls).toBe(0);
     resetPsychroCounters();
     expect(psychroCounters.saturatedEnthalpyCalls).toBe(0);
   });
