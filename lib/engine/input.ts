@@ -12,7 +12,9 @@ import type {
   TariffsInput,
   UpkeepInput,
 } from "./economics/types";
+import type { CleaningMethod, CondenserConstruction, CondenserMaterial } from "./condenser-construction";
 import type { CoolerSelection } from "./fluid-cooler";
+import type { GwpReport, Refrigerant } from "./refrigerants";
 import type { TowerSelection } from "./tower";
 
 export interface SiteInput {
@@ -51,6 +53,8 @@ export interface DutyInput {
   headPressureControl: "fixedSetPoint" | "floating";
   loadProfile: LoadProfileInput;
   compressorModel: CompressorModelInput;
+  /** The plant's refrigerant: material warnings, charge scaling, GWP of leakage. */
+  refrigerant: Refrigerant;
 }
 
 export interface FanInput {
@@ -76,7 +80,23 @@ export interface BasinHeaterInput {
   belowDryBulbC: number;
 }
 
+/** The condenser's upkeep plan; undefined fields take the construction's defaults (condenser-construction.ts). */
+export interface CondenserUpkeepInput {
+  cleaningMethod?: CleaningMethod;
+  cleaningCostPerEvent?: number;
+  /** Years between inspections (eddy-current testing for tubes); 0 = none. */
+  inspectionIntervalYears?: number;
+  inspectionCostPerEvent?: number;
+  /** Life of the wear part (tube bundle or gasket set), years. */
+  wearPartLifeYears?: number;
+  /** Cost of replacing the wear part; not counted until entered. */
+  wearPartReplacementCost?: number;
+}
+
 export interface CondenserInput {
+  construction: CondenserConstruction;
+  /** Tube or plate material; default by construction and refrigerant. */
+  material?: CondenserMaterial;
   /** Condensing temperature at the design heat rejection, design entering water and loop flow. */
   designCondensingC: number;
   /** Entering water at that design point; default: the loop's design supply temperature. */
@@ -84,6 +104,11 @@ export interface CondenserInput {
   cleanUWPerM2K: number;
   /** Fouling allowance already contained in the stated design point (0 = the design is the clean condenser). */
   designFoulingM2KPerW: number;
+  /** Multiplier on the tube-fouling growth law when the condenser sees open-tower water; default by construction. */
+  foulingGrowthMultiplier?: number;
+  /** Refrigerant held per kW of design heat rejection, kg/kW; default by construction and refrigerant. */
+  specificChargeKgPerKW?: number;
+  upkeep: CondenserUpkeepInput;
 }
 
 /** The tower's design point as entered: the same fields calibrateTower reads (documented there). */
@@ -189,6 +214,18 @@ export interface FoulingInput {
   closedLoopFoulingM2KPerW: number;
 }
 
+/** Water and carbon footprint settings of the project (LoopLedger engineering notes §13). */
+export interface FootprintInput {
+  /** Grid emission factor, kg CO₂e per kWh, with its data year and source. */
+  gridEmissionFactorKgCO2ePerKWh: number;
+  gridEmissionFactorYear: number;
+  gridEmissionFactorSource: string;
+  /** IPCC assessment report whose 100-year GWP values price refrigerant leakage. */
+  gwpReport: GwpReport;
+  /** Fraction of the condenser's refrigerant inventory lost per year. */
+  annualLeakFraction: number;
+}
+
 export interface ScenarioInput {
   inputVersion: 1;
   name: string;
@@ -198,6 +235,7 @@ export interface ScenarioInput {
   options: OptionInput[];
   water: WaterInput;
   fouling: FoulingInput;
+  footprint: FootprintInput;
   tariffs: TariffsInput;
   upkeep: UpkeepInput;
   economics: EconomicsInput;

@@ -108,6 +108,15 @@ export const economicsFieldDefaults = {
   "tariffs.escalation.chemicals": { default: 0, source: "[practice] constant real price" },
   "tariffs.escalation.labour": { default: 0, source: "[practice] constant real price" },
   "tariffs.escalation.replacements": { default: 0, source: "[practice] constant real price" },
+  "tariffs.escalation.carbon": {
+    default: 0,
+    source: "[practice] constant real carbon price unless the owner's planning price rises; enter its own path",
+  },
+  "tariffs.carbon.enabled": { default: false, source: "off unless the owner prices carbon in its decisions" },
+  "tariffs.carbon.pricePerTonneCO2e": {
+    default: 50,
+    source: "[practice] placeholder; enter the owner's internal carbon price or the applicable market or tax price",
+  },
   "upkeep.labourRatePerHour": {
     default: 85,
     source: "[practice] loaded hourly rate of a maintenance technician; enter the local rate",
@@ -305,6 +314,7 @@ export const escalationSchema = z.object({
   chemicals: rate.default(dflt("tariffs.escalation.chemicals")),
   labour: rate.default(dflt("tariffs.escalation.labour")),
   replacements: rate.default(dflt("tariffs.escalation.replacements")),
+  carbon: rate.default(dflt("tariffs.escalation.carbon")),
 });
 
 export const tariffsSchema = z.object({
@@ -333,6 +343,12 @@ export const tariffsSchema = z.object({
     })
     .prefault({}),
   waterManagementProgrammeCostPerYear: money.default(dflt("tariffs.waterManagementProgrammeCostPerYear")),
+  carbon: z
+    .object({
+      enabled: z.boolean().default(dflt("tariffs.carbon.enabled")),
+      pricePerTonneCO2e: money.max(10_000).default(dflt("tariffs.carbon.pricePerTonneCO2e")),
+    })
+    .prefault({}),
   escalation: escalationSchema.prefault({}),
 });
 

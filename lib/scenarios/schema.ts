@@ -10,6 +10,14 @@
  */
 import { z } from "zod";
 import { OPTION_KINDS } from "@/lib/engine/types";
+import {
+  CLEANING_METHODS,
+  CONDENSER_CONSTRUCTIONS,
+  CONDENSER_CONSTRUCTION_DEFAULTS,
+  CONDENSER_MATERIALS,
+} from "@/lib/engine/condenser-construction";
+import { DEFAULT_ANNUAL_LEAK_FRACTION, DEFAULT_GRID_EMISSION_FACTOR } from "@/lib/engine/footprint";
+import { GWP_REPORTS, REFRIGERANTS } from "@/lib/engine/refrigerants";
 import type { ScenarioInput } from "@/lib/engine/input";
 import type { ClimateInput } from "@/lib/engine/climate/types";
 import { climateInputSchema } from "./schema-climate";
@@ -40,6 +48,10 @@ export const physicsFieldDefaults = {
     default: { kind: "carnotFraction" },
     source: "LoopLedger engineering notes §5: Carnot-fraction model calibrated on the design COP",
   },
+  "duty.refrigerant": {
+    default: "R717",
+    source: "[practice] ammonia, the usual refrigerant of industrial plants; choose the plant's refrigerant",
+  },
   "options[].fan.control": { default: "variableSpeed", source: "[practice] variable-speed drives are the norm on new units" },
   "options[].fan.minSpeedFraction": { default: 0.25, source: "[practice] 20–30 % minimum speed of tower and cooler fan drives" },
   "options[].fan.powerFloorFraction": {
@@ -59,9 +71,45 @@ export const physicsFieldDefaults = {
     default: 0.6,
     source: "[practice] n of KaV/L = C·(L/G)^−n is 0.5–0.8 for film fills (CTI practice)",
   },
+  "options[].condenser.construction": {
+    default: "shellAndTube",
+    source: "[practice] the usual condenser on tower water; it sets the defaults below",
+  },
+  "options[].condenser.material": {
+    default: "by construction and refrigerant: steel for ammonia, copper alloy tubes for halocarbons",
+    source: "[practice] never copper with ammonia",
+  },
   "options[].condenser.cleanUWPerM2K": {
-    default: 1000,
-    source: "[practice] clean U of ammonia shell-and-tube condensers with water in the tubes ≈ 800–1400 W/(m²·K)",
+    default: "by construction: shell-and-tube 1000, plate-and-frame 3000, plate-and-shell 2500, brazed plate 3000",
+    source: "[practice] clean overall coefficients of each construction (shell-and-tube 800–1400, plates 2000–5000 W/(m²·K))",
+  },
+  "options[].condenser.foulingGrowthMultiplier": {
+    default: "by construction: shell-and-tube 1, plate types 0.5 (on open-tower water)",
+    source: "[practice] turbulent plate channels grow deposits more slowly than tubes (but block with particulate)",
+  },
+  "options[].condenser.specificChargeKgPerKW": {
+    default: "by construction: ammonia 0.08 shell-and-tube, 0.03 plate-and-frame, 0.02 plate-and-shell, 0.015 brazed; × liquid-density ratio for other refrigerants",
+    source: "[memory] screening figures; use the manufacturer's stated charge",
+  },
+  "options[].condenser.upkeep.cleaningMethod": {
+    default: "by construction: tube brushing, opening the plate pack, chemical cleaning in place",
+    source: "[practice]",
+  },
+  "options[].condenser.upkeep.cleaningCostPerEvent": {
+    default: "by construction: 3000 shell-and-tube, 4000 plate-and-frame, 2500 plate-and-shell, 800 brazed",
+    source: "[practice] order of magnitude for a ~1 MW condenser; get a contractor's price",
+  },
+  "options[].condenser.upkeep.inspectionIntervalYears": {
+    default: "shell-and-tube: eddy-current testing every 3 years on open-tower water, 6 on a closed loop; plates: none (inspected when opened)",
+    source: "[practice] eddy-current testing applies to tubes only",
+  },
+  "options[].condenser.upkeep.inspectionCostPerEvent": {
+    default: "shell-and-tube 4000; others 0",
+    source: "[practice] order of magnitude; get a contractor's price",
+  },
+  "options[].condenser.upkeep.wearPartLifeYears": {
+    default: "tube bundle 20 years (shell-and-tube), gaskets 8 years (plate-and-frame)",
+    source: "[practice]",
   },
   "options[].condenser.designFoulingM2KPerW": {
     default: 0,
@@ -122,6 +170,20 @@ export const physicsFieldDefaults = {
   "water.dosing.inhibitorMgPerLOutflow": { default: 100, source: "[practice] inhibitor product 50–150 mg/L in the blowdown" },
   "water.dosing.biocideMgPerLSystemVolume": { default: 10, source: "[practice] slug dose of a non-oxidising biocide" },
   "water.dosing.biocideSlugsPerYear": { default: 52, source: "[practice] weekly slug dosing" },
+  "footprint.gridEmissionFactorKgCO2ePerKWh": {
+    default: DEFAULT_GRID_EMISSION_FACTOR.value.kgCO2ePerKWh,
+    source: DEFAULT_GRID_EMISSION_FACTOR.source,
+  },
+  "footprint.gridEmissionFactorYear": { default: DEFAULT_GRID_EMISSION_FACTOR.value.dataYear, source: "data year of the default factor" },
+  "footprint.gridEmissionFactorSource": {
+    default: "[memory] US grid average, EPA eGRID data year 2022",
+    source: "state where the project's factor comes from",
+  },
+  "footprint.gwpReport": {
+    default: "AR5",
+    source: "IPCC Fifth Assessment Report 100-year values, the basis of many reporting schemes; AR6 on request",
+  },
+  "footprint.annualLeakFraction": { default: DEFAULT_ANNUAL_LEAK_FRACTION.value, source: DEFAULT_ANNUAL_LEAK_FRACTION.source },
   "fouling.model": { default: "asymptotic", source: "Kern & Seaton (1959) asymptotic fouling" },
   "fouling.asymptoticM2KPerW": {
     default: 0.000176,
@@ -192,6 +254,7 @@ export const dutySchema = z
     headPressureControl: z.enum(["fixedSetPoint", "floating"]).default(d("duty.headPressureControl")),
     loadProfile: loadProfileSchema.default(() => ({ ...d("duty.loadProfile") })),
     compressorModel: compressorModelSchema.default(() => ({ ...d("duty.compressorModel") })),
+    refrigerant: z.enum(REFRIGERANTS).default(d("duty.refrigerant")),
   })
   .superRefine((v, ctx) => {
     if (v.designBasis === "heatRejection" && v.designHeatRejectionKW === undefined)
@@ -226,17 +289,37 @@ const basinHeaterSchema = z.object({
   belowDryBulbC: airC.default(d("options[].basinHeater.belowDryBulbC")),
 });
 
+/** The condenser's upkeep plan; every field defaults from its construction (condenser-construction.ts). */
+const condenserUpkeepSchema = z.object({
+  cleaningMethod: z.enum(CLEANING_METHODS).optional(),
+  cleaningCostPerEvent: nonNegative.max(1e7).optional(),
+  /** Years between inspections (eddy-current testing for tubes); 0 = none. */
+  inspectionIntervalYears: nonNegative.max(50).optional(),
+  inspectionCostPerEvent: nonNegative.max(1e7).optional(),
+  /** Life of the wear part (tube bundle or gasket set), years. */
+  wearPartLifeYears: positive.max(100).optional(),
+  /** Cost of replacing the wear part; not counted until entered. */
+  wearPartReplacementCost: nonNegative.max(1e8).optional(),
+});
+
 const condenserSchema = z
   .object({
+    construction: z.enum(CONDENSER_CONSTRUCTIONS).default(d("options[].condenser.construction")),
+    material: z.enum(CONDENSER_MATERIALS).optional(),
     designCondensingC: num.min(10).max(75),
     designEnteringWaterC: waterC.optional(),
-    cleanUWPerM2K: positive.max(20000).default(d("options[].condenser.cleanUWPerM2K")),
+    cleanUWPerM2K: positive.max(20000).optional(),
     designFoulingM2KPerW: nonNegative.max(0.005).default(d("options[].condenser.designFoulingM2KPerW")),
+    foulingGrowthMultiplier: nonNegative.max(10).optional(),
+    specificChargeKgPerKW: nonNegative.max(5).optional(),
+    upkeep: condenserUpkeepSchema.prefault({}),
   })
   .refine((c) => c.designEnteringWaterC === undefined || c.designEnteringWaterC < c.designCondensingC, {
     message: "the design entering water must be colder than the design condensing temperature",
     path: ["designEnteringWaterC"],
-  });
+  })
+  // The clean coefficient the engine needs: entered, or the construction's default.
+  .transform((c) => ({ ...c, cleanUWPerM2K: c.cleanUWPerM2K ?? CONDENSER_CONSTRUCTION_DEFAULTS[c.construction].cleanUWPerM2K.value }));
 
 const towerSchema = z
   .object({
@@ -384,6 +467,14 @@ export const foulingSchema = z.object({
   closedLoopFoulingM2KPerW: nonNegative.max(0.005).default(d("fouling.closedLoopFoulingM2KPerW")),
 });
 
+export const footprintSchema = z.object({
+  gridEmissionFactorKgCO2ePerKWh: nonNegative.max(2).default(d("footprint.gridEmissionFactorKgCO2ePerKWh")),
+  gridEmissionFactorYear: num.int().min(1990).max(2100).default(d("footprint.gridEmissionFactorYear")),
+  gridEmissionFactorSource: z.string().max(300).default(d("footprint.gridEmissionFactorSource")),
+  gwpReport: z.enum(GWP_REPORTS).default(d("footprint.gwpReport")),
+  annualLeakFraction: num.min(0).max(1).default(d("footprint.annualLeakFraction")),
+});
+
 // --- the scenario --------------------------------------------------------------------------------------
 
 const scenarioObject = z.object({
@@ -395,6 +486,7 @@ const scenarioObject = z.object({
   options: z.array(optionSchema).min(2, "compare at least two options").max(4, "compare at most four options"),
   water: waterSchema,
   fouling: foulingSchema.prefault({}),
+  footprint: footprintSchema.prefault({}),
   tariffs: tariffsSchema.prefault({}),
   upkeep: upkeepSchema.prefault({}),
   economics: economicsSchema.prefault({}),

@@ -119,6 +119,8 @@ export interface EscalationRates {
   chemicals: number;
   labour: number;
   replacements: number;
+  /** Real escalation of the carbon price (used only when a carbon price is on). */
+  carbon: number;
 }
 export type EscalationStream = keyof EscalationRates;
 
@@ -156,6 +158,8 @@ export interface TariffsInput {
   };
   /** Legionella water-management programme (plan, monitoring, validation), per wet loop and year. */
   waterManagementProgrammeCostPerYear: number;
+  /** Optional carbon price on each option's emissions (electricity + refrigerant leakage); off by default. */
+  carbon: { enabled: boolean; pricePerTonneCO2e: number };
   escalation: EscalationRates;
 }
 

@@ -55,7 +55,8 @@ const tariffs: TariffsInput = {
   sewer: { pricePerM3: 1, fixedChargePerMonth: 0, evaporationCreditMeterChargePerMonth: 0 },
   chemicals: { costPerM3Outflow: 0.4, inhibitorPricePerKg: 0, biocidePricePerKg: 0, fixedCostPerYear: 40 },
   waterManagementProgrammeCostPerYear: 50,
-  escalation: { energy: 0, demand: 0, water: 0, sewer: 0, chemicals: 0, labour: 0, replacements: 0 },
+  carbon: { enabled: false, pricePerTonneCO2e: 0 },
+  escalation: { energy: 0, demand: 0, water: 0, sewer: 0, chemicals: 0, labour: 0, replacements: 0, carbon: 0 },
 };
 
 const options: EconomicsOptionInput[] = [
