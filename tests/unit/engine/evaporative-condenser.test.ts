@@ -163,14 +163,16 @@ describe("evaporative condenser operation", () => {
 
 describe("evaporative condenser water", () => {
   it("evaporation matches the air-side balance computed with psychrolib (ASHRAE Fundamentals ch.1 formulas)", () => {
-    // Reference: psychrolib (the ASHRAE-formula library). Leaving air saturated at ha,in + Q/ma;
-    // E = ma·(Ws(Tout) − Win). Bisection on psychrolib's GetSatAirEnthalpy written out here.
+    // Reference: psychrolib (the ASHRAE-formula library). Leaving air saturated at h(tdb, Win) + Q/ma
+    // (the entering air's true enthalpy); E = ma·(Ws(Tout) − Win). Bisection on psychrolib's
+    // GetSatAirEnthalpy written out here.
     psychrolib.SetUnitSystem(psychrolib.SI);
     const tdb = 33;
     const twb = 25.6;
     const q = 1200;
     const ma = 36;
-    const hIn = psychrolib.GetSatAirEnthalpy(twb, P) / 1000;
+    const wIn = psychrolib.GetHumRatioFromTWetBulb(tdb, twb, P);
+    const hIn = psychrolib.GetMoistAirEnthalpy(tdb, wIn) / 1000;
     const hOut = hIn + q / ma;
     let lo = twb;
     let hi = 60;
@@ -180,7 +182,6 @@ describe("evaporative condenser water", () => {
       else hi = mid;
     }
     const wOut = psychrolib.GetSatHumRatio(0.5 * (lo + hi), P);
-    const wIn = psychrolib.GetHumRatioFromTWetBulb(tdb, twb, P);
     const eRef = ma * (wOut - wIn);
     const r = solveEvaporativeCondenserHour(model, { ...fan, control: "cycling" }, enteringAir(tdb, twb, P), q, 35, P);
     // Rated conditions: full airflow (cycling control at exactly 100 %).
