@@ -6,6 +6,7 @@
 import { FIRST_COST_ITEMS } from "@/lib/engine/economics/types";
 import { OPTION_KINDS, OPTION_KIND_LABELS, type OptionKind } from "@/lib/engine/types";
 import type { ScenarioDocument } from "./mappers";
+import type { EditorOption } from "./editor-values";
 import { defaultScenario, fieldDefaults, scenarioSchema, type FieldDefault } from "./schema";
 import { PLACEHOLDER_CLIMATE, withPlaceholders } from "./validate";
 
@@ -26,7 +27,9 @@ export function prefillDocument(document: ScenarioDocument): ScenarioDocument {
     const complete = FIRST_COST_ITEMS.every((k) => typeof given[k] === "number");
     if (!complete) {
       missingFirstCost.set(i, given);
-      costs.firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, typeof given[k] === "number" ? given[k] : 0]));
+      costs.firstCost = Object.fromEntries(
+        FIRST_COST_ITEMS.map((k) => [k, typeof given[k] === "number" ? given[k] : 0]),
+      );
     }
   });
   const parsed = scenarioSchema.safeParse(withPlaceholders(doc));
@@ -41,7 +44,12 @@ export function prefillDocument(document: ScenarioDocument): ScenarioDocument {
     const o = (out.options as Obj[])[i];
     if (o && isObj(o.costs)) {
       // An option without a plate exchanger has none to buy: that item is structurally 0, not a default price.
-      const fill = (k: string) => (typeof given[k] === "number" ? given[k] : k === "plateExchanger" && o.kind !== "openTowerPlateHx" ? 0 : undefined);
+      const fill = (k: string) =>
+        typeof given[k] === "number"
+          ? given[k]
+          : k === "plateExchanger" && o.kind !== "openTowerPlateHx"
+            ? 0
+            : undefined;
       (o.costs as Obj).firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, fill(k)]));
     }
   }
@@ -57,16 +65,17 @@ export function defaultEditorDocument(): ScenarioDocument {
 }
 
 /** A new option of a kind with every default filled and no first cost, with an id not yet used. */
-export function newOptionOfKind(kind: OptionKind, usedIds: string[]): Obj {
+export function newOptionOfKind(kind: OptionKind, usedIds: string[]): EditorOption {
   const base = defaultEditorDocument() as unknown as { options: Obj[] };
   const template = structuredClone(base.options.find((o) => o.kind === kind) ?? base.options[0]!) as Obj;
   let n = 1;
-  const stem = kind === "openTowerDirect" ? "tower-direct" : kind === "openTowerPlateHx" ? "tower-plate" : "cooler";
+  const stem =
+    kind === "openTowerDirect" ? "tower-direct" : kind === "openTowerPlateHx" ? "tower-plate" : "cooler";
   let id = stem;
   while (usedIds.includes(id)) id = `${stem}-${++n}`;
   template.id = id;
   template.label = n > 1 ? `${OPTION_KIND_LABELS[kind]} ${n}` : OPTION_KIND_LABELS[kind];
-  return template;
+  return template as unknown as EditorOption;
 }
 
 export { OPTION_KINDS };

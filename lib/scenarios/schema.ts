@@ -525,6 +525,8 @@ export const scenarioSchema = scenarioObject.superRefine((s, ctx) => {
         code: "custom",
         path: ["options", i, "condenser", "designCondensingC"],
         message: `the design condensing temperature must be above the condenser's design entering water (${Math.round(entering * 10) / 10} °C)`,
+        // The editor words it in the project's units from these.
+        params: { what: "the design condensing temperature must be above the condenser's design entering water", aboveC: entering },
       });
     if (o.fan.control === "twoSpeed" && o.fan.lowSpeedFraction <= o.fan.naturalDraftAirflowFraction)
       ctx.addIssue({ code: "custom", path: ["options", i, "fan", "lowSpeedFraction"], message: "the low speed must be above the fan-off airflow" });

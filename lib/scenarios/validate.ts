@@ -3,17 +3,35 @@
  * (through `editorResolverInput`) the editor in the browser: `scenarioSchema`, all issues as dotted paths.
  * Client-safe.
  */
-import { toFieldErrors, type FieldErrorMap } from "@/components/forms/errors";
+import type { FieldErrorMap } from "@/components/forms/errors";
 import type { ClimateInput } from "@/lib/engine/climate/types";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { scenarioSchema } from "./schema";
+import { humanIssue, type MessageContext } from "./field-messages";
 
 export type ParseOutcome = { ok: true; value: ScenarioInput } | { ok: false; fieldErrors: FieldErrorMap };
 
-export function parseScenarioDocument(document: unknown): ParseOutcome {
-  const r = scenarioSchema.safeParse(document);
+/** Units the messages use when the caller does not know the project's (SI, US dollars). */
+export const DEFAULT_MESSAGE_CONTEXT: MessageContext = { system: "SI", currency: "USD" };
+
+/**
+ * Parse a scenario document: the engine input, or every problem keyed by its field path with a message a
+ * person can act on (in `units`, never the schema library's wording).
+ */
+export function parseScenarioDocument(
+  document: unknown,
+  units: MessageContext = DEFAULT_MESSAGE_CONTEXT,
+): ParseOutcome {
+  const r = scenarioSchema.safeParse(document, { reportInput: true });
   if (r.success) return { ok: true, value: r.data as ScenarioInput };
-  return { ok: false, fieldErrors: toFieldErrors(r.error.issues) };
+  const fieldErrors: FieldErrorMap = {};
+  for (const issue of r.error.issues) {
+    const path = issue.path.map(String).join(".");
+    const { message } = humanIssue(issue, path, units);
+    const list = (fieldErrors[path] ??= []);
+    if (!list.includes(message)) list.push(message);
+  }
+  return { ok: false, fieldErrors };
 }
 
 /**

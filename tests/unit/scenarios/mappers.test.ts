@@ -157,7 +157,7 @@ describe("the editor's starting values", () => {
   it("a new option gets an unused id and the defaults of its kind", () => {
     const o = newOptionOfKind("closedCircuitCooler", ["cooler", "cooler-2"]);
     expect(o.id).toBe("cooler-3");
-    expect((o.cooler as { allowDryMode: boolean }).allowDryMode).toBe(true);
+    expect(o.kind === "closedCircuitCooler" && o.cooler.allowDryMode).toBe(true);
   });
 
   it("defaults are found for option paths and for members of defaulted objects", () => {

@@ -3,7 +3,8 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { after } from "next/server";
-import type { FieldErrorMap } from "@/components/forms/errors";
+import type { EditorProblem } from "@/lib/scenarios/editor-validation";
+import { sectionOfPath } from "@/lib/scenarios/editor-values";
 import { currentViewer } from "@/lib/auth/session";
 import { archiveScenarioFor, authorizeScenario, cloneScenarioFor, saveAndAnalyse } from "@/lib/scenarios/data";
 
@@ -16,8 +17,10 @@ export type SaveScenarioResult =
       analysisMs: number;
       monteCarlo: "queued" | "running" | "done" | "failed" | null;
       warnings: number;
+      /** Labels of the options whose first costs are not entered yet (their life-cycle figures wait). */
+      firstCostsMissing: string[];
     }
-  | { ok: false; kind: "invalid"; fieldErrors: FieldErrorMap; message: string }
+  | { ok: false; kind: "invalid"; problems: EditorProblem[]; message: string }
   | { ok: false; kind: "conflict"; message: string; currentRevision: number; savedBy: string | null; savedAt: string }
   | { ok: false; kind: "refused"; message: string };
 
@@ -57,8 +60,11 @@ export async function saveScenarioAction(projectId: string, scenarioId: string, 
   );
   if (!r.ok) {
     if (r.kind === "invalid") {
-      const n = Object.values(r.fieldErrors).reduce((s, l) => s + l.length, 0);
-      return { ok: false, kind: "invalid", fieldErrors: r.fieldErrors, message: `Not saved: ${n} ${n === 1 ? "problem" : "problems"} to fix.` };
+      const problems: EditorProblem[] = Object.entries(r.fieldErrors).flatMap(([path, messages]) =>
+        messages.map((message) => ({ path, section: sectionOfPath(path), kind: /^Enter a value/.test(message) ? ("missing" as const) : ("invalid" as const), message })),
+      );
+      const n = problems.length;
+      return { ok: false, kind: "invalid", problems, message: `Not saved: ${n} ${n === 1 ? "problem" : "problems"} to fix (listed at the top).` };
     }
     if (r.kind === "conflict") return { ok: false, kind: "conflict", message: r.message, currentRevision: r.currentRevision, savedBy: r.savedBy, savedAt: r.savedAt };
     if (r.kind === "archived") return { ok: false, kind: "refused", message: r.message };
@@ -74,6 +80,7 @@ export async function saveScenarioAction(projectId: string, scenarioId: string, 
     analysisMs: Math.round(r.analysis.elapsedMs),
     monteCarlo: r.analysis.monteCarlo?.status ?? null,
     warnings: r.analysis.result.warnings.length,
+    firstCostsMissing: r.input.options.filter((o) => o.costs.firstCost === undefined).map((o) => o.label),
   };
 }
 

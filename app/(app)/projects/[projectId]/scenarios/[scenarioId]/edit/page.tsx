@@ -2,21 +2,33 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { listProjectDatasets, requireScenario } from "@/lib/scenarios/data";
 import { prefillDocument } from "@/lib/scenarios/prefill";
+import type { EditorValues } from "@/lib/scenarios/editor-values";
+import { validateEditorValues } from "@/lib/scenarios/editor-validation";
 import { PageHeader } from "@/components/ui/panel";
 import { ScenarioEditor } from "./_components/scenario-editor";
 
 export const metadata: Metadata = { title: "Edit scenario" };
 
-/** The scenario editor: every input in the project's units with its default and source. */
-export default async function EditScenarioPage({ params }: { params: Promise<{ projectId: string; scenarioId: string }> }) {
+/** The scenario editor: one section at a time (named in the URL), every input in the project's units. */
+export default async function EditScenarioPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ projectId: string; scenarioId: string }>;
+  searchParams: Promise<{ section?: string | string[] }>;
+}) {
   const { projectId, scenarioId } = await params;
-  const { access, ctx } = await requireScenario(projectId, scenarioId, "scenario.edit", { withClimateData: false });
+  const { section } = await searchParams;
+  const { access, ctx } = await requireScenario(projectId, scenarioId, "scenario.edit", {
+    withClimateData: false,
+  });
   const datasets = await listProjectDatasets(projectId);
-  const initial = {
-    ...(prefillDocument(ctx.dto.document) as unknown as Record<string, unknown>),
+  const initial: EditorValues = {
+    ...prefillDocument(ctx.dto.document),
     name: ctx.row.name,
     climateDatasetId: ctx.row.climateDatasetId ?? "",
   };
+  const units = { system: access.project.unitSystem, currency: access.project.currency };
   return (
     <>
       <PageHeader
@@ -31,7 +43,9 @@ export default async function EditScenarioPage({ params }: { params: Promise<{ p
         }
       />
       {ctx.row.archivedAt ? (
-        <p className="mb-4 rounded-md border border-caution-600 bg-caution-50 px-3 py-2 text-sm text-caution-800">This scenario is archived: it cannot be saved. Clone it to continue.</p>
+        <p className="mb-4 rounded-md border border-caution-600 bg-caution-50 px-3 py-2 text-sm text-caution-800">
+          This scenario is archived: it cannot be saved. Clone it to continue.
+        </p>
       ) : null}
       <ScenarioEditor
         projectId={projectId}
@@ -41,6 +55,8 @@ export default async function EditScenarioPage({ params }: { params: Promise<{ p
         currency={access.project.currency}
         datasets={datasets.map((d) => ({ id: d.id, name: d.name }))}
         initial={initial}
+        initialSection={typeof section === "string" ? section : null}
+        initialProblems={validateEditorValues(initial, units)}
       />
     </>
   );

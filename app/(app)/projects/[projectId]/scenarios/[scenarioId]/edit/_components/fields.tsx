@@ -5,10 +5,20 @@ import { useController, useFormContext } from "react-hook-form";
 import { CheckboxField, NumberField, SelectField, TextField, useUnits } from "@/components/forms";
 import { errorIdOf, fieldId, hintIdOf } from "@/components/forms/errors";
 import { describedBy, FieldShell, inputBorder, inputClass } from "@/components/forms/field-shell";
-import { formatNumber, fromSI, inputText, parseNumberInput, toSI, unitLabel, unitName, type QuantityKind } from "@/lib/units";
+import {
+  formatNumber,
+  fromSI,
+  inputText,
+  parseNumberInput,
+  toSI,
+  unitLabel,
+  unitName,
+  type QuantityKind,
+} from "@/lib/units";
 import { defaultFor } from "@/lib/scenarios/prefill";
+import type { EditorPath, EditorValues } from "@/lib/scenarios/editor-values";
 
-type V = Record<string, unknown>;
+type V = EditorValues;
 
 function sourceOf(name: string): { value: unknown; source: string } | null {
   const d = defaultFor(name);
@@ -24,7 +34,7 @@ export function Num({
   optional,
   className,
 }: {
-  name: string;
+  name: EditorPath;
   label: string;
   kind: QuantityKind;
   description?: ReactNode;
@@ -46,7 +56,9 @@ export function Num({
       label={label}
       kind={kind}
       {...(typeof d?.value === "number" ? { defaultSI: d.value } : {})}
-      {...(d ? { defaultSource: typeof d.value === "number" ? d.source : `${String(d.value)} · ${d.source}` } : {})}
+      {...(d
+        ? { defaultSource: typeof d.value === "number" ? d.source : `${String(d.value)} · ${d.source}` }
+        : {})}
       {...(desc ? { description: desc } : {})}
       {...(className ? { className } : {})}
     />
@@ -54,7 +66,8 @@ export function Num({
 }
 
 const sameNumber = (a: unknown, b: unknown) =>
-  Object.is(a, b) || (typeof a === "number" && typeof b === "number" && Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(b)));
+  Object.is(a, b) ||
+  (typeof a === "number" && typeof b === "number" && Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(b)));
 
 /**
  * A number shown on another scale than it is stored: a fraction shown in percent, a mass flow shown as a
@@ -71,7 +84,7 @@ export function ScaledField({
   sig = 6,
   className,
 }: {
-  name: string;
+  name: EditorPath;
   label: string;
   unit: string;
   unitTitle?: string;
@@ -83,7 +96,13 @@ export function ScaledField({
 }) {
   const { control } = useFormContext<V>();
   const {
-    field: { ref: inputRef, name: fieldName, value: fieldValue, onChange: fieldOnChange, onBlur: fieldOnBlur },
+    field: {
+      ref: inputRef,
+      name: fieldName,
+      value: fieldValue,
+      onChange: fieldOnChange,
+      onBlur: fieldOnBlur,
+    },
     fieldState,
   } = useController({ name, control });
   const value: unknown = fieldValue;
@@ -119,7 +138,12 @@ export function ScaledField({
               · {d.source}
             </span>
             {hasDefault && !sameNumber(value, d.value) ? (
-              <button type="button" className="rounded px-1 text-basin-700 underline-offset-2 hover:underline" onClick={() => fieldOnChange(d.value)} aria-label={`Use the default for ${label}`}>
+              <button
+                type="button"
+                className="rounded px-1 text-basin-700 underline-offset-2 hover:underline"
+                onClick={() => fieldOnChange(d.value)}
+                aria-label={`Use the default for ${label}`}
+              >
                 use default
               </button>
             ) : null}
@@ -128,7 +152,16 @@ export function ScaledField({
       </>
     ) : null;
   return (
-    <FieldShell id={id} label={label} unit={unit} hint={hint} hintId={hintId} errorId={errorId} error={fieldState.error?.message} className={className}>
+    <FieldShell
+      id={id}
+      label={label}
+      unit={unit}
+      hint={hint}
+      hintId={hintId}
+      errorId={errorId}
+      error={fieldState.error?.message}
+      className={className}
+    >
       <div className="flex items-stretch">
         <input
           id={id}
@@ -153,7 +186,11 @@ export function ScaledField({
           onBlur={fieldOnBlur}
           className={`${inputClass} ${inputBorder(Boolean(fieldState.error))} num rounded-r-none`}
         />
-        <span className="inline-flex min-w-12 items-center justify-center rounded-r-md border border-l-0 border-line-strong bg-paper-sunk px-2 text-xs text-ink-soft" title={unitTitle ?? unit} aria-hidden="true">
+        <span
+          className="inline-flex min-w-12 items-center justify-center rounded-r-md border border-l-0 border-line-strong bg-paper-sunk px-2 text-xs text-ink-soft"
+          title={unitTitle ?? unit}
+          aria-hidden="true"
+        >
           {unit}
         </span>
       </div>
@@ -162,7 +199,13 @@ export function ScaledField({
 }
 
 /** A fraction (0.03) entered and shown in percent (3 %). */
-export function Pct(props: { name: string; label: string; description?: ReactNode; className?: string; perYear?: boolean }) {
+export function Pct(props: {
+  name: EditorPath;
+  label: string;
+  description?: ReactNode;
+  className?: string;
+  perYear?: boolean;
+}) {
   return (
     <ScaledField
       {...props}
@@ -178,7 +221,15 @@ export function Pct(props: { name: string; label: string; description?: ReactNod
 const WATER_KG_PER_L = 0.9982;
 
 /** A loop's mass flow entered as the volume flow selection sheets give (gpm or L/s of water). */
-export function FlowField({ name, label, description }: { name: string; label: string; description?: ReactNode }) {
+export function FlowField({
+  name,
+  label,
+  description,
+}: {
+  name: EditorPath;
+  label: string;
+  description?: ReactNode;
+}) {
   const { system } = useUnits();
   return (
     <ScaledField
@@ -194,11 +245,43 @@ export function FlowField({ name, label, description }: { name: string; label: s
 }
 
 /** A plain number with its unit written in the label, for quantities lib/units has no kind for. */
-export function Plain({ name, label, unit, description, className }: { name: string; label: string; unit: string; description?: ReactNode; className?: string }) {
-  return <ScaledField name={name} label={label} unit={unit} show={(v) => v} store={(v) => v} {...(description ? { description } : {})} {...(className ? { className } : {})} />;
+export function Plain({
+  name,
+  label,
+  unit,
+  description,
+  className,
+}: {
+  name: EditorPath;
+  label: string;
+  unit: string;
+  description?: ReactNode;
+  className?: string;
+}) {
+  return (
+    <ScaledField
+      name={name}
+      label={label}
+      unit={unit}
+      show={(v) => v}
+      store={(v) => v}
+      {...(description ? { description } : {})}
+      {...(className ? { className } : {})}
+    />
+  );
 }
 
-export function Choice({ name, label, options, description }: { name: string; label: string; options: { value: string; label: string }[]; description?: ReactNode }) {
+export function Choice({
+  name,
+  label,
+  options,
+  description,
+}: {
+  name: EditorPath;
+  label: string;
+  options: { value: string; label: string }[];
+  description?: ReactNode;
+}) {
   const d = sourceOf(name);
   const defaultLabel = d ? (options.find((o) => o.value === d.value)?.label ?? String(d.value)) : null;
   return (
@@ -212,7 +295,15 @@ export function Choice({ name, label, options, description }: { name: string; la
   );
 }
 
-export function Check({ name, label, description }: { name: string; label: string; description?: ReactNode }) {
+export function Check({
+  name,
+  label,
+  description,
+}: {
+  name: EditorPath;
+  label: string;
+  description?: ReactNode;
+}) {
   const d = sourceOf(name);
   return (
     <CheckboxField<V>
@@ -224,8 +315,25 @@ export function Check({ name, label, description }: { name: string; label: strin
   );
 }
 
-export function Text({ name, label, description, maxLength }: { name: string; label: string; description?: ReactNode; maxLength?: number }) {
-  return <TextField<V> name={name} label={label} {...(description ? { description } : {})} {...(maxLength ? { maxLength } : {})} />;
+export function Text({
+  name,
+  label,
+  description,
+  maxLength,
+}: {
+  name: EditorPath;
+  label: string;
+  description?: ReactNode;
+  maxLength?: number;
+}) {
+  return (
+    <TextField<V>
+      name={name}
+      label={label}
+      {...(description ? { description } : {})}
+      {...(maxLength ? { maxLength } : {})}
+    />
+  );
 }
 
 /** A titled group of fields in a responsive grid. */

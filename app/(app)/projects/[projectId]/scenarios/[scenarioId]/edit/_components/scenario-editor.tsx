@@ -1,42 +1,70 @@
 "use client";
 
-import { useCallback, useEffect, useMemo, useRef, useState, useTransition } from "react";
+import {
+  useCallback,
+  useEffect,
+  useMemo,
+  useRef,
+  useState,
+  useSyncExternalStore,
+  useTransition,
+} from "react";
 import Link from "next/link";
-import { FormProvider, useForm, useFormState, type Control, type FieldErrors, type Resolver } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import { FormErrorSummary, SelectField, TextField, UnitsProvider, applyFieldErrors, type FieldErrorMap } from "@/components/forms";
-import { scenarioSchema } from "@/lib/scenarios/schema";
-import { withPlaceholders } from "@/lib/scenarios/validate";
+import {
+  FormProvider,
+  useFieldArray,
+  useForm,
+  useFormState,
+  useWatch,
+  type Control,
+  type Resolver,
+} from "react-hook-form";
+import { SelectField, TextField, UnitsProvider, fieldId } from "@/components/forms";
+import {
+  EDITOR_SECTIONS,
+  optionIndexOfSection,
+  optionSectionId,
+  parseSection,
+  sectionOrder,
+  type EditorValues,
+  type SectionId,
+} from "@/lib/scenarios/editor-values";
+import { statusBySection, validateEditorValues, type EditorProblem } from "@/lib/scenarios/editor-validation";
+import { placeOf, placeText, type MessageContext } from "@/lib/scenarios/field-messages";
+import { OPTION_KIND_LABELS } from "@/lib/engine/types";
 import type { UnitSystem } from "@/lib/units";
 import { cloneScenarioAction, saveScenarioAction, type SaveScenarioResult } from "../../actions";
-import { DutySection, EconomicsSection, OptionsSection, TariffsSection, UpkeepSection, WaterSection } from "./sections";
+import { toFormErrors } from "./form-errors";
+import {
+  DutySection,
+  EconomicsSection,
+  OptionSection,
+  OptionsList,
+  Section,
+  TariffsSection,
+  UpkeepSection,
+  WaterSection,
+} from "./sections";
 
-type V = Record<string, unknown>;
+type V = EditorValues;
 
-const SECTIONS = [
-  ["general", "General"],
-  ["duty", "Duty"],
-  ["options", "Options"],
-  ["water", "Water"],
-  ["upkeep", "Upkeep and fouling"],
-  ["tariffs", "Tariffs"],
-  ["economics", "Economics"],
-] as const;
-
-const schemaResolver = zodResolver(scenarioSchema as never) as unknown as Resolver<V>;
-
-/**
- * The one scenario schema in the browser: the editor's values with a placeholder climate and site (the
- * dataset is checked on the server), so the same rules run on every change and on save.
- */
-const resolver: Resolver<V> = async (values, context, options) => {
-  const r = await schemaResolver(withPlaceholders(values), context, options);
-  const errors = { ...(r.errors as FieldErrors<V>) } as Record<string, unknown>;
-  delete errors.climate;
-  delete errors.site;
-  if (Object.keys(errors).length > 0) return { values: {}, errors: errors as FieldErrors<V> };
-  return { values, errors: {} };
-};
+/** The editor's current problems (all sections), for the section list and the summary. */
+function createProblemStore(initial: EditorProblem[]) {
+  let current = initial;
+  const listeners = new Set<() => void>();
+  return {
+    get: () => current,
+    set(next: EditorProblem[]) {
+      current = next;
+      listeners.forEach((l) => l());
+    },
+    subscribe(l: () => void) {
+      listeners.add(l);
+      return () => listeners.delete(l);
+    },
+  };
+}
+type ProblemStore = ReturnType<typeof createProblemStore>;
 
 type Banner =
   | { kind: "saved"; text: string }
@@ -52,17 +80,77 @@ export function ScenarioEditor(props: {
   currency: string;
   datasets: { id: string; name: string }[];
   initial: V;
+  initialSection: string | null;
+  initialProblems: EditorProblem[];
 }) {
   const { projectId, scenarioId } = props;
-  const form = useForm<V>({ defaultValues: props.initial, resolver, mode: "onChange", reValidateMode: "onChange", shouldUnregister: false });
+  const ctx: MessageContext = useMemo(
+    () => ({ system: props.unitSystem, currency: props.currency }),
+    [props.unitSystem, props.currency],
+  );
+  const [store] = useState(() => createProblemStore(props.initialProblems));
+  // The one scenario schema, run on the editor's values on every change and on save; its problems in the
+  // project's units go onto the fields and into the store the section list reads.
+  const resolver = useMemo<Resolver<V>>(
+    () => async (values) => {
+      const problems = validateEditorValues(values, ctx);
+      store.set(problems);
+      return problems.length === 0 ? { values, errors: {} } : { values: {}, errors: toFormErrors(problems) };
+    },
+    [ctx, store],
+  );
+  const form = useForm<V>({
+    defaultValues: props.initial,
+    resolver,
+    mode: "onChange",
+    reValidateMode: "onChange",
+    shouldUnregister: false,
+  });
+  const options = useFieldArray<V, "options">({ control: form.control, name: "options" });
+  const optionCount = options.fields.length;
+  const [active, setActive] = useState<SectionId>(() => parseSection(props.initialSection, optionCount));
   const [revision, setRevision] = useState(props.revision);
   const [banner, setBanner] = useState<Banner>(null);
-  const [serverErrors, setServerErrors] = useState<FieldErrorMap>({});
+  const [formMessages, setFormMessages] = useState<string[]>([]);
+  const [showSummary, setShowSummary] = useState(false);
+  const [summaryFocus, setSummaryFocus] = useState(0);
   const [pending, startTransition] = useTransition();
   const [copied, setCopied] = useState<string | null>(null);
-  // Read through child components (useFormState) so that a keystroke re-renders them, not the whole form.
   const dirtyRef = useRef(false);
+  const focusAfterRender = useRef<string | null>(null);
   const base = `/projects/${projectId}/scenarios/${scenarioId}`;
+  const order = sectionOrder(optionCount);
+  const current = order.includes(active) ? active : "general";
+
+  const select = useCallback((id: SectionId, focus?: string) => {
+    setActive(id);
+    focusAfterRender.current = focus ?? `${id}-title`;
+    const url = new URL(window.location.href);
+    url.searchParams.set("section", id);
+    url.hash = "";
+    window.history.pushState(null, "", url.toString());
+  }, []);
+
+  useEffect(() => {
+    const id = focusAfterRender.current;
+    if (!id) return;
+    focusAfterRender.current = null;
+    const el = document.getElementById(id);
+    if (el) {
+      el.focus({ preventScroll: true });
+      el.scrollIntoView({ block: "center" });
+    }
+  });
+
+  // Back and forward move between sections as they were opened.
+  useEffect(() => {
+    const onPop = () =>
+      setActive(
+        parseSection(new URL(window.location.href).searchParams.get("section"), options.fields.length),
+      );
+    window.addEventListener("popstate", onPop);
+    return () => window.removeEventListener("popstate", onPop);
+  }, [options.fields.length]);
 
   // A warning before leaving with unsaved changes: closing or reloading the tab, and links in the app.
   useEffect(() => {
@@ -72,9 +160,17 @@ export function ScenarioEditor(props: {
       e.returnValue = "";
     };
     const onClick = (e: MouseEvent) => {
-      if (!dirtyRef.current || e.defaultPrevented || e.button !== 0 || e.metaKey || e.ctrlKey || e.shiftKey) return;
+      if (!dirtyRef.current || e.defaultPrevented || e.button !== 0 || e.metaKey || e.ctrlKey || e.shiftKey)
+        return;
       const a = (e.target as HTMLElement | null)?.closest?.("a[href]") as HTMLAnchorElement | null;
-      if (!a || a.target === "_blank" || a.hasAttribute("download") || a.getAttribute("href")?.startsWith("#")) return;
+      if (
+        !a ||
+        a.target === "_blank" ||
+        a.hasAttribute("download") ||
+        a.hasAttribute("data-section-link") ||
+        a.getAttribute("href")?.startsWith("#")
+      )
+        return;
       if (!window.confirm("You have unsaved changes in this scenario. Leave without saving?")) {
         e.preventDefault();
         e.stopPropagation();
@@ -91,37 +187,64 @@ export function ScenarioEditor(props: {
   const save = useCallback(
     (values: V) => {
       setBanner(null);
+      setShowSummary(false);
       startTransition(async () => {
         const { climateDatasetId, ...document } = values;
         let r: SaveScenarioResult;
         try {
           r = await saveScenarioAction(projectId, scenarioId, {
             revision,
-            name: String(values.name ?? ""),
-            climateDatasetId: typeof climateDatasetId === "string" && climateDatasetId ? climateDatasetId : null,
+            name: values.name ?? "",
+            climateDatasetId: climateDatasetId || null,
             document,
           });
         } catch {
-          setBanner({ kind: "error", text: "The server could not be reached. Nothing was saved; your edits are still here — try again." });
+          setBanner({
+            kind: "error",
+            text: "The server could not be reached. Nothing was saved; your edits are still here — try again.",
+          });
           return;
         }
         if (r.ok) {
           setRevision(r.revision);
-          setServerErrors({});
+          setFormMessages([]);
           form.reset(form.getValues(), { keepValues: true });
           setBanner({
             kind: "saved",
             text:
               `Saved as revision ${r.revision}. ` +
-              (r.reusedResult ? "The stored result for these inputs was reused." : `Analysed in ${(r.analysisMs / 1000).toFixed(1)} s.`) +
-              (r.monteCarlo === "queued" || r.monteCarlo === "running" ? " Monte Carlo runs in the background." : ""),
+              (r.reusedResult
+                ? "The stored result for these inputs was reused."
+                : `Analysed in ${(r.analysisMs / 1000).toFixed(1)} s.`) +
+              (r.firstCostsMissing.length > 0
+                ? ` First costs are still missing for ${r.firstCostsMissing.join(", ")}: the life-cycle cost waits for them.`
+                : "") +
+              (r.monteCarlo === "queued" || r.monteCarlo === "running"
+                ? " Monte Carlo runs in the background."
+                : ""),
           });
           return;
         }
         if (r.kind === "invalid") {
-          // Field errors go onto their fields (and from there into the summary); only form-level ones stay here.
-          const formLevel = applyFieldErrors(form.setError, r.fieldErrors);
-          setServerErrors(formLevel.length > 0 ? { "": formLevel } : {});
+          // Field problems go onto their fields and into the summary; only form-level ones stay as text.
+          const fieldProblems: EditorProblem[] = [];
+          const formLevel: string[] = [];
+          for (const p of r.problems) {
+            if (!p.path) formLevel.push(p.message);
+            else fieldProblems.push(p);
+          }
+          for (const p of fieldProblems)
+            form.setError(p.path as Parameters<typeof form.setError>[0], {
+              type: "server",
+              message: p.message,
+            });
+          const merged = [...store.get()];
+          for (const p of fieldProblems)
+            if (!merged.some((m) => m.path === p.path && m.message === p.message)) merged.push(p);
+          store.set(merged);
+          setFormMessages(formLevel);
+          setShowSummary(true);
+          setSummaryFocus((n) => n + 1);
           setBanner({ kind: "error", text: r.message });
           return;
         }
@@ -132,10 +255,14 @@ export function ScenarioEditor(props: {
         setBanner({ kind: "error", text: r.message });
       });
     },
-    [form, projectId, revision, scenarioId],
+    [form, projectId, revision, scenarioId, store],
   );
 
-  const onInvalid = useCallback(() => setBanner({ kind: "error", text: "Not saved: fix the fields listed above first." }), []);
+  const onInvalid = useCallback(() => {
+    setShowSummary(true);
+    setSummaryFocus((n) => n + 1);
+    setBanner({ kind: "error", text: "Not saved: fix the fields listed at the top first." });
+  }, []);
 
   const copyInputs = useCallback(async () => {
     const text = JSON.stringify(form.getValues(), null, 2);
@@ -147,58 +274,119 @@ export function ScenarioEditor(props: {
     }
   }, [form]);
 
-  const datasetOptions = useMemo(() => props.datasets.map((d) => ({ value: d.id, label: d.name })), [props.datasets]);
+  const datasetOptions = useMemo(
+    () => props.datasets.map((d) => ({ value: d.id, label: d.name })),
+    [props.datasets],
+  );
+  const index = order.indexOf(current);
+  const prev = index > 0 ? order[index - 1] : null;
+  const next = index < order.length - 1 ? order[index + 1] : null;
+  const optionIndex = optionIndexOfSection(current);
 
   return (
     <UnitsProvider system={props.unitSystem} currency={props.currency}>
       <FormProvider {...form}>
-        <form noValidate onSubmit={form.handleSubmit(save, onInvalid)} className="grid gap-6 lg:grid-cols-[12rem_1fr]" data-testid="scenario-editor" aria-label="Scenario inputs">
-          <nav aria-label="Sections" className="lg:sticky lg:top-4 lg:self-start">
-            <ul className="flex flex-wrap gap-1 text-sm lg:flex-col">
-              {SECTIONS.map(([id, label]) => (
-                <li key={id}>
-                  <a href={`#${id}`} className="block rounded-md px-2 py-1 text-ink-soft hover:bg-paper-sunk hover:text-ink">
-                    {label}
-                  </a>
-                </li>
-              ))}
-            </ul>
-            <p className="mt-4 hidden text-xs text-ink-faint lg:block">
-              Units: {props.unitSystem === "IP" ? "IP (°F, gpm, kgal…)" : "SI (°C, L/s, m³…)"}; stored in SI. Empty optional fields let the engine derive the value.
-            </p>
-          </nav>
+        <form
+          noValidate
+          onSubmit={form.handleSubmit(save, onInvalid)}
+          className="grid gap-6 lg:grid-cols-[15rem_1fr]"
+          data-testid="scenario-editor"
+          aria-label="Scenario inputs"
+        >
+          <SectionNav control={form.control} store={store} order={order} active={current} onSelect={select} />
           <div className="min-w-0 space-y-6">
-            <ErrorSummary control={form.control} serverErrors={serverErrors} />
-            <section id="general" aria-labelledby="general-title" className="scroll-mt-24 rounded-panel border border-line bg-paper-raised p-panel shadow-panel">
-              <h2 id="general-title" className="text-lg font-semibold">
-                General
-              </h2>
-              <div className="mt-4 grid gap-4 sm:grid-cols-2">
-                <TextField<V> name="name" label="Scenario name" maxLength={200} required />
-                <SelectField<V>
-                  name="climateDatasetId"
-                  label="Climate dataset"
-                  options={datasetOptions}
-                  placeholder="Choose a dataset"
-                  emptyValue=""
-                  required
-                  description="Stored typical-year weather of this project (hourly or bins)."
+            {showSummary ? (
+              <ProblemSummary
+                control={form.control}
+                store={store}
+                formMessages={formMessages}
+                focusKey={summaryFocus}
+                onGo={(path) => select(sectionOfProblem(store, path), fieldId(path))}
+              />
+            ) : null}
+            <div id="editor-panel" aria-live="off">
+              {current === "general" ? (
+                <Section
+                  id="general"
+                  title="General"
+                  intro="Name the scenario, choose the climate it runs on and the options it compares."
+                >
+                  <div className="grid gap-4 sm:grid-cols-2">
+                    <TextField<V> name="name" label="Scenario name" maxLength={200} required />
+                    <SelectField<V>
+                      name="climateDatasetId"
+                      label="Climate dataset"
+                      options={datasetOptions}
+                      placeholder="Choose a dataset"
+                      emptyValue=""
+                      required
+                      description="Stored typical-year weather of this project (hourly or bins)."
+                    />
+                  </div>
+                  <GeneralOptions
+                    control={form.control}
+                    onAdd={(o) => options.append(o)}
+                    onOpen={(i) => select(optionSectionId(i))}
+                  />
+                </Section>
+              ) : null}
+              {current === "duty" ? <DutySection /> : null}
+              {optionIndex !== null && options.fields[optionIndex] ? (
+                <OptionSection
+                  key={options.fields[optionIndex].id}
+                  i={optionIndex}
+                  canRemove={optionCount > 2}
+                  onRemove={() => {
+                    if (!window.confirm(`Remove option ${optionIndex + 1} and everything entered for it?`))
+                      return;
+                    options.remove(optionIndex);
+                    select("general");
+                  }}
                 />
-              </div>
-            </section>
-            <DutySection />
-            <OptionsSection />
-            <WaterSection />
-            <UpkeepSection />
-            <TariffsSection />
-            <EconomicsSection />
-            <div className="sticky bottom-0 z-10 -mx-2 rounded-panel border border-line bg-paper-raised/95 px-4 py-3 shadow-panel backdrop-blur" data-testid="save-bar">
+              ) : null}
+              {current === "water" ? <WaterSection /> : null}
+              {current === "upkeep" ? <UpkeepSection /> : null}
+              {current === "tariffs" ? <TariffsSection /> : null}
+              {current === "economics" ? <EconomicsSection /> : null}
+            </div>
+            <div className="flex flex-wrap justify-between gap-2" data-testid="section-steps">
+              {prev ? (
+                <a
+                  href={`?section=${prev}`}
+                  data-section-link
+                  className="rounded-md border border-line-strong px-3 py-1.5 text-sm hover:bg-paper-sunk"
+                  onClick={(e) => (e.preventDefault(), select(prev))}
+                >
+                  ← <SectionTitle control={form.control} id={prev} />
+                </a>
+              ) : (
+                <span />
+              )}
+              {next ? (
+                <a
+                  href={`?section=${next}`}
+                  data-section-link
+                  className="rounded-md border border-line-strong px-3 py-1.5 text-sm hover:bg-paper-sunk"
+                  onClick={(e) => (e.preventDefault(), select(next))}
+                >
+                  <SectionTitle control={form.control} id={next} /> →
+                </a>
+              ) : null}
+            </div>
+            <div
+              className="sticky bottom-0 z-10 -mx-2 rounded-panel border border-line bg-paper-raised/95 px-4 py-3 shadow-panel backdrop-blur"
+              data-testid="save-bar"
+            >
               {banner ? (
                 <div
                   role={banner.kind === "saved" ? "status" : "alert"}
                   data-testid={`banner-${banner.kind}`}
                   className={`mb-3 rounded-md border px-3 py-2 text-sm ${
-                    banner.kind === "saved" ? "border-ok-600 bg-ok-50 text-ok-600" : banner.kind === "conflict" ? "border-caution-600 bg-caution-50 text-caution-800" : "border-danger-600 bg-danger-50 text-danger-700"
+                    banner.kind === "saved"
+                      ? "border-ok-600 bg-ok-50 text-ok-600"
+                      : banner.kind === "conflict"
+                        ? "border-caution-600 bg-caution-50 text-caution-800"
+                        : "border-danger-600 bg-danger-50 text-danger-700"
                   }`}
                 >
                   <p>{banner.text}</p>
@@ -209,13 +397,21 @@ export function ScenarioEditor(props: {
                   ) : null}
                   {banner.kind === "conflict" ? (
                     <div className="mt-2 flex flex-wrap gap-2">
-                      <button type="button" onClick={copyInputs} className="rounded-md border border-caution-600 bg-paper-raised px-3 py-1.5 text-sm">
+                      <button
+                        type="button"
+                        onClick={copyInputs}
+                        className="rounded-md border border-caution-600 bg-paper-raised px-3 py-1.5 text-sm"
+                      >
                         Copy my inputs (JSON)
                       </button>
                       <button
                         type="button"
                         onClick={() => {
-                          if (window.confirm(`Load revision ${banner.currentRevision}? Your unsaved edits in this tab will be replaced (copy them first).`)) {
+                          if (
+                            window.confirm(
+                              `Load revision ${banner.currentRevision}? Your unsaved edits in this tab will be replaced (copy them first).`,
+                            )
+                          ) {
                             dirtyRef.current = false;
                             window.location.reload();
                           }
@@ -228,7 +424,12 @@ export function ScenarioEditor(props: {
                   ) : null}
                   {copied ? (
                     copied.startsWith("{") ? (
-                      <textarea readOnly aria-label="Your inputs as JSON" className="mt-2 h-40 w-full rounded border border-line p-2 font-mono text-xs" value={copied} />
+                      <textarea
+                        readOnly
+                        aria-label="Your inputs as JSON"
+                        className="mt-2 h-40 w-full rounded border border-line p-2 font-mono text-xs"
+                        value={copied}
+                      />
                     ) : (
                       <p className="mt-1 text-xs">{copied}</p>
                     )
@@ -249,7 +450,9 @@ export function ScenarioEditor(props: {
                   type="button"
                   className="ml-auto rounded-md border border-line-strong bg-paper-raised px-3 py-1.5 text-sm hover:bg-paper-sunk"
                   onClick={() => {
-                    const note = dirtyRef.current ? "The copy is made from the saved revision: your unsaved edits here are not in it. Clone anyway?" : "Make a copy of this scenario and open it?";
+                    const note = dirtyRef.current
+                      ? "The copy is made from the saved revision: your unsaved edits here are not in it. Clone anyway?"
+                      : "Make a copy of this scenario and open it?";
                     if (!window.confirm(note)) return;
                     dirtyRef.current = false;
                     startTransition(() => cloneScenarioAction(projectId, scenarioId));
@@ -269,12 +472,185 @@ export function ScenarioEditor(props: {
   );
 }
 
-function ErrorSummary({ control, serverErrors }: { control: Control<V>; serverErrors: FieldErrorMap }) {
-  const { errors, submitCount } = useFormState({ control });
-  return <FormErrorSummary errors={errors} serverErrors={serverErrors} focusKey={submitCount} />;
+function sectionOfProblem(store: ProblemStore, path: string): SectionId {
+  return store.get().find((p) => p.path === path)?.section ?? "general";
 }
 
-function DirtyNote({ control, revision, dirtyRef }: { control: Control<V>; revision: number; dirtyRef: React.MutableRefObject<boolean> }) {
+function useProblems(store: ProblemStore) {
+  return useSyncExternalStore(store.subscribe, store.get, store.get);
+}
+
+/** A section's title: the option's own label for an option section. */
+function SectionTitle({ control, id }: { control: Control<V>; id: SectionId }) {
+  const i = optionIndexOfSection(id);
+  const labels = useWatch({ control, name: "options" });
+  if (i === null) return <>{EDITOR_SECTIONS.find((s) => s.id === id)?.title ?? id}</>;
+  const o = labels?.[i];
+  return <>{`Option ${i + 1}: ${o?.label || (o?.kind ? OPTION_KIND_LABELS[o.kind] : "")}`}</>;
+}
+
+/**
+ * The sections as steps, each with its state: complete, fields to fill, errors. Plain links (?section=…), so
+ * they are reachable with Tab, open with Enter, and work before the page's script has loaded.
+ */
+function SectionNav({
+  control,
+  store,
+  order,
+  active,
+  onSelect,
+}: {
+  control: Control<V>;
+  store: ProblemStore;
+  order: SectionId[];
+  active: SectionId;
+  onSelect: (id: SectionId) => void;
+}) {
+  const problems = useProblems(store);
+  const status = statusBySection(problems);
+  return (
+    <nav
+      aria-label="Sections of the scenario"
+      className="lg:sticky lg:top-4 lg:self-start"
+      data-testid="section-nav"
+    >
+      <ol className="flex flex-wrap gap-1 text-sm lg:flex-col">
+        {order.map((id, n) => {
+          const s = status.get(id);
+          const isActive = id === active;
+          const state = !s ? "complete" : s.invalid > 0 ? "errors" : "incomplete";
+          const badge = !s
+            ? "✓"
+            : [
+                s.invalid > 0 ? `${s.invalid} ${s.invalid === 1 ? "error" : "errors"}` : null,
+                s.missing > 0 ? `${s.missing} to fill` : null,
+              ]
+                .filter(Boolean)
+                .join(" · ");
+          return (
+            <li key={id}>
+              <a
+                href={`?section=${id}`}
+                data-section-link
+                data-state={state}
+                data-testid={`nav-${id}`}
+                aria-current={isActive ? "step" : undefined}
+                onClick={(e) => {
+                  e.preventDefault();
+                  onSelect(id);
+                }}
+                className={`flex items-baseline justify-between gap-2 rounded-md border px-2 py-1.5 ${isActive ? "border-basin-600 bg-basin-50 font-medium text-ink" : "border-transparent text-ink-soft hover:bg-paper-sunk hover:text-ink"}`}
+              >
+                <span>
+                  <span className="mr-1 text-xs text-ink-faint">{n + 1}.</span>
+                  <SectionTitle control={control} id={id} />
+                </span>
+                <span
+                  className={`shrink-0 text-xs ${state === "complete" ? "text-ok-600" : state === "errors" ? "text-danger-700" : "text-caution-800"}`}
+                  aria-label={state === "complete" ? "complete" : badge}
+                >
+                  {badge}
+                </span>
+              </a>
+            </li>
+          );
+        })}
+      </ol>
+      <p className="mt-4 hidden text-xs text-ink-faint lg:block">
+        ✓ complete · “to fill”: empty fields without a default · errors: values to correct. Values are saved
+        in SI whatever the units shown.
+      </p>
+    </nav>
+  );
+}
+
+/** Every problem at the top, each named by section, group and label and linked to its field. */
+function ProblemSummary({
+  control,
+  store,
+  formMessages,
+  focusKey,
+  onGo,
+}: {
+  control: Control<V>;
+  store: ProblemStore;
+  formMessages: string[];
+  focusKey: number;
+  onGo: (path: string) => void;
+}) {
+  const problems = useProblems(store);
+  const labels = useWatch({ control, name: "options" });
+  const optionLabels = (labels ?? []).map((o) => o?.label ?? "");
+  const ref = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (focusKey) ref.current?.focus();
+  }, [focusKey]);
+  const count = problems.length + formMessages.length;
+  if (count === 0) return <div aria-live="polite" />;
+  return (
+    <div
+      ref={ref}
+      tabIndex={-1}
+      role="alert"
+      data-testid="form-error-summary"
+      className="rounded-panel border border-danger-600 bg-danger-50 px-4 py-3 text-sm text-danger-700"
+    >
+      <p className="font-semibold">
+        {count === 1 ? "Fix this problem to save:" : `Fix these ${count} problems to save:`}
+      </p>
+      <ul className="mt-1 list-disc space-y-0.5 pl-5">
+        {formMessages.map((m) => (
+          <li key={m}>{m}</li>
+        ))}
+        {problems.map((p) => (
+          <li key={`${p.path}:${p.message}`}>
+            <a
+              className="underline"
+              href={`?section=${p.section}#${fieldId(p.path)}`}
+              data-section-link
+              onClick={(e) => {
+                e.preventDefault();
+                onGo(p.path);
+              }}
+            >
+              {placeText(placeOf(p.path, optionLabels))}
+            </a>
+            : {p.message}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+function GeneralOptions({
+  control,
+  onAdd,
+  onOpen,
+}: {
+  control: Control<V>;
+  onAdd: Parameters<typeof OptionsList>[0]["onAdd"];
+  onOpen: (i: number) => void;
+}) {
+  const list = useWatch({ control, name: "options" }) ?? [];
+  return (
+    <OptionsList
+      options={list.map((o, i) => ({ key: `${i}-${o.id}`, label: o.label ?? "", kind: o.kind }))}
+      onAdd={onAdd}
+      onOpen={onOpen}
+    />
+  );
+}
+
+function DirtyNote({
+  control,
+  revision,
+  dirtyRef,
+}: {
+  control: Control<V>;
+  revision: number;
+  dirtyRef: React.MutableRefObject<boolean>;
+}) {
   const { isDirty } = useFormState({ control });
   // After every commit (no deps on purpose): the guards read it in event handlers, and a handler that
   // cleared it before leaving is overridden again by the next render, as when it was set during render.

@@ -16,9 +16,10 @@ import { OPTION_KIND_LABELS, OPTION_KINDS, type OptionKind } from "@/lib/engine/
 import { componentLifeDefaultsYears } from "@/lib/scenarios/schema-economics";
 import { newOptionOfKind } from "@/lib/scenarios/prefill";
 import { unitLabel } from "@/lib/units";
+import type { EditorOption, EditorPath, EditorValues } from "@/lib/scenarios/editor-values";
 import { Check, Choice, FlowField, Group, Num, Pct, Plain, ScaledField, Text } from "./fields";
 
-type V = Record<string, unknown>;
+type V = EditorValues;
 
 export const FIRST_COST_LABELS: Record<(typeof FIRST_COST_ITEMS)[number], string> = {
   equipment: "Equipment",
@@ -54,12 +55,32 @@ const PERIODIC_LABELS: Record<(typeof PERIODIC_ITEM_KINDS)[number], string> = {
   other: "Other",
 };
 
-function Section({ id, title, children, intro }: { id: string; title: string; children: React.ReactNode; intro?: React.ReactNode }) {
+export function Section({
+  id,
+  title,
+  children,
+  intro,
+  action,
+}: {
+  id: string;
+  title: string;
+  children: React.ReactNode;
+  intro?: React.ReactNode;
+  action?: React.ReactNode;
+}) {
   return (
-    <section id={id} aria-labelledby={`${id}-title`} className="scroll-mt-24 rounded-panel border border-line bg-paper-raised p-panel shadow-panel">
-      <h2 id={`${id}-title`} className="text-lg font-semibold">
-        {title}
-      </h2>
+    <section
+      id={id}
+      aria-labelledby={`${id}-title`}
+      className="scroll-mt-24 rounded-panel border border-line bg-paper-raised p-panel shadow-panel"
+      data-testid={`section-${id}`}
+    >
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h2 id={`${id}-title`} className="text-lg font-semibold" tabIndex={-1}>
+          {title}
+        </h2>
+        {action}
+      </div>
       {intro ? <p className="mt-1 text-sm text-ink-soft">{intro}</p> : null}
       <div className="mt-4 space-y-4">{children}</div>
     </section>
@@ -70,9 +91,9 @@ function Section({ id, title, children, intro }: { id: string; title: string; ch
 
 export function DutySection() {
   const { setValue } = useFormContext<V>();
-  const basis = useWatch<V>({ name: "duty.designBasis" });
-  const profile = useWatch<V>({ name: "duty.loadProfile" }) as { kind?: string } | undefined;
-  const compressor = useWatch<V>({ name: "duty.compressorModel" }) as { kind?: string } | undefined;
+  const basis = useWatch<V, "duty.designBasis">({ name: "duty.designBasis" });
+  const profile = useWatch<V, "duty.loadProfile">({ name: "duty.loadProfile" });
+  const compressor = useWatch<V, "duty.compressorModel">({ name: "duty.compressorModel" });
   return (
     <Section id="duty" title="Duty" intro="The heat the loop rejects and the refrigeration cycle it serves.">
       <Group title="Design duty">
@@ -85,14 +106,24 @@ export function DutySection() {
           ]}
         />
         {basis === "refrigeration" ? (
-          <Num name="duty.designRefrigerationLoadKW" label="Design refrigeration load" kind="refrigerationTonsKW" description="Heat rejected = load × (1 + 1/COP)." />
+          <Num
+            name="duty.designRefrigerationLoadKW"
+            label="Design refrigeration load"
+            kind="refrigerationTonsKW"
+            description="Heat rejected = load × (1 + 1/COP)."
+          />
         ) : (
           <Num name="duty.designHeatRejectionKW" label="Design heat rejection" kind="heatDutyMbhKW" />
         )}
         <Plain name="duty.designCop" label="Compressor COP at design" unit="kW/kW" />
         <Num name="duty.evaporatingC" label="Evaporating temperature" kind="temperatureC" />
         <Num name="duty.condensingSetPointC" label="Condensing set-point" kind="temperatureC" />
-        <Num name="duty.minimumCondensingC" label="Minimum condensing temperature" kind="temperatureC" description="Expansion devices, oil return and defrost set this floor." />
+        <Num
+          name="duty.minimumCondensingC"
+          label="Minimum condensing temperature"
+          kind="temperatureC"
+          description="Expansion devices, oil return and defrost set this floor."
+        />
         <Choice
           name="duty.headPressureControl"
           label="Head-pressure control"
@@ -113,23 +144,42 @@ export function DutySection() {
             value={profile?.kind ?? "constant"}
             onChange={(e) => {
               const k = e.target.value;
-              if (k === "constant") setValue("duty.loadProfile" as never, { kind: "constant", fraction: 1 } as never, { shouldDirty: true, shouldValidate: true });
+              if (k === "constant")
+                setValue(
+                  "duty.loadProfile",
+                  { kind: "constant", fraction: 1 },
+                  { shouldDirty: true, shouldValidate: true },
+                );
               if (k === "linearInDryBulb")
                 setValue(
-                  "duty.loadProfile" as never,
-                  { kind: "linearInDryBulb", lowDryBulbC: 0, fractionAtLowDryBulb: 0.6, highDryBulbC: 32, fractionAtHighDryBulb: 1 } as never,
+                  "duty.loadProfile",
+                  {
+                    kind: "linearInDryBulb",
+                    lowDryBulbC: 0,
+                    fractionAtLowDryBulb: 0.6,
+                    highDryBulbC: 32,
+                    fractionAtHighDryBulb: 1,
+                  },
                   { shouldDirty: true, shouldValidate: true },
                 );
             }}
           >
             <option value="constant">Constant fraction</option>
             <option value="linearInDryBulb">Linear in dry-bulb</option>
-            {profile?.kind === "monthHour" ? <option value="monthHour">Month × hour table (edit in the JSON document)</option> : null}
-            {profile?.kind === "perBin" ? <option value="perBin">Per climate bin (edit in the JSON document)</option> : null}
+            {profile?.kind === "monthHour" ? (
+              <option value="monthHour">Month × hour table (edit in the JSON document)</option>
+            ) : null}
+            {profile?.kind === "perBin" ? (
+              <option value="perBin">Per climate bin (edit in the JSON document)</option>
+            ) : null}
           </select>
-          <p className="mt-1 text-xs text-ink-faint">Default · constant 100 % · [practice] conservative: the design load in every hour</p>
+          <p className="mt-1 text-xs text-ink-faint">
+            Default · constant 100 % · [practice] conservative: the design load in every hour
+          </p>
         </div>
-        {profile?.kind === "constant" ? <Pct name="duty.loadProfile.fraction" label="Fraction of design" /> : null}
+        {profile?.kind === "constant" ? (
+          <Pct name="duty.loadProfile.fraction" label="Fraction of design" />
+        ) : null}
         {profile?.kind === "linearInDryBulb" ? (
           <>
             <Num name="duty.loadProfile.lowDryBulbC" label="Low dry-bulb point" kind="temperatureC" />
@@ -149,16 +199,29 @@ export function DutySection() {
             className="mt-1 w-full rounded-md border border-line-strong bg-paper-raised px-3 py-2 text-sm"
             value={compressor?.kind ?? "carnotFraction"}
             onChange={(e) =>
-              setValue("duty.compressorModel" as never, (e.target.value === "percentPerK" ? { kind: "percentPerK", percentPerK: 3 } : { kind: "carnotFraction" }) as never, { shouldDirty: true, shouldValidate: true })
+              setValue(
+                "duty.compressorModel",
+                e.target.value === "percentPerK"
+                  ? { kind: "percentPerK", percentPerK: 3 }
+                  : { kind: "carnotFraction" },
+                { shouldDirty: true, shouldValidate: true },
+              )
             }
           >
             <option value="carnotFraction">Carnot fraction calibrated on the design COP</option>
             <option value="percentPerK">Entered percent per degree</option>
           </select>
-          <p className="mt-1 text-xs text-ink-faint">Default · Carnot fraction · LoopLedger engineering notes §5</p>
+          <p className="mt-1 text-xs text-ink-faint">
+            Default · Carnot fraction · LoopLedger engineering notes §5
+          </p>
         </div>
         {compressor?.kind === "percentPerK" ? (
-          <Num name="duty.compressorModel.percentPerK" label="Compressor power rise" kind="percentPerK" description="2–4 %/K in industrial refrigeration [practice]." />
+          <Num
+            name="duty.compressorModel.percentPerK"
+            label="Compressor power rise"
+            kind="percentPerK"
+            description="2–4 %/K in industrial refrigeration [practice]."
+          />
         ) : null}
       </Group>
     </Section>
@@ -170,7 +233,10 @@ export function DutySection() {
 function FirstCostGroup({ i, kind }: { i: number; kind: OptionKind }) {
   const { currency } = useUnits();
   return (
-    <Group title="First cost" note={`No defaults: enter the quoted amounts from the selection (${currency}, 0 where an item does not apply).`}>
+    <Group
+      title="First cost"
+      note={`No defaults: enter the quoted amounts from the selection (${currency}, 0 where an item does not apply).`}
+    >
       {FIRST_COST_ITEMS.filter((k) => k !== "plateExchanger" || kind === "openTowerPlateHx").map((k) => (
         <Num key={k} name={`options.${i}.costs.firstCost.${k}`} label={FIRST_COST_LABELS[k]} kind="money" />
       ))}
@@ -180,18 +246,35 @@ function FirstCostGroup({ i, kind }: { i: number; kind: OptionKind }) {
 
 function ComponentsList({ i }: { i: number }) {
   const { control } = useFormContext<V>();
-  const { fields, append, remove } = useFieldArray<V>({ control, name: `options.${i}.costs.components` as never });
+  const { fields, append, remove } = useFieldArray<V, `options.${number}.costs.components`>({
+    control,
+    name: `options.${i}.costs.components`,
+  });
   return (
     <fieldset className="rounded-md border border-line p-4">
       <legend className="px-1 text-sm font-semibold">Component replacements</legend>
-      {fields.length === 0 ? <p className="text-xs text-ink-soft">None entered: components are replaced with the whole unit.</p> : null}
+      {fields.length === 0 ? (
+        <p className="text-xs text-ink-soft">None entered: components are replaced with the whole unit.</p>
+      ) : null}
       <div className="space-y-3">
         {fields.map((f, j) => (
           <div key={f.id} className="grid items-end gap-3 sm:grid-cols-[1fr_1fr_1fr_auto]">
-            <Choice name={`options.${i}.costs.components.${j}.component`} label="Component" options={COMPONENT_KEYS.map((k) => ({ value: k, label: COMPONENT_LABELS[k] }))} />
+            <Choice
+              name={`options.${i}.costs.components.${j}.component`}
+              label="Component"
+              options={COMPONENT_KEYS.map((k) => ({ value: k, label: COMPONENT_LABELS[k] }))}
+            />
             <Num name={`options.${i}.costs.components.${j}.lifeYears`} label="Life" kind="years" />
-            <Num name={`options.${i}.costs.components.${j}.replacementCost`} label="Cost per replacement" kind="money" />
-            <button type="button" onClick={() => remove(j)} className="mb-5 rounded-md border border-line-strong px-2 py-2 text-xs hover:bg-paper-sunk">
+            <Num
+              name={`options.${i}.costs.components.${j}.replacementCost`}
+              label="Cost per replacement"
+              kind="money"
+            />
+            <button
+              type="button"
+              onClick={() => remove(j)}
+              className="mb-5 rounded-md border border-line-strong px-2 py-2 text-xs hover:bg-paper-sunk"
+            >
               Remove
             </button>
           </div>
@@ -200,30 +283,71 @@ function ComponentsList({ i }: { i: number }) {
       <button
         type="button"
         className="mt-3 rounded-md border border-line-strong px-3 py-1.5 text-sm hover:bg-paper-sunk"
-        onClick={() => append({ component: "fill", lifeYears: componentLifeDefaultsYears.fill.default as number, replacementCost: 0 } as never)}
+        onClick={() =>
+          append({
+            component: "fill",
+            lifeYears: Number(componentLifeDefaultsYears.fill.default),
+            replacementCost: 0,
+          })
+        }
       >
         Add a component
       </button>
-      <p className="mt-1 text-xs text-ink-faint">Suggested lives: {COMPONENT_KEYS.slice(0, 7).map((k) => `${COMPONENT_LABELS[k].toLowerCase()} ${String(componentLifeDefaultsYears[k].default)} y`).join(", ")} ([practice]/[memory], see sources in the schema).</p>
+      <p className="mt-1 text-xs text-ink-faint">
+        Suggested lives:{" "}
+        {COMPONENT_KEYS.slice(0, 7)
+          .map(
+            (k) => `${COMPONENT_LABELS[k].toLowerCase()} ${String(componentLifeDefaultsYears[k].default)} y`,
+          )
+          .join(", ")}{" "}
+        ([practice]/[memory], see sources in the schema).
+      </p>
     </fieldset>
   );
 }
 
 function PeriodicList({ i }: { i: number }) {
   const { control } = useFormContext<V>();
-  const { fields, append, remove } = useFieldArray<V>({ control, name: `options.${i}.costs.upkeep.periodicItems` as never });
+  const { fields, append, remove } = useFieldArray<V, `options.${number}.costs.upkeep.periodicItems`>({
+    control,
+    name: `options.${i}.costs.upkeep.periodicItems`,
+  });
   return (
     <fieldset className="rounded-md border border-line p-4">
       <legend className="px-1 text-sm font-semibold">Periodic upkeep</legend>
-      {fields.length === 0 ? <p className="text-xs text-ink-soft">None entered (eddy-current testing, disinfection, exchanger or coil cleaning…).</p> : null}
+      {fields.length === 0 ? (
+        <p className="text-xs text-ink-soft">
+          None entered (eddy-current testing, disinfection, exchanger or coil cleaning…).
+        </p>
+      ) : null}
       <div className="space-y-3">
         {fields.map((f, j) => (
           <div key={f.id} className="grid items-end gap-3 sm:grid-cols-[1.4fr_1fr_1fr_1fr_auto]">
-            <Choice name={`options.${i}.costs.upkeep.periodicItems.${j}.kind`} label="Item" options={PERIODIC_ITEM_KINDS.map((k) => ({ value: k, label: PERIODIC_LABELS[k] }))} />
-            <Num name={`options.${i}.costs.upkeep.periodicItems.${j}.everyYears`} label="Every" kind="years" />
-            <Num name={`options.${i}.costs.upkeep.periodicItems.${j}.costPerEvent`} label="Cost per event" kind="money" />
-            <Num name={`options.${i}.costs.upkeep.periodicItems.${j}.labourHoursPerEvent`} label="Own labour per event" kind="hours" />
-            <button type="button" onClick={() => remove(j)} className="mb-5 rounded-md border border-line-strong px-2 py-2 text-xs hover:bg-paper-sunk">
+            <Choice
+              name={`options.${i}.costs.upkeep.periodicItems.${j}.kind`}
+              label="Item"
+              options={PERIODIC_ITEM_KINDS.map((k) => ({ value: k, label: PERIODIC_LABELS[k] }))}
+            />
+            <Num
+              name={`options.${i}.costs.upkeep.periodicItems.${j}.everyYears`}
+              label="Every"
+              kind="years"
+            />
+            <Num
+              name={`options.${i}.costs.upkeep.periodicItems.${j}.costPerEvent`}
+              label="Cost per event"
+              kind="money"
+            />
+            <Num
+              name={`options.${i}.costs.upkeep.periodicItems.${j}.labourHoursPerEvent`}
+              label="Own labour per event"
+              kind="hours"
+            />
+            <button
+              type="button"
+              onClick={() => remove(j)}
+              className="mb-5 rounded-md border border-line-strong px-2 py-2 text-xs hover:bg-paper-sunk"
+            >
               Remove
             </button>
           </div>
@@ -232,7 +356,9 @@ function PeriodicList({ i }: { i: number }) {
       <button
         type="button"
         className="mt-3 rounded-md border border-line-strong px-3 py-1.5 text-sm hover:bg-paper-sunk"
-        onClick={() => append({ kind: "eddyCurrentTesting", everyYears: 3, costPerEvent: 0, labourHoursPerEvent: 0 } as never)}
+        onClick={() =>
+          append({ kind: "eddyCurrentTesting", everyYears: 3, costPerEvent: 0, labourHoursPerEvent: 0 })
+        }
       >
         Add a periodic item
       </button>
@@ -240,194 +366,356 @@ function PeriodicList({ i }: { i: number }) {
   );
 }
 
-function OptionCard({ i, onRemove, canRemove }: { i: number; onRemove: () => void; canRemove: boolean }) {
+/** One option's inputs: its own section of the editor. */
+export function OptionSection({
+  i,
+  onRemove,
+  canRemove,
+}: {
+  i: number;
+  onRemove: () => void;
+  canRemove: boolean;
+}) {
   const { setValue } = useFormContext<V>();
-  const kind = useWatch<V>({ name: `options.${i}.kind` }) as OptionKind;
-  const label = useWatch<V>({ name: `options.${i}.label` }) as string;
-  const fanControl = useWatch<V>({ name: `options.${i}.fan.control` });
-  const dryRating = useWatch<V>({ name: `options.${i}.cooler.dryRating` });
-  const glycolKind = useWatch<V>({ name: `options.${i}.cooler.glycol.kind` });
-  const p = `options.${i}`;
+  const kind = useWatch<V, `options.${number}.kind`>({ name: `options.${i}.kind` });
+  const label = useWatch<V, `options.${number}.label`>({ name: `options.${i}.label` });
+  const fanControl = useWatch<V, `options.${number}.fan.control`>({ name: `options.${i}.fan.control` });
+  const dryRating = useWatch<V, `options.${number}.cooler.dryRating`>({
+    name: `options.${i}.cooler.dryRating`,
+  });
+  const glycolKind = useWatch<V, `options.${number}.cooler.glycol.kind`>({
+    name: `options.${i}.cooler.glycol.kind`,
+  });
+  const p = `options.${i}` as const;
   const isTower = kind === "openTowerDirect" || kind === "openTowerPlateHx";
   return (
-    <details open className="group rounded-panel border border-line-strong bg-paper p-4" data-testid={`option-${i}`}>
-      <summary className="flex cursor-pointer flex-wrap items-baseline justify-between gap-2">
-        <span className="font-semibold">
-          Option {i + 1}: {label || OPTION_KIND_LABELS[kind]} <span className="text-xs font-normal text-ink-faint">({OPTION_KIND_LABELS[kind]})</span>
-        </span>
-        {canRemove ? (
-          <button type="button" onClick={onRemove} className="rounded-md border border-line-strong px-2 py-1 text-xs hover:bg-danger-50" aria-label={`Remove option ${i + 1}`}>
-            Remove option
+    <Section
+      id={`option-${i + 1}`}
+      title={`Option ${i + 1}: ${label || OPTION_KIND_LABELS[kind]}`}
+      intro={`${OPTION_KIND_LABELS[kind]}. Enter the manufacturer's certified selection; every wet option needs water treatment and a water-management programme.`}
+      action={
+        canRemove ? (
+          <button
+            type="button"
+            onClick={onRemove}
+            className="rounded-md border border-line-strong px-2 py-1 text-xs hover:bg-danger-50"
+            aria-label={`Remove option ${i + 1}`}
+          >
+            Remove this option
           </button>
-        ) : null}
-      </summary>
-      <div className="mt-4 space-y-4">
-        <Group title="Identification">
-          <Text name={`${p}.label`} label="Label" maxLength={120} />
-          <Text name={`${p}.id`} label="Option id" description="Used in exports and as the base-option reference." maxLength={64} />
+        ) : null
+      }
+    >
+      <Group title="Identification">
+        <Text name={`${p}.label`} label="Label" maxLength={120} />
+        <Text
+          name={`${p}.id`}
+          label="Option id"
+          description="Used in exports and as the base-option reference."
+          maxLength={64}
+        />
+      </Group>
+      {isTower ? (
+        <Group title="Tower selection at design" note="From the manufacturer's certified selection.">
+          <FlowField name={`${p}.tower.waterFlowKgPerS`} label="Tower water flow" />
+          <Num name={`${p}.tower.enteringWaterC`} label="Entering (hot) water" kind="temperatureC" />
+          <Num name={`${p}.tower.leavingWaterC`} label="Leaving (cold) water" kind="temperatureC" />
+          <Num name={`${p}.tower.designWetBulbC`} label="Design entering wet-bulb" kind="temperatureC" />
+          <Plain name={`${p}.tower.designLiquidToGasRatio`} label="Design L/G" unit="kg/kg" />
+          <Plain
+            name={`${p}.tower.characteristicExponent`}
+            label="Characteristic exponent n"
+            unit="—"
+            description="KaV/L = C·(L/G)^−n"
+          />
         </Group>
-        {isTower ? (
-          <Group title="Tower selection at design" note="From the manufacturer's certified selection.">
-            <FlowField name={`${p}.tower.waterFlowKgPerS`} label="Tower water flow" />
-            <Num name={`${p}.tower.enteringWaterC`} label="Entering (hot) water" kind="temperatureC" />
-            <Num name={`${p}.tower.leavingWaterC`} label="Leaving (cold) water" kind="temperatureC" />
-            <Num name={`${p}.tower.designWetBulbC`} label="Design entering wet-bulb" kind="temperatureC" />
-            <Plain name={`${p}.tower.designLiquidToGasRatio`} label="Design L/G" unit="kg/kg" />
-            <Plain name={`${p}.tower.characteristicExponent`} label="Characteristic exponent n" unit="—" description="KaV/L = C·(L/G)^−n" />
-          </Group>
-        ) : (
-          <Group title="Cooler selection at design" note="From the manufacturer's certified selection.">
-            <FlowField name={`${p}.cooler.fluidFlowKgPerS`} label="Process fluid flow" />
-            <Num name={`${p}.cooler.enteringFluidC`} label="Entering fluid" kind="temperatureC" />
-            <Num name={`${p}.cooler.leavingFluidC`} label="Leaving fluid" kind="temperatureC" />
-            <Num name={`${p}.cooler.designWetBulbC`} label="Design entering wet-bulb" kind="temperatureC" />
-            <Plain name={`${p}.cooler.designFluidToAirRatio`} label="Design fluid-to-air mass ratio" unit="kg/kg" />
-            <Pct name={`${p}.cooler.internalResistanceFraction`} label="Tube-side share of the wet resistance" />
-            <Plain name={`${p}.cooler.dryExternalConductanceFactor`} label="Dry external conductance factor" unit="—" />
-            <Check name={`${p}.cooler.allowDryMode`} label="May run dry (spray pump off)" />
-            <Num name={`${p}.cooler.dryModeMaxDryBulbC`} label="Dry operation only below dry-bulb" kind="temperatureC" optional />
-            <div className="sm:col-span-2 xl:col-span-3">
-              <label className="flex items-center gap-2 text-sm">
-                <input
-                  type="checkbox"
-                  className="h-4 w-4 accent-basin-600"
-                  checked={Boolean(dryRating)}
-                  onChange={(e) =>
-                    setValue(`${p}.cooler.dryRating` as never, (e.target.checked ? { enteringFluidC: 35, leavingFluidC: 30, dryBulbC: 10 } : undefined) as never, { shouldDirty: true, shouldValidate: true })
-                  }
-                />
-                I have a dry rating from the manufacturer (calibrates dry operation)
-              </label>
-            </div>
-            {dryRating ? (
-              <>
-                <Num name={`${p}.cooler.dryRating.enteringFluidC`} label="Dry rating: entering fluid" kind="temperatureC" />
-                <Num name={`${p}.cooler.dryRating.leavingFluidC`} label="Dry rating: leaving fluid" kind="temperatureC" />
-                <Num name={`${p}.cooler.dryRating.dryBulbC`} label="Dry rating: dry-bulb" kind="temperatureC" />
-              </>
-            ) : null}
-            <Choice
-              name={`${p}.cooler.glycol.kind`}
-              label="Process fluid"
-              options={[
-                { value: "none", label: "Water" },
-                { value: "ethyleneGlycol", label: "Ethylene glycol solution" },
-                { value: "propyleneGlycol", label: "Propylene glycol solution" },
-              ]}
-            />
-            {glycolKind !== "none" ? <Pct name={`${p}.cooler.glycol.massFraction`} label="Glycol mass fraction" /> : null}
-            <Choice
-              name={`${p}.cooler.ratingFluid`}
-              label="The rating is given on"
-              options={[
-                { value: "water", label: "Water (derate for glycol)" },
-                { value: "loopFluid", label: "The loop fluid itself" },
-              ]}
-            />
-          </Group>
-        )}
-        {kind === "openTowerPlateHx" ? (
-          <Group title="Plate exchanger">
-            <Num name={`${p}.plateExchanger.designApproachK`} label="Design approach" kind="temperatureDifferenceK" />
-            <Plain name={`${p}.plateExchanger.cleanUWPerM2K`} label="Clean U" unit="W/(m²·K)" />
-            <FlowField name={`${p}.plateExchanger.cleanSideFlowKgPerS`} label="Clean (condenser) side flow" description="Leave empty for the tower's water flow." />
-            <Num name={`${p}.plateExchanger.towerSidePressureDropKPa`} label="Tower-side pressure drop" kind="pressureDropKPa" />
-            <Num name={`${p}.plateExchanger.cleanSidePressureDropKPa`} label="Clean-side pressure drop" kind="pressureDropKPa" />
-            <Plain name={`${p}.plateExchanger.foulingGrowthFactor`} label="Plate fouling growth vs tubes" unit="×" />
-          </Group>
-        ) : null}
-        <Group title="Fans">
-          <Num name={`${p}.fan.designPowerKW`} label="Fan motor input at full speed (all cells)" kind="powerKW" />
+      ) : (
+        <Group title="Cooler selection at design" note="From the manufacturer's certified selection.">
+          <FlowField name={`${p}.cooler.fluidFlowKgPerS`} label="Process fluid flow" />
+          <Num name={`${p}.cooler.enteringFluidC`} label="Entering fluid" kind="temperatureC" />
+          <Num name={`${p}.cooler.leavingFluidC`} label="Leaving fluid" kind="temperatureC" />
+          <Num name={`${p}.cooler.designWetBulbC`} label="Design entering wet-bulb" kind="temperatureC" />
+          <Plain
+            name={`${p}.cooler.designFluidToAirRatio`}
+            label="Design fluid-to-air mass ratio"
+            unit="kg/kg"
+          />
+          <Pct
+            name={`${p}.cooler.internalResistanceFraction`}
+            label="Tube-side share of the wet resistance"
+          />
+          <Plain
+            name={`${p}.cooler.dryExternalConductanceFactor`}
+            label="Dry external conductance factor"
+            unit="—"
+          />
+          <Check name={`${p}.cooler.allowDryMode`} label="May run dry (spray pump off)" />
+          <Num
+            name={`${p}.cooler.dryModeMaxDryBulbC`}
+            label="Dry operation only below dry-bulb"
+            kind="temperatureC"
+            optional
+          />
+          <div className="sm:col-span-2 xl:col-span-3">
+            <label className="flex items-center gap-2 text-sm">
+              <input
+                type="checkbox"
+                className="h-4 w-4 accent-basin-600"
+                checked={Boolean(dryRating)}
+                onChange={(e) =>
+                  setValue(
+                    `options.${i}.cooler.dryRating`,
+                    e.target.checked ? { enteringFluidC: 35, leavingFluidC: 30, dryBulbC: 10 } : undefined,
+                    { shouldDirty: true, shouldValidate: true },
+                  )
+                }
+              />
+              I have a dry rating from the manufacturer (calibrates dry operation)
+            </label>
+          </div>
+          {dryRating ? (
+            <>
+              <Num
+                name={`${p}.cooler.dryRating.enteringFluidC`}
+                label="Dry rating: entering fluid"
+                kind="temperatureC"
+              />
+              <Num
+                name={`${p}.cooler.dryRating.leavingFluidC`}
+                label="Dry rating: leaving fluid"
+                kind="temperatureC"
+              />
+              <Num name={`${p}.cooler.dryRating.dryBulbC`} label="Dry rating: dry-bulb" kind="temperatureC" />
+            </>
+          ) : null}
           <Choice
-            name={`${p}.fan.control`}
-            label="Fan control"
+            name={`${p}.cooler.glycol.kind`}
+            label="Process fluid"
             options={[
-              { value: "variableSpeed", label: "Variable speed" },
-              { value: "twoSpeed", label: "Two-speed" },
-              { value: "cycling", label: "On/off cycling" },
+              { value: "none", label: "Water" },
+              { value: "ethyleneGlycol", label: "Ethylene glycol solution" },
+              { value: "propyleneGlycol", label: "Propylene glycol solution" },
             ]}
           />
-          <Pct name={`${p}.fan.minSpeedFraction`} label="Minimum speed" />
-          <Pct name={`${p}.fan.powerFloorFraction`} label="Power floor at low speed" />
-          {fanControl === "twoSpeed" ? <Pct name={`${p}.fan.lowSpeedFraction`} label="Low speed" /> : null}
-          <Pct name={`${p}.fan.naturalDraftAirflowFraction`} label="Airflow with the fan off" />
-        </Group>
-        <Group title="Condenser">
-          <Num name={`${p}.condenser.designCondensingC`} label="Design condensing temperature" kind="temperatureC" />
-          <Num name={`${p}.condenser.designEnteringWaterC`} label="Design entering water" kind="temperatureC" optional />
-          <Plain name={`${p}.condenser.cleanUWPerM2K`} label="Clean U" unit="W/(m²·K)" />
-          <Num name={`${p}.condenser.designFoulingM2KPerW`} label="Fouling allowance in the design point" kind="foulingM2KPerW" />
-        </Group>
-        <Group title="Pumps, basin and drift">
-          <Num name={`${p}.condenserPump.headM`} label={kind === "closedCircuitCooler" ? "Process-loop pump head" : kind === "openTowerPlateHx" ? "Clean-loop pump head" : "Condenser-water pump head"} kind="headM" />
-          <Pct name={`${p}.condenserPump.efficiency`} label="Pump wire-to-water efficiency" />
-          {kind === "openTowerPlateHx" ? (
-            <>
-              <Num name={`${p}.towerPump.headM`} label="Tower-side pump head" kind="headM" />
-              <Pct name={`${p}.towerPump.efficiency`} label="Tower-side pump efficiency" />
-            </>
+          {glycolKind !== "none" ? (
+            <Pct name={`${p}.cooler.glycol.massFraction`} label="Glycol mass fraction" />
           ) : null}
-          {kind === "closedCircuitCooler" ? (
-            <>
-              <FlowField name={`${p}.sprayPump.flowKgPerS`} label="Spray-water flow" />
-              <Num name={`${p}.sprayPump.headM`} label="Spray pump head" kind="headM" />
-              <Pct name={`${p}.sprayPump.efficiency`} label="Spray pump efficiency" />
-              <Num name={`${p}.sprayPump.powerKW`} label="Spray pump motor input" kind="powerKW" optional />
-            </>
-          ) : null}
-          <Num name={`${p}.basinHeater.powerKW`} label="Basin heater" kind="powerKW" />
-          <Num name={`${p}.basinHeater.belowDryBulbC`} label="Basin heater runs below dry-bulb" kind="temperatureC" />
-          <ScaledField name={`${p}.driftFractionOfFlow`} label="Drift" unit="% of flow" show={(v) => v * 100} store={(v) => v / 100} />
-          <Num name={`${p}.wetLoopVolumeM3`} label="Wet-loop water volume" kind="volumeM3" optional />
-        </Group>
-        <FirstCostGroup i={i} kind={kind} />
-        <Group title="Life and upkeep">
-          <Num name={`${p}.costs.serviceLifeYears`} label="Service life" kind="years" />
-          <Check name={`${p}.costs.replaceAtEndOfLife`} label="Replace at the end of its life within the study" />
-          <Num name={`${p}.costs.upkeep.annualLabourHours`} label="Own staff routine upkeep" kind="hours" description="Hours per year." />
-          <Num name={`${p}.costs.upkeep.annualServiceCost`} label="Service contract, parts, consumables" kind="money" description="Per year." />
-          <Num
-            name={`${p}.costs.upkeep.cleaningCostPerEvent`}
-            label={kind === "openTowerDirect" ? "Condenser tube cleaning, per cleaning" : kind === "openTowerPlateHx" ? "Plate-exchanger cleaning, per cleaning" : "Cleaning cost per event"}
-            kind="money"
+          <Choice
+            name={`${p}.cooler.ratingFluid`}
+            label="The rating is given on"
+            options={[
+              { value: "water", label: "Water (derate for glycol)" },
+              { value: "loopFluid", label: "The loop fluid itself" },
+            ]}
           />
         </Group>
-        <ComponentsList i={i} />
-        <PeriodicList i={i} />
-      </div>
-    </details>
+      )}
+      {kind === "openTowerPlateHx" ? (
+        <Group title="Plate exchanger">
+          <Num
+            name={`${p}.plateExchanger.designApproachK`}
+            label="Design approach"
+            kind="temperatureDifferenceK"
+          />
+          <Plain name={`${p}.plateExchanger.cleanUWPerM2K`} label="Clean U" unit="W/(m²·K)" />
+          <FlowField
+            name={`${p}.plateExchanger.cleanSideFlowKgPerS`}
+            label="Clean (condenser) side flow"
+            description="Leave empty for the tower's water flow."
+          />
+          <Num
+            name={`${p}.plateExchanger.towerSidePressureDropKPa`}
+            label="Tower-side pressure drop"
+            kind="pressureDropKPa"
+          />
+          <Num
+            name={`${p}.plateExchanger.cleanSidePressureDropKPa`}
+            label="Clean-side pressure drop"
+            kind="pressureDropKPa"
+          />
+          <Plain
+            name={`${p}.plateExchanger.foulingGrowthFactor`}
+            label="Plate fouling growth vs tubes"
+            unit="×"
+          />
+        </Group>
+      ) : null}
+      <Group title="Fans">
+        <Num
+          name={`${p}.fan.designPowerKW`}
+          label="Fan motor input at full speed (all cells)"
+          kind="powerKW"
+        />
+        <Choice
+          name={`${p}.fan.control`}
+          label="Fan control"
+          options={[
+            { value: "variableSpeed", label: "Variable speed" },
+            { value: "twoSpeed", label: "Two-speed" },
+            { value: "cycling", label: "On/off cycling" },
+          ]}
+        />
+        <Pct name={`${p}.fan.minSpeedFraction`} label="Minimum speed" />
+        <Pct name={`${p}.fan.powerFloorFraction`} label="Power floor at low speed" />
+        {fanControl === "twoSpeed" ? <Pct name={`${p}.fan.lowSpeedFraction`} label="Low speed" /> : null}
+        <Pct name={`${p}.fan.naturalDraftAirflowFraction`} label="Airflow with the fan off" />
+      </Group>
+      <Group title="Condenser">
+        <Num
+          name={`${p}.condenser.designCondensingC`}
+          label="Design condensing temperature"
+          kind="temperatureC"
+        />
+        <Num
+          name={`${p}.condenser.designEnteringWaterC`}
+          label="Design entering water"
+          kind="temperatureC"
+          optional
+        />
+        <Plain name={`${p}.condenser.cleanUWPerM2K`} label="Clean U" unit="W/(m²·K)" />
+        <Num
+          name={`${p}.condenser.designFoulingM2KPerW`}
+          label="Fouling allowance in the design point"
+          kind="foulingM2KPerW"
+        />
+      </Group>
+      <Group title="Pumps, basin and drift">
+        <Num
+          name={`${p}.condenserPump.headM`}
+          label={
+            kind === "closedCircuitCooler"
+              ? "Process-loop pump head"
+              : kind === "openTowerPlateHx"
+                ? "Clean-loop pump head"
+                : "Condenser-water pump head"
+          }
+          kind="headM"
+        />
+        <Pct name={`${p}.condenserPump.efficiency`} label="Pump wire-to-water efficiency" />
+        {kind === "openTowerPlateHx" ? (
+          <>
+            <Num name={`${p}.towerPump.headM`} label="Tower-side pump head" kind="headM" />
+            <Pct name={`${p}.towerPump.efficiency`} label="Tower-side pump efficiency" />
+          </>
+        ) : null}
+        {kind === "closedCircuitCooler" ? (
+          <>
+            <FlowField name={`${p}.sprayPump.flowKgPerS`} label="Spray-water flow" />
+            <Num name={`${p}.sprayPump.headM`} label="Spray pump head" kind="headM" />
+            <Pct name={`${p}.sprayPump.efficiency`} label="Spray pump efficiency" />
+            <Num name={`${p}.sprayPump.powerKW`} label="Spray pump motor input" kind="powerKW" optional />
+          </>
+        ) : null}
+        <Num name={`${p}.basinHeater.powerKW`} label="Basin heater" kind="powerKW" />
+        <Num
+          name={`${p}.basinHeater.belowDryBulbC`}
+          label="Basin heater runs below dry-bulb"
+          kind="temperatureC"
+        />
+        <ScaledField
+          name={`${p}.driftFractionOfFlow`}
+          label="Drift"
+          unit="% of flow"
+          show={(v) => v * 100}
+          store={(v) => v / 100}
+        />
+        <Num name={`${p}.wetLoopVolumeM3`} label="Wet-loop water volume" kind="volumeM3" optional />
+      </Group>
+      <FirstCostGroup i={i} kind={kind} />
+      <Group title="Life and upkeep">
+        <Num name={`${p}.costs.serviceLifeYears`} label="Service life" kind="years" />
+        <Check
+          name={`${p}.costs.replaceAtEndOfLife`}
+          label="Replace at the end of its life within the study"
+        />
+        <Num
+          name={`${p}.costs.upkeep.annualLabourHours`}
+          label="Own staff routine upkeep"
+          kind="hours"
+          description="Hours per year."
+        />
+        <Num
+          name={`${p}.costs.upkeep.annualServiceCost`}
+          label="Service contract, parts, consumables"
+          kind="money"
+          description="Per year."
+        />
+        <Num
+          name={`${p}.costs.upkeep.cleaningCostPerEvent`}
+          label={
+            kind === "openTowerDirect"
+              ? "Condenser tube cleaning, per cleaning"
+              : kind === "openTowerPlateHx"
+                ? "Plate-exchanger cleaning, per cleaning"
+                : "Cleaning cost per event"
+          }
+          kind="money"
+        />
+      </Group>
+      <ComponentsList i={i} />
+      <PeriodicList i={i} />
+    </Section>
   );
 }
 
-export function OptionsSection() {
-  const { control, getValues } = useFormContext<V>();
-  const { fields, append, remove } = useFieldArray<V>({ control, name: "options" as never });
-  const count = fields.length;
+/** The options compared, with buttons to add one of each kind (up to four). */
+export function OptionsList({
+  options,
+  onAdd,
+  onOpen,
+}: {
+  options: { key: string; label: string; kind: OptionKind }[];
+  onAdd: (option: EditorOption) => void;
+  onOpen: (index: number) => void;
+}) {
+  const { getValues } = useFormContext<V>();
+  const count = options.length;
   return (
-    <Section id="options" title="Options" intro="Two to four ways of rejecting the heat, each from its certified selection. Every wet option needs water treatment and a water-management programme.">
-      {fields.map((f, i) => (
-        <OptionCard key={f.id} i={i} canRemove={count > 2} onRemove={() => remove(i)} />
-      ))}
-      <div className="flex flex-wrap items-center gap-2" role="group" aria-label="Add an option">
+    <fieldset className="rounded-md border border-line p-4">
+      <legend className="px-1 text-sm font-semibold">Options compared</legend>
+      <p className="mb-3 text-xs text-ink-soft">
+        Two to four ways of rejecting the heat. Each option is a step of its own in the list of sections.
+      </p>
+      <ol className="space-y-1 text-sm">
+        {options.map((o, i) => (
+          <li key={o.key}>
+            <button
+              type="button"
+              className="text-basin-700 underline-offset-2 hover:underline"
+              onClick={() => onOpen(i)}
+            >
+              Option {i + 1}: {o.label || OPTION_KIND_LABELS[o.kind]}
+            </button>{" "}
+            <span className="text-xs text-ink-faint">({OPTION_KIND_LABELS[o.kind]})</span>
+          </li>
+        ))}
+      </ol>
+      <div className="mt-3 flex flex-wrap items-center gap-2" role="group" aria-label="Add an option">
         {count < 4 ? (
           OPTION_KINDS.map((k) => (
             <button
               key={k}
               type="button"
               className="rounded-md border border-line-strong bg-paper-raised px-3 py-1.5 text-sm hover:bg-paper-sunk"
-              onClick={() => {
-                const used = ((getValues("options") as { id: string }[]) ?? []).map((o) => o.id);
-                append(newOptionOfKind(k, used) as never);
-              }}
+              onClick={() =>
+                onAdd(
+                  newOptionOfKind(
+                    k,
+                    (getValues("options") ?? []).map((o) => o.id),
+                  ),
+                )
+              }
             >
               Add {OPTION_KIND_LABELS[k].toLowerCase()}
             </button>
           ))
         ) : (
-          <p className="text-sm text-ink-soft">Four options is the most one scenario compares; clone the scenario for more.</p>
+          <p className="text-sm text-ink-soft">
+            Four options is the most one scenario compares; clone the scenario for more.
+          </p>
         )}
       </div>
-    </Section>
+    </fieldset>
   );
 }
 
@@ -435,17 +723,37 @@ export function OptionsSection() {
 
 export function WaterSection() {
   const { system, currency } = useUnits();
-  const cyclesMode = useWatch<V>({ name: "water.cyclesMode" });
+  const cyclesMode = useWatch<V, "water.cyclesMode">({ name: "water.cyclesMode" });
   return (
-    <Section id="water" title="Water" intro="Makeup chemistry and limits give the cycles of concentration; prices turn evaporation, blowdown and drift into cost.">
-      <Group title="Makeup-water analysis" note="From the utility's or a laboratory's analysis of the makeup water.">
-        <Num name="water.makeup.calciumHardnessMgPerLAsCaCO3" label="Calcium hardness (as CaCO₃)" kind="concentrationMgPerL" />
-        <Num name="water.makeup.mAlkalinityMgPerLAsCaCO3" label="M-alkalinity (as CaCO₃)" kind="concentrationMgPerL" />
+    <Section
+      id="water"
+      title="Water"
+      intro="Makeup chemistry and limits give the cycles of concentration; prices turn evaporation, blowdown and drift into cost."
+    >
+      <Group
+        title="Makeup-water analysis"
+        note="From the utility's or a laboratory's analysis of the makeup water."
+      >
+        <Num
+          name="water.makeup.calciumHardnessMgPerLAsCaCO3"
+          label="Calcium hardness (as CaCO₃)"
+          kind="concentrationMgPerL"
+        />
+        <Num
+          name="water.makeup.mAlkalinityMgPerLAsCaCO3"
+          label="M-alkalinity (as CaCO₃)"
+          kind="concentrationMgPerL"
+        />
         <Num name="water.makeup.silicaMgPerL" label="Silica (SiO₂)" kind="concentrationMgPerL" />
         <Num name="water.makeup.chlorideMgPerL" label="Chloride" kind="concentrationMgPerL" />
         <Num name="water.makeup.tdsMgPerL" label="Total dissolved solids" kind="concentrationMgPerL" />
         <Plain name="water.makeup.ph" label="pH" unit="pH" />
-        <Num name="water.makeup.conductivityUSPerCm" label="Conductivity" kind="conductivityUSPerCm" optional />
+        <Num
+          name="water.makeup.conductivityUSPerCm"
+          label="Conductivity"
+          kind="conductivityUSPerCm"
+          optional
+        />
       </Group>
       <Group title="Cycles of concentration">
         <Choice
@@ -456,33 +764,84 @@ export function WaterSection() {
             { value: "entered", label: "Entered" },
           ]}
         />
-        {cyclesMode === "entered" ? <Plain name="water.cyclesOfConcentration" label="Cycles of concentration" unit="—" /> : null}
+        {cyclesMode === "entered" ? (
+          <Plain name="water.cyclesOfConcentration" label="Cycles of concentration" unit="—" />
+        ) : null}
         <Num name="water.limits.silicaMgPerL" label="Silica limit" kind="concentrationMgPerL" />
         <Num name="water.limits.chlorideMgPerL" label="Chloride limit" kind="concentrationMgPerL" />
         <Num name="water.limits.tdsMgPerL" label="TDS limit" kind="concentrationMgPerL" />
-        <Num name="water.limits.calciumHardnessMgPerLAsCaCO3" label="Calcium hardness limit" kind="concentrationMgPerL" />
+        <Num
+          name="water.limits.calciumHardnessMgPerLAsCaCO3"
+          label="Calcium hardness limit"
+          kind="concentrationMgPerL"
+        />
         <Plain name="water.recirculatingPh" label="Recirculating-water pH" unit="pH" />
       </Group>
       <Group title="Water and sewer prices">
         <Num name="tariffs.water.pricePerM3" label="Water price" kind="pricePerM3" />
-        <Num name="tariffs.water.fixedChargePerMonth" label="Water fixed charge" kind="money" description="Per month." />
+        <Num
+          name="tariffs.water.fixedChargePerMonth"
+          label="Water fixed charge"
+          kind="money"
+          description="Per month."
+        />
         <Num name="tariffs.sewer.pricePerM3" label="Sewer price" kind="pricePerM3" />
-        <Num name="tariffs.sewer.fixedChargePerMonth" label="Sewer fixed charge" kind="money" description="Per month." />
-        <Check name="water.sewerEvaporationCredit" label="Sewer bill credits the evaporated water" description="Needs makeup and blowdown meters and the utility's consent." />
-        <Num name="tariffs.sewer.evaporationCreditMeterChargePerMonth" label="Credit-meter charge" kind="money" description="Per month, where the credit applies." />
+        <Num
+          name="tariffs.sewer.fixedChargePerMonth"
+          label="Sewer fixed charge"
+          kind="money"
+          description="Per month."
+        />
+        <Check
+          name="water.sewerEvaporationCredit"
+          label="Sewer bill credits the evaporated water"
+          description="Needs makeup and blowdown meters and the utility's consent."
+        />
+        <Num
+          name="tariffs.sewer.evaporationCreditMeterChargePerMonth"
+          label="Credit-meter charge"
+          kind="money"
+          description="Per month, where the credit applies."
+        />
       </Group>
-      <Group title="Treatment chemicals and the water-management programme" note="Every wet loop (tower basins and the cooler's spray loop) needs both.">
-        <Num name="tariffs.chemicals.costPerM3Outflow" label="Treatment programme per volume of blowdown + drift" kind="pricePerM3" />
+      <Group
+        title="Treatment chemicals and the water-management programme"
+        note="Every wet loop (tower basins and the cooler's spray loop) needs both."
+      >
+        <Num
+          name="tariffs.chemicals.costPerM3Outflow"
+          label="Treatment programme per volume of blowdown + drift"
+          kind="pricePerM3"
+        />
         <Num name="tariffs.chemicals.inhibitorPricePerKg" label="Inhibitor product price" kind="pricePerKg" />
         <Num name="tariffs.chemicals.biocidePricePerKg" label="Biocide product price" kind="pricePerKg" />
-        <Num name="tariffs.chemicals.fixedCostPerYear" label="Vendor service and testing, per wet loop" kind="money" description="Per year." />
-        <Num name="tariffs.waterManagementProgrammeCostPerYear" label="Water-management programme (Legionella), per wet loop" kind="money" description="Per year: plan, monitoring, sampling, validation." />
-        <Num name="water.dosing.inhibitorMgPerLOutflow" label="Inhibitor dose in the blowdown" kind="concentrationMgPerL" />
-        <Num name="water.dosing.biocideMgPerLSystemVolume" label="Biocide slug dose" kind="concentrationMgPerL" />
+        <Num
+          name="tariffs.chemicals.fixedCostPerYear"
+          label="Vendor service and testing, per wet loop"
+          kind="money"
+          description="Per year."
+        />
+        <Num
+          name="tariffs.waterManagementProgrammeCostPerYear"
+          label="Water-management programme (Legionella), per wet loop"
+          kind="money"
+          description="Per year: plan, monitoring, sampling, validation."
+        />
+        <Num
+          name="water.dosing.inhibitorMgPerLOutflow"
+          label="Inhibitor dose in the blowdown"
+          kind="concentrationMgPerL"
+        />
+        <Num
+          name="water.dosing.biocideMgPerLSystemVolume"
+          label="Biocide slug dose"
+          kind="concentrationMgPerL"
+        />
         <Plain name="water.dosing.biocideSlugsPerYear" label="Biocide slugs" unit="per year" />
       </Group>
       <p className="text-xs text-ink-faint">
-        Prices in {currency} per {unitLabel("pricePerM3", system, currency).split("/")[1]}; the engine stores {currency}/m³.
+        Prices in {currency} per {unitLabel("pricePerM3", system, currency).split("/")[1]}; the engine stores{" "}
+        {currency}/m³.
       </p>
     </Section>
   );
@@ -491,10 +850,14 @@ export function WaterSection() {
 // --- upkeep and fouling ------------------------------------------------------------------------------
 
 export function UpkeepSection() {
-  const model = useWatch<V>({ name: "fouling.model" });
+  const model = useWatch<V, "fouling.model">({ name: "fouling.model" });
   const { currency } = useUnits();
   return (
-    <Section id="upkeep" title="Upkeep and fouling" intro="Condenser fouling grows between cleanings and raises the condensing temperature; each cleaning resets it.">
+    <Section
+      id="upkeep"
+      title="Upkeep and fouling"
+      intro="Condenser fouling grows between cleanings and raises the condensing temperature; each cleaning resets it."
+    >
       <Group title="Fouling of the open-tower condenser">
         <Choice
           name="fouling.model"
@@ -505,22 +868,46 @@ export function UpkeepSection() {
           ]}
         />
         {model === "linear" ? (
-          <Num name="fouling.linearRateM2KPerWPerMonth" label="Growth per month" kind="foulingM2KPerW" description="Resistance added each month." />
+          <Num
+            name="fouling.linearRateM2KPerWPerMonth"
+            label="Growth per month"
+            kind="foulingM2KPerW"
+            description="Resistance added each month."
+          />
         ) : (
           <>
-            <Num name="fouling.asymptoticM2KPerW" label="Asymptotic fouling resistance" kind="foulingM2KPerW" />
+            <Num
+              name="fouling.asymptoticM2KPerW"
+              label="Asymptotic fouling resistance"
+              kind="foulingM2KPerW"
+            />
             <Num name="fouling.timeConstantMonths" label="Time constant" kind="months" />
           </>
         )}
         <Num name="fouling.limitM2KPerW" label="Fouling limit before cleaning" kind="foulingM2KPerW" />
-        <Num name="fouling.condenserCleaningIntervalMonths" label="Condenser tube cleaning every" kind="months" />
-        <Num name="fouling.plateExchangerCleaningIntervalMonths" label="Plate-exchanger cleaning every" kind="months" />
-        <Num name="fouling.closedLoopFoulingM2KPerW" label="Fouling of condensers on a closed loop" kind="foulingM2KPerW" />
+        <Num
+          name="fouling.condenserCleaningIntervalMonths"
+          label="Condenser tube cleaning every"
+          kind="months"
+        />
+        <Num
+          name="fouling.plateExchangerCleaningIntervalMonths"
+          label="Plate-exchanger cleaning every"
+          kind="months"
+        />
+        <Num
+          name="fouling.closedLoopFoulingM2KPerW"
+          label="Fouling of condensers on a closed loop"
+          kind="foulingM2KPerW"
+        />
       </Group>
       <Group title="Labour">
         <Plain name="upkeep.labourRatePerHour" label="Loaded labour rate" unit={`${currency}/h`} />
       </Group>
-      <p className="text-xs text-ink-faint">Each option&apos;s own upkeep (routine hours, service contract, cleaning cost, periodic items, component lives) is in its card under Options.</p>
+      <p className="text-xs text-ink-faint">
+        Each option&apos;s own upkeep (routine hours, service contract, cleaning cost, periodic items,
+        component lives) is in its card under Options.
+      </p>
     </Section>
   );
 }
@@ -529,18 +916,35 @@ export function UpkeepSection() {
 
 export function TariffsSection() {
   const { currency } = useUnits();
-  const pricing = useWatch<V>({ name: "tariffs.electricity.pricing" });
+  const pricing = useWatch<V, "tariffs.electricity.pricing">({ name: "tariffs.electricity.pricing" });
   return (
-    <Section id="tariffs" title="Tariffs" intro="Electricity, and the real escalation of every cost stream (above general inflation).">
+    <Section
+      id="tariffs"
+      title="Tariffs"
+      intro="Electricity, and the real escalation of every cost stream (above general inflation)."
+    >
       <Group title="Electricity">
         {pricing === "monthHour" ? (
-          <p className="text-sm text-ink-soft sm:col-span-2">Month × hour prices (288 values) are kept from the JSON document; the flat price below is not used.</p>
+          <p className="text-sm text-ink-soft sm:col-span-2">
+            Month × hour prices (288 values) are kept from the JSON document; the flat price below is not
+            used.
+          </p>
         ) : null}
         <Num name="tariffs.electricity.energyPricePerKWh" label="Energy price" kind="pricePerKWh" />
-        <Plain name="tariffs.electricity.demandChargePerKWMonth" label="Demand charge" unit={`${currency}/(kW·month)`} />
-        <Pct name="tariffs.electricity.demandCoincidenceFactor" label="Share of the option's peak in the billed peak" />
+        <Plain
+          name="tariffs.electricity.demandChargePerKWMonth"
+          label="Demand charge"
+          unit={`${currency}/(kW·month)`}
+        />
+        <Pct
+          name="tariffs.electricity.demandCoincidenceFactor"
+          label="Share of the option's peak in the billed peak"
+        />
       </Group>
-      <Group title="Real escalation" note="Fraction per year above general inflation; 0 keeps a price constant in real terms.">
+      <Group
+        title="Real escalation"
+        note="Fraction per year above general inflation; 0 keeps a price constant in real terms."
+      >
         <Pct name="tariffs.escalation.energy" label="Electric energy" perYear />
         <Pct name="tariffs.escalation.demand" label="Electric demand" perYear />
         <Pct name="tariffs.escalation.water" label="Water" perYear />
@@ -589,14 +993,24 @@ const MC_LABELS: Record<MonteCarloInputKey, { label: string; pct: boolean }> = {
   foulingRateFactor: { label: "Fouling rate factor", pct: false },
 };
 
-function DistField({ pct, unit, name, label }: { pct: boolean; unit: string; name: string; label: string }) {
+function DistField({
+  pct,
+  unit,
+  name,
+  label,
+}: {
+  pct: boolean;
+  unit: string;
+  name: EditorPath;
+  label: string;
+}) {
   return pct ? <Pct name={name} label={label} perYear /> : <Plain name={name} label={label} unit={unit} />;
 }
 
 function DistributionRow({ k }: { k: MonteCarloInputKey }) {
   const { setValue } = useFormContext<V>();
-  const name = `monteCarlo.distributions.${k}`;
-  const d = useWatch<V>({ name }) as { type?: string; min?: number; mode?: number; max?: number } | undefined;
+  const name = `monteCarlo.distributions.${k}` as const;
+  const d = useWatch<V, `monteCarlo.distributions.${MonteCarloInputKey}`>({ name });
   const m = MC_LABELS[k];
   const unit = k === "cyclesOfConcentration" ? "cycles" : "×";
   return (
@@ -614,10 +1028,18 @@ function DistributionRow({ k }: { k: MonteCarloInputKey }) {
             const centre = m.pct ? 0 : k === "cyclesOfConcentration" ? 4 : 1;
             const lo = m.pct ? -0.01 : centre * 0.8;
             const hi = m.pct ? 0.01 : centre * 1.25;
-            setValue(name as never, (t === "none" ? undefined : t === "uniform" ? { type: "uniform", min: lo, max: hi } : { type: "triangular", min: lo, mode: centre, max: hi }) as never, {
-              shouldDirty: true,
-              shouldValidate: true,
-            });
+            setValue(
+              name,
+              t === "none"
+                ? undefined
+                : t === "uniform"
+                  ? { type: "uniform", min: lo, max: hi }
+                  : { type: "triangular", min: lo, mode: centre, max: hi },
+              {
+                shouldDirty: true,
+                shouldValidate: true,
+              },
+            );
           }}
         >
           <option value="none">Not varied</option>
@@ -626,7 +1048,9 @@ function DistributionRow({ k }: { k: MonteCarloInputKey }) {
         </select>
       </div>
       {d?.type ? <DistField pct={m.pct} unit={unit} name={`${name}.min`} label="Min" /> : null}
-      {d?.type === "triangular" ? <DistField pct={m.pct} unit={unit} name={`${name}.mode`} label="Most likely" /> : null}
+      {d?.type === "triangular" ? (
+        <DistField pct={m.pct} unit={unit} name={`${name}.mode`} label="Most likely" />
+      ) : null}
       {d?.type ? <DistField pct={m.pct} unit={unit} name={`${name}.max`} label="Max" /> : null}
     </div>
   );
@@ -634,21 +1058,28 @@ function DistributionRow({ k }: { k: MonteCarloInputKey }) {
 
 /** Its own component: it watches every option's id and label, and only it re-renders when they change. */
 function BaseOptionChoice() {
-  const options = (useWatch<V>({ name: "options" }) as { id: string; label: string }[] | undefined) ?? [];
+  const options = useWatch<V, "options">({ name: "options" }) ?? [];
   return (
     <Choice
       name="economics.baseOptionId"
       label="Base option (measures are against it)"
-      options={[{ value: "", label: "The first option" }, ...options.map((o) => ({ value: o.id, label: o.label || o.id }))]}
+      options={[
+        { value: "", label: "The first option" },
+        ...options.map((o) => ({ value: o.id, label: o.label || o.id })),
+      ]}
     />
   );
 }
 
 export function EconomicsSection() {
-  const sensitivityOn = useWatch<V>({ name: "sensitivity.enabled" });
-  const mcOn = useWatch<V>({ name: "monteCarlo.enabled" });
+  const sensitivityOn = useWatch<V, "sensitivity.enabled">({ name: "sensitivity.enabled" });
+  const mcOn = useWatch<V, "monteCarlo.enabled">({ name: "monteCarlo.enabled" });
   return (
-    <Section id="economics" title="Economics" intro="NIST Handbook 135 life-cycle cost: present values at one base date, constant dollars unless a nominal analysis is chosen.">
+    <Section
+      id="economics"
+      title="Economics"
+      intro="NIST Handbook 135 life-cycle cost: present values at one base date, constant dollars unless a nominal analysis is chosen."
+    >
       <Group title="Study">
         <Plain name="economics.baseYear" label="Base year" unit="year" />
         <Num name="economics.studyPeriodYears" label="Study period" kind="years" />
@@ -687,10 +1118,13 @@ export function EconomicsSection() {
           <div className="mt-3 space-y-3">
             {SENSITIVITY_INPUTS.map((k) => {
               const mode = SENSITIVITY_INPUT_MODES[k];
-              const base = `sensitivity.tornado.${k}`;
+              const base = `sensitivity.tornado.${k}` as const;
               return (
                 <div key={k} className="grid items-end gap-3 sm:grid-cols-[1.3fr_1fr_1fr]">
-                  <Check name={`${base}.enabled`} label={`${TORNADO_LABELS[k]} (${mode === "factor" ? "× the entered value" : mode === "delta" ? "added to the entered rate" : "absolute value"})`} />
+                  <Check
+                    name={`${base}.enabled`}
+                    label={`${TORNADO_LABELS[k]} (${mode === "factor" ? "× the entered value" : mode === "delta" ? "added to the entered rate" : "absolute value"})`}
+                  />
                   {mode === "delta" ? (
                     <>
                       <Pct name={`${base}.low`} label="Low" perYear />
@@ -709,8 +1143,16 @@ export function EconomicsSection() {
             {BREAK_EVEN_INPUTS.map((k) => (
               <div key={k} className="grid items-end gap-3 sm:grid-cols-[1.3fr_1fr_1fr]">
                 <Check name={`sensitivity.breakEven.${k}.enabled`} label={BREAK_EVEN_LABELS[k]} />
-                <Plain name={`sensitivity.breakEven.${k}.min`} label="From" unit={k === "cyclesOfConcentration" ? "cycles" : "×"} />
-                <Plain name={`sensitivity.breakEven.${k}.max`} label="To" unit={k === "cyclesOfConcentration" ? "cycles" : "×"} />
+                <Plain
+                  name={`sensitivity.breakEven.${k}.min`}
+                  label="From"
+                  unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
+                />
+                <Plain
+                  name={`sensitivity.breakEven.${k}.max`}
+                  label="To"
+                  unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
+                />
               </div>
             ))}
           </div>
