@@ -79,7 +79,8 @@ async function buildAndCompare(system: "IP" | "SI"): Promise<Observed> {
   await page.fill("#new-scenario-name", `Three options ${system}`);
   await Promise.all([page.waitForURL(/\/scenarios\/[0-9a-f-]{36}\/edit$/), page.click("[data-testid=new-scenario-form] button[type=submit]")]);
   await page.waitForSelector("[data-testid=scenario-editor]");
-  expect(await page.locator("[data-testid^=option-]").count()).toBe(3);
+  expect(await page.locator("[data-testid^=nav-option-]").count()).toBe(3);
+  await page.click("[data-testid=nav-option-1]");
 
   step("editor open");
   // Values are shown in the project's units: the direct tower's default entering water is 33 °C = 91.4 °F
@@ -99,6 +100,7 @@ async function buildAndCompare(system: "IP" | "SI"): Promise<Observed> {
 
   step("client validation seen");
   for (const [i, items] of Object.entries(FIRST_COSTS)) {
+    await page.click(`[data-testid=nav-option-${Number(i) + 1}]`);
     for (const [k, v] of Object.entries(items)) await page.fill(`#f-options-${i}-costs-firstCost-${k}`, String(v));
   }
   await page.locator("[data-testid=form-error-summary]").waitFor({ state: "detached" }).catch(() => undefined);
