@@ -20,10 +20,7 @@ export function deterministicInput(input: ScenarioInput): ScenarioInput {
 
 /** The input for the Monte Carlo job: the tornado and break-evens are already in the stored result. */
 export function monteCarloInput(input: ScenarioInput): ScenarioInput {
-  return {
-    ...input,
-    ...(input.sensitivity ? { sensitivity: { ...input.sensitivity, enabled: false } } : {}),
-  };
+  return { ...input, ...(input.sensitivity ? { sensitivity: { ...input.sensitivity, enabled: false } } : {}) };
 }
 
 export function wantsMonteCarlo(input: ScenarioInput): boolean {
@@ -70,11 +67,7 @@ export function monteCarloStatusOf(row: ResultRow | undefined): MonteCarloStatus
  * The stored deterministic result of this input, computing and storing it when the key (engine version,
  * inputs hash) has none; and the Monte Carlo job for the same key, queued when missing.
  */
-export async function analyzeAndStore(
-  db: Executor,
-  scenarioId: string,
-  input: ScenarioInput,
-): Promise<StoredAnalysis> {
+export async function analyzeAndStore(db: Executor, scenarioId: string, input: ScenarioInput): Promise<StoredAnalysis> {
   const hash = inputsHash(input);
   const existing = await findResult(db, scenarioId, ENGINE_VERSION, hash, "full");
   let result: ScenarioResult;
@@ -87,24 +80,11 @@ export async function analyzeAndStore(
     const run = runDeterministic(input);
     result = { ...run.result, inputsHash: hash };
     elapsedMs = run.elapsedMs;
-    await upsertDoneResult(db, {
-      scenarioId,
-      engineVersion: ENGINE_VERSION,
-      inputsHash: hash,
-      kind: "full",
-      result,
-    });
+    await upsertDoneResult(db, { scenarioId, engineVersion: ENGINE_VERSION, inputsHash: hash, kind: "full", result });
   }
   let monteCarlo: MonteCarloStatus | null = null;
   if (wantsMonteCarlo(input)) {
-    monteCarlo = monteCarloStatusOf(
-      await enqueueJob(db, {
-        scenarioId,
-        engineVersion: ENGINE_VERSION,
-        inputsHash: hash,
-        kind: "monteCarlo",
-      }),
-    );
+    monteCarlo = monteCarloStatusOf(await enqueueJob(db, { scenarioId, engineVersion: ENGINE_VERSION, inputsHash: hash, kind: "monteCarlo" }));
   }
   return { engineVersion: ENGINE_VERSION, inputsHash: hash, result, reused, elapsedMs, monteCarlo };
 }
@@ -125,24 +105,10 @@ export async function storedFor(db: Executor, scenarioId: string, input: Scenari
 }
 
 /** The complete result of a stateless analysis (the public API): deterministic part and, when enabled, Monte Carlo. */
-export function analyzeDocument(input: ScenarioInput): {
-  engineVersion: string;
-  inputsHash: string;
-  result: ScenarioResult;
-  monteCarlo: MonteCarloResult | null;
-  elapsedMs: number;
-} {
+export function analyzeDocument(input: ScenarioInput): { engineVersion: string; inputsHash: string; result: ScenarioResult; monteCarlo: MonteCarloResult | null; elapsedMs: number } {
   const hash = inputsHash(input);
   const t0 = performance.now();
   const det = analyzeScenario(deterministicInput(input));
-  const mc = wantsMonteCarlo(input)
-    ? (analyzeScenario(monteCarloInput(input)).economics.monteCarlo ?? null)
-    : null;
-  return {
-    engineVersion: ENGINE_VERSION,
-    inputsHash: hash,
-    result: { ...det, inputsHash: hash },
-    monteCarlo: mc,
-    elapsedMs: performance.now() - t0,
-  };
+  const mc = wantsMonteCarlo(input) ? (analyzeScenario(monteCarloInput(input)).economics.monteCarlo ?? null) : null;
+  return { engineVersion: ENGINE_VERSION, inputsHash: hash, result: { ...det, inputsHash: hash }, monteCarlo: mc, elapsedMs: performance.now() - t0 };
 }

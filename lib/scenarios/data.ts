@@ -9,14 +9,7 @@ import { db } from "@/db";
 import { writeAudit } from "@/db/queries/audit";
 import { findIssuedVersion, listScenarioSummaries } from "@/db/queries/scenarios";
 import { latestResultsOfKind } from "@/db/queries/results";
-import {
-  authorizeProject,
-  loadProjectAccess,
-  REFUSALS,
-  type ProjectAccess,
-  type Refusal,
-  type Viewer,
-} from "@/lib/auth/access";
+import { authorizeProject, loadProjectAccess, REFUSALS, type ProjectAccess, type Refusal, type Viewer } from "@/lib/auth/access";
 import type { Action } from "@/lib/auth/permissions";
 import { currentViewer, isUuid, requireViewer } from "@/lib/auth/session";
 import type { ScenarioResult } from "@/lib/engine";
@@ -25,17 +18,7 @@ import { analyzeAndStore, monteCarloStatusOf, storedFor, type StoredAnalysis } f
 import { findResult } from "@/db/queries/results";
 import { ENGINE_VERSION } from "@/lib/engine";
 import { kickJobs } from "./jobs";
-import {
-  buildEngineInput,
-  withClimateData,
-  cloneScenario,
-  createScenario,
-  loadScenarioContext,
-  saveScenario,
-  archiveScenario,
-  type ScenarioContext,
-  type SaveOutcome,
-} from "./store";
+import { buildEngineInput, withClimateData, cloneScenario, createScenario, loadScenarioContext, saveScenario, archiveScenario, type ScenarioContext, type SaveOutcome } from "./store";
 import type { ScenarioDocument } from "./mappers";
 import { Lru } from "./cache";
 
@@ -61,21 +44,12 @@ export async function authorizeScenario(
 }
 
 /** For route handlers: the request's viewer, authorized on the scenario. */
-export async function authorizeScenarioApi(
-  scenarioId: string,
-  action: Action,
-  opts: { withClimateData?: boolean } = {},
-) {
+export async function authorizeScenarioApi(scenarioId: string, action: Action, opts: { withClimateData?: boolean } = {}) {
   return authorizeScenario(await currentViewer(), scenarioId, action, opts);
 }
 
 /** For pages: the scenario in this project (404 when it is another project's), or 404/403. */
-export async function requireScenario(
-  projectId: string,
-  scenarioId: string,
-  action: Action,
-  opts: { withClimateData?: boolean } = {},
-): Promise<ScenarioAccess> {
+export async function requireScenario(projectId: string, scenarioId: string, action: Action, opts: { withClimateData?: boolean } = {}): Promise<ScenarioAccess> {
   const viewer = await requireViewer();
   if (!isUuid(projectId) || !isUuid(scenarioId)) notFound();
   const access = await loadProjectAccess(db, viewer, projectId);
@@ -96,23 +70,14 @@ export interface ScenarioListItem {
   updatedByName: string | null;
   climateName: string | null;
   /** The newest stored result's winner and margin (null when never analysed). */
-  latest: {
-    lowestLabel: string;
-    marginLcc: number | null;
-    analysedAt: string;
-    studyPeriodYears: number;
-  } | null;
+  latest: { lowestLabel: string; marginLcc: number | null; analysedAt: string; studyPeriodYears: number } | null;
 }
 
 /** Draft scenarios of a project with their latest result's headline (firm members only). */
 export async function listDraftScenarios(access: ProjectAccess): Promise<ScenarioListItem[]> {
   if (!access.can("scenario.viewDraft")) return [];
   const rows = await listScenarioSummaries(db, access.project.id);
-  const results = await latestResultsOfKind(
-    db,
-    rows.map((r) => r.id),
-    "full",
-  );
+  const results = await latestResultsOfKind(db, rows.map((r) => r.id), "full");
   const byId = new Map(results.map((r) => [r.scenarioId, r]));
   return rows.map((r) => {
     const res = byId.get(r.id);
@@ -139,45 +104,25 @@ export async function listDraftScenarios(access: ProjectAccess): Promise<Scenari
 }
 
 /** Archived scenarios of a project (firm members only), newest first. */
-export async function listArchivedScenarios(
-  access: ProjectAccess,
-): Promise<{ id: string; name: string; archivedAt: string }[]> {
+export async function listArchivedScenarios(access: ProjectAccess): Promise<{ id: string; name: string; archivedAt: string }[]> {
   if (!access.can("scenario.viewDraft")) return [];
   const rows = await listScenarioSummaries(db, access.project.id, { includeArchived: true });
-  return rows
-    .filter((r) => r.archivedAt)
-    .map((r) => ({ id: r.id, name: r.name, archivedAt: (r.archivedAt as Date).toISOString() }));
+  return rows.filter((r) => r.archivedAt).map((r) => ({ id: r.id, name: r.name, archivedAt: (r.archivedAt as Date).toISOString() }));
 }
 
 /** Climate datasets a scenario may use (this project's), newest first. */
 export async function listProjectDatasets(projectId: string) {
   return db
     .selectFrom("climate_datasets")
-    .select([
-      "id",
-      "name",
-      "source_kind as sourceKind",
-      "hours_total as hoursTotal",
-      "record_count as recordCount",
-      "created_at as createdAt",
-    ])
+    .select(["id", "name", "source_kind as sourceKind", "hours_total as hoursTotal", "record_count as recordCount", "created_at as createdAt"])
     .where("project_id", "=", projectId)
     .orderBy("created_at", "desc")
     .execute();
 }
 
-export async function createScenarioFor(
-  access: ProjectAccess,
-  a: { name: string; climateDatasetId: string | null },
-) {
-  if (!access.can("scenario.edit"))
-    return { ok: false as const, fieldErrors: { "": ["You may not create scenarios in this project."] } };
-  const r = await createScenario(db, {
-    projectId: access.project.id,
-    name: a.name,
-    climateDatasetId: a.climateDatasetId,
-    userId: access.viewer.id,
-  });
+export async function createScenarioFor(access: ProjectAccess, a: { name: string; climateDatasetId: string | null }) {
+  if (!access.can("scenario.edit")) return { ok: false as const, fieldErrors: { "": ["You may not create scenarios in this project."] } };
+  const r = await createScenario(db, { projectId: access.project.id, name: a.name, climateDatasetId: a.climateDatasetId, userId: access.viewer.id });
   if (r.ok) {
     await writeAudit(db, {
       actorId: access.viewer.id,
@@ -193,7 +138,8 @@ export async function createScenarioFor(
 }
 
 export type SaveAndAnalyse =
-  (Extract<SaveOutcome, { ok: true }> & { analysis: StoredAnalysis }) | Exclude<SaveOutcome, { ok: true }>;
+  | (Extract<SaveOutcome, { ok: true }> & { analysis: StoredAnalysis })
+  | Exclude<SaveOutcome, { ok: true }>;
 
 /** Save (optimistic concurrency) and analyse; queue the Monte Carlo for after the response. */
 export async function saveAndAnalyse(
@@ -219,27 +165,14 @@ export async function saveAndAnalyse(
     action: "scenario.save",
     targetType: "scenario",
     targetId: ctx.row.id,
-    detail: {
-      revision: saved.revision,
-      inputsHash: analysis.inputsHash,
-      reusedResult: analysis.reused,
-      analysisMs: Math.round(analysis.elapsedMs),
-    },
+    detail: { revision: saved.revision, inputsHash: analysis.inputsHash, reusedResult: analysis.reused, analysisMs: Math.round(analysis.elapsedMs) },
   });
-  if (
-    analysis.monteCarlo &&
-    (analysis.monteCarlo.status === "queued" || analysis.monteCarlo.status === "running")
-  )
-    schedule(() => kickJobs(db));
+  if (analysis.monteCarlo && (analysis.monteCarlo.status === "queued" || analysis.monteCarlo.status === "running")) schedule(() => kickJobs(db));
   return { ...saved, analysis };
 }
 
 export async function cloneScenarioFor(sa: ScenarioAccess, name?: string) {
-  const r = await cloneScenario(db, {
-    scenarioId: sa.ctx.row.id,
-    userId: sa.access.viewer.id,
-    ...(name ? { name } : {}),
-  });
+  const r = await cloneScenario(db, { scenarioId: sa.ctx.row.id, userId: sa.access.viewer.id, ...(name ? { name } : {}) });
   if (r) {
     await writeAudit(db, {
       actorId: sa.access.viewer.id,
@@ -279,38 +212,19 @@ export interface DraftView {
  * The draft's engine input and its stored result. When the stored document is valid but has no result
  * for the current engine version (a new engine, a changed dataset or site), it is analysed now.
  */
-export async function draftView(
-  sa: ScenarioAccess,
-  schedule: (task: () => void) => void,
-): Promise<DraftView> {
+export async function draftView(sa: ScenarioAccess, schedule: (task: () => void) => void): Promise<DraftView> {
   const cached = await draftSource(sa);
   if (cached) {
-    const mc = monteCarloStatusOf(
-      await findResult(db, sa.ctx.row.id, ENGINE_VERSION, cached.inputsHash, "monteCarlo"),
-    );
+    const mc = monteCarloStatusOf(await findResult(db, sa.ctx.row.id, ENGINE_VERSION, cached.inputsHash, "monteCarlo"));
     if (mc && (mc.status === "queued" || mc.status === "running")) schedule(() => kickJobs(db));
-    return {
-      input: cached.input,
-      inputErrors: null,
-      result: cached.result,
-      inputsHash: cached.inputsHash,
-      monteCarlo: mc,
-    };
+    return { input: cached.input, inputErrors: null, result: cached.result, inputsHash: cached.inputsHash, monteCarlo: mc };
   }
   const full = await withClimateData(db, sa.ctx);
   const built = buildEngineInput(full.dto.document as ScenarioDocument, full.dataset, full.project);
-  if (!built.ok)
-    return { input: null, inputErrors: built.fieldErrors, result: null, inputsHash: null, monteCarlo: null };
+  if (!built.ok) return { input: null, inputErrors: built.fieldErrors, result: null, inputsHash: null, monteCarlo: null };
   const a = await analyzeAndStore(db, sa.ctx.row.id, built.input);
-  if (a.monteCarlo && (a.monteCarlo.status === "queued" || a.monteCarlo.status === "running"))
-    schedule(() => kickJobs(db));
-  return {
-    input: built.input,
-    inputErrors: null,
-    result: a.result,
-    inputsHash: a.inputsHash,
-    monteCarlo: a.monteCarlo,
-  };
+  if (a.monteCarlo && (a.monteCarlo.status === "queued" || a.monteCarlo.status === "running")) schedule(() => kickJobs(db));
+  return { input: built.input, inputErrors: null, result: a.result, inputsHash: a.inputsHash, monteCarlo: a.monteCarlo };
 }
 
 /** The issued version a viewer may see (a number, or the latest), with its frozen input and result. */
@@ -319,11 +233,7 @@ export async function issuedVersionOf(scenarioId: string, versionNumber?: number
 }
 
 /** Write an audit event for a scenario (views, downloads). */
-export async function auditScenario(
-  sa: ScenarioAccess,
-  action: string,
-  detail: Record<string, unknown> = {},
-) {
+export async function auditScenario(sa: ScenarioAccess, action: string, detail: Record<string, unknown> = {}) {
   await writeAudit(db, {
     actorId: sa.access.viewer.id,
     firmId: sa.access.project.firmId,
@@ -344,13 +254,7 @@ const draftCache = (g.loopledgerWhatIfCache ??= new Lru<Source>(32));
 /** The draft's input and its stored result (null when the current inputs have none yet). */
 export async function draftSource(sa: ScenarioAccess): Promise<Source | null> {
   const { ctx } = sa;
-  const key = [
-    ctx.row.id,
-    ctx.row.revision,
-    ctx.row.climateDatasetId,
-    ctx.project.elevationM,
-    ctx.project.locationLabel,
-  ].join("|");
+  const key = [ctx.row.id, ctx.row.revision, ctx.row.climateDatasetId, ctx.project.elevationM, ctx.project.locationLabel].join("|");
   const hit = draftCache.get(key);
   if (hit) return hit;
   const full = await withClimateData(db, ctx);
@@ -369,10 +273,5 @@ export async function draftSource(sa: ScenarioAccess): Promise<Source | null> {
  * climate nor the site, so both work for the what-if and the results API.
  */
 export function issuedSource(v: NonNullable<Awaited<ReturnType<typeof findIssuedVersion>>>): Source {
-  return {
-    input: v.input as ScenarioInput,
-    result: v.result as ScenarioResult,
-    inputsHash: v.inputsHash,
-    version: v.versionNumber,
-  };
+  return { input: v.input as ScenarioInput, result: v.result as ScenarioResult, inputsHash: v.inputsHash, version: v.versionNumber };
 }

@@ -23,19 +23,10 @@ export async function seedDemoScenario(
   a: { projectId: string; firmId: string; siteElevationM: number; consultantId: string },
 ): Promise<{ datasetId: string; scenarioId: string; versionId: string; inputsHash: string }> {
   const ds = demoClimateDataset(a.siteElevationM);
-  const dataset = await insertClimateDataset(
-    db,
-    climateDatasetRow(ds, { projectId: a.projectId, createdBy: a.consultantId }),
-  );
+  const dataset = await insertClimateDataset(db, climateDatasetRow(ds, { projectId: a.projectId, createdBy: a.consultantId }));
 
   const document = demoScenarioDocument();
-  const created = await createScenario(db, {
-    projectId: a.projectId,
-    name: DEMO_SCENARIO_NAME,
-    climateDatasetId: dataset.id,
-    userId: a.consultantId,
-    document,
-  });
+  const created = await createScenario(db, { projectId: a.projectId, name: DEMO_SCENARIO_NAME, climateDatasetId: dataset.id, userId: a.consultantId, document });
   if (!created.ok) throw new Error(`demo scenario: ${JSON.stringify(created.fieldErrors)}`);
   const saved = await saveScenario(db, {
     scenarioId: created.id,
@@ -50,21 +41,8 @@ export async function seedDemoScenario(
   const hash = inputsHash(saved.input);
   const det = { ...runDeterministic(saved.input).result, inputsHash: hash };
   const mc = analyzeScenario(monteCarloInput(saved.input)).economics.monteCarlo;
-  await upsertDoneResult(db, {
-    scenarioId: created.id,
-    engineVersion: ENGINE_VERSION,
-    inputsHash: hash,
-    kind: "full",
-    result: det,
-  });
-  if (mc)
-    await upsertDoneResult(db, {
-      scenarioId: created.id,
-      engineVersion: ENGINE_VERSION,
-      inputsHash: hash,
-      kind: "monteCarlo",
-      result: mc,
-    });
+  await upsertDoneResult(db, { scenarioId: created.id, engineVersion: ENGINE_VERSION, inputsHash: hash, kind: "full", result: det });
+  if (mc) await upsertDoneResult(db, { scenarioId: created.id, engineVersion: ENGINE_VERSION, inputsHash: hash, kind: "monteCarlo", result: mc });
 
   const version = await insertVersionRow(db, {
     scenarioId: created.id,

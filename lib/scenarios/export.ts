@@ -4,20 +4,10 @@
  * A valid scenario exports its parsed form (every default written out); an incomplete one exports as stored.
  */
 import type { ClimateInput } from "@/lib/engine/climate/types";
-import {
-  climateInputFromDataset,
-  documentFromStored,
-  toEngineInputDraft,
-  type ClimateDatasetLike,
-  type ProjectSiteLike,
-} from "./mappers";
+import { climateInputFromDataset, documentFromStored, toEngineInputDraft, type ClimateDatasetLike, type ProjectSiteLike } from "./mappers";
 import { parseScenarioDocument } from "./validate";
 
-export function exportDocument(
-  stored: unknown,
-  dataset: ClimateDatasetLike | null,
-  site: ProjectSiteLike,
-): Record<string, unknown> {
+export function exportDocument(stored: unknown, dataset: ClimateDatasetLike | null, site: ProjectSiteLike): Record<string, unknown> {
   const raw = (typeof stored === "string" ? JSON.parse(stored) : stored) as Record<string, unknown>;
   // A frozen full input (with its own climate arrays and site) exports as it is.
   const own = raw?.climate as { source?: string } | undefined;

@@ -17,10 +17,7 @@ export function jsonError(status: number, error: string, extra: Record<string, u
 export async function readJsonBody(request: Request, maxBytes: number): Promise<JsonBody> {
   const type = request.headers.get("content-type") ?? "";
   if (!/^application\/(.+\+)?json\b/i.test(type)) {
-    return {
-      ok: false,
-      response: jsonError(415, "Send the document as JSON (Content-Type: application/json)."),
-    };
+    return { ok: false, response: jsonError(415, "Send the document as JSON (Content-Type: application/json).") };
   }
   const limitText = `${(maxBytes / 1e6).toLocaleString("en-US", { maximumFractionDigits: 1 })} MB`;
   const body = await readBodyLimited(request, maxBytes);

@@ -5,13 +5,7 @@
  */
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
-import {
-  claimNextJob,
-  finishJob,
-  reportJobProgress,
-  requeueStaleJobs,
-  type ResultRow,
-} from "@/db/queries/results";
+import { claimNextJob, finishJob, reportJobProgress, requeueStaleJobs, type ResultRow } from "@/db/queries/results";
 import { analyzeScenario, ENGINE_VERSION } from "@/lib/engine";
 import { monteCarloInput } from "./analysis";
 import { inputsHash } from "./hash";
@@ -60,27 +54,16 @@ export async function runMonteCarloJob(db: Kysely<Database>, job: ResultRow): Pr
     const ctx = await loadScenarioContext(db, job.scenarioId);
     if (!ctx) return finishJob(db, job.id, { status: "failed", error: "The scenario no longer exists." });
     const built = buildEngineInput(ctx.dto.document, ctx.dataset, ctx.project);
-    if (!built.ok)
-      return finishJob(db, job.id, {
-        status: "failed",
-        error: "The scenario no longer validates; save it again.",
-      });
+    if (!built.ok) return finishJob(db, job.id, { status: "failed", error: "The scenario no longer validates; save it again." });
     if (job.engineVersion !== ENGINE_VERSION || inputsHash(built.input) !== job.inputsHash) {
-      return finishJob(db, job.id, {
-        status: "failed",
-        error: "The inputs changed after this run was queued; the newer save has its own run.",
-      });
+      return finishJob(db, job.id, { status: "failed", error: "The inputs changed after this run was queued; the newer save has its own run." });
     }
     await reportJobProgress(db, job.id, 0.05);
     // Let the heartbeat reach the database before the synchronous run takes the event loop.
     await new Promise((r) => setImmediate(r));
     const result = analyzeScenario(monteCarloInput(built.input));
     const mc = result.economics.monteCarlo;
-    if (!mc)
-      return finishJob(db, job.id, {
-        status: "failed",
-        error: "Monte Carlo is switched off for this scenario.",
-      });
+    if (!mc) return finishJob(db, job.id, { status: "failed", error: "Monte Carlo is switched off for this scenario." });
     await finishJob(db, job.id, { status: "done", result: mc });
   } catch (err) {
     await finishJob(db, job.id, { status: "failed", error: `The run failed: ${(err as Error).message}` });

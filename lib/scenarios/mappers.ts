@@ -88,10 +88,7 @@ export function toScenarioDTO(row: ScenarioRowLike): ScenarioDTO {
 }
 
 /** A validated engine input → what is stored: the climate becomes a reference, the site is dropped. */
-export function toStoredInput(
-  input: ScenarioInput | ScenarioDocument | Record<string, unknown>,
-  datasetId: string,
-): StoredScenarioInput {
+export function toStoredInput(input: ScenarioInput | ScenarioDocument | Record<string, unknown>, datasetId: string): StoredScenarioInput {
   const { climate: _c, site: _s, ...rest } = input as Record<string, unknown>;
   void _c;
   void _s;
@@ -106,10 +103,7 @@ const isNumArray = (v: unknown): v is number[] => Array.isArray(v) && v.every((x
  * engine's ClimateYear (`{ kind: "hourly" | "bins", … }`), or with the arrays under `hourly`.
  */
 export function climateInputFromDataset(ds: ClimateDatasetLike): ClimateInput {
-  const data = (typeof ds.data === "string" ? JSON.parse(ds.data) : ds.data) as Record<
-    string,
-    unknown
-  > | null;
+  const data = (typeof ds.data === "string" ? JSON.parse(ds.data) : ds.data) as Record<string, unknown> | null;
   if (!data || typeof data !== "object") throw new Error(`climate dataset ${ds.id} holds no data`);
   // The climate import's own format (lib/climate/build.ts) first; older or hand-made shapes below.
   if (typeof data.version === "number" && (data.kind === "hourly" || data.kind === "bins")) {
@@ -117,26 +111,11 @@ export function climateInputFromDataset(ds: ClimateDatasetLike): ClimateInput {
   }
   const kind = ds.source_kind ?? ds.sourceKind;
   const label = typeof data.label === "string" && data.label ? data.label : ds.name;
-  const hourly = (data.hourly && typeof data.hourly === "object" ? data.hourly : data) as Record<
-    string,
-    unknown
-  >;
-  if (
-    data.source === "hourly" ||
-    data.kind === "hourly" ||
-    (isNumArray(hourly.dryBulbC) && isNumArray(hourly.wetBulbC))
-  ) {
+  const hourly = (data.hourly && typeof data.hourly === "object" ? data.hourly : data) as Record<string, unknown>;
+  if (data.source === "hourly" || data.kind === "hourly" || (isNumArray(hourly.dryBulbC) && isNumArray(hourly.wetBulbC))) {
     const { month, day, hour, dryBulbC, wetBulbC } = hourly;
-    if (
-      !isNumArray(month) ||
-      !isNumArray(day) ||
-      !isNumArray(hour) ||
-      !isNumArray(dryBulbC) ||
-      !isNumArray(wetBulbC)
-    ) {
-      throw new Error(
-        `climate dataset ${ds.id}: hourly arrays month, day, hour, dryBulbC, wetBulbC are required`,
-      );
+    if (!isNumArray(month) || !isNumArray(day) || !isNumArray(hour) || !isNumArray(dryBulbC) || !isNumArray(wetBulbC)) {
+      throw new Error(`climate dataset ${ds.id}: hourly arrays month, day, hour, dryBulbC, wetBulbC are required`);
     }
     return { source: "hourly", datasetId: ds.id, label, month, day, hour, dryBulbC, wetBulbC };
   }
@@ -174,11 +153,7 @@ export function climateInputFromDataset(ds: ClimateDatasetLike): ClimateInput {
  * The engine input of a stored scenario: the document, the project's site and the dataset's climate.
  * Not yet validated: pass it through `scenarioSchema` (parseScenario) before the engine sees it.
  */
-export function toEngineInputDraft(
-  document: ScenarioDocument,
-  climate: ClimateInput,
-  site: ProjectSiteLike,
-): Record<string, unknown> {
+export function toEngineInputDraft(document: ScenarioDocument, climate: ClimateInput, site: ProjectSiteLike): Record<string, unknown> {
   return {
     ...document,
     site: { elevationM: site.elevationM, locationLabel: site.locationLabel || site.siteName || "" },

@@ -27,9 +27,7 @@ export function prefillDocument(document: ScenarioDocument): ScenarioDocument {
     const complete = FIRST_COST_ITEMS.every((k) => typeof given[k] === "number");
     if (!complete) {
       missingFirstCost.set(i, given);
-      costs.firstCost = Object.fromEntries(
-        FIRST_COST_ITEMS.map((k) => [k, typeof given[k] === "number" ? given[k] : 0]),
-      );
+      costs.firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, typeof given[k] === "number" ? given[k] : 0]));
     }
   });
   const parsed = scenarioSchema.safeParse(withPlaceholders(doc));
@@ -44,12 +42,7 @@ export function prefillDocument(document: ScenarioDocument): ScenarioDocument {
     const o = (out.options as Obj[])[i];
     if (o && isObj(o.costs)) {
       // An option without a plate exchanger has none to buy: that item is structurally 0, not a default price.
-      const fill = (k: string) =>
-        typeof given[k] === "number"
-          ? given[k]
-          : k === "plateExchanger" && o.kind !== "openTowerPlateHx"
-            ? 0
-            : undefined;
+      const fill = (k: string) => (typeof given[k] === "number" ? given[k] : k === "plateExchanger" && o.kind !== "openTowerPlateHx" ? 0 : undefined);
       (o.costs as Obj).firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, fill(k)]));
     }
   }
@@ -69,8 +62,7 @@ export function newOptionOfKind(kind: OptionKind, usedIds: string[]): EditorOpti
   const base = defaultEditorDocument() as unknown as { options: Obj[] };
   const template = structuredClone(base.options.find((o) => o.kind === kind) ?? base.options[0]!) as Obj;
   let n = 1;
-  const stem =
-    kind === "openTowerDirect" ? "tower-direct" : kind === "openTowerPlateHx" ? "tower-plate" : "cooler";
+  const stem = kind === "openTowerDirect" ? "tower-direct" : kind === "openTowerPlateHx" ? "tower-plate" : "cooler";
   let id = stem;
   while (usedIds.includes(id)) id = `${stem}-${++n}`;
   template.id = id;

@@ -42,15 +42,7 @@ export interface ScenarioContext {
 async function loadProjectSite(db: Executor, projectId: string) {
   return db
     .selectFrom("projects")
-    .select([
-      "id",
-      "name",
-      "elevation_m as elevationM",
-      "location_label as locationLabel",
-      "site_name as siteName",
-      "unit_system as unitSystem",
-      "currency",
-    ])
+    .select(["id", "name", "elevation_m as elevationM", "location_label as locationLabel", "site_name as siteName", "unit_system as unitSystem", "currency"])
     .where("id", "=", projectId)
     .executeTakeFirst();
 }
@@ -59,12 +51,7 @@ async function loadProjectSite(db: Executor, projectId: string) {
  * A climate dataset of this project (never another project's), with its stored data — or without it
  * (`data: null`) where only its name is needed: the hourly arrays are the bulk of a scenario's reads.
  */
-export async function loadDataset(
-  db: Executor,
-  projectId: string,
-  datasetId: string | null,
-  withData = true,
-) {
+export async function loadDataset(db: Executor, projectId: string, datasetId: string | null, withData = true) {
   if (!datasetId) return null;
   const ds = await db
     .selectFrom("climate_datasets")
@@ -76,11 +63,7 @@ export async function loadDataset(
   return ds ? { data: null as unknown, ...ds } : null;
 }
 
-export async function loadScenarioContext(
-  db: Executor,
-  scenarioId: string,
-  opts: { withClimateData?: boolean } = {},
-): Promise<ScenarioContext | null> {
+export async function loadScenarioContext(db: Executor, scenarioId: string, opts: { withClimateData?: boolean } = {}): Promise<ScenarioContext | null> {
   const row = await findScenario(db, scenarioId);
   if (!row) return null;
   const project = await loadProjectSite(db, row.projectId);
@@ -96,12 +79,11 @@ export async function withClimateData(db: Executor, ctx: ScenarioContext): Promi
 }
 
 export type EngineInputOutcome =
-  { ok: true; input: ScenarioInput } | { ok: false; fieldErrors: FieldErrorMap };
+  | { ok: true; input: ScenarioInput }
+  | { ok: false; fieldErrors: FieldErrorMap };
 
 const NO_CLIMATE: FieldErrorMap = {
-  climateDatasetId: [
-    "Choose the climate dataset this scenario runs on (import one on the project page first).",
-  ],
+  climateDatasetId: ["Choose the climate dataset this scenario runs on (import one on the project page first)."],
 };
 
 /** Document + the project's site + the dataset's climate → a validated engine input, or every field error. */
@@ -117,19 +99,13 @@ export function buildEngineInput(
   } catch (err) {
     return { ok: false, fieldErrors: { climateDatasetId: [(err as Error).message] } };
   }
-  const units =
-    site.unitSystem && site.currency ? { system: site.unitSystem, currency: site.currency } : undefined;
+  const units = site.unitSystem && site.currency ? { system: site.unitSystem, currency: site.currency } : undefined;
   const parsed = parseScenarioDocument(toEngineInputDraft(document, climate, site), units);
   if (parsed.ok) return { ok: true, input: parsed.value };
   // Problems inside the dataset's arrays belong to the dataset picker, not to a form field.
   const fieldErrors: FieldErrorMap = {};
   for (const [path, messages] of Object.entries(parsed.fieldErrors)) {
-    const key =
-      path === "climate" || path.startsWith("climate.")
-        ? "climateDatasetId"
-        : path.startsWith("site.")
-          ? ""
-          : path;
+    const key = path === "climate" || path.startsWith("climate.") ? "climateDatasetId" : path.startsWith("site.") ? "" : path;
     (fieldErrors[key] ??= []).push(...messages);
   }
   return { ok: false, fieldErrors };
@@ -143,20 +119,13 @@ export async function engineInputOf(db: Executor, ctx: ScenarioContext): Promise
 /** A new scenario from `defaultScenario`, on a dataset of the project. */
 export async function createScenario(
   db: Executor,
-  a: {
-    projectId: string;
-    name: string;
-    climateDatasetId: string | null;
-    userId: string | null;
-    document?: ScenarioDocument;
-  },
+  a: { projectId: string; name: string; climateDatasetId: string | null; userId: string | null; document?: ScenarioDocument },
 ): Promise<{ ok: true; id: string; revision: number } | { ok: false; fieldErrors: FieldErrorMap }> {
   const name = a.name.trim();
   if (!name) return { ok: false, fieldErrors: { name: ["Give the scenario a name."] } };
   if (name.length > 200) return { ok: false, fieldErrors: { name: ["Keep the name under 200 characters."] } };
   const dataset = await loadDataset(db, a.projectId, a.climateDatasetId);
-  if (a.climateDatasetId && !dataset)
-    return { ok: false, fieldErrors: { climateDatasetId: ["That climate dataset is not in this project."] } };
+  if (a.climateDatasetId && !dataset) return { ok: false, fieldErrors: { climateDatasetId: ["That climate dataset is not in this project."] } };
   const document = a.document ?? documentFromStored(defaultScenario(PLACEHOLDER_CLIMATE));
   const doc = { ...document, name } as ScenarioDocument;
   const row = await insertScenario(db, {
@@ -173,14 +142,7 @@ export async function createScenario(
 export type SaveOutcome =
   | { ok: true; revision: number; input: ScenarioInput }
   | { ok: false; kind: "invalid"; fieldErrors: FieldErrorMap }
-  | {
-      ok: false;
-      kind: "conflict";
-      message: string;
-      currentRevision: number;
-      savedAt: string;
-      savedBy: string | null;
-    }
+  | { ok: false; kind: "conflict"; message: string; currentRevision: number; savedAt: string; savedBy: string | null }
   | { ok: false; kind: "archived"; message: string }
   | { ok: false; kind: "notFound" };
 
@@ -190,23 +152,11 @@ export type SaveOutcome =
  */
 export async function saveScenario(
   db: Executor,
-  a: {
-    scenarioId: string;
-    expectedRevision: number;
-    name: string;
-    climateDatasetId: string | null;
-    document: unknown;
-    userId: string | null;
-  },
+  a: { scenarioId: string; expectedRevision: number; name: string; climateDatasetId: string | null; document: unknown; userId: string | null },
 ): Promise<SaveOutcome> {
   const row = await findScenario(db, a.scenarioId);
   if (!row) return { ok: false, kind: "notFound" };
-  if (row.archivedAt)
-    return {
-      ok: false,
-      kind: "archived",
-      message: "This scenario is archived; restore it or clone it to edit.",
-    };
+  if (row.archivedAt) return { ok: false, kind: "archived", message: "This scenario is archived; restore it or clone it to edit." };
   const project = await loadProjectSite(db, row.projectId);
   if (!project) return { ok: false, kind: "notFound" };
   const name = a.name.trim();
@@ -215,11 +165,7 @@ export async function saveScenario(
   const built = buildEngineInput({ ...(docIn as unknown as ScenarioDocument), name }, dataset, project);
   const nameErrors: FieldErrorMap = name ? {} : { name: ["Give the scenario a name."] };
   if (!built.ok || !name) {
-    return {
-      ok: false,
-      kind: "invalid",
-      fieldErrors: { ...(built.ok ? {} : built.fieldErrors), ...nameErrors },
-    };
+    return { ok: false, kind: "invalid", fieldErrors: { ...(built.ok ? {} : built.fieldErrors), ...nameErrors } };
   }
   if (row.revision !== a.expectedRevision) return conflict(db, a.scenarioId);
   const updated = await updateScenarioAtRevision(db, a.scenarioId, a.expectedRevision, {
@@ -255,17 +201,12 @@ async function conflict(db: Executor, scenarioId: string): Promise<SaveOutcome> 
 }
 
 /** Copy a scenario (its stored document and dataset) under a new name; results are not copied. */
-export async function cloneScenario(
-  db: Executor,
-  a: { scenarioId: string; name?: string; userId: string | null },
-) {
+export async function cloneScenario(db: Executor, a: { scenarioId: string; name?: string; userId: string | null }) {
   const row = await findScenario(db, a.scenarioId);
   if (!row) return null;
   const doc = documentFromStored(row.input);
   const name = (a.name?.trim() || `${row.name} (copy)`).slice(0, 200);
-  const input = row.climateDatasetId
-    ? toStoredInput({ ...doc, name }, row.climateDatasetId)
-    : { ...doc, name };
+  const input = row.climateDatasetId ? toStoredInput({ ...doc, name }, row.climateDatasetId) : { ...doc, name };
   const created = await insertScenario(db, {
     projectId: row.projectId,
     name,
@@ -277,9 +218,6 @@ export async function cloneScenario(
   return { id: created.id, projectId: row.projectId, name };
 }
 
-export async function archiveScenario(
-  db: Executor,
-  a: { scenarioId: string; archived: boolean; userId: string | null },
-) {
+export async function archiveScenario(db: Executor, a: { scenarioId: string; archived: boolean; userId: string | null }) {
   return setScenarioArchived(db, a.scenarioId, a.archived, a.userId);
 }

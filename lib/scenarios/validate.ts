@@ -18,10 +18,7 @@ export const DEFAULT_MESSAGE_CONTEXT: MessageContext = { system: "SI", currency:
  * Parse a scenario document: the engine input, or every problem keyed by its field path with a message a
  * person can act on (in `units`, never the schema library's wording).
  */
-export function parseScenarioDocument(
-  document: unknown,
-  units: MessageContext = DEFAULT_MESSAGE_CONTEXT,
-): ParseOutcome {
+export function parseScenarioDocument(document: unknown, units: MessageContext = DEFAULT_MESSAGE_CONTEXT): ParseOutcome {
   const r = scenarioSchema.safeParse(document, { reportInput: true });
   if (r.success) return { ok: true, value: r.data as ScenarioInput };
   const fieldErrors: FieldErrorMap = {};

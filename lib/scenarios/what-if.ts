@@ -32,14 +32,7 @@ export interface WhatIfResponse {
   headline: Headline;
   lowestLccOptionId: string;
   discountRate: number;
-  options: {
-    optionId: string;
-    label: string;
-    lcc: number;
-    annualisedCost: number;
-    firstCost: number;
-    firstYearOperatingCost: number;
-  }[];
+  options: { optionId: string; label: string; lcc: number; annualisedCost: number; firstCost: number; firstYearOperatingCost: number }[];
   comparisons: {
     baseOptionId: string;
     alternativeOptionId: string;
@@ -63,23 +56,14 @@ export function storedEconomicsInputs(input: ScenarioInput, result: ScenarioResu
   };
 }
 
-export function computeWhatIf(
-  input: ScenarioInput,
-  result: ScenarioResult,
-  body: WhatIfBody,
-  system: UnitSystem,
-  currency: string,
-): WhatIfResponse {
+export function computeWhatIf(input: ScenarioInput, result: ScenarioResult, body: WhatIfBody, system: UnitSystem, currency: string): WhatIfResponse {
   const t0 = performance.now();
   const overrides: WhatIfOverrides = {};
-  if (body.waterAndSewerPriceFactor !== undefined)
-    overrides.waterAndSewerPriceFactor = body.waterAndSewerPriceFactor;
-  if (body.electricityPriceFactor !== undefined)
-    overrides.electricityPriceFactor = body.electricityPriceFactor;
+  if (body.waterAndSewerPriceFactor !== undefined) overrides.waterAndSewerPriceFactor = body.waterAndSewerPriceFactor;
+  if (body.electricityPriceFactor !== undefined) overrides.electricityPriceFactor = body.electricityPriceFactor;
   if (body.cyclesOfConcentration !== undefined) overrides.cyclesOfConcentration = body.cyclesOfConcentration;
   if (body.discountRate !== undefined) overrides.discountRate = body.discountRate;
-  if (body.firstCostPremiumFactor !== undefined)
-    overrides.firstCostPremiumFactor = body.firstCostPremiumFactor;
+  if (body.firstCostPremiumFactor !== undefined) overrides.firstCostPremiumFactor = body.firstCostPremiumFactor;
   const e = whatIf(storedEconomicsInputs(input, result), overrides);
   const headline = buildHeadline(e, system, currency);
   return {
@@ -112,8 +96,7 @@ export function whatIfBaseline(input: ScenarioInput, result: ScenarioResult) {
   return {
     waterAndSewerPricePerM3: input.tariffs.water.pricePerM3 + input.tariffs.sewer.pricePerM3,
     electricityPricePerKWh: input.tariffs.electricity.energyPricePerKWh,
-    cyclesOfConcentration:
-      wet.length > 0 ? wet.reduce((s, p) => s + p.cyclesOfConcentration, 0) / wet.length : 3,
+    cyclesOfConcentration: wet.length > 0 ? wet.reduce((s, p) => s + p.cyclesOfConcentration, 0) / wet.length : 3,
     discountRate: result.economics.discountRate,
     analysis: result.economics.analysis,
   };
