@@ -54,7 +54,7 @@ for (const [name, load] of cases) {
       .map(([k, v]) => `${k} ${Math.round(v)}`)
       .join(", ");
     process.stdout.write(
-      `  ${p.optionId.padEnd(16)} LCC ${Math.round(e?.lcc ?? Number.NaN).toLocaleString("en-US").padStart(12)}  kWh/yr: ${parts}; compressor ${Math.round(p.compressorEnergyKWh ?? Number.NaN)}; mean Tc ${p.meanCondensingC.toFixed(2)} °C; unmet ${Math.round(p.unmetHours)} h; dry ${Math.round(p.dryModeHours)} h; makeup ${Math.round(p.waterM3.makeup)} m³\n`,
+      `  ${p.optionId.padEnd(16)} LCC ${Math.round(e?.lcc ?? Number.NaN).toLocaleString("en-US").padStart(12)}  kWh/yr: ${parts}; above clean reference (not priced) ${Math.round(p.compressorAboveCleanReferenceKWh ?? Number.NaN)}; mean Tc ${p.meanCondensingC.toFixed(2)} °C; unmet ${Math.round(p.unmetHours)} h; dry ${Math.round(p.dryModeHours)} h; makeup ${Math.round(p.waterM3.makeup)} m³\n`,
     );
   }
 }

@@ -3,6 +3,7 @@ import type { ScenarioResult } from "@/lib/engine";
 import { COST_CATEGORIES, COST_CATEGORY_LABELS, type EconomicsResult, type OptionComparison } from "@/lib/engine/economics/types";
 import type { EngineWarning, OptionAnnualPhysics } from "@/lib/engine/types";
 import { formatNumber, formatQuantity, unitLabel, type QuantityKind, type UnitSystem } from "@/lib/units";
+import { warningText } from "@/lib/units/warnings";
 import { findComparison } from "./headline";
 
 interface Row {
@@ -13,7 +14,7 @@ interface Row {
   testId?: string;
 }
 
-function Section({ title, rows, span, notes, optionLabel }: { title: string; rows: Row[]; span: number; notes?: EngineWarning[]; optionLabel?: (id: string) => string }) {
+function Section({ title, rows, span, notes, optionLabel, system }: { title: string; rows: Row[]; span: number; notes?: EngineWarning[]; optionLabel?: (id: string) => string; system: UnitSystem }) {
   return (
     <tbody>
       <tr className="bg-paper-sunk">
@@ -37,7 +38,7 @@ function Section({ title, rows, span, notes, optionLabel }: { title: string; row
       {notes && notes.length > 0 ? (
         <tr>
           <td colSpan={span} className="px-3 pb-2">
-            <WarningList warnings={notes} {...(optionLabel ? { optionLabel } : {})} />
+            <WarningList warnings={notes} system={system} {...(optionLabel ? { optionLabel } : {})} />
           </td>
         </tr>
       ) : null}
@@ -45,7 +46,8 @@ function Section({ title, rows, span, notes, optionLabel }: { title: string; row
   );
 }
 
-export function WarningList({ warnings, optionLabel }: { warnings: EngineWarning[]; optionLabel?: (id: string) => string }): ReactNode {
+/** Engine warnings, each number in the viewer's units. */
+export function WarningList({ warnings, optionLabel, system }: { warnings: EngineWarning[]; optionLabel?: (id: string) => string; system: UnitSystem }): ReactNode {
   if (warnings.length === 0) return null;
   return (
     <ul className="space-y-1 text-xs" data-testid="engine-warnings">
@@ -55,7 +57,7 @@ export function WarningList({ warnings, optionLabel }: { warnings: EngineWarning
           className={`rounded border px-2 py-1 ${w.severity === "warning" ? "border-caution-200 bg-caution-50 text-caution-800" : "border-line bg-paper text-ink-soft"}`}
         >
           <span className="font-semibold">{w.severity === "warning" ? "Check" : "Note"}</span>
-          {w.optionId && optionLabel ? <span> · {optionLabel(w.optionId)}</span> : null}: {w.message}
+          {w.optionId && optionLabel ? <span> · {optionLabel(w.optionId)}</span> : null}: {warningText(w, system)}
         </li>
       ))}
     </ul>
@@ -63,12 +65,13 @@ export function WarningList({ warnings, optionLabel }: { warnings: EngineWarning
 }
 
 /** Which table section an engine warning concerns, from its input path. */
-export function sectionOfWarning(w: EngineWarning): "water" | "energy" | "cost" | "climate" | "general" {
+export function sectionOfWarning(w: EngineWarning): "water" | "energy" | "design" | "cost" | "climate" | "general" {
   const p = w.path ?? "";
   if (p.startsWith("water") || w.code.startsWith("water.")) return "water";
   if (p.startsWith("climate") || w.code.startsWith("climate.")) return "climate";
   if (p.startsWith("tariffs") || p.startsWith("economics") || p.startsWith("upkeep") || p.includes("costs") || w.code.startsWith("economics.")) return "cost";
-  if (p.startsWith("options") || p.startsWith("duty") || p.startsWith("fouling") || w.code.startsWith("loop.") || w.code.startsWith("fouling.")) return "energy";
+  if (w.code.startsWith("designDay.")) return "design";
+  if (p.startsWith("options") || p.startsWith("duty") || p.startsWith("fouling") || w.code.startsWith("loop.") || w.code.startsWith("fouling.") || w.code.startsWith("compressor.")) return "energy";
   return "general";
 }
 
@@ -118,8 +121,18 @@ export function ComparisonTable({
     { label: "Tower-side pump (plate option)", unit: "kWh/yr", values: physics.map((p) => per(p, (x) => x.energyKWh.secondaryPump, "energyKWh")) },
     { label: "Spray pump (cooler)", unit: "kWh/yr", values: physics.map((p) => per(p, (x) => x.energyKWh.sprayPump, "energyKWh")) },
     { label: "Basin heater", unit: "kWh/yr", values: physics.map((p) => per(p, (x) => x.energyKWh.basinHeater, "energyKWh")) },
-    { label: "Compressor penalty", unit: "kWh/yr", values: physics.map((p) => per(p, (x) => x.energyKWh.compressorPenalty, "energyKWh")) },
-    { label: "Total", unit: "kWh/yr", values: physics.map((p) => per(p, (x) => x.energyKWh.total, "energyKWh")), strong: true, testId: "row-energy-total" },
+    {
+      label: "Refrigeration compressors",
+      unit: "kWh/yr",
+      values: physics.map((p) => per(p, (x) => x.energyKWh.compressor, "energyKWh")),
+      testId: "row-energy-compressor",
+    },
+    { label: "Total (priced)", unit: "kWh/yr", values: physics.map((p) => per(p, (x) => x.energyKWh.total, "energyKWh")), strong: true, testId: "row-energy-total" },
+    {
+      label: "Of the compressors: above a clean condenser on the same water (explanation, not priced)",
+      unit: "kWh/yr",
+      values: physics.map((p) => per(p, (x) => x.compressorAboveCleanReferenceKWh, "energyKWh")),
+    },
     {
       label: "Peak demand",
       unit: unitLabel("powerKW", "SI"),
@@ -138,6 +151,37 @@ export function ComparisonTable({
       values: physics.map((p) => (p ? (p.cleaningsPerYear > 0 ? formatNumber(p.cleaningsPerYear, { sig: 2 }) : "none") : null)),
     },
   ];
+  const dd = (p: OptionAnnualPhysics | undefined) => p?.designDay;
+  const designRows: Row[] = physics.some((p) => dd(p))
+    ? [
+        {
+          label: "Selected for wet-bulb",
+          unit: unitLabel("temperatureC", system),
+          values: physics.map((p) => per(p, (x) => x.designDay?.selectionWetBulbC ?? Number.NaN, "temperatureC", 3)),
+        },
+        {
+          label: `Site 0.4 % wet-bulb${dd(physics.find((p) => dd(p))) ? ` (${q("temperatureC", dd(physics.find((p) => dd(p)))?.siteDryBulbC, system, 3)} ${unitLabel("temperatureC", system)} coincident dry-bulb)` : ""}`,
+          unit: unitLabel("temperatureC", system),
+          values: physics.map((p) => per(p, (x) => x.designDay?.siteWetBulbC ?? Number.NaN, "temperatureC", 3)),
+        },
+        {
+          label: "Heat rejected at the set-point in the design hour, full fan",
+          unit: unitLabel("heatDutyKW", system),
+          values: physics.map((p) => per(p, (x) => x.designDay?.capacityAtSetPointKW ?? Number.NaN, "heatDutyKW", 3)),
+        },
+        {
+          label: "Holds the set-point at design duty",
+          unit: "",
+          values: physics.map((p) => {
+            const d = dd(p);
+            if (!d) return null;
+            return d.holdsSetPoint ? "yes" : `no: condenses at ${formatQuantity("temperatureC", d.condensingC, system, { sig: 3 })}`;
+          }),
+          strong: true,
+          testId: "row-design-holds",
+        },
+      ]
+    : [];
   const costRows: Row[] = [
     ...COST_CATEGORIES.map((c) => ({
       label: COST_CATEGORY_LABELS[c],
@@ -213,10 +257,13 @@ export function ComparisonTable({
             ))}
           </tr>
         </thead>
-        <Section title="Water" rows={waterRows} span={span} notes={bySection("water")} optionLabel={labelOf} />
-        <Section title="Energy and operation" rows={energyRows} span={span} notes={bySection("energy")} optionLabel={labelOf} />
-        <Section title={`Life-cycle cost by category (present value at ${formatNumber(100 * e.discountRate, { decimals: 1 })} %)`} rows={costRows} span={span} notes={bySection("cost")} optionLabel={labelOf} />
-        <Section title="Measures" rows={measureRows} span={span} notes={measureNotes} optionLabel={labelOf} />
+        <Section title="Water" rows={waterRows} span={span} notes={bySection("water")} optionLabel={labelOf} system={system} />
+        <Section title="Energy and operation" rows={energyRows} span={span} notes={bySection("energy")} optionLabel={labelOf} system={system} />
+        {designRows.length > 0 ? (
+          <Section title="Design-day check (site 0.4 % design hour)" rows={designRows} span={span} notes={bySection("design")} optionLabel={labelOf} system={system} />
+        ) : null}
+        <Section title={`Life-cycle cost by category (present value at ${formatNumber(100 * e.discountRate, { decimals: 1 })} %)`} rows={costRows} span={span} notes={bySection("cost")} optionLabel={labelOf} system={system} />
+        <Section title="Measures" rows={measureRows} span={span} notes={measureNotes} optionLabel={labelOf} system={system} />
         {e.options.some((o) => notesOf(o.optionId).length > 0) ? (
         <tbody>
           <tr>
@@ -225,7 +272,7 @@ export function ComparisonTable({
             </th>
             {e.options.map((o) => (
               <td key={o.optionId} className="px-3 py-2 align-top">
-                <WarningList warnings={notesOf(o.optionId)} />
+                <WarningList warnings={notesOf(o.optionId)} system={system} />
               </td>
             ))}
           </tr>

@@ -11,7 +11,7 @@ import { TornadoChart } from "@/components/charts/tornado-chart";
 import { WetBulbBinsChart } from "@/components/charts/wet-bulb-bins-chart";
 import { CautionList, ScreeningNote, cautionsFor } from "./cautions";
 import { ComparisonTable, WarningList, sectionOfWarning } from "./comparison-table";
-import { buildHeadline, money } from "./headline";
+import { buildHeadline, designDaySentence, money } from "./headline";
 import { MonteCarloPanel, type MonteCarloSlot } from "./monte-carlo-panel";
 import { STACK_CATEGORIES, costStackSeries, cumulativeSeries, monthlyWaterSeries, tornadoRows, wetBulbBinRows } from "./series";
 import { WhatIfPanel } from "./what-if-panel";
@@ -70,6 +70,7 @@ export function ComparisonView(props: ComparisonViewProps) {
   const context = [project.name, project.siteName, project.clientName, props.scenarioName].filter(Boolean).join(" ");
   const climate = result.climateSummary;
   const design04 = climate.designWetBulbC.find((d) => d.exceedancePercent === 0.4);
+  const designNote = designDaySentence(result.physics, system);
 
   return (
     <div className="space-y-6" data-testid="comparison">
@@ -83,6 +84,11 @@ export function ComparisonView(props: ComparisonViewProps) {
         <p className="mt-2 text-sm text-ink-soft" data-testid="headline-payback">
           {headline.payback}
         </p>
+        {designNote ? (
+          <p className="mt-2 text-sm font-semibold text-caution-800" data-testid="headline-design-day">
+            {designNote}
+          </p>
+        ) : null}
         {headline.flipSummary ? (
           <p className="mt-2 text-sm text-ink-soft" data-testid="headline-flips">
             {headline.flipSummary}
@@ -101,7 +107,7 @@ export function ComparisonView(props: ComparisonViewProps) {
         </dl>
         {generalNotes.length > 0 ? (
           <div className="mt-3">
-            <WarningList warnings={generalNotes} />
+            <WarningList warnings={generalNotes} system={system} />
           </div>
         ) : null}
         {props.actions ? <div className="mt-4 flex flex-wrap gap-2">{props.actions}</div> : null}
@@ -146,7 +152,7 @@ export function ComparisonView(props: ComparisonViewProps) {
                 ? ". Dry hours per bin are placed in each month's coldest hours from the cooler's monthly dry-mode hours (the engine reports them by month)."
                 : "."}
             </p>
-            <WarningList warnings={climateNotes} />
+            <WarningList warnings={climateNotes} system={system} />
           </div>
         </div>
       </Panel>

@@ -125,3 +125,5 @@ function flipPhrase(b: BreakEvenResult, system: UnitSystem, currency: string): s
         : `the extra first cost were ${money(b.absoluteValue, currency)} (×${formatNumber(b.value, { sig: 3 })} the quoted difference)`;
   }
 }
+
+export { designDaySentence } from "@/lib/reports/design-day";

@@ -36,8 +36,16 @@ export interface CoolerSelection {
   /** Dry external conductance / Lewis-analogy value hD·A·cp when no dry rating is given. */
   dryExternalConductanceFactor: number;
   allowDryMode: boolean;
-  /** Dry mode only at or below this dry-bulb (e.g. a plume or freeze rule); undefined = no limit. */
+  /** Dry mode only at or below this dry-bulb (e.g. a plume rule); undefined = no limit. */
   dryModeMaxDryBulbC?: number;
+  /**
+   * Wet or dry in each hour: "lowestTotalPower" — the mode with the lower fan + spray pump + compressor
+   * power; "switchOverDryBulb" — dry at or below `switchOverDryBulbC`, wet above.
+   */
+  modeSelection: "lowestTotalPower" | "switchOverDryBulb";
+  switchOverDryBulbC?: number;
+  /** Spray locked out (dry operation forced) below this dry-bulb: freeze protection of the spray water. */
+  sprayLockoutDryBulbC: number;
   glycol: { kind: GlycolKind; massFraction: number };
   /** Fluid the ratings were made with: "water" (engine derates for glycol) or the loop's own fluid. */
   ratingFluid: "water" | "loopFluid";
@@ -59,6 +67,10 @@ export interface CoolerModel {
   dryFactor: number;
   allowDryMode: boolean;
   dryModeMaxDryBulbC: number;
+  modeSelection: "lowestTotalPower" | "switchOverDryBulb";
+  /** Dry at or below, wet above (switch-over rule only), °C. */
+  switchOverDryBulbC: number;
+  sprayLockoutDryBulbC: number;
   designApproachK: number;
 }
 
@@ -151,6 +163,9 @@ export function calibrateCooler(
       dryFactor,
       allowDryMode: sel.allowDryMode,
       dryModeMaxDryBulbC: sel.dryModeMaxDryBulbC ?? Number.POSITIVE_INFINITY,
+      modeSelection: sel.modeSelection,
+      switchOverDryBulbC: sel.switchOverDryBulbC ?? Number.NEGATIVE_INFINITY,
+      sprayLockoutDryBulbC: sel.sprayLockoutDryBulbC,
       designApproachK: sel.leavingFluidC - twb,
     },
     warnings,
@@ -262,7 +277,7 @@ export function coolerCapacityKW(
  * required temperatures), from εCmin(f) = Q/(Tin,req − Tair): a 1-D root in f with no
  * saturated-enthalpy evaluation. +∞ if not even full speed (or a driving difference ≤ 0) suffices.
  */
-function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, needKWPerK: number, cs: number | undefined): number {
+export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, needKWPerK: number, cs: number | undefined): number {
   if (!(needKWPerK > 0)) return Number.POSITIVE_INFINITY;
   let hi = 1;
   let gHi = coolerConductanceKWPerK(model, hi, air, cs) - needKWPerK;
@@ -296,6 +311,75 @@ function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, needKWPer
  * at allowed fan speed (and dry mode is allowed at this dry-bulb), else wet; within the mode the fan
  * control holds the requirement or the fluid floats at full speed. Spray evaporation from the
  * air-side balance (exit air saturated at ha,in + Q/ma) in wet hours only.
+ */
+/**
+ * Modes the cooler may run in at this dry-bulb: the spray lock-out forces dry below its dry-bulb (freeze
+ * protection, even where dry mode is otherwise not allowed); the switch-over rule fixes the mode by the
+ * dry-bulb; otherwise dry is allowed where `allowDryMode` and the dry-bulb is at or below
+ * `dryModeMaxDryBulbC`, and wet always.
+ */
+export function allowedCoolerModes(model: CoolerModel, dryBulbC: number): { wet: boolean; dry: boolean } {
+  if (dryBulbC < model.sprayLockoutDryBulbC) return { wet: false, dry: true };
+  const dryAllowed = model.allowDryMode && dryBulbC <= model.dryModeMaxDryBulbC;
+  if (model.modeSelection === "switchOverDryBulb") {
+    const dry = dryAllowed && dryBulbC <= model.switchOverDryBulbC;
+    return { wet: !dry, dry };
+  }
+  return { wet: true, dry: dryAllowed };
+}
+
+/**
+ * Required airflow fraction for a leaving-fluid temperature in one mode, and its slope (1/K) by a
+ * forward difference of 0.05 K (wet: cs from the required temperatures, one saturated enthalpy each).
+ */
+export function coolerAirflowForLeavingFluid(
+  model: CoolerModel,
+  air: EnteringAir,
+  heatKW: number,
+  leavingFluidC: number,
+  wet: boolean,
+  pPa: number,
+): { fraction: number; slopePerK: number } {
+  const at = (tout: number): number => {
+    const tin = tout + heatKW / model.fluidCapacityKWPerK;
+    if (!wet) return tin > air.dryBulbC ? requiredAirflowFraction(model, air, heatKW / (tin - air.dryBulbC), undefined) : Number.POSITIVE_INFINITY;
+    if (!(tout > air.wetBulbC)) return Number.POSITIVE_INFINITY;
+    const cs = enthalpyBasedAirSpecificHeat(0.5 * (tin + tout), air, pPa);
+    return requiredAirflowFraction(model, air, heatKW / (tin - air.wetBulbC), cs);
+  };
+  const f0 = at(leavingFluidC);
+  if (!Number.isFinite(f0)) return { fraction: f0, slopePerK: 0 };
+  const f1 = at(leavingFluidC + 0.05);
+  return { fraction: f0, slopePerK: Number.isFinite(f1) ? (f1 - f0) / 0.05 : 0 };
+}
+
+/**
+ * One hour in a given mode: the fan control holds the required leaving-fluid temperature, or the fluid
+ * floats at full speed. Evaporation (wet only) from the air-side balance.
+ */
+export function solveCoolerModeHour(
+  model: CoolerModel,
+  fan: FanModel,
+  air: EnteringAir,
+  heatKW: number,
+  requiredLeavingFluidC: number,
+  wet: boolean,
+  pPa: number,
+): CoolerHourResult {
+  const tinReq = requiredLeavingFluidC + heatKW / model.fluidCapacityKWPerK;
+  if (!wet) {
+    const fDry = tinReq > air.dryBulbC ? requiredAirflowFraction(model, air, heatKW / (tinReq - air.dryBulbC), undefined) : Number.POSITIVE_INFINITY;
+    return finishMode(model, fan, fDry, air, heatKW, requiredLeavingFluidC, false, undefined, pPa);
+  }
+  const cs = enthalpyBasedAirSpecificHeat(0.5 * (tinReq + requiredLeavingFluidC), air, pPa);
+  const fWet = requiredLeavingFluidC > air.wetBulbC ? requiredAirflowFraction(model, air, heatKW / (tinReq - air.wetBulbC), cs) : Number.POSITIVE_INFINITY;
+  return finishMode(model, fan, fWet, air, heatKW, requiredLeavingFluidC, true, cs, pPa);
+}
+
+/**
+ * The simplest mode rule (kept for checks of the cooler model on its own): dry whenever dry operation
+ * holds the requirement, else wet. The annual analysis chooses the mode by total power or by the
+ * switch-over dry-bulb instead (lib/engine/annual/record-cooler.ts).
  */
 export function solveCoolerHour(
   model: CoolerModel,

@@ -3,8 +3,10 @@
  * Pure and synchronous; no I/O. SI throughout.
  */
 import {
+  type CompressorSummary,
   type PreparedClimate,
   type PreparedOption,
+  compressorModelFromDuty,
   computeOptionsPhysics,
   prepareClimate,
   prepareOption,
@@ -30,6 +32,8 @@ export interface ScenarioResult {
   physics: OptionAnnualPhysics[];
   economics: EconomicsResult;
   climateSummary: ClimateSummary & { sitePressurePa: number };
+  /** The compressor model every option's compressor energy comes from. */
+  compressor?: CompressorSummary;
   warnings: EngineWarning[];
 }
 
@@ -77,6 +81,7 @@ export function physicsOf(prepared: PreparedScenario, overrides: PhysicsOverride
     ...(overrides.cyclesOfConcentration !== undefined ? { cyclesOverride: overrides.cyclesOfConcentration } : {}),
     ...(overrides.foulingRateFactor !== undefined ? { foulingRateFactor: overrides.foulingRateFactor } : {}),
     ...(overrides.loadFactor !== undefined ? { loadFactor: overrides.loadFactor } : {}),
+    ...(Object.keys(overrides).length > 0 ? { skipDesignDay: true } : {}),
     electricityPricePerKWh: flatElectricityPrice(input),
     foulingCostCache: prepared.foulingCostCache,
   });
@@ -110,7 +115,8 @@ export function analyzeScenario(input: ScenarioInput, onProgress?: (fraction: nu
     rerunPhysics: (o: PhysicsOverrides) => physicsOf(prepared, o),
     ...(onProgress ? { onProgress } : {}),
   });
-  const warnings: EngineWarning[] = [...climateYearWarnings(prepared.year)];
+  const compressor = compressorModelFromDuty(input.duty);
+  const warnings: EngineWarning[] = [...climateYearWarnings(prepared.year), ...compressor.warnings];
   if (prepared.climate.monthsUnknown) {
     warnings.push({
       code: "climate.binsWithoutMonths",
@@ -126,6 +132,7 @@ export function analyzeScenario(input: ScenarioInput, onProgress?: (fraction: nu
     physics,
     economics,
     climateSummary: { ...summarizeClimate(prepared.year), sitePressurePa: prepared.pressurePa },
+    compressor: compressor.summary,
     warnings,
   };
 }

@@ -12,6 +12,7 @@ import type {
   TariffsInput,
   UpkeepInput,
 } from "./economics/types";
+import type { CycleRefrigerant } from "./compressor";
 import type { CleaningMethod, CondenserConstruction, CondenserMaterial } from "./condenser-construction";
 import type { CoolerSelection } from "./fluid-cooler";
 import type { GwpReport, Refrigerant } from "./refrigerants";
@@ -32,7 +33,27 @@ export type LoadProfileInput =
   /** Linear in dry-bulb between two points, clamped to the end fractions outside them. */
   | { kind: "linearInDryBulb"; lowDryBulbC: number; fractionAtLowDryBulb: number; highDryBulbC: number; fractionAtHighDryBulb: number };
 
-export type CompressorModelInput = { kind: "carnotFraction" } | { kind: "percentPerK"; percentPerK: number };
+/** One manufacturer's point: COP, or power (at `refrigerationKW`, default the design refrigeration load). */
+export interface CompressorDataPointInput {
+  condensingC: number;
+  cop?: number;
+  powerKW?: number;
+  refrigerationKW?: number;
+}
+
+/** How compressor power follows the condensing temperature (lib/engine/compressor.ts documents each). */
+export type CompressorModelInput =
+  /**
+   * Refrigerant-aware default: the single-stage saturated cycle of R-717 or R-134a, scaled to the design COP.
+   * Without `refrigerant`: the plant's, where it is one of the two; R-134a stands in for other halocarbons.
+   */
+  | { kind: "refrigerantCycle"; refrigerant?: CycleRefrigerant }
+  /** The manufacturer's data at one or two suction temperatures, three or more condensing temperatures each. */
+  | { kind: "manufacturer"; curves: { evaporatingC: number; points: CompressorDataPointInput[] }[] }
+  /** Per cent per kelvin, compounding, never below `floorFraction` of the design power. */
+  | { kind: "percentPerK"; percentPerK: number; floorFraction: number }
+  /** The simplest: a constant fraction of the Carnot COP. */
+  | { kind: "carnotFraction" };
 
 export interface DutyInput {
   /** "heatRejection": the design heat rejection is entered; "refrigeration": load + COP → rejection = load·(1 + 1/COP). */
@@ -47,8 +68,9 @@ export interface DutyInput {
   /** Lowest condensing temperature allowed (expansion devices, oil return, defrost). */
   minimumCondensingC: number;
   /**
-   * "fixedSetPoint": fans modulate to hold the set-point. "floating": fans run as needed to bring the
-   * condensing temperature down to the minimum (floating head pressure).
+   * "fixedSetPoint": fans modulate to hold the set-point; hours that cannot, run hotter and pay for it.
+   * "floating": in each hour the fan speed (and the cooler's wet or dry mode) that minimises fan + spray
+   * pump + compressor power, with the condensing temperature between the minimum and the set-point.
    */
   headPressureControl: "fixedSetPoint" | "floating";
   loadProfile: LoadProfileInput;

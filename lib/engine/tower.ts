@@ -422,3 +422,52 @@ export function solveTowerHour(
 function round3(x: number): number {
   return Math.round(x * 1000) / 1000;
 }
+
+/** Airflow fraction a device needs to deliver a leaving temperature, and its slope with that temperature. */
+export interface AirflowAtTemperature {
+  /** Required airflow fraction (+∞ when no airflow can do it). */
+  fraction: number;
+  /** d(fraction)/d(leaving temperature), 1/K (≤ 0: warmer water needs less air). */
+  slopePerK: number;
+}
+
+/**
+ * Airflow fraction the tower needs for a cold-water temperature at a heat load, and its slope, from four
+ * saturated enthalpies: L/G from `requiredLiquidToGasRatio`, f = L/(L/G)/Gdesign, and by implicit
+ * differentiation of ψ(L/G, T) = (4/(cpw·R))/Σ(1/rᵢ) − (L/G)^n/C = 0 with rᵢ = hs(T + kᵢR) − ha,in − (L/G)·cpw·kᵢR:
+ * d(L/G)/dT = −ψ_T/ψ_L/G, ψ_T = (4/(cpw·R))·Σ(hs′ᵢ/rᵢ²)/(Σ1/rᵢ)², ψ_L/G = −(4/(cpw·R))·Σ(cpw·kᵢR/rᵢ²)/(Σ1/rᵢ)² − n·(L/G)^(n−1)/C;
+ * df/dT = −(f/(L/G))·d(L/G)/dT. Source: Merkel/Chebyshev as above; calculus.
+ */
+export function towerAirflowForColdWater(
+  model: TowerModel,
+  air: EnteringAir,
+  heatKW: number,
+  coldWaterC: number,
+  pPa: number,
+): AirflowAtTemperature {
+  if (!(coldWaterC > air.wetBulbC)) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
+  const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
+  const hs = [0, 0, 0, 0];
+  for (let i = 0; i < 4; i++) hs[i] = saturatedAirEnthalpyKJPerKg(coldWaterC + (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK, pPa);
+  const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN, model.designLiquidToGasRatio);
+  if (!(lg > 0)) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
+  const c = CPW * rangeK;
+  let sumInv = 0;
+  let sumT = 0;
+  let sumL = 0;
+  for (let i = 0; i < 4; i++) {
+    const k = CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0;
+    const h = hs[i] ?? 0;
+    const r = h - air.enthalpyKJPerKg - lg * c * k;
+    if (!(r > 0)) return { fraction: model.waterFlowKgPerS / lg / model.designAirFlowKgPerS, slopePerK: 0 };
+    sumInv += 1 / r;
+    sumT += saturatedEnthalpySlopeKJPerKgK(coldWaterC + k * rangeK, h) / (r * r);
+    sumL += (c * k) / (r * r);
+  }
+  const k4 = 4 / c;
+  const psiT = (k4 * sumT) / (sumInv * sumInv);
+  const psiL = (-k4 * sumL) / (sumInv * sumInv) - (model.exponentN * Math.pow(lg, model.exponentN - 1)) / model.coefficientC;
+  const dLgdT = -psiT / psiL;
+  const fraction = model.waterFlowKgPerS / lg / model.designAirFlowKgPerS;
+  return { fraction, slopePerK: (-fraction / lg) * dLgdT };
+}

@@ -16,11 +16,42 @@ export const OPTION_KIND_LABELS: Record<OptionKind, string> = {
   closedCircuitCooler: "Closed-circuit cooler",
 };
 
+/**
+ * Physical quantity of a number carried by a warning (names of `lib/units` quantity kinds), so that a
+ * viewer sees it in its own unit system.
+ */
+export type WarningQuantity =
+  | "temperatureC"
+  | "temperatureDifferenceK"
+  | "powerKW"
+  | "heatDutyKW"
+  | "energyKWh"
+  | "waterVolumeM3"
+  | "foulingM2KPerW"
+  | "hours"
+  | "months"
+  | "percent"
+  | "ratio"
+  | "count";
+
+/** A number in a warning: its SI value and its quantity. */
+export interface WarningValue {
+  value: number;
+  quantity: WarningQuantity;
+}
+
 /** A warning the engine attaches to its result; `path` points at the input it concerns. */
 export interface EngineWarning {
   code: string;
   severity: "info" | "warning";
+  /** The text rendered in SI (for logs and readers that do not format `template`). */
   message: string;
+  /**
+   * The text with `{name}` placeholders for `values`; viewers render each value in their unit system.
+   * Absent on warnings without numbers (then `message` is the whole text).
+   */
+  template?: string;
+  values?: Record<string, WarningValue>;
   /** Dotted path of the scenario input concerned, e.g. "water.cyclesOfConcentration". */
   path?: string;
   optionId?: string;
@@ -35,9 +66,31 @@ export interface EnergyByComponentKWh {
   /** Spray-water pump of the closed-circuit cooler (wet hours only); 0 for the others. */
   sprayPump: number;
   basinHeater: number;
-  /** Extra compressor energy against the clean reference condensing temperature. */
-  compressorPenalty: number;
+  /** The refrigeration compressors at the option's own condensing temperature in each hour. */
+  compressor: number;
+  /** Everything above: the electricity the option pays for. */
   total: number;
+}
+
+/**
+ * Design-day check of one option: its selection against the site's 0.4 % wet-bulb, its condenser
+ * against the set-point, and the design duty in the design hour at full fan speed (wet).
+ */
+export interface OptionDesignDay {
+  /** The site's 0.4 % (annual exceedance) wet-bulb and the mean dry-bulb coincident with it, °C. */
+  siteWetBulbC: number;
+  siteDryBulbC: number;
+  /** The wet-bulb the tower or cooler was selected for, °C. */
+  selectionWetBulbC: number;
+  /** The condenser's stated design condensing temperature and the plant's set-point, °C. */
+  condenserDesignCondensingC: number;
+  setPointC: number;
+  /** Design duty and the heat the option can reject at the set-point in the design hour, kW. */
+  dutyKW: number;
+  capacityAtSetPointKW: number;
+  /** Condensing temperature the option reaches at the design duty in the design hour, °C. */
+  condensingC: number;
+  holdsSetPoint: boolean;
 }
 
 /** Water by component, m³ over the period it describes. M = E + B + D exactly. */
@@ -57,7 +110,7 @@ export interface MonthlyPhysics {
   heatRejectedKWh: number;
   energyKWh: EnergyByComponentKWh;
   waterM3: WaterByComponentM3;
-  /** Highest hourly electric demand of the option in the month (fans + pumps + heater + penalty). */
+  /** Highest hourly electric demand of the option in the month (fans + pumps + heater + compressors). */
   peakDemandKW: number;
   dryModeHours: number;
   /** Hours in which the loop could not hold the condensing set-point at full fan speed. */
@@ -88,10 +141,14 @@ export interface OptionAnnualPhysics {
   /** Chemical programme quantities: water leaving the wet loop (blowdown + drift) and loop volume. */
   chemicals: { treatedOutflowM3: number; systemVolumeM3: number; inhibitorKg: number; biocideKg: number };
   /**
-   * Total compressor energy at the option's own condensing temperatures (not only the penalty), kWh:
-   * compares options whose condensing temperatures float (floating head pressure). Added by the physics.
+   * Explanation only, never priced: the compressor energy above what the same hours would need with a
+   * clean condenser and no plate exchanger on the same tower or cooler water, kWh/yr (≥ 0 per hour).
    */
-  compressorEnergyKWh?: number;
+  compressorAboveCleanReferenceKWh: number;
+  /** Hours in which the manufacturer's compressor data were extrapolated (0 for the other models). */
+  compressorExtrapolatedHours: number;
+  /** The 0.4 % design-hour check of this option's selection (absent where the climate has no hours). */
+  designDay?: OptionDesignDay;
   /** Scaling indices of the recirculating (tower or spray) water at the hottest wetted surface. */
   waterChemistry?: {
     hottestWettedSurfaceC: number;

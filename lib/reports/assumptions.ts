@@ -221,11 +221,15 @@ function dutyGroup(
     const cm = duty.compressorModel;
     if (cm) {
       r.text(
-        "Compressor penalty model",
+        "Compressor model (each option pays its own compressor energy)",
         cm.kind === "carnotFraction"
-          ? "Carnot fraction (about 1/(Tc - Te) per K)"
-          : `${fmtNumber(cm.percentPerK, 1)}% per K of condensing temperature`,
-        ENTERED,
+          ? "Carnot fraction, the simplest model (about 1/(Tc - Te) per K)"
+          : cm.kind === "percentPerK"
+            ? `${fmtNumber(cm.percentPerK, 1)}% per K of condensing temperature, compounding, floor ${fmtPercent(cm.floorFraction ?? 0.4, 0)} of design power`
+            : cm.kind === "refrigerantCycle"
+              ? `single-stage saturated ${cm.refrigerant === "R134a" ? "R-134a" : cm.refrigerant === "R717" ? "ammonia (R-717)" : "plant refrigerant"} cycle, scaled to the design COP`
+              : `manufacturer's data, ${cm.curves.map((c) => `${c.points.length} points at ${fmtNumber(c.evaporatingC, 1)} C suction`).join(" and ")}`,
+        cm.kind === "refrigerantCycle" ? "fit of CoolProp reference-library cycle values" : ENTERED,
       );
     }
   }

@@ -1,3 +1,4 @@
+import { upgradeOptionPhysics } from "@/lib/engine/legacy";
 import { ReportDataError, type ReportEngineResult } from "./types";
 
 function isObject(v: unknown): v is Record<string, unknown> {
@@ -21,7 +22,7 @@ export function readEngineResult(raw: unknown): ReportEngineResult {
       ? raw.climateSummary
       : undefined;
   const out: ReportEngineResult = {
-    physics: physics as ReportEngineResult["physics"],
+    physics: (physics as ReportEngineResult["physics"]).map(upgradeOptionPhysics),
     economics: economics as unknown as ReportEngineResult["economics"],
     warnings: Array.isArray(raw.warnings) ? (raw.warnings as ReportEngineResult["warnings"]) : [],
   };

@@ -581,6 +581,41 @@ function addSummarySheet(wb: ExcelJS.Workbook, src: ReportSource, lccNames: stri
     ws.getCell(r, 6).value = c.discountedPaybackYears ?? "n/a";
     ws.getCell(r, 6).numFmt = "0.0";
   }
+  r += 2;
+  ws.getCell(`A${r}`).value = "Yearly electricity by option (first year; each option pays its own compressor energy)";
+  ws.getCell(`A${r}`).font = { bold: true, color: { argb: BASIN } };
+  r++;
+  const eh = ws.getRow(r);
+  eh.values = [
+    "Option",
+    "Fans (kWh/yr)",
+    "Pumps (kWh/yr)",
+    "Spray pump (kWh/yr)",
+    "Basin heater (kWh/yr)",
+    "Compressors (kWh/yr)",
+    "Total, priced (kWh/yr)",
+    "Compressors above a clean condenser on the same water, explanation, not priced (kWh/yr)",
+    "Holds the set-point in the 0.4 % design hour",
+  ];
+  eh.height = 44;
+  headerStyle(eh);
+  for (const o of eco.options) {
+    const p = src.result.physics.find((x) => x.optionId === o.optionId);
+    if (!p) continue;
+    r++;
+    const e = p.energyKWh;
+    const num = (v: number) => (Number.isFinite(v) ? v : "n/a");
+    ws.getCell(r, 1).value = neutraliseText(o.label);
+    ws.getCell(r, 2).value = num(e.fan);
+    ws.getCell(r, 3).value = num(e.condenserPump + e.secondaryPump);
+    ws.getCell(r, 4).value = num(e.sprayPump);
+    ws.getCell(r, 5).value = num(e.basinHeater);
+    ws.getCell(r, 6).value = num(e.compressor);
+    ws.getCell(r, 7).value = num(e.total);
+    ws.getCell(r, 8).value = num(p.compressorAboveCleanReferenceKWh);
+    ws.getCell(r, 9).value = p.designDay ? (p.designDay.holdsSetPoint ? "yes" : "no") : "n/a";
+    for (let c = 2; c <= 8; c++) ws.getCell(r, c).numFmt = "#,##0";
+  }
   ws.columns.forEach((c, i) => (c.width = i === 0 ? 40 : 20));
 }
 

@@ -17,6 +17,7 @@ import type { ScenarioInput } from "@/lib/engine/input";
 import { analyzeAndStore, monteCarloStatusOf, storedFor, type StoredAnalysis } from "./analysis";
 import { findResult } from "@/db/queries/results";
 import { ENGINE_VERSION } from "@/lib/engine";
+import { upgradeStoredResult } from "@/lib/engine/legacy";
 import { kickJobs } from "./jobs";
 import { buildEngineInput, withClimateData, cloneScenario, createScenario, loadScenarioContext, saveScenario, archiveScenario, type ScenarioContext, type SaveOutcome } from "./store";
 import type { ScenarioDocument } from "./mappers";
@@ -273,5 +274,5 @@ export async function draftSource(sa: ScenarioAccess): Promise<Source | null> {
  * climate nor the site, so both work for the what-if and the results API.
  */
 export function issuedSource(v: NonNullable<Awaited<ReturnType<typeof findIssuedVersion>>>): Source {
-  return { input: v.input as ScenarioInput, result: v.result as ScenarioResult, inputsHash: v.inputsHash, version: v.versionNumber };
+  return { input: v.input as ScenarioInput, result: upgradeStoredResult(v.result as ScenarioResult), inputsHash: v.inputsHash, version: v.versionNumber };
 }

@@ -45,8 +45,13 @@ export const physicsFieldDefaults = {
     source: "[practice] conservative: the design load in every hour; enter the plant's profile",
   },
   "duty.compressorModel": {
-    default: { kind: "carnotFraction" },
-    source: "LoopLedger engineering notes §5: Carnot-fraction model calibrated on the design COP",
+    default: { kind: "refrigerantCycle" },
+    source:
+      "single-stage saturated cycle of the plant's refrigerant (R-717, or R-134a for halocarbons) fitted to CoolProp reference-library values, scaled to the design COP; enter the manufacturer's data where you have them",
+  },
+  "duty.compressorModel.floorFraction": {
+    default: 0.4,
+    source: "[practice] a compressor at the lowest head still draws a good part of its design power (unloading, oil pump, motor losses)",
   },
   "duty.refrigerant": {
     default: "R717",
@@ -149,7 +154,15 @@ export const physicsFieldDefaults = {
     default: 0.7,
     source: "[practice] dry external conductance 0.5–0.8 of the Lewis-analogy value hD·A·cp; calibrated on the dry rating when given",
   },
-  "options[].cooler.allowDryMode": { default: true, source: "the unit may run dry when dry operation holds the set-point" },
+  "options[].cooler.allowDryMode": { default: true, source: "the unit may run dry (spray pump off) when that costs less power" },
+  "options[].cooler.modeSelection": {
+    default: "lowestTotalPower",
+    source: "each hour wet or dry, whichever needs less fan + spray pump + compressor power [practice: the usual energy optimum]",
+  },
+  "options[].cooler.sprayLockoutDryBulbC": {
+    default: 2,
+    source: "[practice] spray water is kept off below about 0–3 °C dry-bulb unless the unit is built for wet winter operation (freeze protection)",
+  },
   "options[].cooler.glycol": { default: { kind: "none", massFraction: 0 }, source: "water in the process loop" },
   "options[].cooler.ratingFluid": {
     default: "water",
@@ -237,9 +250,54 @@ export const loadProfileSchema = z.discriminatedUnion("kind", [
     .refine((p) => p.highDryBulbC > p.lowDryBulbC, { message: "the high dry-bulb point must be above the low one", path: ["highDryBulbC"] }),
 ]);
 
+const compressorDataPointSchema = z
+  .object({
+    condensingC: num.min(0).max(75),
+    cop: num.gt(0.3).max(30).optional(),
+    powerKW: positive.max(1e6).optional(),
+    refrigerationKW: positive.max(1e6).optional(),
+  })
+  .superRefine((p, ctx) => {
+    if ((p.cop === undefined) === (p.powerKW === undefined))
+      ctx.addIssue({ code: "custom", path: ["cop"], message: "enter either the COP or the power at this condensing temperature" });
+    if (p.refrigerationKW !== undefined && p.powerKW === undefined)
+      ctx.addIssue({ code: "custom", path: ["powerKW"], message: "a refrigeration capacity goes with a power" });
+  });
+
+const compressorDataCurveSchema = z
+  .object({
+    evaporatingC: num.min(-60).max(30),
+    points: z.array(compressorDataPointSchema).min(3, "enter at least three condensing temperatures").max(12),
+  })
+  .superRefine((c, ctx) => {
+    for (let i = 1; i < c.points.length; i++) {
+      const a = c.points[i - 1];
+      const b = c.points[i];
+      if (a && b && !(b.condensingC > a.condensingC))
+        ctx.addIssue({ code: "custom", path: ["points", i, "condensingC"], message: "condensing temperatures must rise from point to point" });
+      else if (a?.cop !== undefined && b?.cop !== undefined && !(b.cop < a.cop))
+        ctx.addIssue({ code: "custom", path: ["points", i, "cop"], message: "the COP must fall as the condensing temperature rises" });
+      else if (a?.powerKW !== undefined && b?.powerKW !== undefined && a.refrigerationKW === undefined && b.refrigerationKW === undefined && !(b.powerKW > a.powerKW))
+        ctx.addIssue({ code: "custom", path: ["points", i, "powerKW"], message: "the power must rise with the condensing temperature" });
+    }
+  });
+
 export const compressorModelSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("refrigerantCycle"), refrigerant: z.enum(["R717", "R134a"]).optional() }),
+  z.object({
+    kind: z.literal("manufacturer"),
+    curves: z
+      .array(compressorDataCurveSchema)
+      .min(1)
+      .max(2, "one or two suction temperatures")
+      .refine((cs) => cs.length < 2 || cs[0]?.evaporatingC !== cs[1]?.evaporatingC, { message: "the two suction temperatures must differ" }),
+  }),
+  z.object({
+    kind: z.literal("percentPerK"),
+    percentPerK: num.gt(0).max(10),
+    floorFraction: num.min(0).max(1).default(d("duty.compressorModel.floorFraction")),
+  }),
   z.object({ kind: z.literal("carnotFraction") }),
-  z.object({ kind: z.literal("percentPerK"), percentPerK: num.gt(0).max(10) }),
 ]);
 
 export const dutySchema = z
@@ -358,6 +416,9 @@ const coolerSchema = z
     dryExternalConductanceFactor: num.gt(0).max(2).default(d("options[].cooler.dryExternalConductanceFactor")),
     allowDryMode: z.boolean().default(d("options[].cooler.allowDryMode")),
     dryModeMaxDryBulbC: airC.optional(),
+    modeSelection: z.enum(["lowestTotalPower", "switchOverDryBulb"]).default(d("options[].cooler.modeSelection")),
+    switchOverDryBulbC: airC.optional(),
+    sprayLockoutDryBulbC: airC.default(d("options[].cooler.sprayLockoutDryBulbC")),
     glycol: z
       .object({ kind: z.enum(["none", "ethyleneGlycol", "propyleneGlycol"]), massFraction: num.min(0).max(0.5) })
       .default(() => ({ ...d("options[].cooler.glycol") })),
@@ -374,6 +435,8 @@ const coolerSchema = z
       if (c.dryRating.leavingFluidC <= c.dryRating.dryBulbC)
         ctx.addIssue({ code: "custom", path: ["dryRating", "leavingFluidC"], message: "dry, the fluid cannot leave at or below the dry-bulb" });
     }
+    if (c.modeSelection === "switchOverDryBulb" && c.switchOverDryBulbC === undefined)
+      ctx.addIssue({ code: "custom", path: ["switchOverDryBulbC"], message: "enter the dry-bulb at or below which the cooler runs dry" });
     if (c.glycol.kind === "none" && c.glycol.massFraction > 0)
       ctx.addIssue({ code: "custom", path: ["glycol", "massFraction"], message: "a glycol fraction needs a glycol kind" });
   });

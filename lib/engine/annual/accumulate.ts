@@ -19,7 +19,11 @@ interface Accumulator {
   condSum: number;
   refSum: number;
   hottestSurfaceC: number;
-  compressorKWh: number;
+  aboveCleanKWh: number;
+  extrapolatedHours: number;
+  /** Condensing-temperature range where the compressor model extrapolated, °C. */
+  extrapolatedMinC: number;
+  extrapolatedMaxC: number;
   peakRfM2KPerW: number;
   /** Hours of wet operation (water on the fill or coil) below 0 °C dry-bulb, and the year's lowest dry-bulb. */
   wetHoursBelowFreezing: number;
@@ -27,7 +31,7 @@ interface Accumulator {
 }
 
 export function emptyEnergy(): EnergyByComponentKWh {
-  return { fan: 0, condenserPump: 0, secondaryPump: 0, sprayPump: 0, basinHeater: 0, compressorPenalty: 0, total: 0 };
+  return { fan: 0, condenserPump: 0, secondaryPump: 0, sprayPump: 0, basinHeater: 0, compressor: 0, total: 0 };
 }
 export function emptyWater(): WaterByComponentM3 {
   return { evaporation: 0, drift: 0, blowdown: 0, makeup: 0, sewerBilled: 0 };
@@ -61,7 +65,10 @@ export function simulateOptionYear(
     condSum: 0,
     refSum: 0,
     hottestSurfaceC: Number.NEGATIVE_INFINITY,
-    compressorKWh: 0,
+    aboveCleanKWh: 0,
+    extrapolatedHours: 0,
+    extrapolatedMinC: Number.POSITIVE_INFINITY,
+    extrapolatedMaxC: Number.NEGATIVE_INFINITY,
     peakRfM2KPerW: 0,
     wetHoursBelowFreezing: 0,
     minDryBulbC: Number.POSITIVE_INFINITY,
@@ -88,12 +95,17 @@ export function simulateOptionYear(
     const b = blowdown(e, cycles, d);
     const m = e + b + d;
     const sewer = sewerBilled(m, e, credit);
-    const totalKW = r.fanKW + r.condenserPumpKW + r.secondaryPumpKW + r.sprayPumpKW + r.heaterKW + r.penaltyKW;
+    const totalKW = r.fanKW + r.condenserPumpKW + r.secondaryPumpKW + r.sprayPumpKW + r.heaterKW + r.compressorKW;
     if (r.running) {
       acc.runningHours += w;
       acc.condSum += r.condensingC * w;
       acc.refSum += r.referenceC * w;
-      acc.compressorKWh += r.compressorKW * w;
+      acc.aboveCleanKWh += r.aboveCleanKW * w;
+      if (r.compressorExtrapolated) {
+        acc.extrapolatedHours += w;
+        if (r.condensingC < acc.extrapolatedMinC) acc.extrapolatedMinC = r.condensingC;
+        if (r.condensingC > acc.extrapolatedMaxC) acc.extrapolatedMaxC = r.condensingC;
+      }
       if (r.hottestSurfaceC > acc.hottestSurfaceC) acc.hottestSurfaceC = r.hottestSurfaceC;
     }
     acc.heatKWh += (r.running ? heatKW : 0) * w;
@@ -115,7 +127,7 @@ export function simulateOptionYear(
       en.secondaryPump += r.secondaryPumpKW * ws;
       en.sprayPump += r.sprayPumpKW * ws;
       en.basinHeater += r.heaterKW * ws;
-      en.compressorPenalty += r.penaltyKW * ws;
+      en.compressor += r.compressorKW * ws;
       en.total += totalKW * ws;
       const wa = mo.waterM3;
       wa.evaporation += e * share;
@@ -151,7 +163,10 @@ export interface OptionYearTotals {
   unmetHours: number;
   meanCondensingC: number;
   meanReferenceCondensingC: number;
-  compressorKWh: number;
+  aboveCleanKWh: number;
+  extrapolatedHours: number;
+  extrapolatedMinC: number;
+  extrapolatedMaxC: number;
   hottestSurfaceC: number;
   wetHoursBelowFreezing: number;
   minDryBulbC: number;
@@ -182,7 +197,10 @@ function totalsFrom(acc: Accumulator): OptionYearTotals {
     unmetHours: unmet,
     meanCondensingC: acc.runningHours > 0 ? acc.condSum / acc.runningHours : Number.NaN,
     meanReferenceCondensingC: acc.runningHours > 0 ? acc.refSum / acc.runningHours : Number.NaN,
-    compressorKWh: acc.compressorKWh,
+    aboveCleanKWh: acc.aboveCleanKWh,
+    extrapolatedHours: acc.extrapolatedHours,
+    extrapolatedMinC: acc.extrapolatedMinC,
+    extrapolatedMaxC: acc.extrapolatedMaxC,
     hottestSurfaceC: acc.hottestSurfaceC,
     wetHoursBelowFreezing: acc.wetHoursBelowFreezing,
     minDryBulbC: acc.minDryBulbC,

@@ -3,6 +3,7 @@
  * state (enthalpy, humidity) computed once per record.
  */
 import { type EnteringAir, enteringAir } from "../air-side";
+import { designWetBulbPercentilesC } from "../climate/binning";
 import type { ClimateYear } from "../climate/types";
 
 /** The climate as the annual loop walks it, with the entering-air state computed once. */
@@ -18,6 +19,36 @@ export interface PreparedClimate {
   totalHours: number;
   /** Bins carry no month: monthly results are spread pro rata by days. */
   monthsUnknown: boolean;
+  /** The 0.4 % design hour: the annual 0.4 % wet-bulb and its mean coincident dry-bulb, °C. */
+  design: { wetBulbC: number; dryBulbC: number };
+}
+
+/**
+ * The site's 0.4 % design wet-bulb (annual exceedance, as the climate summary computes it: ASHRAE
+ * Fundamentals 2017 ch.14 percentile definition) and the hour-weighted mean dry-bulb of the records within
+ * ±1 K of it (the mean coincident dry-bulb; dry-bulb = wet-bulb + 5 K when no record is that close).
+ */
+export function designHour(year: ClimateYear): { wetBulbC: number; dryBulbC: number } {
+  const wb = designWetBulbPercentilesC(year, [0.4])[0]?.wetBulbC ?? Number.NaN;
+  let sum = 0;
+  let wsum = 0;
+  if (year.kind === "hourly") {
+    for (let i = 0; i < year.wetBulbC.length; i++) {
+      const w = year.wetBulbC[i] ?? Number.NaN;
+      if (Math.abs(w - wb) <= 1) {
+        sum += year.dryBulbC[i] ?? 0;
+        wsum += 1;
+      }
+    }
+  } else {
+    for (const b of year.bins) {
+      if (Math.abs(b.wetBulbC - wb) <= 1 && b.hours > 0) {
+        sum += b.meanCoincidentDryBulbC * b.hours;
+        wsum += b.hours;
+      }
+    }
+  }
+  return { wetBulbC: wb, dryBulbC: wsum > 0 ? Math.max(sum / wsum, wb) : wb + 5 };
 }
 
 /** Walk a ClimateYear once: entering-air enthalpy and humidity per record (one hs evaluation each). */
@@ -33,7 +64,7 @@ export function prepareClimate(year: ClimateYear, pPa: number): PreparedClimate 
       hour[i] = year.hour[i] ?? 0;
       air[i] = enteringAir(year.dryBulbC[i] ?? 0, year.wetBulbC[i] ?? 0, pPa);
     }
-    return { kind: "hourly", count: n, month, hour, hours, air, totalHours: n, monthsUnknown: false };
+    return { kind: "hourly", count: n, month, hour, hours, air, totalHours: n, monthsUnknown: false, design: designHour(year) };
   }
   const n = year.bins.length;
   const air: EnteringAir[] = new Array(n);
@@ -51,5 +82,5 @@ export function prepareClimate(year: ClimateYear, pPa: number): PreparedClimate 
     total += b.hours;
     air[i] = enteringAir(b.meanCoincidentDryBulbC, b.wetBulbC, pPa);
   }
-  return { kind: "bins", count: n, month, hour, hours, air, totalHours: total, monthsUnknown: unknown };
+  return { kind: "bins", count: n, month, hour, hours, air, totalHours: total, monthsUnknown: unknown, design: designHour(year) };
 }

@@ -122,7 +122,8 @@ export function finishOption(
     cleaningsPerYear: intervalMonths > 0 ? 12 / intervalMonths : 0,
     optimalCleaningIntervalMonths: optimal,
     chemicals: { treatedOutflowM3: outflow, systemVolumeM3: wetVolume, inhibitorKg: chem.inhibitorKg, biocideKg: chem.biocideKg },
-    compressorEnergyKWh: t.compressorKWh,
+    compressorAboveCleanReferenceKWh: t.aboveCleanKWh,
+    compressorExtrapolatedHours: t.extrapolatedHours,
     waterChemistry: {
       hottestWettedSurfaceC: hottest,
       saturationPh: phs,

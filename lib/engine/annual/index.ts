@@ -25,11 +25,12 @@ import type { PreparedClimate } from "./climate";
 import { type YearContext, compressorModelFromDuty, foulingGrowthFromInput, scenarioCycles } from "./context";
 import { finishOption } from "./finish";
 import type { PreparedOption } from "./options";
-import { sci } from "./shared";
+import { numericWarning, wv } from "../warnings";
+import { designDayCheck } from "./design-day";
 
 export { type PreparedClimate, prepareClimate } from "./climate";
 export { type Device, type PreparedOption, prepareOption } from "./options";
-export { type YearContext, compressorModelFromDuty, foulingGrowthFromInput, scenarioCycles } from "./context";
+export { type CompressorSummary, type YearContext, compressorModelFromDuty, foulingGrowthFromInput, scenarioCycles } from "./context";
 export { type OptionYearTotals, simulateOptionYear } from "./accumulate";
 export { WATER_DENSITY_KG_PER_M3 } from "./shared";
 
@@ -39,6 +40,8 @@ export interface AnnualOptions {
   loadFactor?: number;
   /** Flat electricity price for the cleaning-interval optimum (0 or undefined: not computed). */
   electricityPricePerKWh?: number;
+  /** Skip the design-hour check (re-runs for sensitivities, which report only quantities). */
+  skipDesignDay?: boolean;
   /** Cache of the energy cost per unit fouling (per option id, per load factor) across re-runs. */
   foulingCostCache?: Map<string, number>;
 }
@@ -65,7 +68,7 @@ export function computeOptionsPhysics(
     duty,
     designHeatKW: designHeatRejectionKW(duty),
     refrigerationPerRejection: designRefrigerationLoadKW(duty) / Math.max(designHeatRejectionKW(duty), 1e-9),
-    compressor: compressorModelFromDuty(duty),
+    compressor: compressorModelFromDuty(duty).model,
     water,
     cycles,
     loadFactor,
@@ -100,14 +103,45 @@ export function computeOptionsPhysics(
       }
     }
     if ((isDirect || isPlate) && peakFoulingM2KPerW(growth, intervalMonths) > fouling.limitM2KPerW * (1 + 1e-6)) {
-      warnings.push({
-        code: "fouling.exceedsLimit",
-        severity: "warning",
-        message: `Fouling reaches ${sci(peakFoulingM2KPerW(growth, intervalMonths))} m²·K/W before each cleaning, above the limit of ${sci(fouling.limitM2KPerW)} m²·K/W: clean more often.`,
-        path: isDirect ? "fouling.condenserCleaningIntervalMonths" : "fouling.plateExchangerCleaningIntervalMonths",
-        optionId: o.id,
-      });
+      warnings.push(
+        numericWarning({
+          code: "fouling.exceedsLimit",
+          severity: "warning",
+          template: "Fouling reaches {peak} before each cleaning, above the limit of {limit}: clean more often.",
+          values: { peak: wv.fouling(peakFoulingM2KPerW(growth, intervalMonths)), limit: wv.fouling(fouling.limitM2KPerW) },
+          path: isDirect ? "fouling.condenserCleaningIntervalMonths" : "fouling.plateExchangerCleaningIntervalMonths",
+          optionId: o.id,
+        }),
+      );
     }
-    return finishOption(po, totals, cycles, limit, water, intervalMonths, optimal, warnings, opts.cyclesOverride !== undefined);
+    if (totals.extrapolatedHours > 0 && ctx.compressor.kind === "manufacturer") {
+      const x = ctx.compressor.kwPerKW.x;
+      warnings.push(
+        numericWarning({
+          code: "compressor.dataExtrapolated",
+          severity: "warning",
+          template:
+            "In {hours} the condensing temperature ({min} … {max}) lies outside the compressor data ({lo} … {hi}): the compressor power there is extrapolated along the end slope of the data — add points that cover it.",
+          values: {
+            hours: wv.hours(totals.extrapolatedHours),
+            min: wv.tempC(totals.extrapolatedMinC),
+            max: wv.tempC(totals.extrapolatedMaxC),
+            lo: wv.tempC(x[0] ?? Number.NaN),
+            hi: wv.tempC(x[x.length - 1] ?? Number.NaN),
+          },
+          path: "duty.compressorModel.curves",
+          optionId: o.id,
+        }),
+      );
+    }
+    const physics = finishOption(po, totals, cycles, limit, water, intervalMonths, optimal, warnings, opts.cyclesOverride !== undefined);
+    if (!opts.skipDesignDay) {
+      const dd = designDayCheck(po, ctx);
+      if (dd) {
+        physics.designDay = dd.check;
+        physics.warnings.push(...dd.warnings);
+      }
+    }
+    return physics;
   });
 }

@@ -1,34 +1,99 @@
 /**
- * One record of a tower option (direct, or isolated by a plate exchanger): the tower holds the water
- * the condenser (plus the exchanger's approach) needs, or floats at full fan speed.
+ * One record of a tower option (direct, or isolated by a plate exchanger), by head-pressure control:
+ *
+ * - fixed set-point: the fan control holds the cold water the set-point needs; where full speed cannot,
+ *   the water floats and the condensing temperature rises above the set-point (the compressor pays).
+ * - floating: variable speed — the condensing temperature between the minimum (or what full speed
+ *   reaches) and the set-point that minimises fan + compressor power (head-pressure.ts); two-speed or
+ *   cycling — the cheapest of holding the minimum (a time mix of states) and each lower fan state with
+ *   its floating temperature (fan power and condensing temperature are both linear in the mix fraction,
+ *   so the optimum is at a state or at the minimum).
  */
-import type { EnteringAir } from "../air-side";
+import { type EnteringAir, evaporationKgPerS } from "../air-side";
+import { compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
 import { fouledUaKWPerK } from "../condenser";
+import { fanPowerAtSpeedKW } from "../fans";
+import { optimalFloatingCondensing } from "../head-pressure";
 import { plateExchangerApproachK } from "../plate-exchanger";
-import { type TowerModel, solveTowerHour } from "../tower";
+import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
+import { type TowerModel, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC } from "../tower";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
-import type { DeviceRecord, RecordRates } from "./record";
+import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, lowerFanStates } from "./record-types";
 
 export function towerRecord(
   po: PreparedOption,
   model: TowerModel,
   ctx: YearContext,
   air: EnteringAir,
-  heatKW: number,
-  condenserEnteringReqC: number,
+  hour: HourCondenser,
   towerSideRf: number,
   rates: RecordRates,
 ): DeviceRecord {
-  let approachK = 0;
+  const heatKW = hour.heatKW;
   if (po.plate) {
     const uaHx = fouledUaKWPerK(po.plate.cleanUaKWPerK, po.plate.cleanUWPerM2K, towerSideRf);
-    approachK = plateExchangerApproachK(heatKW, uaHx, po.plate.hotCapacityKWPerK, po.plate.coldCapacityKWPerK);
+    hour.approachK = plateExchangerApproachK(heatKW, uaHx, po.plate.hotCapacityKWPerK, po.plate.coldCapacityKWPerK);
   }
-  const r = solveTowerHour(model, po.fan, air, heatKW, condenserEnteringReqC - approachK, ctx.pPa);
-  rates.fanKW = r.fanPowerKW;
-  rates.evaporationKgPerS = r.evaporationKgPerS;
+  // Tc = tower cold water + lift.
+  const liftK = hour.condenserLiftK + hour.approachK;
+  const rangeK = heatKW / (model.waterFlowKgPerS * waterSpecificHeatKJPerKgK);
+  const setC = ctx.duty.condensingSetPointC;
   rates.driftKgPerS = po.input.driftFractionOfFlow * po.driftFlowKgPerS;
-  rates.hottestSurfaceC = r.hotWaterC;
-  return { held: r.held, leavingC: r.coldWaterC, approachK };
+  const floating = ctx.duty.headPressureControl === "floating";
+  const targetC = floating ? ctx.duty.minimumCondensingC : setC;
+
+  const finish = (held: boolean, condensingC: number, fanKW: number, evaporation: number): DeviceRecord => {
+    const cold = condensingC - liftK;
+    rates.fanKW = fanKW;
+    rates.evaporationKgPerS = evaporation;
+    rates.hottestSurfaceC = cold + rangeK;
+    return { held, condensingC, leavingC: cold };
+  };
+
+  if (floating && po.fan.control === "variableSpeed") {
+    const qe = hour.refrigerationKW;
+    const airflowAt = (tc: number) => towerAirflowForColdWater(model, air, heatKW, tc - liftK, ctx.pPa);
+    const slope = (tc: number) => compressorPowerSlopeKWPerK(ctx.compressor, qe, tc);
+    const fMin = Math.max(po.fan.minSpeedFraction, po.fan.naturalDraftAirflowFraction);
+    const a0 = airflowAt(targetC);
+    if (a0.fraction <= fMin) {
+      // Below the minimum speed the fan cycles to hold the minimum: nothing left to trade.
+      const r = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa);
+      return finish(true, targetC, r.fanPowerKW, r.evaporationKgPerS);
+    }
+    let lowC = targetC;
+    let atLow = a0;
+    if (!(a0.fraction <= 1 + 1e-6)) {
+      lowC = towerColdWaterAtAirflowC(model, air, heatKW, 1, ctx.pPa, targetC - liftK) + liftK;
+      if (lowC >= setC) return finish(false, lowC, po.fan.designPowerKW, evaporationKgPerS(heatKW, model.designAirFlowKgPerS, ctx.pPa, air));
+      atLow = { fraction: 1, slopePerK: airflowAt(lowC).slopePerK };
+    }
+    const best = optimalFloatingCondensing(po.fan, lowC, setC, airflowAt, slope, atLow);
+    const f = Math.min(1, Math.max(best.airflow.fraction, fMin));
+    return finish(true, best.condensingC, fanPowerAtSpeedKW(po.fan, f), evaporationKgPerS(heatKW, f * model.designAirFlowKgPerS, ctx.pPa, air));
+  }
+
+  const hold = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa);
+  const holdC = hold.held ? targetC : hold.coldWaterC + liftK;
+  if (!floating) return finish(hold.held, holdC, hold.fanPowerKW, hold.evaporationKgPerS);
+
+  // Floating with a two-speed or cycling fan: compare holding (or full speed) with each lower state.
+  const qe = hour.refrigerationKW;
+  let bestC = holdC;
+  let bestFan = hold.fanPowerKW;
+  let bestEvap = hold.evaporationKgPerS;
+  let bestTotal = bestFan + compressorPowerKW(ctx.compressor, qe, holdC);
+  for (const s of lowerFanStates(po, hold.airflowFraction)) {
+    const tc = towerColdWaterAtAirflowC(model, air, heatKW, s.airflowFraction, ctx.pPa, targetC - liftK) + liftK;
+    if (tc > setC + SET_POINT_TOLERANCE_K || tc < targetC) continue;
+    const total = s.powerKW + compressorPowerKW(ctx.compressor, qe, tc);
+    if (total < bestTotal) {
+      bestTotal = total;
+      bestC = tc;
+      bestFan = s.powerKW;
+      bestEvap = evaporationKgPerS(heatKW, Math.max(s.airflowFraction, 1e-3) * model.designAirFlowKgPerS, ctx.pPa, air);
+    }
+  }
+  return finish(bestC <= setC + SET_POINT_TOLERANCE_K, bestC, bestFan, bestEvap);
 }

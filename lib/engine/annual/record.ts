@@ -1,48 +1,30 @@
 /**
- * Pipeline step 3 — one record (an hour, or a bin's representative hour): the duty → the condenser
- * entering water the target condensing temperature needs → the tower or cooler (record-tower.ts,
- * record-cooler.ts) holds it or floats → condensing temperature, powers, compressor, water flows.
+ * Pipeline step 3 — one record (an hour, or a bin's representative hour): the duty → the condenser's
+ * temperature lift over its entering water → the tower or cooler (record-tower.ts, record-cooler.ts)
+ * chosen by the head-pressure control → condensing temperature, powers, compressor, water flows.
+ *
+ * Condenser: Tc = Tw,in + Q/(ε·Cw) (condenser.ts), so for a given hour the condensing temperature is the
+ * device's leaving water plus a fixed lift (plus the plate exchanger's approach): the device solvers work
+ * on Tc directly. Compressor power W(Tc) at the hour's refrigeration load Qe = Q·COPd/(1 + COPd)
+ * (compressor.ts) is what the option pays; W(Tc) − W(Tc,ref) against the clean reference (clean
+ * condenser, no exchanger, the same device water) is kept as an explanation only.
  *
  * Basin heater rule: the heater runs in hours below its dry-bulb threshold in which no warm water
  * wets the basin — the tower idle (no load), or the cooler's spray pump off (dry mode or idle).
  */
 import type { EnteringAir } from "../air-side";
-import { compressorPenaltyKW, compressorPowerKW } from "../compressor";
-import { condensingTemperatureC, fouledUaKWPerK, requiredEnteringWaterC } from "../condenser";
-import { targetCondensingC } from "../duty";
+import { compressorExtrapolates, compressorPowerKW } from "../compressor";
+import { condensingTemperatureC, fouledUaKWPerK } from "../condenser";
+import { isothermalStreamEffectiveness } from "../heat-exchanger";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { coolerRecord } from "./record-cooler";
 import { towerRecord } from "./record-tower";
+import type { DeviceRecord, HourCondenser, RecordRates } from "./record-types";
+import { SET_POINT_TOLERANCE_K } from "./record-types";
 
-/** Results of one record, per hour (rates), before weighting. */
-export interface RecordRates {
-  heatKW: number;
-  fanKW: number;
-  condenserPumpKW: number;
-  secondaryPumpKW: number;
-  sprayPumpKW: number;
-  heaterKW: number;
-  penaltyKW: number;
-  compressorKW: number;
-  evaporationKgPerS: number;
-  driftKgPerS: number;
-  dry: boolean;
-  unmet: boolean;
-  running: boolean;
-  condensingC: number;
-  referenceC: number;
-  hottestSurfaceC: number;
-}
+export type { RecordRates } from "./record-types";
 
-/** What the heat-rejection device reports for one record. */
-export interface DeviceRecord {
-  held: boolean;
-  /** Water (tower) or fluid (cooler) leaving the device, °C. */
-  leavingC: number;
-  /** Plate-exchanger approach added between the tower water and the condenser water, K. */
-  approachK: number;
-}
 
 export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: EnteringAir, heatKW: number, towerSideRf: number): RecordRates {
   const o = po.input;
@@ -53,8 +35,9 @@ export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: Enteri
     secondaryPumpKW: 0,
     sprayPumpKW: 0,
     heaterKW: 0,
-    penaltyKW: 0,
     compressorKW: 0,
+    aboveCleanKW: 0,
+    compressorExtrapolated: false,
     evaporationKgPerS: 0,
     driftKgPerS: 0,
     dry: false,
@@ -70,25 +53,32 @@ export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: Enteri
     return rates;
   }
   rates.running = true;
-  const target = targetCondensingC(ctx.duty);
   const cw = po.condenserCapacityKWPerK;
   const condRf = o.kind === "openTowerDirect" ? towerSideRf : po.condenserFixedFoulingM2KPerW;
   const uaCond = fouledUaKWPerK(po.condenserCleanUaKWPerK, po.condenserCleanUWPerM2K, condRf);
-  const condenserEnteringReq = requiredEnteringWaterC(target, heatKW, uaCond, cw);
+  const hour: HourCondenser = {
+    heatKW,
+    refrigerationKW: heatKW * ctx.refrigerationPerRejection,
+    condenserLiftK: heatKW / (isothermalStreamEffectiveness(uaCond, cw) * cw),
+    approachK: 0,
+  };
   const dev: DeviceRecord =
     po.device.kind === "tower"
-      ? towerRecord(po, po.device.model, ctx, air, heatKW, condenserEnteringReq, towerSideRf, rates)
-      : coolerRecord(po, po.device.model, ctx, air, heatKW, condenserEnteringReq, heaterBelow, rates);
+      ? towerRecord(po, po.device.model, ctx, air, hour, towerSideRf, rates)
+      : coolerRecord(po, po.device.model, ctx, air, hour, heaterBelow, rates);
   rates.condenserPumpKW = po.condenserPumpKW;
   rates.secondaryPumpKW = po.secondaryPumpKW;
-  const condensing = dev.held ? target : condensingTemperatureC(dev.leavingC + dev.approachK, heatKW, uaCond, cw);
+  const condensing = dev.condensingC;
   const cleanRef = condensingTemperatureC(dev.leavingC, heatKW, po.condenserCleanUaKWPerK, cw);
+  // A clean condenser on the same water would have let the control hold its target with less fan, not
+  // condense below it: the reference never goes below the target.
+  const target = ctx.duty.headPressureControl === "floating" ? ctx.duty.minimumCondensingC : ctx.duty.condensingSetPointC;
   const reference = Math.max(target, Math.min(cleanRef, condensing));
-  const qe = heatKW * ctx.refrigerationPerRejection;
   rates.condensingC = condensing;
   rates.referenceC = reference;
-  rates.penaltyKW = Math.max(0, compressorPenaltyKW(ctx.compressor, qe, condensing, reference));
-  rates.compressorKW = compressorPowerKW(ctx.compressor, qe, condensing, ctx.duty.condensingSetPointC);
-  rates.unmet = ctx.duty.headPressureControl === "fixedSetPoint" ? !dev.held : condensing > ctx.duty.condensingSetPointC + 1e-6;
+  rates.compressorKW = compressorPowerKW(ctx.compressor, hour.refrigerationKW, condensing);
+  rates.aboveCleanKW = Math.max(0, rates.compressorKW - compressorPowerKW(ctx.compressor, hour.refrigerationKW, reference));
+  rates.compressorExtrapolated = compressorExtrapolates(ctx.compressor, condensing);
+  rates.unmet = ctx.duty.headPressureControl === "fixedSetPoint" ? !dev.held : condensing > ctx.duty.condensingSetPointC + SET_POINT_TOLERANCE_K;
   return rates;
 }

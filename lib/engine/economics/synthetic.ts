@@ -44,7 +44,7 @@ export function syntheticPhysics(spec: SyntheticPhysicsSpec): OptionAnnualPhysic
         secondaryPump: 0,
         sprayPump: 0,
         basinHeater: 0,
-        compressorPenalty: 0,
+        compressor: 0,
         total: energy,
       },
       waterM3: {
@@ -71,7 +71,7 @@ export function syntheticPhysics(spec: SyntheticPhysicsSpec): OptionAnnualPhysic
       secondaryPump: 0,
       sprayPump: 0,
       basinHeater: 0,
-      compressorPenalty: 0,
+      compressor: 0,
       total: spec.energyKWh,
     },
     energyKWhByMonthHour: byMonthHour,
@@ -85,6 +85,8 @@ export function syntheticPhysics(spec: SyntheticPhysicsSpec): OptionAnnualPhysic
     cleaningsPerYear: spec.cleaningsPerYear ?? 0,
     optimalCleaningIntervalMonths: null,
     chemicals: { treatedOutflowM3: b + d, systemVolumeM3: 10, inhibitorKg: 0, biocideKg: 0 },
+    compressorAboveCleanReferenceKWh: 0,
+    compressorExtrapolatedHours: 0,
     warnings: [],
   };
 }

@@ -12,6 +12,8 @@ import {
   type YearCashFlow,
 } from "@/lib/engine/economics/types";
 import type { OptionAnnualPhysics } from "@/lib/engine/types";
+import { warningText } from "@/lib/units/warnings";
+import { designDaySentence } from "../design-day";
 import { buildAssumptions } from "../assumptions";
 import { fmtDate, fmtMoney, fmtNumber, fmtPercent, fmtRatio, fmtYears } from "../format";
 import {
@@ -287,6 +289,7 @@ function SummaryPage({ source, summary }: { source: ReportSource; summary: Repor
   const eco = source.result.economics;
   const phys = source.result.physics;
   const k = summary.keyComparison;
+  const designNote = designDaySentence(phys, sys);
   return (
     <View>
       <T style={S.kicker}>Summary</T>
@@ -294,6 +297,7 @@ function SummaryPage({ source, summary }: { source: ReportSource; summary: Repor
       {summary.paragraphs.map((p, i) => (
         <P key={i}>{p}</P>
       ))}
+      {designNote ? <P style={{ color: COLORS.copper500 }}>{designNote}</P> : null}
       <H2>Life-cycle cost per option</H2>
       <Table columns={summaryColumns(cur)} rows={summary.rows} />
       <T style={[S.small, { marginTop: -4, marginBottom: 6 }]}>
@@ -316,6 +320,19 @@ function SummaryPage({ source, summary }: { source: ReportSource; summary: Repor
             width: 1.1,
             align: "right",
             cell: (p) => fmtNumber(p.energyKWh.total, 0),
+          },
+          {
+            title: "of which compressors",
+            unit: "kWh/yr",
+            width: 1.1,
+            align: "right",
+            cell: (p) => (Number.isFinite(p.energyKWh.compressor) ? fmtNumber(p.energyKWh.compressor, 0) : "—"),
+          },
+          {
+            title: "Holds set-point, 0.4 % hour",
+            width: 1,
+            align: "right",
+            cell: (p) => (p.designDay ? (p.designDay.holdsSetPoint ? "yes" : `no, ${fmtNumber(convert("temperatureC", p.designDay.condensingC, sys), 1)} ${unitOf("temperatureC", sys)}`) : "—"),
           },
           {
             title: "Dry-mode hours",
@@ -562,11 +579,12 @@ function WaterEnergySection({ source }: { source: ReportSource }) {
     { label: "Tower-side pump", values: phys.map((p) => p.energyKWh.secondaryPump) },
     { label: "Spray pump", values: phys.map((p) => p.energyKWh.sprayPump) },
     { label: "Basin heater", values: phys.map((p) => p.energyKWh.basinHeater) },
+    { label: "Refrigeration compressors (own condensing temperature)", values: phys.map((p) => p.energyKWh.compressor) },
+    { label: "Total (priced)", values: phys.map((p) => p.energyKWh.total) },
     {
-      label: "Compressor penalty (vs clean reference)",
-      values: phys.map((p) => p.energyKWh.compressorPenalty),
+      label: "Of the compressors: above a clean condenser on the same water (explanation, not priced)",
+      values: phys.map((p) => p.compressorAboveCleanReferenceKWh),
     },
-    { label: "Total", values: phys.map((p) => p.energyKWh.total) },
   ];
   const optionCols = (fmt: (v: number) => string, unit: string): Column<ComponentRow>[] => [
     {
@@ -624,7 +642,7 @@ function WaterEnergySection({ source }: { source: ReportSource }) {
         <View>
           <H3>Notes from the analysis</H3>
           <T style={[S.small, { marginBottom: 3 }]}>
-            As the engine words them (its messages quote SI values); warnings in copper.
+            In this report's units; warnings in copper.
           </T>
           {source.result.warnings.slice(0, 14).map((w, i) => {
             const option = w.optionId
@@ -637,7 +655,7 @@ function WaterEnergySection({ source }: { source: ReportSource }) {
                 >
                   •
                 </T>
-                <T style={{ flex: 1, fontSize: 8 }}>{option ? `${option}: ${w.message}` : w.message}</T>
+                <T style={{ flex: 1, fontSize: 8 }}>{option ? `${option}: ${warningText(w, sys)}` : warningText(w, sys)}</T>
               </View>
             );
           })}

@@ -26,6 +26,8 @@ const sel: CoolerSelection = {
   dryRating: { enteringFluidC: 33.3, leavingFluidC: 30.5, dryBulbC: 5 },
   dryExternalConductanceFactor: 0.7,
   allowDryMode: true,
+  modeSelection: "lowestTotalPower",
+  sprayLockoutDryBulbC: -50,
   glycol: { kind: "none", massFraction: 0 },
   ratingFluid: "water",
 };

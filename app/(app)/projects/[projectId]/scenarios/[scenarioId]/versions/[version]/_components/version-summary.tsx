@@ -1,4 +1,5 @@
 import type { ScenarioResult } from "@/lib/engine";
+import { upgradeStoredResult } from "@/lib/engine/legacy";
 import type { ScenarioInput } from "@/lib/engine/input";
 import type { UnitSystem } from "@/lib/units";
 import { buildHeadline, money } from "@/components/comparison/headline";
@@ -18,7 +19,7 @@ export function displayableVersion(input: unknown, result: unknown): { input: Sc
   const i = input as { climate?: unknown; options?: unknown } | null;
   const r = result as { physics?: unknown; climateSummary?: unknown } | null;
   const ok = i && typeof i.climate === "object" && Array.isArray(i.options) && isDisplayableResult(result) && Array.isArray(r?.physics) && r?.climateSummary;
-  return ok ? { input: input as ScenarioInput, result: result as ScenarioResult } : null;
+  return ok ? { input: input as ScenarioInput, result: upgradeStoredResult(result as ScenarioResult) } : null;
 }
 
 /**
