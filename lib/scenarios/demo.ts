@@ -46,7 +46,7 @@ export function demoScenarioDocument(): ScenarioDocument {
       minimumCondensingC: 21,
       headPressureControl: "fixedSetPoint",
       loadProfile: { kind: "linearInDryBulb", lowDryBulbC: 0, fractionAtLowDryBulb: 0.65, highDryBulbC: 32, fractionAtHighDryBulb: 1 },
-      compressorModel: { kind: "carnotFraction" },
+      compressorModel: { kind: "refrigerantCycle" },
     },
     options: [
       {

@@ -642,7 +642,7 @@ function WaterEnergySection({ source }: { source: ReportSource }) {
         <View>
           <H3>Notes from the analysis</H3>
           <T style={[S.small, { marginBottom: 3 }]}>
-            In this report's units; warnings in copper.
+            In this report&apos;s units; warnings in copper.
           </T>
           {source.result.warnings.slice(0, 14).map((w, i) => {
             const option = w.optionId
