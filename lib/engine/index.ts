@@ -11,6 +11,9 @@ import {
   prepareClimate,
   prepareOption,
 } from "./annual";
+import { type ClimateCompression, compressHourlyYear, prepareCompressedClimate } from "./annual/compress";
+import { optionVariant } from "./annual/variants";
+import { physicsNear } from "./what-if";
 import { climateYearWarnings, toClimateYear } from "./climate/input";
 import { type ClimateSummary, summarizeClimate } from "./climate/summary";
 import type { ClimateYear } from "./climate/types";
@@ -45,7 +48,20 @@ export interface PreparedScenario {
   climate: PreparedClimate;
   options: PreparedOption[];
   foulingCostCache: Map<string, number>;
+  /** Climates prepared for what-if runs, by resolution and shift (built on first use). */
+  climateCache: Map<string, PreparedClimate>;
+  /** The hourly year's compression (built on first use; bins climates need none). */
+  compression?: ClimateCompression;
+  /** Physics of the compressed climate at the entered values (the what-if's reference, built on first use). */
+  compressedBase?: OptionAnnualPhysics[];
 }
+
+/**
+ * Resolution of a physics run: every record of the climate ("full": 8760 hours, or the bins as entered),
+ * or the compressed climate ("compressed": the hourly year folded into month × wet-bulb × depression × load
+ * records, lib/engine/annual/compress.ts; a bins climate is already compact and runs as entered).
+ */
+export type PhysicsResolution = "full" | "compressed";
 
 /** Resolve the climate and calibrate every option (the part of an analysis no what-if changes). */
 export function prepareScenario(input: ScenarioInput): PreparedScenario {
@@ -58,7 +74,28 @@ export function prepareScenario(input: ScenarioInput): PreparedScenario {
     climate: prepareClimate(year, pressurePa),
     options: input.options.map((o, i) => prepareOption(o, i, input.duty, input.fouling, pressurePa)),
     foulingCostCache: new Map(),
+    climateCache: new Map(),
   };
+}
+
+/** The prepared climate of a resolution and a climate shift (cached on the prepared scenario). */
+export function climateOf(prepared: PreparedScenario, resolution: PhysicsResolution, shiftK = 0): PreparedClimate {
+  const compressed = resolution === "compressed" && prepared.year.kind === "hourly";
+  if (shiftK === 0 && !compressed) return prepared.climate;
+  const key = `${compressed ? "c" : "f"}|${shiftK}`;
+  const hit = prepared.climateCache.get(key);
+  if (hit) return hit;
+  let climate: PreparedClimate;
+  if (compressed && prepared.year.kind === "hourly") {
+    prepared.compression ??= compressHourlyYear(prepared.year, prepared.input.duty.loadProfile);
+    climate = prepareCompressedClimate(prepared.compression, prepared.year, prepared.input.duty.loadProfile, prepared.pressurePa, shiftK);
+  } else {
+    climate = prepareClimate(prepared.year, prepared.pressurePa, shiftK);
+  }
+  // A Monte Carlo draws a new shift per draw: keep the cache small.
+  if (prepared.climateCache.size >= 8) prepared.climateCache.clear();
+  prepared.climateCache.set(key, climate);
+  return climate;
 }
 
 /** Flat price for the cleaning-interval optimum: the energy price, or the mean of the 288 time-of-use prices. */
@@ -72,18 +109,45 @@ function flatElectricityPrice(input: ScenarioInput): number {
 }
 
 /**
- * Yearly physics of every option of a prepared scenario, with what-if overrides (absolute cycles of
- * concentration for every wet loop, a factor on the fouling growth rate, a factor on the duty).
+ * Yearly physics of every option of a prepared scenario, with what-if overrides: absolute cycles of
+ * concentration for every wet loop, a factor on the fouling growth rate, a factor on the duty, a shift of
+ * the climate, the minimum condensing temperature, the fan control, a selection size factor per option.
+ * `resolution` "compressed" runs the compressed climate (for many re-runs: what-if, Monte Carlo);
+ * `cleaningOptimum` false skips the cost-minimising cleaning interval (reported, never priced).
  */
-export function physicsOf(prepared: PreparedScenario, overrides: PhysicsOverrides = {}): OptionAnnualPhysics[] {
+export function physicsOf(
+  prepared: PreparedScenario,
+  overrides: PhysicsOverrides = {},
+  resolution: PhysicsResolution = "full",
+  cleaningOptimum = true,
+): OptionAnnualPhysics[] {
   const input = prepared.input;
-  return computeOptionsPhysics(prepared.options, prepared.climate, input.duty, input.water, input.fouling, prepared.pressurePa, {
+  const shiftK = overrides.climateShiftK ?? 0;
+  const climate = climateOf(prepared, resolution, shiftK);
+  const duty =
+    overrides.minimumCondensingC !== undefined ? { ...input.duty, minimumCondensingC: overrides.minimumCondensingC } : input.duty;
+  const sizes = overrides.sizeFactorByOptionId ?? {};
+  const options = prepared.options.map((po) =>
+    optionVariant(po, {
+      ...(overrides.fanControl !== undefined ? { fanControl: overrides.fanControl } : {}),
+      sizeFactor: sizes[po.input.id] ?? 1,
+    }),
+  );
+  // The cleaning optimum's energy slope depends on everything but the cycles and the fouling rate.
+  const cacheKey = [
+    climate === prepared.climate ? "base" : `${resolution}|${shiftK}`,
+    duty.minimumCondensingC,
+    overrides.fanControl ?? "",
+    options.map((po) => sizes[po.input.id] ?? 1).join(","),
+  ].join("|");
+  return computeOptionsPhysics(options, climate, duty, input.water, input.fouling, prepared.pressurePa, {
     ...(overrides.cyclesOfConcentration !== undefined ? { cyclesOverride: overrides.cyclesOfConcentration } : {}),
     ...(overrides.foulingRateFactor !== undefined ? { foulingRateFactor: overrides.foulingRateFactor } : {}),
     ...(overrides.loadFactor !== undefined ? { loadFactor: overrides.loadFactor } : {}),
-    ...(Object.keys(overrides).length > 0 ? { skipDesignDay: true } : {}),
-    electricityPricePerKWh: flatElectricityPrice(input),
+    ...(Object.keys(overrides).length > 0 || resolution === "compressed" ? { skipDesignDay: true } : {}),
+    electricityPricePerKWh: cleaningOptimum ? flatElectricityPrice(input) : 0,
     foulingCostCache: prepared.foulingCostCache,
+    foulingCostCacheKey: cacheKey,
   });
 }
 
@@ -113,6 +177,7 @@ export function analyzeScenario(input: ScenarioInput, onProgress?: (fraction: nu
     ...(input.monteCarlo ? { monteCarlo: input.monteCarlo } : {}),
     ...(input.economics.baseOptionId !== undefined ? { baseOptionId: input.economics.baseOptionId } : {}),
     rerunPhysics: (o: PhysicsOverrides) => physicsOf(prepared, o),
+    drawPhysics: (o: PhysicsOverrides) => physicsNear(prepared, physics, o),
     ...(onProgress ? { onProgress } : {}),
   });
   const compressor = compressorModelFromDuty(input.duty);

@@ -64,7 +64,7 @@ export const BREAK_EVEN_LABELS: Record<(typeof BREAK_EVEN_INPUTS)[number], strin
   firstCostPremium: "Extra first cost (factor)",
 };
 
-export const MC_LABELS: Record<MonteCarloInputKey, { label: string; pct: boolean }> = {
+export const MC_LABELS: Record<MonteCarloInputKey, { label: string; pct: boolean; kind?: "temperatureDifferenceK" }> = {
   waterPriceFactor: { label: "Water price factor", pct: false },
   sewerPriceFactor: { label: "Sewer price factor", pct: false },
   electricityPriceFactor: { label: "Electricity price factor", pct: false },
@@ -77,6 +77,8 @@ export const MC_LABELS: Record<MonteCarloInputKey, { label: string; pct: boolean
   firstCostFactor: { label: "First cost factor", pct: false },
   cyclesOfConcentration: { label: "Cycles of concentration", pct: false },
   foulingRateFactor: { label: "Fouling rate factor", pct: false },
+  loadFactor: { label: "Load factor (on the duty in every hour)", pct: false },
+  climateShiftK: { label: "Climate shift (added to every dry-bulb and wet-bulb)", pct: false, kind: "temperatureDifferenceK" },
 };
 
 const q = (kind: QuantityKind): FieldDisplay => ({ q: kind });
@@ -334,7 +336,7 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
   ...Object.fromEntries(
     MONTE_CARLO_INPUTS.flatMap((k) => {
       const m = MC_LABELS[k];
-      const d: FieldDisplay = m.pct ? pctYr : unit(k === "cyclesOfConcentration" ? "cycles" : "×");
+      const d: FieldDisplay = m.kind ? q(m.kind) : m.pct ? pctYr : unit(k === "cyclesOfConcentration" ? "cycles" : "×");
       const g = "Monte Carlo";
       return [
         [`monteCarlo.distributions.${k}`, { label: m.label, group: g }],

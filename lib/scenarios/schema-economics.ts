@@ -422,6 +422,12 @@ export const distributionSchema = z
     message: "a distribution needs min ≤ mode ≤ max",
   });
 
+/** Physical ranges of the Monte Carlo's load and climate inputs: [lowest, highest, name]. */
+const DISTRIBUTION_RANGES = {
+  loadFactor: [0.2, 2, "a load factor"],
+  climateShiftK: [-5, 5, "a climate shift (K)"],
+} as const;
+
 export const monteCarloSchema = z.object({
   enabled: z.boolean().default(dflt("monteCarlo.enabled")),
   draws: z.number().int().min(100).max(200_000).default(dflt("monteCarlo.draws")),
@@ -434,6 +440,14 @@ export const monteCarloSchema = z.object({
   histogramBins: z.number().int().min(5).max(200).default(dflt("monteCarlo.histogramBins")),
   distributions: z
     .partialRecord(z.enum(MONTE_CARLO_INPUTS), distributionSchema)
+    .superRefine((rec, ctx) => {
+      for (const [key, [lo, hi, what]] of Object.entries(DISTRIBUTION_RANGES)) {
+        const d = rec[key as keyof typeof DISTRIBUTION_RANGES];
+        if (!d) continue;
+        if (d.min < lo) ctx.addIssue({ code: "custom", path: [key, "min"], message: `${what} cannot go below ${lo}` });
+        if (d.max > hi) ctx.addIssue({ code: "custom", path: [key, "max"], message: `${what} cannot exceed ${hi}` });
+      }
+    })
     .default(() => structuredClone(dflt("monteCarlo.distributions")) as never),
 });
 

@@ -83,8 +83,9 @@ export function simulateOptionYear(
     if (!air) continue;
     const month = cl.month[i] ?? 0;
     const w = (cl.hours[i] ?? 0) * stride;
-    const fraction =
-      cl.kind === "hourly"
+    const fraction = cl.loadFraction
+      ? (cl.loadFraction[i] ?? 0)
+      : cl.kind === "hourly"
         ? hourLoadFraction(profile, month, cl.hour[i] ?? 0, air.dryBulbC)
         : binLoadFraction(profile, i, month > 0 ? month : undefined, air.dryBulbC);
     const heatKW = ctx.designHeatKW * fraction * ctx.loadFactor;
@@ -141,6 +142,12 @@ export function simulateOptionYear(
       if (cl.kind === "hourly") {
         const idx = (month - 1) * 24 + (cl.hour[i] ?? 0);
         acc.byMonthHour[idx] = (acc.byMonthHour[idx] ?? 0) + totalKW * w;
+      } else if (cl.hourOfDayHours) {
+        // A compressed record's hours fall on known hours of the day (stride is 1 on compressed climates).
+        for (let h = 0; h < 24; h++) {
+          const hh = cl.hourOfDayHours[24 * i + h] ?? 0;
+          if (hh > 0) acc.byMonthHour[mi * 24 + h] = (acc.byMonthHour[mi * 24 + h] ?? 0) + totalKW * hh * share;
+        }
       } else {
         const per = (totalKW * ws) / 24;
         for (let h = 0; h < 24; h++) acc.byMonthHour[mi * 24 + h] = (acc.byMonthHour[mi * 24 + h] ?? 0) + per;

@@ -22,7 +22,7 @@ export function foulingCostPerMonthPerUnit(
   fouling: FoulingInput,
   opts: AnnualOptions,
 ): number {
-  const key = `${po.input.id}|${ctx.loadFactor}`;
+  const key = `${po.input.id}|${ctx.loadFactor}|${opts.foulingCostCacheKey ?? ""}`;
   const cached = opts.foulingCostCache?.get(key);
   if (cached !== undefined) return cached;
   const sched = monthlyFoulingM2KPerW(growth, intervalMonths);

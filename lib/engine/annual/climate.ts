@@ -21,6 +21,10 @@ export interface PreparedClimate {
   monthsUnknown: boolean;
   /** The 0.4 % design hour: the annual 0.4 % wet-bulb and its mean coincident dry-bulb, °C. */
   design: { wetBulbC: number; dryBulbC: number };
+  /** Load fraction of each record, replacing the duty's profile (the compressed climate, compress.ts). */
+  loadFraction?: Float64Array;
+  /** Hours of each record by hour of the day (count × 24; the compressed climate), for month × hour results. */
+  hourOfDayHours?: Float64Array;
 }
 
 /**
@@ -51,8 +55,11 @@ export function designHour(year: ClimateYear): { wetBulbC: number; dryBulbC: num
   return { wetBulbC: wb, dryBulbC: wsum > 0 ? Math.max(sum / wsum, wb) : wb + 5 };
 }
 
-/** Walk a ClimateYear once: entering-air enthalpy and humidity per record (one hs evaluation each). */
-export function prepareClimate(year: ClimateYear, pPa: number): PreparedClimate {
+/**
+ * Walk a ClimateYear once: entering-air enthalpy and humidity per record (one hs evaluation each).
+ * `shiftK` moves every dry-bulb and wet-bulb by the same ΔT (a what-if on a warmer or cooler year).
+ */
+export function prepareClimate(year: ClimateYear, pPa: number, shiftK = 0): PreparedClimate {
   if (year.kind === "hourly") {
     const n = year.dryBulbC.length;
     const air: EnteringAir[] = new Array(n);
@@ -62,9 +69,9 @@ export function prepareClimate(year: ClimateYear, pPa: number): PreparedClimate 
     for (let i = 0; i < n; i++) {
       month[i] = year.month[i] ?? 1;
       hour[i] = year.hour[i] ?? 0;
-      air[i] = enteringAir(year.dryBulbC[i] ?? 0, year.wetBulbC[i] ?? 0, pPa);
+      air[i] = enteringAir((year.dryBulbC[i] ?? 0) + shiftK, (year.wetBulbC[i] ?? 0) + shiftK, pPa);
     }
-    return { kind: "hourly", count: n, month, hour, hours, air, totalHours: n, monthsUnknown: false, design: designHour(year) };
+    return { kind: "hourly", count: n, month, hour, hours, air, totalHours: n, monthsUnknown: false, design: shiftedDesign(designHour(year), shiftK) };
   }
   const n = year.bins.length;
   const air: EnteringAir[] = new Array(n);
@@ -80,7 +87,12 @@ export function prepareClimate(year: ClimateYear, pPa: number): PreparedClimate 
     if (b.month === undefined) unknown = true;
     hours[i] = b.hours;
     total += b.hours;
-    air[i] = enteringAir(b.meanCoincidentDryBulbC, b.wetBulbC, pPa);
+    air[i] = enteringAir(b.meanCoincidentDryBulbC + shiftK, b.wetBulbC + shiftK, pPa);
   }
-  return { kind: "bins", count: n, month, hour, hours, air, totalHours: total, monthsUnknown: unknown, design: designHour(year) };
+  return { kind: "bins", count: n, month, hour, hours, air, totalHours: total, monthsUnknown: unknown, design: shiftedDesign(designHour(year), shiftK) };
+}
+
+/** The design hour of a year whose dry-bulbs and wet-bulbs all moved by `shiftK`. */
+export function shiftedDesign(d: { wetBulbC: number; dryBulbC: number }, shiftK: number): { wetBulbC: number; dryBulbC: number } {
+  return shiftK === 0 ? d : { wetBulbC: d.wetBulbC + shiftK, dryBulbC: d.dryBulbC + shiftK };
 }

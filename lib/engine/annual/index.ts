@@ -44,6 +44,8 @@ export interface AnnualOptions {
   skipDesignDay?: boolean;
   /** Cache of the energy cost per unit fouling (per option id, per load factor) across re-runs. */
   foulingCostCache?: Map<string, number>;
+  /** What else the cached slope depends on (climate, duty and option variants of a what-if). */
+  foulingCostCacheKey?: string;
 }
 
 /**

@@ -33,7 +33,7 @@ export {
   airrFromSir,
 } from "./factors";
 export { waterAtCycles } from "./cashflows";
-export { sampleDistribution } from "./montecarlo";
+export { sampleDistribution, spearmanRankCorrelation } from "./montecarlo";
 export { mulberry32 } from "../random";
 export { formatEconomicsSummary } from "./summary";
 
@@ -62,7 +62,7 @@ export function analyzeEconomics(args: AnalyzeEconomicsArgs): EconomicsResult {
     result.sensitivity = runSensitivity(model, args.sensitivity, physics, kwh);
   }
   if (args.monteCarlo?.enabled && model.bases.length > 0) {
-    result.monteCarlo = runMonteCarlo(model, args.monteCarlo, physics, args.onProgress);
+    result.monteCarlo = runMonteCarlo(model, args.monteCarlo, physics, args.onProgress, args.drawPhysics);
   }
   return result;
 }

@@ -5,18 +5,22 @@
  * Reproducible: a seeded 32-bit PRNG (mulberry32) drives every draw, one uniform per sampled input in a
  * fixed order (first-cost factors: one per option, independent), so the same seed gives the same result.
  *
- * No physics runs per draw:
- *  - prices, escalations, the discount rate and first costs only re-price the yearly quantities;
+ * Per draw:
+ *  - prices, escalations, the discount rate and first costs re-price the yearly quantities;
  *  - cycles of concentration act on the water only through the mass balance B = E/(C − 1) − D with E and
  *    D unchanged, so makeup, billed sewer and treated outflow are recomputed exactly from E and D;
- *  - the fouling-rate factor is the one input that changes energy and cleanings: the physics is re-run
- *    once at each distinct node of its distribution (min, mode, max) and the yearly quantities are
- *    interpolated linearly between nodes (skipped with a note when no re-run is available).
+ *  - the load, the climate shift and the fouling growth re-run the physics of the draw (`drawPhysics`: the
+ *    compressed climate, applied as a difference to the full-resolution physics). Without `drawPhysics`
+ *    the load and climate are not sampled, and the fouling rate is re-run at the nodes of its distribution
+ *    (min, mode, max) and interpolated linearly between them.
+ * The result names the inputs that drive the spread: Spearman's rank correlation of each sampled input with
+ * each alternative's net savings.
  */
 import { mulberry32 } from "../random";
 import { basisAtCycles, evaluateOptionBasis, type OptionBasis, type Pricing } from "./cashflows";
 import { withPhysics, type EconomicsModel } from "./model";
 import type { PhysicsCache } from "./sensitivity";
+import type { OptionAnnualPhysics } from "../types";
 import {
   MONTE_CARLO_INPUTS,
   type Distribution,
@@ -25,7 +29,65 @@ import {
   type MonteCarloInputKey,
   type MonteCarloResult,
   type NetSavingsDistribution,
+  type PhysicsOverrides,
+  type RerunPhysics,
 } from "./types";
+
+/** The inputs a draw re-runs the physics for. */
+const PHYSICAL_INPUTS = ["loadFactor", "climateShiftK", "foulingRateFactor"] as const;
+
+/**
+ * Ranks of the values (1…n), ties given their average rank (the usual convention of Spearman's ρ).
+ */
+export function averageRanks(values: ArrayLike<number>): Float64Array {
+  const n = values.length;
+  const idx = Array.from({ length: n }, (_, i) => i);
+  idx.sort((a, b) => (values[a] ?? 0) - (values[b] ?? 0));
+  const ranks = new Float64Array(n);
+  let i = 0;
+  while (i < n) {
+    let j = i;
+    const v = values[idx[i] ?? 0] ?? 0;
+    while (j + 1 < n && (values[idx[j + 1] ?? 0] ?? 0) === v) j++;
+    const r = 0.5 * (i + j) + 1;
+    for (let k = i; k <= j; k++) ranks[idx[k] ?? 0] = r;
+    i = j + 1;
+  }
+  return ranks;
+}
+
+/** Pearson correlation of two equally long series (NaN when either is constant). */
+function pearson(x: ArrayLike<number>, y: ArrayLike<number>): number {
+  const n = x.length;
+  let mx = 0;
+  let my = 0;
+  for (let i = 0; i < n; i++) {
+    mx += x[i] ?? 0;
+    my += y[i] ?? 0;
+  }
+  mx /= n;
+  my /= n;
+  let sxy = 0;
+  let sxx = 0;
+  let syy = 0;
+  for (let i = 0; i < n; i++) {
+    const dx = (x[i] ?? 0) - mx;
+    const dy = (y[i] ?? 0) - my;
+    sxy += dx * dy;
+    sxx += dx * dx;
+    syy += dy * dy;
+  }
+  return sxx > 0 && syy > 0 ? sxy / Math.sqrt(sxx * syy) : Number.NaN;
+}
+
+/**
+ * Spearman's rank correlation coefficient: the Pearson correlation of the two series' average ranks.
+ * Without ties it equals 1 − 6·Σd²/(n(n² − 1)). Source: Spearman (1904); e.g. Kendall & Gibbons, Rank
+ * Correlation Methods. NaN when either series is constant.
+ */
+export function spearmanRankCorrelation(x: ArrayLike<number>, y: ArrayLike<number>): number {
+  return pearson(averageRanks(x), averageRanks(y));
+}
 
 /**
  * Inverse CDF of a distribution at u ∈ [0, 1).
@@ -144,6 +206,7 @@ export function runMonteCarlo(
   input: MonteCarloInput,
   physics: PhysicsCache,
   onProgress?: (fraction: number) => void,
+  drawPhysics?: RerunPhysics,
 ): MonteCarloResult {
   const before = physics.reruns;
   const draws = Math.max(1, Math.floor(input.draws));
@@ -151,19 +214,28 @@ export function runMonteCarlo(
   const nOpt = model.bases.length;
   const dist = input.distributions;
   const sampled = MONTE_CARLO_INPUTS.filter((k) => dist[k] !== undefined);
+  const physical = PHYSICAL_INPUTS.filter((k) => dist[k] !== undefined);
+  const perDrawPhysics = drawPhysics !== undefined && physical.length > 0;
   const notes: string[] = [
     "Prices, escalations, the discount rate and first costs re-price the same yearly quantities (no physics re-run).",
   ];
 
   let nodes: FoulingNodes | null = null;
   const foulingDist = dist.foulingRateFactor;
-  if (foulingDist) {
-    nodes = foulingNodes(model, foulingDist, physics);
+  if (perDrawPhysics) {
     notes.push(
-      nodes
-        ? `Fouling rate: physics re-run at factors ${nodes.factors.join(", ")} and interpolated linearly between them.`
-        : "Fouling rate not sampled: it needs a physics re-run, which this analysis was not given.",
+      `The physics is re-run for every draw of ${physical.map((k) => PHYSICAL_LABELS[k]).join(", ")} on the compressed climate (hours folded into month × wet-bulb × load records), applied as a change to the full-resolution result.`,
     );
+  } else {
+    if (foulingDist) {
+      nodes = foulingNodes(model, foulingDist, physics);
+      notes.push(
+        nodes
+          ? `Fouling rate: physics re-run at factors ${nodes.factors.join(", ")} and interpolated linearly between them.`
+          : "Fouling rate not sampled: it needs a physics re-run, which this analysis was not given.",
+      );
+    }
+    if (dist.loadFactor || dist.climateShiftK) notes.push("Load and climate shift not sampled: they need a physics re-run per draw, which this analysis was not given.");
   }
   if (dist.firstCostFactor) {
     notes.push(
@@ -175,12 +247,20 @@ export function runMonteCarlo(
       "Cycles of concentration: makeup, blowdown and billed sewer recomputed exactly from evaporation and drift (B = E/(C − 1) − D) for every wet loop.",
     );
   }
+  const used = sampled.filter((k) => perDrawPhysics || (k !== "loadFactor" && k !== "climateShiftK" && (k !== "foulingRateFactor" || nodes !== null)));
 
   const lcc = Array.from({ length: nOpt }, () => new Float64Array(draws));
   const lowestCount = new Float64Array(nOpt);
   const scales = new Array<number>(nOpt).fill(1);
   const p0 = model.pricing;
   const progressEvery = Math.max(1, Math.floor(draws / 20));
+  // The drawn value of every used input per draw (first-cost factors per option), for the rank correlations.
+  const drawn = new Map<string, Float64Array>();
+  const series = (key: string): Float64Array => {
+    let a = drawn.get(key);
+    if (!a) drawn.set(key, (a = new Float64Array(draws)));
+    return a;
+  };
 
   for (let k = 0; k < draws; k++) {
     const s: Partial<Record<MonteCarloInputKey, number>> = {};
@@ -188,8 +268,14 @@ export function runMonteCarlo(
       const d = dist[key];
       if (!d) continue;
       if (key === "firstCostFactor") {
-        for (let i = 0; i < nOpt; i++) scales[i] = sampleDistribution(d, rand());
-      } else s[key] = sampleDistribution(d, rand());
+        for (let i = 0; i < nOpt; i++) {
+          scales[i] = sampleDistribution(d, rand());
+          series(`firstCostFactor|${model.bases[i]?.optionId ?? i}`)[k] = scales[i] ?? 1;
+        }
+      } else {
+        s[key] = sampleDistribution(d, rand());
+        series(key)[k] = s[key] ?? 0;
+      }
     }
     const pricing: Pricing = {
       ...p0,
@@ -207,8 +293,18 @@ export function runMonteCarlo(
         sewer: p0.escalation.sewer + (s.sewerEscalationDelta ?? 0),
       },
     };
-    let bases =
-      nodes && s.foulingRateFactor !== undefined ? basesAtFouling(nodes, s.foulingRateFactor) : model.bases;
+    let bases: OptionBasis[];
+    if (perDrawPhysics && drawPhysics) {
+      const o: PhysicsOverrides = {};
+      if (s.loadFactor !== undefined) o.loadFactor = s.loadFactor;
+      if (s.climateShiftK !== undefined) o.climateShiftK = s.climateShiftK;
+      if (s.foulingRateFactor !== undefined) o.foulingRateFactor = s.foulingRateFactor;
+      const p: OptionAnnualPhysics[] = drawPhysics(o);
+      physics.reruns++;
+      bases = withPhysics(model, p).bases;
+    } else {
+      bases = nodes && s.foulingRateFactor !== undefined ? basesAtFouling(nodes, s.foulingRateFactor) : model.bases;
+    }
     const cycles = s.cyclesOfConcentration;
     if (cycles !== undefined) bases = bases.map((b) => basisAtCycles(b, cycles));
 
@@ -270,6 +366,7 @@ export function runMonteCarlo(
       max: sorted[draws - 1] ?? Number.NaN,
       probabilityPositive: positive / draws,
       histogram: histogram(ns, input.histogramBins),
+      drivers: driversOf(drawn, ns, used),
     });
   }
   onProgress?.(1);
@@ -279,8 +376,31 @@ export function runMonteCarlo(
     probabilityLowest,
     lccPercentiles,
     netSavings,
-    sampledInputs: sampled.filter((k) => k !== "foulingRateFactor" || nodes !== null),
+    sampledInputs: used,
     notes,
     physicsReruns: physics.reruns - before,
   };
+}
+
+const PHYSICAL_LABELS: Record<(typeof PHYSICAL_INPUTS)[number], string> = {
+  loadFactor: "the load",
+  climateShiftK: "the climate shift",
+  foulingRateFactor: "the fouling rate",
+};
+
+/** Rank correlation of every used, varying input with the net savings, strongest first. */
+function driversOf(
+  drawn: Map<string, Float64Array>,
+  netSavings: Float64Array,
+  used: readonly MonteCarloInputKey[],
+): NonNullable<NetSavingsDistribution["drivers"]> {
+  const out: NonNullable<NetSavingsDistribution["drivers"]> = [];
+  for (const [key, values] of drawn) {
+    const [input, optionId] = key.split("|") as [MonteCarloInputKey, string | undefined];
+    if (!used.includes(input)) continue;
+    const rho = spearmanRankCorrelation(values, netSavings);
+    if (!Number.isFinite(rho)) continue;
+    out.push({ input, ...(optionId !== undefined ? { optionId } : {}), rankCorrelation: rho });
+  }
+  return out.sort((a, b) => Math.abs(b.rankCorrelation) - Math.abs(a.rankCorrelation));
 }

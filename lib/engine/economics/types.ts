@@ -263,6 +263,8 @@ export const MONTE_CARLO_INPUTS = [
   "firstCostFactor",
   "cyclesOfConcentration",
   "foulingRateFactor",
+  "loadFactor",
+  "climateShiftK",
 ] as const;
 export type MonteCarloInputKey = (typeof MONTE_CARLO_INPUTS)[number];
 
@@ -274,7 +276,7 @@ export interface MonteCarloInput {
   distributions: Partial<Record<MonteCarloInputKey, Distribution>>;
 }
 
-/** What the economics may ask the physics to re-run with. */
+/** What the economics (and the what-if panel) may ask the physics to re-run with. */
 export interface PhysicsOverrides {
   /** Absolute cycles of concentration applied to every wet loop. */
   cyclesOfConcentration?: number;
@@ -282,6 +284,14 @@ export interface PhysicsOverrides {
   foulingRateFactor?: number;
   /** Multiplier on the heat-rejection duty in every hour/bin. */
   loadFactor?: number;
+  /** Added to every dry-bulb and wet-bulb of the climate (a warmer or cooler year), K. */
+  climateShiftK?: number;
+  /** Replaces the duty's minimum condensing temperature (floating head pressure), °C. */
+  minimumCondensingC?: number;
+  /** Replaces every option's fan control. */
+  fanControl?: "variableSpeed" | "twoSpeed" | "cycling";
+  /** Selection size factor per option id (1 = as selected; see lib/engine/annual/variants.ts). */
+  sizeFactorByOptionId?: Record<string, number>;
 }
 
 export type RerunPhysics = (overrides: PhysicsOverrides) => OptionAnnualPhysics[];
@@ -304,6 +314,12 @@ export interface AnalyzeEconomicsArgs {
   monteCarlo?: MonteCarloInput;
   baseOptionId?: string;
   rerunPhysics?: RerunPhysics;
+  /**
+   * Physics of one Monte Carlo draw (load factor, climate shift, fouling rate), fast enough to call per
+   * draw (the compressed climate, lib/engine/what-if.ts physicsNear). Without it the load and the climate
+   * shift are not sampled and the fouling rate is interpolated between a few full re-runs.
+   */
+  drawPhysics?: RerunPhysics;
   /** Called with the fraction done (0…1) during long runs (Monte Carlo). */
   onProgress?: (fraction: number) => void;
 }
@@ -466,6 +482,11 @@ export interface NetSavingsDistribution {
   max: number;
   probabilityPositive: number;
   histogram: HistogramBin[];
+  /**
+   * Which sampled inputs drive the spread: Spearman rank correlation of each input with these net savings
+   * over the draws, strongest first (a first-cost factor per option, `optionId` set).
+   */
+  drivers?: { input: MonteCarloInputKey; optionId?: string; rankCorrelation: number }[];
 }
 
 export interface MonteCarloResult {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyzeEconomics, mulberry32, sampleDistribution } from "@/lib/engine/economics";
-import { histogram, percentileSorted } from "@/lib/engine/economics/montecarlo";
+import { averageRanks, histogram, percentileSorted, spearmanRankCorrelation } from "@/lib/engine/economics/montecarlo";
 import { baseArgs, defaultMonteCarlo, physicsFor } from "./helpers";
 
 describe("sampling", () => {
@@ -135,5 +135,70 @@ describe("Monte Carlo", () => {
     });
     expect(seen.at(-1)).toBe(1);
     expect([...seen].sort((a, b) => a - b)).toEqual(seen);
+  });
+});
+
+describe("rank correlation (Spearman's ρ)", () => {
+  it("reproduces the textbook example of IQ against hours of television: ρ = −29/165", () => {
+    // Ten people, no ties: Σd² = 194, ρ = 1 − 6·194/(10·99) = −29/165 ≈ −0.175758 [memory: the worked example
+    // of the Wikipedia article "Spearman's rank correlation coefficient"; the hand calculation is written out here].
+    const iq = [106, 100, 86, 101, 99, 103, 97, 113, 112, 110];
+    const tv = [7, 27, 2, 50, 28, 29, 20, 12, 6, 17];
+    expect(spearmanRankCorrelation(iq, tv)).toBeCloseTo(-29 / 165, 12);
+  });
+
+  it("gives tied values their average rank; ±1 for monotone series", () => {
+    // Hand ranking of [10, 20, 20, 30]: 1, (2 + 3)/2, (2 + 3)/2, 4.
+    expect(Array.from(averageRanks([10, 20, 20, 30]))).toEqual([1, 2.5, 2.5, 4]);
+    expect(spearmanRankCorrelation([1, 2, 3, 4], [1, 8, 27, 64])).toBeCloseTo(1, 12);
+    expect(spearmanRankCorrelation([1, 2, 3, 4], [9, 4, 1, 0])).toBeCloseTo(-1, 12);
+  });
+});
+
+describe("Monte Carlo with physics per draw", () => {
+  const mc = defaultMonteCarlo({ draws: 2000 });
+  const load = { type: "triangular" as const, min: 0.7, mode: 1, max: 1.3 };
+
+  it("re-runs the physics of every draw of the load and names the load as the driver of the spread", () => {
+    let draws = 0;
+    const r = analyzeEconomics(
+      baseArgs({
+        monteCarlo: { ...mc, distributions: { loadFactor: load } },
+        drawPhysics: (o) => {
+          draws++;
+          return physicsFor(o);
+        },
+      }),
+    );
+    expect(draws).toBe(2000);
+    expect(r.monteCarlo?.sampledInputs).toEqual(["loadFactor"]);
+    for (const ns of r.monteCarlo?.netSavings ?? []) {
+      // Net savings here are linear in the load (synthetic physics ∝ load): |ρ| = 1 with the load.
+      expect(ns.drivers?.[0]?.input).toBe("loadFactor");
+      expect(Math.abs(ns.drivers?.[0]?.rankCorrelation ?? 0)).toBeGreaterThan(0.999);
+    }
+  });
+
+  it("ranks a strong input above a weak one", () => {
+    const r = analyzeEconomics(
+      baseArgs({
+        monteCarlo: {
+          ...mc,
+          distributions: { loadFactor: load, discountRateDelta: { type: "uniform", min: -0.0005, max: 0.0005 } },
+        },
+        drawPhysics: (o) => physicsFor(o),
+      }),
+    );
+    for (const ns of r.monteCarlo?.netSavings ?? []) {
+      expect(ns.drivers?.map((d) => d.input)).toEqual(["loadFactor", "discountRateDelta"]);
+    }
+  });
+
+  it("without per-draw physics the load and the climate shift are reported as not sampled", () => {
+    const r = analyzeEconomics(
+      baseArgs({ monteCarlo: { ...mc, draws: 200, distributions: { loadFactor: load, climateShiftK: { type: "uniform", min: 0, max: 2 } } } }),
+    );
+    expect(r.monteCarlo?.sampledInputs).toEqual([]);
+    expect(r.monteCarlo?.notes.join(" ")).toMatch(/Load and climate shift not sampled/);
   });
 });

@@ -60,4 +60,19 @@ describe("economic schemas", () => {
       expect(() => z.toJSONSchema(s, { io: "input", unrepresentable: "any" })).not.toThrow();
     }
   });
+
+  it("a load or climate-shift distribution outside its physical range is refused at the field", () => {
+    // Ranges (common practice, no source): load ×0.2…×2 of the design duty; a climate shift of ±5 K.
+    const r = monteCarloSchema.safeParse({
+      distributions: {
+        loadFactor: { type: "triangular", min: 0.1, mode: 1, max: 1.2 },
+        climateShiftK: { type: "uniform", min: 0, max: 8 },
+      },
+    });
+    expect(r.success).toBe(false);
+    expect(r.error?.issues.map((i) => i.path.join("."))).toEqual(["distributions.loadFactor.min", "distributions.climateShiftK.max"]);
+    expect(
+      monteCarloSchema.safeParse({ distributions: { loadFactor: { type: "uniform", min: 0.8, max: 1.2 }, climateShiftK: { type: "triangular", min: 0, mode: 1, max: 2 } } }).success,
+    ).toBe(true);
+  });
 });

@@ -17,6 +17,7 @@ import { componentLifeDefaultsYears } from "@/lib/scenarios/schema-economics";
 import { newOptionOfKind } from "@/lib/scenarios/prefill";
 import { unitLabel } from "@/lib/units";
 import type { EditorOption, EditorPath, EditorValues } from "@/lib/scenarios/editor-values";
+import { MC_LABELS } from "@/lib/scenarios/field-labels";
 import { Check, Choice, FlowField, Group, Num, Pct, Plain, ScaledField, Text } from "./fields";
 
 type V = EditorValues;
@@ -978,32 +979,21 @@ const BREAK_EVEN_LABELS: Record<(typeof BREAK_EVEN_INPUTS)[number], string> = {
   firstCostPremium: "Extra first cost (factor)",
 };
 
-const MC_LABELS: Record<MonteCarloInputKey, { label: string; pct: boolean }> = {
-  waterPriceFactor: { label: "Water price factor", pct: false },
-  sewerPriceFactor: { label: "Sewer price factor", pct: false },
-  electricityPriceFactor: { label: "Electricity price factor", pct: false },
-  demandChargeFactor: { label: "Demand charge factor", pct: false },
-  chemicalsPriceFactor: { label: "Chemicals price factor", pct: false },
-  energyEscalationDelta: { label: "Energy escalation change", pct: true },
-  waterEscalationDelta: { label: "Water escalation change", pct: true },
-  sewerEscalationDelta: { label: "Sewer escalation change", pct: true },
-  discountRateDelta: { label: "Discount rate change", pct: true },
-  firstCostFactor: { label: "First cost factor", pct: false },
-  cyclesOfConcentration: { label: "Cycles of concentration", pct: false },
-  foulingRateFactor: { label: "Fouling rate factor", pct: false },
-};
 
 function DistField({
   pct,
   unit,
   name,
   label,
+  kind,
 }: {
   pct: boolean;
   unit: string;
   name: EditorPath;
   label: string;
+  kind?: "temperatureDifferenceK";
 }) {
+  if (kind) return <Num name={name} label={label} kind={kind} />;
   return pct ? <Pct name={name} label={label} perYear /> : <Plain name={name} label={label} unit={unit} />;
 }
 
@@ -1025,9 +1015,10 @@ function DistributionRow({ k }: { k: MonteCarloInputKey }) {
           value={d?.type ?? "none"}
           onChange={(e) => {
             const t = e.target.value;
-            const centre = m.pct ? 0 : k === "cyclesOfConcentration" ? 4 : 1;
-            const lo = m.pct ? -0.01 : centre * 0.8;
-            const hi = m.pct ? 0.01 : centre * 1.25;
+            const shift = k === "climateShiftK";
+            const centre = m.pct || shift ? 0 : k === "cyclesOfConcentration" ? 4 : 1;
+            const lo = m.pct ? -0.01 : shift ? -0.5 : centre * 0.8;
+            const hi = m.pct ? 0.01 : shift ? 2 : centre * 1.25;
             setValue(
               name,
               t === "none"
@@ -1047,11 +1038,11 @@ function DistributionRow({ k }: { k: MonteCarloInputKey }) {
           <option value="uniform">Uniform</option>
         </select>
       </div>
-      {d?.type ? <DistField pct={m.pct} unit={unit} name={`${name}.min`} label="Min" /> : null}
+      {d?.type ? <DistField pct={m.pct} unit={unit} name={`${name}.min`} label="Min" {...(m.kind ? { kind: m.kind } : {})} /> : null}
       {d?.type === "triangular" ? (
-        <DistField pct={m.pct} unit={unit} name={`${name}.mode`} label="Most likely" />
+        <DistField pct={m.pct} unit={unit} name={`${name}.mode`} label="Most likely" {...(m.kind ? { kind: m.kind } : {})} />
       ) : null}
-      {d?.type ? <DistField pct={m.pct} unit={unit} name={`${name}.max`} label="Max" /> : null}
+      {d?.type ? <DistField pct={m.pct} unit={unit} name={`${name}.max`} label="Max" {...(m.kind ? { kind: m.kind } : {})} /> : null}
     </div>
   );
 }
