@@ -1,5 +1,6 @@
 import type { ColumnType, Generated, Insertable, Selectable, Updateable } from "kysely";
-import type { FirmRole, ProjectRole, UnitSystem } from "@/lib/auth/roles";
+import type { Kysely, Transaction } from "kysely";
+import type { FirmRole, ProjectRole, UnitSystem } from "./enums";
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type Json<T = unknown> = ColumnType<T, T | string, T | string>;
@@ -194,6 +195,9 @@ export interface Database {
   invitations: InvitationsTable;
   mail_outbox: MailOutboxTable;
 }
+
+/** What every query function takes first: the app's Kysely instance or a transaction. */
+export type Executor = Kysely<Database> | Transaction<Database>;
 
 export type User = Selectable<UsersTable>;
 export type NewUser = Insertable<UsersTable>;

@@ -1,36 +1,8 @@
 /**
- * Field errors as plain data, shared by server actions (which return them) and client forms (which show
- * them at the field). Pure and server-safe: no React, no "use client".
- * Paths are dot-joined ("options.0.designWaterFlowLPerS"); the empty path "" holds form-level messages.
+ * Ids that tie a field to its hint and error message. Field-error maps themselves are lib/result.ts's
+ * (the server returns them; forms show them at the field). Pure: no React, no "use client".
  */
-
-export type FieldErrorMap = Record<string, string[]>;
-
-export interface IssueLike {
-  path: readonly PropertyKey[];
-  message: string;
-}
-
-/** Dot-joined path of an issue ("" for the root). */
-export function issuePath(path: readonly PropertyKey[]): string {
-  return path.map((p) => (typeof p === "symbol" ? p.description ?? "" : String(p))).join(".");
-}
-
-/** Every issue of a zod error (or any issue list), grouped by field path, in order, without duplicates. */
-export function toFieldErrors(issues: readonly IssueLike[]): FieldErrorMap {
-  const out: FieldErrorMap = {};
-  for (const issue of issues) {
-    const key = issuePath(issue.path);
-    const list = (out[key] ??= []);
-    if (!list.includes(issue.message)) list.push(issue.message);
-  }
-  return out;
-}
-
-/** What a form's server action returns: ok (with optional data), or every field error (nothing was changed). */
-export type ActionResult<T = undefined> =
-  | { ok: true; data?: T }
-  | { ok: false; fieldErrors: FieldErrorMap; formError?: string };
+export type { FieldErrorMap } from "@/lib/result";
 
 /** An id-safe form of a field path, for ids, aria-describedby and summary links. */
 export function fieldId(name: string, prefix = "f"): string {

@@ -1,4 +1,4 @@
-/** Shared form primitives for react-hook-form. Server code imports field-error helpers from ./errors directly. */
+/** Shared form primitives: react-hook-form fields, and the plain fields of the server-action forms (./action-form). */
 export { NumberField, type NumberFieldProps } from "./number-field";
 export { TextField, type TextFieldProps } from "./text-field";
 export { SelectField, type SelectFieldProps, type SelectOption } from "./select-field";
@@ -7,4 +7,5 @@ export { FieldError } from "./field-error";
 export { FormErrorSummary, flattenFormErrors, type FormErrorSummaryProps } from "./form-error-summary";
 export { UnitsProvider, useUnits, type UnitsContextValue } from "./units-context";
 export { applyFieldErrors } from "./apply-errors";
-export { toFieldErrors, fieldId, errorIdOf, hintIdOf, type FieldErrorMap, type ActionResult } from "./errors";
+export { fieldId, errorIdOf, hintIdOf, type FieldErrorMap } from "./errors";
+export { Field, FormMessage, submitKeepingFields, failureText, type ActionState } from "./action-form";

@@ -1,7 +1,6 @@
-import { sql, type Insertable, type Kysely, type Transaction } from "kysely";
-import type { ClimateDatasetsTable, Database } from "../schema";
+import { sql, type Insertable } from "kysely";
+import type { ClimateDatasetsTable, Executor } from "../schema";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export type NewClimateDatasetRow = Insertable<ClimateDatasetsTable>;
 

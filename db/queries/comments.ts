@@ -1,7 +1,5 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "../schema";
+import type { Executor } from "../schema";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export async function insertComment(db: Executor, c: { versionId: string; projectId: string; authorId: string; body: string }) {
   return db

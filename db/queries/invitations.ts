@@ -1,8 +1,7 @@
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database } from "../schema";
-import type { ProjectRole } from "@/lib/auth/roles";
+import { sql } from "kysely";
+import type { Executor } from "../schema";
+import type { ProjectRole } from "@/db/enums";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export async function insertInvitation(
   db: Executor,

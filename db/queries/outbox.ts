@@ -1,7 +1,6 @@
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database } from "../schema";
+import { sql } from "kysely";
+import type { Executor } from "../schema";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export interface OutgoingMail {
   kind: string;

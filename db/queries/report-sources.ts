@@ -1,7 +1,5 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "../schema";
+import type { Executor } from "../schema";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 /** The scenario's project (for authorization) and what a draft report needs; undefined when no such scenario. */
 export async function findReportScenario(db: Executor, scenarioId: string) {

@@ -1,7 +1,6 @@
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database, ResultStatus } from "../schema";
+import { sql } from "kysely";
+import type { ResultStatus, Executor } from "../schema";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 export type ResultKind = "full" | "monteCarlo";
 
 const resultColumns = [

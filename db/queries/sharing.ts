@@ -1,7 +1,5 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "../schema";
+import type { Executor } from "../schema";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 /** Client viewers of a project with who granted them and when. */
 export async function listClientViewers(db: Executor, projectId: string) {

@@ -1,8 +1,7 @@
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database } from "../schema";
-import type { FirmRole, ProjectRole } from "@/lib/auth/roles";
+import { sql } from "kysely";
+import type { Executor } from "../schema";
+import type { FirmRole, ProjectRole } from "@/db/enums";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export async function findUserByEmail(db: Executor, email: string) {
   return db
@@ -52,4 +51,18 @@ export async function setPasswordHash(db: Executor, userId: string, passwordHash
     .set({ password_hash: passwordHash, password_changed_at: new Date() })
     .where("id", "=", userId)
     .execute();
+}
+
+export async function findUserContact(db: Executor, userId: string) {
+  return db.selectFrom("users").select(["email", "name"]).where("id", "=", userId).executeTakeFirst();
+}
+
+export async function findPasswordHash(db: Executor, userId: string): Promise<string | null | undefined> {
+  const r = await db.selectFrom("users").select("password_hash").where("id", "=", userId).executeTakeFirst();
+  return r?.password_hash;
+}
+
+export async function passwordChangedAt(db: Executor, userId: string): Promise<Date> {
+  const r = await db.selectFrom("users").select("password_changed_at").where("id", "=", userId).executeTakeFirstOrThrow();
+  return r.password_changed_at;
 }

@@ -1,7 +1,6 @@
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database } from "../schema";
+import { sql } from "kysely";
+import type { Executor } from "../schema";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 /** The draft as it stands, locked for the rest of the transaction so two issues cannot take one number. */
 export async function lockScenarioDraft(db: Executor, scenarioId: string) {

@@ -1,16 +1,15 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Executor } from "@/db/schema";
 import { findProjectForUser } from "@/db/queries/projects";
 import { clientRolesOf, findUserById, firmRolesOf } from "@/db/queries/users";
 import { can, relationTo, type Action, type Principal, type ProjectRelation } from "./permissions";
 import type { ProjectRole } from "./roles";
+import { REFUSALS, type Refusal } from "@/lib/result";
 
 /**
  * The executor-first core of the data access layer: who the viewer is and what they may do with a
  * project, read from the database on every call. lib/auth/session.ts binds it to the request's session;
  * tests and scripts call it with their own executor, so the rules a page obeys are the rules a test checks.
  */
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export interface Viewer {
   id: string;
@@ -67,14 +66,9 @@ export async function loadProjectAccess(db: Executor, viewer: Viewer, projectId:
   return { viewer, project, relation, can: (action) => can(viewer.principal, grant, action) };
 }
 
-export type Refusal = { ok: false; status: 401 | 403 | 404; error: string };
 export type Authorized = { ok: true; access: ProjectAccess };
 
-export const REFUSALS = {
-  anonymous: { ok: false, status: 401, error: "Sign in first." },
-  notFound: { ok: false, status: 404, error: "Not found." },
-  forbidden: { ok: false, status: 403, error: "You do not have access to this." },
-} as const satisfies Record<string, Refusal>;
+export { REFUSALS, type Refusal };
 
 /** 401 anonymous, 404 no relation (no hint the id exists), 403 a relation without this action. */
 export async function authorizeProject(

@@ -1,15 +1,7 @@
-/**
- * Role strings, defined once. The migrations mirror them in CHECK constraints (a test compares both).
- * Firm roles belong to consultants' firms; project roles are client viewers invited to one project.
- */
-export const FIRM_ROLES = ["admin", "consultant"] as const;
-export type FirmRole = (typeof FIRM_ROLES)[number];
+import type { FirmRole, ProjectRole } from "@/db/enums";
 
-export const PROJECT_ROLES = ["owner", "finance"] as const;
-export type ProjectRole = (typeof PROJECT_ROLES)[number];
-
-export const UNIT_SYSTEMS = ["SI", "IP"] as const;
-export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
+/** Role strings live with the schema (db/enums.ts); the app reads them from here. */
+export { FIRM_ROLES, PROJECT_ROLES, UNIT_SYSTEMS, type FirmRole, type ProjectRole, type UnitSystem } from "@/db/enums";
 
 export const ROLE_LABELS: Record<FirmRole | ProjectRole, string> = {
   admin: "Firm admin",

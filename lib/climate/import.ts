@@ -1,15 +1,16 @@
 import "server-only";
 import { createHash } from "node:crypto";
-import type { Kysely } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Executor } from "@/db/schema";
+import { inTransaction } from "@/db/transaction";
 import { insertClimateDataset } from "@/db/queries/climate";
 import { writeAudit } from "@/db/queries/audit";
 import { parseEpw, parseHourlyCsv, type ClimateIssue } from "@/lib/engine/climate";
 import { binTableSubmissionSchema } from "./bins-schema";
-import { toFieldErrors, type FieldErrorMap } from "@/components/forms/errors";
+import { ok, toFieldErrors, type FieldErrorMap, type Result } from "@/lib/result";
+import { defineAction } from "@/lib/actions/define";
 import { climateDatasetRow, datasetFromBins, datasetFromParsedFile, type NewDataset } from "./build";
 import { csvMappingSchema, previewCsv, toHourlyCsvMapping, type CsvPreview } from "./csv-mapping";
-import { readBodyLimited } from "@/lib/http/body";
+import { readBodyLimited } from "@/lib/http";
 import { z } from "zod";
 
 import { MAX_CLIMATE_UPLOAD_BYTES } from "./limits";
@@ -125,8 +126,8 @@ export function sniffWeatherFile(file: UploadedFile): { kind: "epw" | "csv"; tex
 
 const datasetName = z.string().trim().max(200).optional();
 
-async function store(db: Kysely<Database>, target: ImportTarget, ds: NewDataset): Promise<string> {
-  return db.transaction().execute(async (trx) => {
+async function store(db: Executor, target: ImportTarget, ds: NewDataset): Promise<string> {
+  return inTransaction(db, async (trx) => {
     const { id } = await insertClimateDataset(
       trx,
       climateDatasetRow(ds, { projectId: target.projectId, createdBy: target.actorId }),
@@ -159,7 +160,7 @@ async function store(db: Kysely<Database>, target: ImportTarget, ds: NewDataset)
  * and nothing is stored.
  */
 export async function importClimateFile(
-  db: Kysely<Database>,
+  db: Executor,
   target: ImportTarget,
   form: ClimateUploadForm,
 ): Promise<ImportOutcome> {
@@ -193,19 +194,21 @@ export async function importClimateFile(
   return { status: 201, body: { ok: true, datasetId, name: ds.name, warnings: ds.provenance.warnings } };
 }
 
-/** Save an entered bin table (SI values; validated with the scenario climate schema). All field errors, or the new id. */
-export async function saveBinTable(
-  db: Kysely<Database>,
-  target: ImportTarget,
-  input: unknown,
-): Promise<{ ok: true; datasetId: string; warnings: ClimateIssue[] } | { ok: false; fieldErrors: FieldErrorMap }> {
-  const parsed = binTableSubmissionSchema.safeParse(input);
-  if (!parsed.success) return { ok: false, fieldErrors: toFieldErrors(parsed.error.issues) };
-  const v = parsed.data;
-  const ds =
-    v.source === "wetBulbBins"
-      ? datasetFromBins({ source: "wetBulbBins", bins: v.bins }, { name: v.name, siteElevationM: target.siteElevationM })
-      : datasetFromBins({ source: "dryBulbBins", bins: v.bins }, { name: v.name, siteElevationM: target.siteElevationM });
-  const datasetId = await store(db, target, ds);
-  return { ok: true, datasetId, warnings: ds.provenance.warnings };
-}
+/**
+ * Save an entered bin table (SI values; validated with the scenario climate schema) as a climate dataset of
+ * the project (climate.manage). Input: `{ projectId, source, name, bins }`. All field errors, or the new id.
+ */
+export const saveBinTable = defineAction({
+  gate: { project: "climate.manage" },
+  schema: binTableSubmissionSchema,
+  run: async (db, { access }, v): Promise<Result<{ datasetId: string; warnings: ClimateIssue[] }>> => {
+    const { project, viewer } = access;
+    const target: ImportTarget = { projectId: project.id, firmId: project.firmId, actorId: viewer.id, siteElevationM: project.elevationM };
+    const ds =
+      v.source === "wetBulbBins"
+        ? datasetFromBins({ source: "wetBulbBins", bins: v.bins }, { name: v.name, siteElevationM: target.siteElevationM })
+        : datasetFromBins({ source: "dryBulbBins", bins: v.bins }, { name: v.name, siteElevationM: target.siteElevationM });
+    const datasetId = await store(db, target, ds);
+    return ok({ datasetId, warnings: ds.provenance.warnings });
+  },
+});

@@ -1,9 +1,8 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Kysely } from "kysely";
+import type { Database, Executor } from "@/db/schema";
 import { cancelStaleInvitationMail, claimDueMail, insertOutboxMail, markMailAttemptFailed, markMailSent, type OutgoingMail } from "@/db/queries/outbox";
 import type { MailTransport } from "./transport";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 /** After this many failed attempts a message is marked failed (visible on the access page). */
 export const MAX_MAIL_ATTEMPTS = 10;

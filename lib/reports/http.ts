@@ -1,5 +1,6 @@
 import "server-only";
-import { NextResponse } from "next/server";
+import type { NextResponse } from "next/server";
+import { jsonError } from "@/lib/http";
 import { db } from "@/db";
 import { writeAudit } from "@/db/queries/audit";
 import type { Action } from "@/lib/auth/permissions";
@@ -8,12 +9,6 @@ import { authorizeProjectApi, isUuid } from "@/lib/auth/session";
 import { isoDate } from "./format";
 import { reportScenario, resolveReportSource } from "./source";
 import type { ReportSource } from "./types";
-
-const NO_STORE = { "Cache-Control": "private, no-store" };
-
-export function jsonError(status: number, error: string): NextResponse {
-  return NextResponse.json({ error }, { status, headers: NO_STORE });
-}
 
 /** ASCII file-name part: letters, digits, dot, dash; everything else collapsed to one dash. */
 export function fileNamePart(s: string, max = 60): string {
@@ -38,21 +33,6 @@ export function reportFileName(
       .join("_")
       .toLowerCase() + `.${ext}`
   );
-}
-
-export function downloadHeaders(
-  fileName: string,
-  contentType: string,
-  length: number,
-): Record<string, string> {
-  return {
-    ...NO_STORE,
-    "Content-Type": contentType,
-    "Content-Length": String(length),
-    // The name is ASCII already; filename* repeats it for clients that prefer the RFC 6266 form.
-    "Content-Disposition": `attachment; filename="${fileName}"; filename*=UTF-8''${encodeURIComponent(fileName)}`,
-    "X-Content-Type-Options": "nosniff",
-  };
 }
 
 export type ReportRequest =

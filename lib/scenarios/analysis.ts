@@ -3,15 +3,13 @@
  * break-evens) runs on save and is stored in scenario_results under (engine version, inputs hash, 'full');
  * a stored row with the same key is reused. Monte Carlo is queued as a 'monteCarlo' job (lib/scenarios/jobs.ts).
  */
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Executor } from "@/db/schema";
 import { enqueueJob, findResult, upsertDoneResult, type ResultRow } from "@/db/queries/results";
 import { analyzeScenario, ENGINE_VERSION, type ScenarioResult } from "@/lib/engine";
 import type { MonteCarloResult } from "@/lib/engine/economics/types";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { inputsHash } from "./hash";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 /** The input with Monte Carlo switched off: what runs while the person waits. */
 export function deterministicInput(input: ScenarioInput): ScenarioInput {

@@ -5,23 +5,40 @@ import "server-only";
  * writes the audit trail and returns DTOs only. The work itself is in ./store, ./analysis and ./jobs.
  */
 import { forbidden, notFound } from "next/navigation";
+import { z } from "zod";
+import type { Executor } from "@/db/schema";
+import { defineAction } from "@/lib/actions/define";
+import type { EditorProblem } from "./editor-validation";
+import { sectionOfPath } from "./editor-values";
+import { fail, invalid, ok, REFUSALS, type Refusal, type Result } from "@/lib/result";
 import { db } from "@/db";
 import { writeAudit } from "@/db/queries/audit";
 import { findIssuedVersion, listScenarioSummaries } from "@/db/queries/scenarios";
 import { latestResultsOfKind } from "@/db/queries/results";
-import { authorizeProject, loadProjectAccess, REFUSALS, type ProjectAccess, type Refusal, type Viewer } from "@/lib/auth/access";
+import { authorizeProject, loadProjectAccess, type ProjectAccess, type Viewer } from "@/lib/auth/access";
 import type { Action } from "@/lib/auth/permissions";
 import { currentViewer, isUuid, requireViewer } from "@/lib/auth/session";
 import type { ScenarioResult } from "@/lib/engine";
 import type { ScenarioInput } from "@/lib/engine/input";
-import { analyzeAndStore, monteCarloStatusOf, storedFor, type StoredAnalysis } from "./analysis";
+import { analyzeAndStore, monteCarloStatusOf, storedFor } from "./analysis";
 import { findResult } from "@/db/queries/results";
 import { ENGINE_VERSION } from "@/lib/engine";
 import { upgradeStoredResult } from "@/lib/engine/legacy";
 import { kickJobs } from "./jobs";
-import { buildEngineInput, withClimateData, cloneScenario, createScenario, loadScenarioContext, saveScenario, archiveScenario, type ScenarioContext, type SaveOutcome } from "./store";
+import { buildEngineInput, withClimateData, cloneScenario, createScenario, loadScenarioContext, saveScenario, archiveScenario, type ScenarioContext } from "./store";
 import type { ScenarioDocument } from "./mappers";
 import { Lru } from "./cache";
+
+const saveSchema = z.object({
+  scenarioId: z.string(),
+  revision: z.number().int(),
+  name: z.string(),
+  climateDatasetId: z
+    .string()
+    .nullish()
+    .transform((v) => v || null),
+  document: z.unknown(),
+});
 
 export interface ScenarioAccess {
   access: ProjectAccess;
@@ -121,85 +138,159 @@ export async function listProjectDatasets(projectId: string) {
     .execute();
 }
 
-export async function createScenarioFor(access: ProjectAccess, a: { name: string; climateDatasetId: string | null }) {
-  if (!access.can("scenario.edit")) return { ok: false as const, fieldErrors: { "": ["You may not create scenarios in this project."] } };
-  const r = await createScenario(db, { projectId: access.project.id, name: a.name, climateDatasetId: a.climateDatasetId, userId: access.viewer.id });
-  if (r.ok) {
-    await writeAudit(db, {
-      actorId: access.viewer.id,
-      firmId: access.project.firmId,
-      projectId: access.project.id,
-      action: "scenario.create",
-      targetType: "scenario",
-      targetId: r.id,
-      detail: { name: a.name.trim() },
-    });
-  }
-  return r;
+/** The scenario named by the input's `scenarioId`, in the authorized project (404 when it is another project's). */
+async function scenarioIn(db: Executor, access: ProjectAccess, scenarioId: string): Promise<Result<ScenarioAccess>> {
+  if (!isUuid(scenarioId)) return REFUSALS.notFound;
+  const ctx = await loadScenarioContext(db, scenarioId, { withClimateData: false });
+  if (!ctx || ctx.row.projectId !== access.project.id) return REFUSALS.notFound;
+  return ok({ access, ctx });
 }
 
-export type SaveAndAnalyse =
-  | (Extract<SaveOutcome, { ok: true }> & { analysis: StoredAnalysis })
-  | Exclude<SaveOutcome, { ok: true }>;
-
-/** Save (optimistic concurrency) and analyse; queue the Monte Carlo for after the response. */
-export async function saveAndAnalyse(
-  sa: ScenarioAccess,
-  a: { expectedRevision: number; name: string; climateDatasetId: string | null; document: unknown },
-  schedule: (task: () => void) => void,
-): Promise<SaveAndAnalyse> {
-  const { access, ctx } = sa;
-  const saved = await saveScenario(db, {
-    scenarioId: ctx.row.id,
-    expectedRevision: a.expectedRevision,
-    name: a.name,
-    climateDatasetId: a.climateDatasetId,
-    document: a.document,
-    userId: access.viewer.id,
-  });
-  if (!saved.ok) return saved;
-  const analysis = await analyzeAndStore(db, ctx.row.id, saved.input);
+async function auditOn(db: Executor, access: ProjectAccess, action: string, targetId: string, detail: Record<string, unknown> = {}) {
   await writeAudit(db, {
     actorId: access.viewer.id,
     firmId: access.project.firmId,
     projectId: access.project.id,
-    action: "scenario.save",
+    action,
     targetType: "scenario",
-    targetId: ctx.row.id,
-    detail: { revision: saved.revision, inputsHash: analysis.inputsHash, reusedResult: analysis.reused, analysisMs: Math.round(analysis.elapsedMs) },
+    targetId,
+    detail,
   });
-  if (analysis.monteCarlo && (analysis.monteCarlo.status === "queued" || analysis.monteCarlo.status === "running")) schedule(() => kickJobs(db));
-  return { ...saved, analysis };
 }
 
-export async function cloneScenarioFor(sa: ScenarioAccess, name?: string) {
-  const r = await cloneScenario(db, { scenarioId: sa.ctx.row.id, userId: sa.access.viewer.id, ...(name ? { name } : {}) });
-  if (r) {
-    await writeAudit(db, {
-      actorId: sa.access.viewer.id,
-      firmId: sa.access.project.firmId,
-      projectId: sa.access.project.id,
-      action: "scenario.clone",
-      targetType: "scenario",
-      targetId: r.id,
-      detail: { from: sa.ctx.row.id, name: r.name },
+/** "New scenario": from the default scenario on a dataset of the project. Input: `{ projectId, name, climateDatasetId? }`. */
+export const createScenarioIn = defineAction({
+  gate: { project: "scenario.edit" },
+  schema: z.object({
+    name: z.string().trim().min(1, "Give the scenario a name.").max(200, "Keep the name under 200 characters."),
+    climateDatasetId: z
+      .string()
+      .nullish()
+      .transform((v) => v || null),
+  }),
+  run: async (db, { access }, input): Promise<Result<{ id: string; revision: number }>> => {
+    const r = await createScenario(db, { projectId: access.project.id, name: input.name, climateDatasetId: input.climateDatasetId, userId: access.viewer.id });
+    if (!r.ok) return invalid(r.fieldErrors);
+    await auditOn(db, access, "scenario.create", r.id, { name: input.name });
+    return ok({ id: r.id, revision: r.revision });
+  },
+});
+
+export interface SavedScenario {
+  revision: number;
+  inputsHash: string;
+  reusedResult: boolean;
+  analysisMs: number;
+  monteCarlo: "queued" | "running" | "done" | "failed" | null;
+  warnings: number;
+  /** Labels of the options whose first costs are not entered yet (their life-cycle figures wait). */
+  firstCostsMissing: string[];
+}
+
+/**
+ * What a refused save tells the editor: every problem with its section (422), or the newer revision
+ * someone else saved first (409).
+ */
+export interface SaveDetail {
+  problems?: EditorProblem[];
+  conflict?: { currentRevision: number; savedBy: string | null; savedAt: string };
+}
+
+/**
+ * Validate with the scenario schema, store when the revision still matches (optimistic concurrency),
+ * analyse (stored by engine version + inputs hash) and queue the Monte Carlo for after the response
+ * (`opts.schedule`). Input: `{ projectId, scenarioId, revision, name, climateDatasetId, document }`.
+ * Nothing is stored when validation fails (422) or the save is stale (409 with the newer revision).
+ */
+export const saveScenarioIn = defineAction<
+  { project: "scenario.edit" },
+  typeof saveSchema,
+  SavedScenario,
+  SaveDetail,
+  { schedule: (task: () => void) => void }
+>({
+  gate: { project: "scenario.edit" },
+  schema: saveSchema,
+  invalidMessage: "The save was malformed; reload the page.",
+  run: async (db, { access }, a, opts) => {
+    const sa = await scenarioIn(db, access, a.scenarioId);
+    if (!sa.ok) return sa;
+    const saved = await saveScenario(db, {
+      scenarioId: a.scenarioId,
+      expectedRevision: a.revision,
+      name: a.name,
+      climateDatasetId: a.climateDatasetId,
+      document: a.document,
+      userId: access.viewer.id,
     });
-  }
-  return r;
-}
+    if (!saved.ok) {
+      if (saved.kind === "invalid") {
+        const problems: EditorProblem[] = Object.entries(saved.fieldErrors).flatMap(([path, messages]) =>
+          messages.map((message) => ({
+            path,
+            section: sectionOfPath(path),
+            kind: /^Enter a value/.test(message) ? ("missing" as const) : ("invalid" as const),
+            message,
+          })),
+        );
+        const n = problems.length;
+        return fail(422, `Not saved: ${n} ${n === 1 ? "problem" : "problems"} to fix (listed at the top).`, saved.fieldErrors, { problems });
+      }
+      if (saved.kind === "conflict") {
+        return fail(409, saved.message, undefined, {
+          conflict: { currentRevision: saved.currentRevision, savedBy: saved.savedBy, savedAt: saved.savedAt },
+        });
+      }
+      if (saved.kind === "archived") return fail(409, saved.message);
+      return REFUSALS.notFound;
+    }
+    const analysis = await analyzeAndStore(db, a.scenarioId, saved.input);
+    await auditOn(db, access, "scenario.save", a.scenarioId, {
+      revision: saved.revision,
+      inputsHash: analysis.inputsHash,
+      reusedResult: analysis.reused,
+      analysisMs: Math.round(analysis.elapsedMs),
+    });
+    const mc = analysis.monteCarlo?.status ?? null;
+    if (mc === "queued" || mc === "running") (opts.schedule ?? ((t) => t()))(() => kickJobs(db));
+    return ok({
+      revision: saved.revision,
+      inputsHash: analysis.inputsHash,
+      reusedResult: analysis.reused,
+      analysisMs: Math.round(analysis.elapsedMs),
+      monteCarlo: mc,
+      warnings: analysis.result.warnings.length,
+      firstCostsMissing: saved.input.options.filter((o) => o.costs.firstCost === undefined).map((o) => o.label),
+    });
+  },
+});
 
-export async function archiveScenarioFor(sa: ScenarioAccess, archived: boolean) {
-  const r = await archiveScenario(db, { scenarioId: sa.ctx.row.id, archived, userId: sa.access.viewer.id });
-  await writeAudit(db, {
-    actorId: sa.access.viewer.id,
-    firmId: sa.access.project.firmId,
-    projectId: sa.access.project.id,
-    action: archived ? "scenario.archive" : "scenario.restore",
-    targetType: "scenario",
-    targetId: sa.ctx.row.id,
-  });
-  return r;
-}
+/** Copy a scenario (its document and dataset, not its results). Input: `{ projectId, scenarioId, name? }`. */
+export const cloneScenarioIn = defineAction({
+  gate: { project: "scenario.edit" },
+  schema: z.object({ scenarioId: z.string(), name: z.string().trim().max(200).optional() }),
+  run: async (db, { access }, a): Promise<Result<{ id: string; name: string }>> => {
+    const sa = await scenarioIn(db, access, a.scenarioId);
+    if (!sa.ok) return sa;
+    const r = await cloneScenario(db, { scenarioId: a.scenarioId, userId: access.viewer.id, ...(a.name ? { name: a.name } : {}) });
+    if (!r) return REFUSALS.notFound;
+    await auditOn(db, access, "scenario.clone", r.id, { from: a.scenarioId, name: r.name });
+    return ok({ id: r.id, name: r.name });
+  },
+});
+
+/** Archive or restore a scenario. Input: `{ projectId, scenarioId, archived }`. */
+export const archiveScenarioIn = defineAction({
+  gate: { project: "scenario.edit" },
+  schema: z.object({ scenarioId: z.string(), archived: z.boolean() }),
+  run: async (db, { access }, a): Promise<Result<{ archived: boolean }>> => {
+    const sa = await scenarioIn(db, access, a.scenarioId);
+    if (!sa.ok) return sa;
+    await archiveScenario(db, { scenarioId: a.scenarioId, archived: a.archived, userId: access.viewer.id });
+    await auditOn(db, access, a.archived ? "scenario.archive" : "scenario.restore", a.scenarioId);
+    return ok({ archived: a.archived });
+  },
+});
 
 export interface DraftView {
   input: ScenarioInput | null;

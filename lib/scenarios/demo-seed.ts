@@ -3,8 +3,7 @@
  * result and Monte Carlo under the current engine version and inputs hash) and issued as version 1, so
  * the demo's owner and finance viewers see an issued comparison right after `npm start`.
  */
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Executor } from "@/db/schema";
 import { writeAudit } from "@/db/queries/audit";
 import { insertClimateDataset } from "@/db/queries/climate";
 import { upsertDoneResult } from "@/db/queries/results";
@@ -16,7 +15,6 @@ import { demoClimateDataset, demoScenarioDocument, DEMO_SCENARIO_NAME } from "./
 import { inputsHash } from "./hash";
 import { createScenario, saveScenario, SCENARIO_INPUT_VERSION } from "./store";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export async function seedDemoScenario(
   db: Executor,

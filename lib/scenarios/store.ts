@@ -3,32 +3,14 @@
  * concurrency, clone and archive. It does not authorize — lib/scenarios/data.ts does, for the request's
  * viewer, before calling here; tests call it with their own executor.
  */
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "@/db/schema";
-import {
-  findScenario,
-  insertScenario,
-  setScenarioArchived,
-  updateScenarioAtRevision,
-  type ScenarioRow,
-} from "@/db/queries/scenarios";
+import type { Executor } from "@/db/schema";
+import { findScenario, insertScenario, setScenarioArchived, updateScenarioAtRevision, type ScenarioRow } from "@/db/queries/scenarios";
 import type { FieldErrorMap } from "@/components/forms/errors";
 import type { ScenarioInput } from "@/lib/engine/input";
-import {
-  climateInputFromDataset,
-  documentFromStored,
-  toEngineInputDraft,
-  toScenarioDTO,
-  toStoredInput,
-  type ClimateDatasetLike,
-  type ProjectSiteLike,
-  type ScenarioDocument,
-  type ScenarioDTO,
-} from "./mappers";
+import { climateInputFromDataset, documentFromStored, toEngineInputDraft, toScenarioDTO, toStoredInput, type ClimateDatasetLike, type ProjectSiteLike, type ScenarioDocument, type ScenarioDTO } from "./mappers";
 import { defaultScenario } from "./schema";
 import { parseScenarioDocument, PLACEHOLDER_CLIMATE } from "./validate";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export const SCENARIO_INPUT_VERSION = 1;
 

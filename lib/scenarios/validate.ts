@@ -3,7 +3,7 @@
  * (through `editorResolverInput`) the editor in the browser: `scenarioSchema`, all issues as dotted paths.
  * Client-safe.
  */
-import type { FieldErrorMap } from "@/components/forms/errors";
+import type { FieldErrorMap } from "@/lib/result";
 import type { ClimateInput } from "@/lib/engine/climate/types";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { scenarioSchema } from "./schema";

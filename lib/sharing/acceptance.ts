@@ -1,6 +1,8 @@
 import { z } from "zod";
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Transaction } from "kysely";
+import type { Database, Executor } from "@/db/schema";
+import { inTransaction } from "@/db/transaction";
+import { defineAction, rawField } from "@/lib/actions/define";
 import type { Viewer } from "@/lib/auth/access";
 import type { ProjectRole } from "@/lib/auth/roles";
 import { hashPassword, passwordProblems } from "@/lib/auth/password";
@@ -8,7 +10,7 @@ import { writeAudit } from "@/db/queries/audit";
 import { consumeInvitation, findInvitationByTokenHash } from "@/db/queries/invitations";
 import { grantProjectAccess } from "@/db/queries/projects";
 import { createUser, findUserByEmail } from "@/db/queries/users";
-import { failure, fieldErrorsOf, success, type Failure, type Outcome } from "./outcome";
+import { fail, ok, REFUSALS, type Failure, type Result } from "@/lib/result";
 import { invitationState } from "./invitations";
 import { hashInvitationToken, isWellFormedToken } from "./tokens";
 
@@ -36,7 +38,7 @@ export const LINK_MESSAGES = {
   revoked: "This invitation was withdrawn by the consulting firm. Ask the consultant if you still need access.",
 } as const;
 
-async function lookUp(db: Kysely<Database>, token: string) {
+async function lookUp(db: Executor, token: string) {
   if (!isWellFormedToken(token)) return undefined;
   return findInvitationByTokenHash(db, hashInvitationToken(token));
 }
@@ -46,7 +48,7 @@ function closedLink(state: "unknown" | "accepted" | "revoked" | "expired", expir
 }
 
 /** Read a link without spending it. */
-export async function inspectInvitation(db: Kysely<Database>, token: string, now = new Date()): Promise<InvitationLink> {
+export async function inspectInvitation(db: Executor, _viewer: Viewer | null, token: string, now = new Date()): Promise<InvitationLink> {
   const inv = await lookUp(db, token);
   if (!inv) return closedLink("unknown");
   const state = invitationState(inv, now);
@@ -65,16 +67,36 @@ export async function inspectInvitation(db: Kysely<Database>, token: string, now
 }
 
 function linkFailure(link: InvitationLink): Failure {
-  return failure(link.state === "unknown" ? 404 : 410, link.state === "open" ? "This invitation cannot be used." : link.message);
+  return fail(link.state === "unknown" ? 404 : 410, link.state === "open" ? "This invitation cannot be used." : link.message);
 }
 
-export const newAccountSchema = z
-  .object({
-    name: z.string().trim().min(1, "Enter your name.").max(120, "Use at most 120 characters."),
-    password: z.string().max(200, "Use at most 200 characters."),
-    confirmPassword: z.string(),
-  })
-  .refine((v) => v.password === v.confirmPassword, { path: ["confirmPassword"], message: "The two passwords differ." });
+/** The new-account form's rules, with the password policy checked against the invited address. */
+export function newAccountSchema(email: string) {
+  return z
+    .object({
+      name: z.string().trim().min(1, "Enter your name.").max(120, "Use at most 120 characters."),
+      password: z.string().max(200, "Use at most 200 characters."),
+      confirmPassword: z.string(),
+    })
+    .superRefine((v, ctx) => {
+      for (const message of passwordProblems(v.password, email)) ctx.addIssue({ code: "custom", path: ["password"], message });
+      if (v.password !== v.confirmPassword) ctx.addIssue({ code: "custom", path: ["confirmPassword"], message: "The two passwords differ." });
+    });
+}
+
+/**
+ * The gate of both acceptance paths: the input's `token` names an open invitation (the link is the
+ * credential); accepting with an existing account needs its session first.
+ */
+const openLink = (signedIn: boolean) => ({
+  custom: async (db: Executor, viewer: Viewer | null, raw: unknown): Promise<Result<{ token: string; link: Extract<InvitationLink, { state: "open" }> }>> => {
+    if (signedIn && !viewer) return REFUSALS.anonymous;
+    const token = rawField(raw, "token");
+    const link = await inspectInvitation(db, null, token);
+    if (link.state !== "open") return linkFailure(link);
+    return ok({ token, link });
+  },
+});
 
 /** Raised inside the transaction to roll it back when the link was spent in between. */
 class LinkSpent extends Error {}
@@ -107,60 +129,49 @@ async function spendAndGrant(
 }
 
 /**
- * A person without an account accepts: the account (for the invited address only), the grant of exactly
- * the invited role on that project and the spent link are one transaction.
+ * A person without an account accepts. Input: `{ token, name, password, confirmPassword }`. The account
+ * (for the invited address only), the grant of exactly the invited role on that project and the spent link
+ * are one transaction.
  */
-export async function acceptAsNewAccount(
-  db: Kysely<Database>,
-  token: string,
-  raw: unknown,
-): Promise<Outcome<{ projectId: string; email: string; userId: string }>> {
-  const link = await inspectInvitation(db, token);
-  if (link.state !== "open") return linkFailure(link);
-  if (link.accountExists) return failure(409, `An account already exists for ${link.email}. Sign in with it to accept the invitation.`);
-  const parsed = newAccountSchema.safeParse(raw);
-  const fieldErrors = parsed.success ? {} : fieldErrorsOf(parsed.error.issues);
-  const password = typeof (raw as { password?: unknown })?.password === "string" ? (raw as { password: string }).password : "";
-  const policy = passwordProblems(password, link.email);
-  if (policy.length) fieldErrors.password = [...(fieldErrors.password ?? []), ...policy];
-  if (!parsed.success || policy.length) return failure(400, "Check the highlighted fields.", fieldErrors);
-
-  const passwordHash = await hashPassword(parsed.data.password);
-  const inv = (await lookUp(db, token))!;
-  try {
-    return await db.transaction().execute(async (trx) => {
-      const user = await createUser(trx, { email: inv.email, name: parsed.data.name, passwordHash });
-      const { projectId } = await spendAndGrant(trx, inv, user.id, true);
-      return success({ projectId, email: user.email, userId: user.id });
-    });
-  } catch (err) {
-    if (err instanceof LinkSpent) return linkFailure(await inspectInvitation(db, token));
-    if (/unique|duplicate/i.test(String((err as Error)?.message))) {
-      return failure(409, `An account already exists for ${inv.email}. Sign in with it to accept the invitation.`);
+export const acceptAsNewAccount = defineAction({
+  gate: openLink(false),
+  schema: ({ link }) => newAccountSchema(link.email),
+  invalidMessage: "Check the highlighted fields.",
+  run: async (db, { token, link }, input): Promise<Result<{ projectId: string; email: string; userId: string }>> => {
+    if (link.accountExists) return fail(409, `An account already exists for ${link.email}. Sign in with it to accept the invitation.`);
+    const passwordHash = await hashPassword(input.password);
+    const inv = (await lookUp(db, token))!;
+    try {
+      return await inTransaction(db, async (trx) => {
+        const user = await createUser(trx, { email: inv.email, name: input.name, passwordHash });
+        const { projectId } = await spendAndGrant(trx, inv, user.id, true);
+        return ok({ projectId, email: user.email, userId: user.id });
+      });
+    } catch (err) {
+      if (err instanceof LinkSpent) return linkFailure(await inspectInvitation(db, null, token));
+      if (/unique|duplicate/i.test(String((err as Error)?.message))) {
+        return fail(409, `An account already exists for ${inv.email}. Sign in with it to accept the invitation.`);
+      }
+      throw err;
     }
-    throw err;
-  }
-}
+  },
+});
 
-/** A signed-in person accepts with their existing account, which must be the invited address. */
-export async function acceptAsViewer(
-  db: Kysely<Database>,
-  viewer: Viewer | null,
-  token: string,
-): Promise<Outcome<{ projectId: string; role: ProjectRole }>> {
-  if (!viewer) return failure(401, "Sign in first.");
-  const link = await inspectInvitation(db, token);
-  if (link.state !== "open") return linkFailure(link);
-  if (link.email.toLowerCase() !== viewer.email.toLowerCase()) {
-    return failure(403, `This invitation is for ${link.email}, and you are signed in as ${viewer.email}. Sign out and sign in as ${link.email}.`);
-  }
-  const inv = (await lookUp(db, token))!;
-  try {
-    return await db.transaction().execute(async (trx) => {
-      return success(await spendAndGrant(trx, inv, viewer.id, false));
-    });
-  } catch (err) {
-    if (err instanceof LinkSpent) return linkFailure(await inspectInvitation(db, token));
-    throw err;
-  }
-}
+/** A signed-in person accepts with their existing account, which must be the invited address. Input: `{ token }`. */
+export const acceptAsViewer = defineAction({
+  gate: openLink(true),
+  schema: z.object({}),
+  run: async (db, { viewer, token, link }): Promise<Result<{ projectId: string; role: ProjectRole }>> => {
+    if (!viewer) return REFUSALS.anonymous;
+    if (link.email.toLowerCase() !== viewer.email.toLowerCase()) {
+      return fail(403, `This invitation is for ${link.email}, and you are signed in as ${viewer.email}. Sign out and sign in as ${link.email}.`);
+    }
+    const inv = (await lookUp(db, token))!;
+    try {
+      return await inTransaction(db, async (trx) => ok(await spendAndGrant(trx, inv, viewer.id, false)));
+    } catch (err) {
+      if (err instanceof LinkSpent) return linkFailure(await inspectInvitation(db, null, token));
+      throw err;
+    }
+  },
+});

@@ -2,7 +2,7 @@ import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { authorizeProject, type Viewer } from "@/lib/auth/access";
 import { listProjectAudit } from "@/db/queries/audit";
-import { refused, success, type Outcome } from "./outcome";
+import { ok, type Result } from "@/lib/result";
 
 /** Plain words for the audit trail; unknown actions show their code. */
 export const AUDIT_LABELS: Record<string, string> = {
@@ -82,11 +82,11 @@ export async function projectAuditTrail(
   viewer: Viewer | null,
   projectId: string,
   limit = 100,
-): Promise<Outcome<AuditEntry[]>> {
+): Promise<Result<AuditEntry[]>> {
   const auth = await authorizeProject(db, viewer, projectId, "audit.view");
-  if (!auth.ok) return refused(auth);
+  if (!auth.ok) return auth;
   const rows = await listProjectAudit(db, projectId, limit);
-  return success(
+  return ok(
     rows.map((r) => ({
       id: String(r.id),
       at: r.at,

@@ -1,6 +1,7 @@
 import { z } from "zod";
-import type { Kysely } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Executor } from "@/db/schema";
+import { inTransaction } from "@/db/transaction";
+import { defineAction } from "@/lib/actions/define";
 import { authorizeProject, isUuid, type Viewer } from "@/lib/auth/access";
 import { ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
 import { writeAudit } from "@/db/queries/audit";
@@ -9,7 +10,7 @@ import { listFirmMembersWithRole } from "@/db/queries/sharing";
 import { findVersionHeader } from "@/db/queries/versions";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { commentMail } from "@/lib/mail/templates";
-import { failure, fieldErrorsOf, refused, success, type Outcome } from "./outcome";
+import { ok, REFUSALS, type Result } from "@/lib/result";
 
 export const COMMENT_MAIL_KIND = "comment";
 
@@ -28,15 +29,15 @@ export interface CommentDTO {
 }
 
 export async function versionComments(
-  db: Kysely<Database>,
+  db: Executor,
   viewer: Viewer | null,
   projectId: string,
   versionId: string,
-): Promise<Outcome<CommentDTO[]>> {
+): Promise<Result<CommentDTO[]>> {
   const auth = await authorizeProject(db, viewer, projectId, "scenario.viewIssued");
-  if (!auth.ok) return refused(auth);
-  if (!isUuid(versionId) || !(await findVersionHeader(db, projectId, versionId))) return failure(404, "Not found.");
-  return success(await listVersionComments(db, projectId, versionId));
+  if (!auth.ok) return auth;
+  if (!isUuid(versionId) || !(await findVersionHeader(db, projectId, versionId))) return REFUSALS.notFound;
+  return ok(await listVersionComments(db, projectId, versionId));
 }
 
 /**
@@ -51,49 +52,42 @@ export function commentRecipients(
 }
 
 /**
- * Owner, finance (and the firm, replying) comment on an issued version. The comment and one e-mail per
- * firm member are written in one transaction (the outbox sends them).
+ * Owner, finance (and the firm, replying) comment on an issued version. Input: `{ projectId, versionId,
+ * body }`. The comment and one e-mail per firm member are written in one transaction (the outbox sends them).
  */
-export async function addComment(
-  db: Kysely<Database>,
-  viewer: Viewer | null,
-  projectId: string,
-  versionId: string,
-  raw: unknown,
-  opts: { appUrl: string },
-): Promise<Outcome<{ commentId: string; notified: number }>> {
-  const auth = await authorizeProject(db, viewer, projectId, "scenario.comment");
-  if (!auth.ok) return refused(auth);
-  if (!isUuid(versionId)) return failure(404, "Not found.");
-  const version = await findVersionHeader(db, projectId, versionId);
-  if (!version) return failure(404, "Not found.");
-  const parsed = commentInputSchema.safeParse(raw);
-  if (!parsed.success) return failure(400, "Check the comment.", fieldErrorsOf(parsed.error.issues));
-  const { project, viewer: author, relation } = auth.access;
-  const recipients = commentRecipients(await listFirmMembersWithRole(db, project.firmId), author.id);
-  const url = `${opts.appUrl.replace(/\/+$/, "")}/projects/${projectId}/scenarios/${version.scenarioId}/versions/${version.versionNumber}#comments`;
-  const mail = commentMail({
-    projectName: project.name,
-    scenarioName: version.name,
-    versionNumber: version.versionNumber,
-    authorName: author.name,
-    authorRole: ROLE_LABELS[relation],
-    body: parsed.data.body,
-    url,
-  });
-  const created = await db.transaction().execute(async (trx) => {
-    const c = await insertComment(trx, { versionId, projectId, authorId: author.id, body: parsed.data.body });
-    for (const to of recipients) await enqueueMail(trx, { kind: COMMENT_MAIL_KIND, refId: c.id, to, ...mail });
-    await writeAudit(trx, {
-      actorId: author.id,
-      firmId: project.firmId,
-      projectId,
-      action: "comment.create",
-      targetType: "version",
-      targetId: versionId,
-      detail: { versionNumber: version.versionNumber, scenarioName: version.name, commentId: c.id, length: parsed.data.body.length },
+export const addComment = defineAction({
+  gate: { project: "scenario.comment" },
+  schema: commentInputSchema.extend({ versionId: z.string() }),
+  invalidMessage: "Check the comment.",
+  run: async (db, { access, appUrl }, { versionId, body }): Promise<Result<{ commentId: string; notified: number }>> => {
+    const { project, viewer: author, relation } = access;
+    const version = isUuid(versionId) ? await findVersionHeader(db, project.id, versionId) : undefined;
+    if (!version) return REFUSALS.notFound;
+    const recipients = commentRecipients(await listFirmMembersWithRole(db, project.firmId), author.id);
+    const url = `${appUrl().replace(/\/+$/, "")}/projects/${project.id}/scenarios/${version.scenarioId}/versions/${version.versionNumber}#comments`;
+    const mail = commentMail({
+      projectName: project.name,
+      scenarioName: version.name,
+      versionNumber: version.versionNumber,
+      authorName: author.name,
+      authorRole: ROLE_LABELS[relation],
+      body,
+      url,
     });
-    return c;
-  });
-  return success({ commentId: created.id, notified: recipients.length });
-}
+    const created = await inTransaction(db, async (trx) => {
+      const c = await insertComment(trx, { versionId, projectId: project.id, authorId: author.id, body });
+      for (const to of recipients) await enqueueMail(trx, { kind: COMMENT_MAIL_KIND, refId: c.id, to, ...mail });
+      await writeAudit(trx, {
+        actorId: author.id,
+        firmId: project.firmId,
+        projectId: project.id,
+        action: "comment.create",
+        targetType: "version",
+        targetId: versionId,
+        detail: { versionNumber: version.versionNumber, scenarioName: version.name, commentId: c.id, length: body.length },
+      });
+      return c;
+    });
+    return ok({ commentId: created.id, notified: recipients.length });
+  },
+});

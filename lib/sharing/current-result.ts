@@ -1,11 +1,9 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Executor } from "@/db/schema";
 import type { ScenarioResult } from "@/lib/engine";
 import { loadScenarioContext, buildEngineInput } from "@/lib/scenarios/store";
 import { storedFor } from "@/lib/scenarios/analysis";
 import type { ScenarioDocument } from "@/lib/scenarios/mappers";
 
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export interface DraftForIssue {
   id: string;

@@ -5,7 +5,7 @@ import { canInFirm } from "@/lib/auth/permissions";
 import type { FirmRole, ProjectRole } from "@/lib/auth/roles";
 import { listFirmMembers } from "@/db/queries/firms";
 import { listFirmClientAccess } from "@/db/queries/sharing";
-import { failure, success, type Outcome } from "./outcome";
+import { fail, ok, type Result } from "@/lib/result";
 
 export interface FirmOverview {
   firmId: string;
@@ -15,10 +15,10 @@ export interface FirmOverview {
 }
 
 /** The firm admin's view: members with their roles, and which client viewers see which project. */
-export async function firmOverview(db: Kysely<Database>, viewer: Viewer | null): Promise<Outcome<FirmOverview>> {
-  if (!viewer) return failure(401, "Sign in first.");
+export async function firmOverview(db: Kysely<Database>, viewer: Viewer | null): Promise<Result<FirmOverview>> {
+  if (!viewer) return fail(401, "Sign in first.");
   const firm = viewer.firms.find((f) => canInFirm(viewer.principal, f.firmId, "firm.manageMembers"));
-  if (!firm) return failure(403, "Only a firm admin sees the firm's members and client access.");
+  if (!firm) return fail(403, "Only a firm admin sees the firm's members and client access.");
   const [members, clientAccess] = await Promise.all([listFirmMembers(db, firm.firmId), listFirmClientAccess(db, firm.firmId)]);
-  return success({ firmId: firm.firmId, firmName: firm.firmName, members, clientAccess });
+  return ok({ firmId: firm.firmId, firmName: firm.firmName, members, clientAccess });
 }

@@ -1,6 +1,7 @@
 import { z } from "zod";
-import type { Kysely } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Executor } from "@/db/schema";
+import { inTransaction } from "@/db/transaction";
+import { defineAction } from "@/lib/actions/define";
 import { authorizeProject, isUuid, type Viewer } from "@/lib/auth/access";
 import { PROJECT_ROLES, type ProjectRole } from "@/lib/auth/roles";
 import { writeAudit } from "@/db/queries/audit";
@@ -10,7 +11,7 @@ import { cancelPendingMail, mailStatusByRef } from "@/db/queries/outbox";
 import { listClientViewers } from "@/db/queries/sharing";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { invitationMail } from "@/lib/mail/templates";
-import { failure, fieldErrorsOf, refused, success, type Outcome } from "./outcome";
+import { fail, ok, REFUSALS, type Result } from "@/lib/result";
 import { invitationExpiry, invitationUrl, newInvitationToken } from "./tokens";
 
 export const INVITATION_MAIL_KIND = "invitation";
@@ -34,107 +35,97 @@ export interface CreatedInvitation {
  * A consultant invites an address to a project as owner or finance. The invitation, its e-mail (in the
  * outbox) and the audit event are written in one transaction: either the invitation exists and its mail
  * will go out, or neither. An older open invitation of the same address is withdrawn (one live link each).
- * The caller triggers delivery afterwards (lib/mail/worker.ts `kickMailer`).
+ * The caller triggers delivery afterwards (lib/mail/worker.ts `kickMailer`). Input: `{ projectId, email, role }`.
  */
-export async function createInvitation(
-  db: Kysely<Database>,
-  viewer: Viewer | null,
-  projectId: string,
-  raw: unknown,
-  opts: { appUrl: string; now?: Date },
-): Promise<Outcome<CreatedInvitation>> {
-  const auth = await authorizeProject(db, viewer, projectId, "access.share");
-  if (!auth.ok) return refused(auth);
-  const parsed = invitationInputSchema.safeParse(raw);
-  if (!parsed.success) return failure(400, "Check the highlighted fields.", fieldErrorsOf(parsed.error.issues));
-  const { email, role } = parsed.data;
-  const { project, viewer: inviter } = auth.access;
-
-  const existing = await findUserByEmail(db, email);
-  if (existing) {
-    const firms = await firmRolesOf(db, existing.id);
-    if (firms.some((f) => f.firmId === project.firmId)) {
-      return failure(409, `${email} is a member of ${project.firmName} and already sees this project.`, {
-        email: ["This address belongs to a member of your firm."],
-      });
+export const createInvitation = defineAction({
+  gate: { project: "access.share" },
+  schema: invitationInputSchema,
+  invalidMessage: "Check the highlighted fields.",
+  run: async (db, { access, now, appUrl }, { email, role }): Promise<Result<CreatedInvitation>> => {
+    const { project, viewer: inviter } = access;
+    const projectId = project.id;
+    const existing = await findUserByEmail(db, email);
+    if (existing) {
+      const firms = await firmRolesOf(db, existing.id);
+      if (firms.some((f) => f.firmId === project.firmId)) {
+        return fail(409, `${email} is a member of ${project.firmName} and already sees this project.`, {
+          email: ["This address belongs to a member of your firm."],
+        });
+      }
+      const grant = (await listClientViewers(db, projectId)).find((v) => v.userId === existing.id);
+      if (grant) {
+        return fail(409, `${email} already has access as ${grant.role}. Revoke it first to change the role.`, {
+          email: ["This person already has access."],
+        });
+      }
     }
-    const grant = (await listClientViewers(db, projectId)).find((v) => v.userId === existing.id);
-    if (grant) {
-      return failure(409, `${email} already has access as ${grant.role}. Revoke it first to change the role.`, {
-        email: ["This person already has access."],
-      });
-    }
-  }
 
-  const now = opts.now ?? new Date();
-  const { token, tokenHash } = newInvitationToken();
-  const expiresAt = invitationExpiry(now);
-  const mail = invitationMail({
-    projectName: project.name,
-    firmName: project.firmName,
-    inviterName: inviter.name,
-    role,
-    url: invitationUrl(opts.appUrl, token),
-    expiresAt,
-  });
+    const { token, tokenHash } = newInvitationToken();
+    const expiresAt = invitationExpiry(now);
+    const mail = invitationMail({
+      projectName: project.name,
+      firmName: project.firmName,
+      inviterName: inviter.name,
+      role,
+      url: invitationUrl(appUrl(), token),
+      expiresAt,
+    });
 
-  const created = await db.transaction().execute(async (trx) => {
-    for (const old of await findOpenInvitations(trx, projectId, email)) {
-      await revokeInvitationRow(trx, projectId, old.id);
-      await cancelPendingMail(trx, INVITATION_MAIL_KIND, old.id, "Replaced by a newer invitation before it was sent.");
+    const created = await inTransaction(db, async (trx) => {
+      for (const old of await findOpenInvitations(trx, projectId, email)) {
+        await revokeInvitationRow(trx, projectId, old.id);
+        await cancelPendingMail(trx, INVITATION_MAIL_KIND, old.id, "Replaced by a newer invitation before it was sent.");
+        await writeAudit(trx, {
+          actorId: inviter.id,
+          firmId: project.firmId,
+          projectId,
+          action: "invitation.revoke",
+          targetType: "invitation",
+          targetId: old.id,
+          detail: { email, role: old.role, reason: "replaced" },
+        });
+      }
+      const inv = await insertInvitation(trx, { projectId, email, role, tokenHash, expiresAt, invitedBy: inviter.id });
+      const mailId = await enqueueMail(trx, { kind: INVITATION_MAIL_KIND, refId: inv.id, to: email, ...mail });
       await writeAudit(trx, {
         actorId: inviter.id,
         firmId: project.firmId,
         projectId,
+        action: "invitation.create",
+        targetType: "invitation",
+        targetId: inv.id,
+        detail: { email, role, expiresAt: expiresAt.toISOString() },
+      });
+      return { invitationId: inv.id, mailId, email, role, expiresAt };
+    });
+    return ok(created);
+  },
+});
+
+/** Withdraw an invitation that has not been accepted; its unsent e-mail is cancelled with it. Input: `{ projectId, invitationId }`. */
+export const revokeInvitation = defineAction({
+  gate: { project: "access.revoke" },
+  schema: z.object({ invitationId: z.string() }),
+  run: async (db, { access }, { invitationId }): Promise<Result<{ invitationId: string; email: string }>> => {
+    if (!isUuid(invitationId)) return REFUSALS.notFound;
+    const { project, viewer: actor } = access;
+    return inTransaction(db, async (trx) => {
+      const row = await revokeInvitationRow(trx, project.id, invitationId);
+      if (!row) return fail(404, "That invitation is not open any more (accepted, withdrawn, or not part of this project).");
+      await cancelPendingMail(trx, INVITATION_MAIL_KIND, row.id, "Invitation withdrawn before it was sent.");
+      await writeAudit(trx, {
+        actorId: actor.id,
+        firmId: project.firmId,
+        projectId: project.id,
         action: "invitation.revoke",
         targetType: "invitation",
-        targetId: old.id,
-        detail: { email, role: old.role, reason: "replaced" },
+        targetId: row.id,
+        detail: { email: row.email, role: row.role },
       });
-    }
-    const inv = await insertInvitation(trx, { projectId, email, role, tokenHash, expiresAt, invitedBy: inviter.id });
-    const mailId = await enqueueMail(trx, { kind: INVITATION_MAIL_KIND, refId: inv.id, to: email, ...mail });
-    await writeAudit(trx, {
-      actorId: inviter.id,
-      firmId: project.firmId,
-      projectId,
-      action: "invitation.create",
-      targetType: "invitation",
-      targetId: inv.id,
-      detail: { email, role, expiresAt: expiresAt.toISOString() },
+      return ok({ invitationId: row.id, email: row.email });
     });
-    return { invitationId: inv.id, mailId, email, role, expiresAt };
-  });
-  return success(created);
-}
-
-/** Withdraw an invitation that has not been accepted; its unsent e-mail is cancelled with it. */
-export async function revokeInvitation(
-  db: Kysely<Database>,
-  viewer: Viewer | null,
-  projectId: string,
-  invitationId: string,
-): Promise<Outcome<{ invitationId: string; email: string }>> {
-  const auth = await authorizeProject(db, viewer, projectId, "access.revoke");
-  if (!auth.ok) return refused(auth);
-  if (!isUuid(invitationId)) return failure(404, "Not found.");
-  const { project, viewer: actor } = auth.access;
-  return db.transaction().execute(async (trx) => {
-    const row = await revokeInvitationRow(trx, projectId, invitationId);
-    if (!row) return failure(404, "That invitation is not open any more (accepted, withdrawn, or not part of this project).");
-    await cancelPendingMail(trx, INVITATION_MAIL_KIND, row.id, "Invitation withdrawn before it was sent.");
-    await writeAudit(trx, {
-      actorId: actor.id,
-      firmId: project.firmId,
-      projectId,
-      action: "invitation.revoke",
-      targetType: "invitation",
-      targetId: row.id,
-      detail: { email: row.email, role: row.role },
-    });
-    return success({ invitationId: row.id, email: row.email });
-  });
-}
+  },
+});
 
 export type InvitationState = "pending" | "accepted" | "revoked" | "expired";
 
@@ -170,16 +161,16 @@ export interface ClientViewerDTO {
 
 /** Who has access to the project (client viewers) and every invitation with its e-mail's delivery state. */
 export async function accessOverview(
-  db: Kysely<Database>,
+  db: Executor,
   viewer: Viewer | null,
   projectId: string,
   now = new Date(),
-): Promise<Outcome<{ viewers: ClientViewerDTO[]; invitations: InvitationDTO[] }>> {
+): Promise<Result<{ viewers: ClientViewerDTO[]; invitations: InvitationDTO[] }>> {
   const auth = await authorizeProject(db, viewer, projectId, "access.share");
-  if (!auth.ok) return refused(auth);
+  if (!auth.ok) return auth;
   const [viewers, invitations] = await Promise.all([listClientViewers(db, projectId), listProjectInvitations(db, projectId)]);
   const mails = await mailStatusByRef(db, INVITATION_MAIL_KIND, invitations.map((i) => i.id));
-  return success({
+  return ok({
     viewers,
     invitations: invitations.map((i) => {
       const m = mails.find((x) => x.refId === i.id);

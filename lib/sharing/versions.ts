@@ -1,6 +1,7 @@
 import { z } from "zod";
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Executor } from "@/db/schema";
+import { inTransaction } from "@/db/transaction";
+import { defineAction } from "@/lib/actions/define";
 import { authorizeProject, isUuid, type ProjectAccess, type Viewer } from "@/lib/auth/access";
 import { writeAudit } from "@/db/queries/audit";
 import {
@@ -12,12 +13,13 @@ import {
   lockScenarioDraft,
   nextVersionNumber,
 } from "@/db/queries/versions";
-import { failure, fieldErrorsOf, refused, success, type Outcome } from "./outcome";
+import { fail, ok, REFUSALS, type Result } from "@/lib/result";
 import { currentStoredResult, type CurrentResultResolver } from "./current-result";
 
 export const issueInputSchema = z.object({
   note: z.string().trim().max(2000, "Use at most 2000 characters.").default(""),
 });
+const issueSchema = issueInputSchema.extend({ scenarioId: z.string() });
 
 export interface IssuedVersionSummary {
   id: string;
@@ -32,70 +34,71 @@ export interface IssuedVersionSummary {
 }
 
 /**
- * Issue the scenario as it stands: its inputs and the stored result computed from exactly those inputs
- * (by the current engine) are copied into a new, numbered version. The copy is what client viewers see;
- * a later edit changes the draft only. Refused when the draft has no finished result for its current inputs.
+ * Issue the scenario as it stands. Input: `{ projectId, scenarioId, note? }`. Its inputs and the stored
+ * result computed from exactly those inputs (by the current engine) are copied into a new, numbered
+ * version. The copy is what client viewers see; a later edit changes the draft only. Refused when the
+ * draft has no finished result for its current inputs. `opts.resolveResult` stands in for the lookup in tests.
  */
-export async function issueScenario(
-  db: Kysely<Database>,
-  viewer: Viewer | null,
-  projectId: string,
-  scenarioId: string,
-  raw: unknown,
-  resolveResult: CurrentResultResolver = currentStoredResult,
-): Promise<Outcome<{ versionId: string; versionNumber: number; issuedAt: Date }>> {
-  const auth = await authorizeProject(db, viewer, projectId, "scenario.issue");
-  if (!auth.ok) return refused(auth);
-  if (!isUuid(scenarioId)) return failure(404, "Not found.");
-  const parsed = issueInputSchema.safeParse(raw ?? {});
-  if (!parsed.success) return failure(400, "Check the note.", fieldErrorsOf(parsed.error.issues));
-  const { project, viewer: actor } = auth.access;
-
-  return db.transaction().execute(async (trx: Transaction<Database>) => {
-    const draft = await lockScenarioDraft(trx, scenarioId);
-    if (!draft || draft.projectId !== projectId) return failure(404, "Not found.");
-    if (draft.archivedAt) return failure(409, "This scenario is archived; restore it before issuing.");
-    const current = await resolveResult(trx, draft);
-    if (!current) {
-      return failure(409, "There is no finished result for the scenario's current inputs. Run the analysis, then issue.");
-    }
-    const versionNumber = await nextVersionNumber(trx, scenarioId);
-    const row = await insertVersionRow(trx, {
-      scenarioId,
-      projectId,
-      versionNumber,
-      name: draft.name,
-      note: parsed.data.note,
-      input: current.input,
-      inputVersion: draft.inputVersion,
-      result: current.result,
-      engineVersion: current.engineVersion,
-      inputsHash: current.inputsHash,
-      scenarioRevision: draft.revision,
-      issuedBy: actor.id,
+export const issueScenario = defineAction<
+  { project: "scenario.issue" },
+  typeof issueSchema,
+  { versionId: string; versionNumber: number; issuedAt: Date },
+  never,
+  { resolveResult: CurrentResultResolver }
+>({
+  gate: { project: "scenario.issue" },
+  schema: issueSchema,
+  invalidMessage: "Check the note.",
+  run: async (db, { access }, { scenarioId, note }, opts) => {
+    if (!isUuid(scenarioId)) return REFUSALS.notFound;
+    const { project, viewer: actor } = access;
+    const resolveResult = opts.resolveResult ?? currentStoredResult;
+    return inTransaction(db, async (trx) => {
+      const draft = await lockScenarioDraft(trx, scenarioId);
+      if (!draft || draft.projectId !== project.id) return REFUSALS.notFound;
+      if (draft.archivedAt) return fail(409, "This scenario is archived; restore it before issuing.");
+      const current = await resolveResult(trx, draft);
+      if (!current) {
+        return fail(409, "There is no finished result for the scenario's current inputs. Run the analysis, then issue.");
+      }
+      const versionNumber = await nextVersionNumber(trx, scenarioId);
+      const row = await insertVersionRow(trx, {
+        scenarioId,
+        projectId: project.id,
+        versionNumber,
+        name: draft.name,
+        note,
+        input: current.input,
+        inputVersion: draft.inputVersion,
+        result: current.result,
+        engineVersion: current.engineVersion,
+        inputsHash: current.inputsHash,
+        scenarioRevision: draft.revision,
+        issuedBy: actor.id,
+      });
+      await writeAudit(trx, {
+        actorId: actor.id,
+        firmId: project.firmId,
+        projectId: project.id,
+        action: "version.issue",
+        targetType: "scenario",
+        targetId: scenarioId,
+        detail: { versionNumber, scenarioName: draft.name, scenarioRevision: draft.revision, engineVersion: current.engineVersion },
+      });
+      return ok({ versionId: row.id, versionNumber, issuedAt: row.issuedAt });
     });
-    await writeAudit(trx, {
-      actorId: actor.id,
-      firmId: project.firmId,
-      projectId,
-      action: "version.issue",
-      targetType: "scenario",
-      targetId: scenarioId,
-      detail: { versionNumber, scenarioName: draft.name, scenarioRevision: draft.revision, engineVersion: current.engineVersion },
-    });
-    return success({ versionId: row.id, versionNumber, issuedAt: row.issuedAt });
-  });
-}
+  },
+});
 
 /** Every issued version of the project the viewer may see (client viewers see these and nothing else). */
 export async function listIssuedVersions(
-  db: Kysely<Database>,
+  db: Executor,
   viewer: Viewer | null,
   projectId: string,
-): Promise<Outcome<IssuedVersionSummary[]>> {
+): Promise<Result<IssuedVersionSummary[]>> {
   const auth = await authorizeProject(db, viewer, projectId, "scenario.viewIssued");
-  if (!auth.ok) return refused(auth);
-  return success(await listProjectVersions(db, projectId));
+  if (!auth.ok) return auth;
+  return ok(await listProjectVersions(db, projectId));
 }
 
 /**
@@ -103,20 +106,20 @@ export async function listIssuedVersions(
  * what was issued, and a scenario with nothing issued does not exist for them (404, not 403).
  */
 export async function scenarioVersions(
-  db: Kysely<Database>,
+  db: Executor,
   viewer: Viewer | null,
   projectId: string,
   scenarioId: string,
-): Promise<Outcome<{ access: ProjectAccess; draft: { id: string; name: string; revision: number; archived: boolean } | null; versions: IssuedVersionSummary[] }>> {
+): Promise<Result<{ access: ProjectAccess; draft: { id: string; name: string; revision: number; archived: boolean } | null; versions: IssuedVersionSummary[] }>> {
   const auth = await authorizeProject(db, viewer, projectId, "scenario.viewIssued");
-  if (!auth.ok) return refused(auth);
-  if (!isUuid(scenarioId)) return failure(404, "Not found.");
+  if (!auth.ok) return auth;
+  if (!isUuid(scenarioId)) return REFUSALS.notFound;
   const header = await findScenarioHeader(db, projectId, scenarioId);
-  if (!header) return failure(404, "Not found.");
+  if (!header) return REFUSALS.notFound;
   const versions = await listScenarioVersions(db, projectId, scenarioId);
   const seesDraft = auth.access.can("scenario.viewDraft");
-  if (!seesDraft && versions.length === 0) return failure(404, "Not found.");
-  return success({
+  if (!seesDraft && versions.length === 0) return REFUSALS.notFound;
+  return ok({
     access: auth.access,
     draft: seesDraft ? { id: header.id, name: header.name, revision: header.revision, archived: Boolean(header.archivedAt) } : null,
     versions,
@@ -130,17 +133,17 @@ export type IssuedVersionDetail = IssuedVersionSummary & { projectId: string; in
  * trail: the firm can see who looked at what they shared, and when.
  */
 export async function openIssuedVersion(
-  db: Kysely<Database>,
+  db: Executor,
   viewer: Viewer | null,
   projectId: string,
   scenarioId: string,
   versionNumber: number,
-): Promise<Outcome<{ access: ProjectAccess; version: IssuedVersionDetail }>> {
+): Promise<Result<{ access: ProjectAccess; version: IssuedVersionDetail }>> {
   const auth = await authorizeProject(db, viewer, projectId, "scenario.viewIssued");
-  if (!auth.ok) return refused(auth);
-  if (!isUuid(scenarioId) || !Number.isSafeInteger(versionNumber) || versionNumber < 1) return failure(404, "Not found.");
+  if (!auth.ok) return auth;
+  if (!isUuid(scenarioId) || !Number.isSafeInteger(versionNumber) || versionNumber < 1) return REFUSALS.notFound;
   const version = await findVersion(db, projectId, scenarioId, versionNumber);
-  if (!version) return failure(404, "Not found.");
+  if (!version) return REFUSALS.notFound;
   const { access } = auth;
   if (access.relation === "owner" || access.relation === "finance") {
     await writeAudit(db, {
@@ -153,7 +156,7 @@ export async function openIssuedVersion(
       detail: { versionNumber, scenarioName: version.name, role: access.relation },
     });
   }
-  return success({ access, version });
+  return ok({ access, version });
 }
 
 /** Parse the [version] route segment: a positive integer, nothing else ("1", not "01" or "1.0"). */

@@ -113,9 +113,9 @@ export async function buildMatrixWorld(db: Kysely<Database>): Promise<MatrixWorl
     const datasetId = await uploadDataset(consultantCookie, proj.id, datasetName);
     const scenarioId = await analysedScenario(db, proj.id, datasetId, scenarioName, consultant.id);
     const viewer = await loadViewer(db, consultant.id);
-    const issued = await issueScenario(db, viewer, proj.id, scenarioId, { note: `MATRIX-${key}-${tag} note` });
+    const issued = await issueScenario(db, viewer, { projectId: proj.id, scenarioId, note: `MATRIX-${key}-${tag} note` });
     if (!issued.ok) throw new Error(`matrix: issuing failed: ${issued.error}`);
-    const inv = await createInvitation(db, viewer, proj.id, { email: `invitee-${key.toLowerCase()}.${tag}@example.test`, role: "owner" }, { appUrl: BASE_URL });
+    const inv = await createInvitation(db, viewer, { projectId: proj.id, email: `invitee-${key.toLowerCase()}.${tag}@example.test`, role: "owner" }, { appUrl: BASE_URL });
     if (!inv.ok) throw new Error(`matrix: invitation failed: ${inv.error}`);
     const mail = await db.selectFrom("mail_outbox").select("text_body").where("kind", "=", INVITATION_MAIL_KIND).where("ref_id", "=", inv.value.invitationId).executeTakeFirstOrThrow();
     const token = /\/invite\/([A-Za-z0-9_-]{43})/.exec(mail.text_body)?.[1];

@@ -11,7 +11,7 @@ import { acceptAsNewAccount, acceptAsViewer } from "@/lib/sharing/acceptance";
 import { revokeViewerAccess } from "@/lib/sharing/access";
 import { issueScenario } from "@/lib/sharing/versions";
 import { addComment } from "@/lib/sharing/comments";
-import { createProjectFor, updateProjectFor } from "@/lib/projects/data";
+import { createProject, updateProject } from "@/lib/projects/data";
 import { authorizeScenario } from "@/lib/scenarios/data";
 
 /**
@@ -90,7 +90,7 @@ async function sacrificialInvitation(projectId: string): Promise<string> {
   ).id;
 }
 async function freshToken(email?: string): Promise<string> {
-  const r = await createInvitation(db, await w.viewer("consultant"), w.P.id, { email: email ?? `${uniq("tok")}@example.test`, role: "finance" }, { appUrl: "http://127.0.0.1:1" });
+  const r = await createInvitation(db, await w.viewer("consultant"), { projectId: w.P.id, email: email ?? `${uniq("tok")}@example.test`, role: "finance" }, { appUrl: "http://127.0.0.1:1" });
   if (!r.ok) throw new Error(r.error);
   const m = await db.selectFrom("mail_outbox").select("text_body").where("kind", "=", INVITATION_MAIL_KIND).where("ref_id", "=", r.value.invitationId).executeTakeFirstOrThrow();
   return /\/invite\/([A-Za-z0-9_-]{43})/.exec(m.text_body)![1]!;
@@ -108,32 +108,32 @@ export const SPECS: Record<string, Spec> = {
   "(app)/projects/[projectId]/access/actions.ts#inviteAction": {
     dal: "createInvitation (lib/sharing/invitations.ts)",
     variants: projectLevel,
-    run: async (v, _r, variant) => status(await createInvitation(db, v, ids(variant).projectId, { email: `${uniq("m")}@example.test`, role: "owner" }, APP_URL)),
+    run: async (v, _r, variant) => status(await createInvitation(db, v, { projectId: ids(variant).projectId, email: `${uniq("m")}@example.test`, role: "owner" }, APP_URL)),
     expected: (r, variant) => expectedFor("access.share", r, variant, 200),
   },
   "(app)/projects/[projectId]/access/actions.ts#revokeAccessAction": {
     dal: "revokeViewerAccess (lib/sharing/access.ts)",
     variants: ALL,
-    run: async (v, _r, variant) => status(await revokeViewerAccess(db, v, ids(variant).projectId, await sacrificialViewer(ids(variant).child.id))),
+    run: async (v, _r, variant) => status(await revokeViewerAccess(db, v, { projectId: ids(variant).projectId, userId: await sacrificialViewer(ids(variant).child.id) })),
     expected: (r, variant) => expectedFor("access.revoke", r, variant, 200),
   },
   "(app)/projects/[projectId]/access/actions.ts#withdrawInvitationAction": {
     dal: "revokeInvitation (lib/sharing/invitations.ts)",
     variants: ALL,
-    run: async (v, _r, variant) => status(await revokeInvitation(db, v, ids(variant).projectId, await sacrificialInvitation(ids(variant).child.id))),
+    run: async (v, _r, variant) => status(await revokeInvitation(db, v, { projectId: ids(variant).projectId, invitationId: await sacrificialInvitation(ids(variant).child.id) })),
     expected: (r, variant) => expectedFor("access.revoke", r, variant, 200),
   },
   "(app)/projects/[projectId]/scenarios/[scenarioId]/versions/actions.ts#issueAction": {
     dal: "issueScenario (lib/sharing/versions.ts), with the real current-result lookup",
     variants: ALL,
     // The world's scenarios hold no analysable input: past authorization, issuing is refused with 409.
-    run: async (v, _r, variant) => status(await issueScenario(db, v, ids(variant).projectId, ids(variant).child.scenarioId, {})),
+    run: async (v, _r, variant) => status(await issueScenario(db, v, { projectId: ids(variant).projectId, scenarioId: ids(variant).child.scenarioId })),
     expected: (r, variant) => expectedFor("scenario.issue", r, variant, 409),
   },
   "(app)/projects/[projectId]/scenarios/[scenarioId]/versions/actions.ts#commentAction": {
     dal: "addComment (lib/sharing/comments.ts)",
     variants: ALL,
-    run: async (v, _r, variant) => status(await addComment(db, v, ids(variant).projectId, ids(variant).child.versionId, { body: "matrix comment" }, APP_URL)),
+    run: async (v, _r, variant) => status(await addComment(db, v, { projectId: ids(variant).projectId, versionId: ids(variant).child.versionId, body: "matrix comment" }, APP_URL)),
     expected: (r, variant) => expectedFor("scenario.comment", r, variant, 200),
   },
   "(app)/account/actions.ts#changePasswordAction": {
@@ -141,20 +141,20 @@ export const SPECS: Record<string, Spec> = {
     variants: ["own"],
     // A wrong current password: every signed-in person reaches the check (400), nothing changes.
     run: async (v) => status(await changePassword(db, v, { currentPassword: "not-it-at-all", newPassword: "a long enough passphrase", confirmPassword: "a long enough passphrase" })),
-    expected: (r) => (r === "anonymous" ? 401 : 400),
+    expected: (r) => (r === "anonymous" ? 401 : 422),
   },
   "invite/[token]/actions.ts#acceptSignedInAction": {
     dal: "acceptAsViewer (lib/sharing/acceptance.ts)",
     variants: ["own"],
     // An invitation for another address: nobody but its addressee may spend it.
-    run: async (v) => status(await acceptAsViewer(db, v, await freshToken())),
+    run: async (v) => status(await acceptAsViewer(db, v, { token: await freshToken() })),
     expected: (r) => (r === "anonymous" ? 401 : 403),
   },
   "invite/[token]/actions.ts#acceptNewAccountAction": {
     dal: "acceptAsNewAccount (lib/sharing/acceptance.ts)",
     variants: ["own"],
     // Public by design (the token is the credential): the same answer whoever calls; a made-up token is unknown.
-    run: async () => status(await acceptAsNewAccount(db, "Z".repeat(43), { name: "X", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" })),
+    run: async () => status(await acceptAsNewAccount(db, null, { token: "Z".repeat(43), name: "X", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" })),
     expected: () => 404,
   },
 
@@ -166,7 +166,7 @@ export const SPECS: Record<string, Spec> = {
       v
         ? coarse(
             (
-              await createProjectFor(db, { userId: v.id, principal: v.principal }, {
+              await createProject(db, v, {
                 clientName: "Matrix client",
                 name: `Matrix project ${uniq()}`,
                 siteName: "Matrix site",
@@ -191,7 +191,8 @@ export const SPECS: Record<string, Spec> = {
     run: async (v, _r, variant) => {
       if (!v) return 401;
       const p = variant === "own" ? w.P : w.C;
-      const r = await updateProjectFor(db, { userId: v.id, principal: v.principal }, p.id, {
+      const r = await updateProject(db, v, {
+        projectId: p.id,
         clientName: `Client of ${p.name}`,
         name: p.name,
         siteName: `Site of ${p.name}`,

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import psychrolib from "psychrolib";
 import { testDb, uniq } from "../support/db";
 import { createUser } from "@/db/queries/users";
+import { loadViewer, type Viewer } from "@/lib/auth/access";
 import { insertProject } from "@/db/queries/projects";
 import { countClimateDatasets, findClimateDatasetData, findClimateDatasetSummary, listClimateDatasetsOfProject } from "@/db/queries/climate";
 import { generateSyntheticYear, syntheticYearToCsv, syntheticYearToEpw } from "@/lib/engine/climate";
@@ -17,6 +18,7 @@ import type { StoredClimateSummary, StoredHourlyData } from "@/lib/climate/build
 const db = testDb();
 const enc = new TextEncoder();
 let target: ImportTarget;
+let consultant: Viewer;
 
 beforeAll(async () => {
   const user = await createUser(db, { email: `${uniq("clim")}@example.test`, name: "Climate Tester", passwordHash: null });
@@ -31,6 +33,7 @@ beforeAll(async () => {
     created_by: user.id,
   });
   target = { projectId: project.id, firmId: firm.id, actorId: user.id, siteElevationM: 240 };
+  consultant = (await loadViewer(db, user.id))!;
 });
 afterAll(() => db.destroy());
 
@@ -239,10 +242,10 @@ describe("bin tables", () => {
       { wetBulbC: 10, meanCoincidentDryBulbC: 13, hours: 3000 },
       { wetBulbC: 0, meanCoincidentDryBulbC: 2, hours: 3420 },
     ];
-    const out = await saveBinTable(db, target, { source: "wetBulbBins", name: "Entered bins", bins });
+    const out = await saveBinTable(db, consultant, { projectId: target.projectId, source: "wetBulbBins", name: "Entered bins", bins });
     expect(out.ok).toBe(true);
     if (!out.ok) return;
-    const row = await findClimateDatasetSummary(db, target.projectId, out.datasetId);
+    const row = await findClimateDatasetSummary(db, target.projectId, out.value.datasetId);
     expect(row!.hoursTotal).toBe(8760);
     expect(row!.sourceKind).toBe("wetBulbBins");
     const s = row!.summary as StoredClimateSummary;
@@ -254,7 +257,8 @@ describe("bin tables", () => {
 
   it("every bad cell comes back with its path; nothing stored", async () => {
     const before = await countClimateDatasets(db, target.projectId);
-    const out = await saveBinTable(db, target, {
+    const out = await saveBinTable(db, consultant, {
+      projectId: target.projectId,
       source: "dryBulbBins",
       name: "",
       bins: [
@@ -264,7 +268,7 @@ describe("bin tables", () => {
     });
     expect(out.ok).toBe(false);
     if (out.ok) return;
-    expect(Object.keys(out.fieldErrors).sort()).toEqual(["bins.0.hours", "bins.1.meanCoincidentWetBulbC", "name"]);
+    expect(Object.keys(out.fieldErrors ?? {}).sort()).toEqual(["bins.0.hours", "bins.1.meanCoincidentWetBulbC", "name"]);
     expect(await countClimateDatasets(db, target.projectId)).toBe(before);
   });
 });

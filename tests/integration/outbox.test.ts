@@ -105,7 +105,7 @@ describe("invitation e-mails that could not go out in time", () => {
     const { buildWorld } = await import("./sharing-fixtures");
     const { createInvitation } = await import("@/lib/sharing/invitations");
     const w = await buildWorld(db);
-    const r = await createInvitation(db, await w.viewer("consultant"), w.P.id, { email: `${uniq("late")}@example.test`, role: "owner" }, { appUrl: "http://127.0.0.1:1" });
+    const r = await createInvitation(db, await w.viewer("consultant"), { projectId: w.P.id, email: `${uniq("late")}@example.test`, role: "owner" }, { appUrl: "http://127.0.0.1:1" });
     if (!r.ok) throw new Error(r.error);
     await db.updateTable("invitations").set({ expires_at: sql`now() - interval '1 second'` }).where("id", "=", r.value.invitationId).execute();
     const port = await freePort();

@@ -50,14 +50,14 @@ afterAll(() => db.destroy());
 
 describe("issuing freezes exactly what was analysed", () => {
   it("is refused while the draft's current inputs have no stored result", async () => {
-    const r = await issueScenario(db, await w.viewer("consultant"), w.P.id, scenarioId, {});
+    const r = await issueScenario(db, await w.viewer("consultant"), { projectId: w.P.id, scenarioId: scenarioId });
     expect(r).toMatchObject({ ok: false, status: 409 });
     if (!r.ok) expect(r.error).toMatch(/no finished result for the scenario's current inputs/);
   });
 
   it("freezes the engine input (climate included) and the stored result under its key", async () => {
     const { built, stored } = await analyse(scenarioId);
-    const r = await issueScenario(db, await w.viewer("consultant"), w.P.id, scenarioId, { note: "v1" });
+    const r = await issueScenario(db, await w.viewer("consultant"), { projectId: w.P.id, scenarioId: scenarioId, note: "v1" });
     expect(r.ok).toBe(true);
     const row = await db.selectFrom("scenario_versions").selectAll().where("scenario_id", "=", scenarioId).executeTakeFirstOrThrow();
     expect(row.version_number).toBe(1);
@@ -77,9 +77,9 @@ describe("issuing freezes exactly what was analysed", () => {
     edited.economics.realDiscountRate = 0.07;
     await db.updateTable("scenarios").set({ input: JSON.stringify(edited), revision: 2 }).where("id", "=", scenarioId).execute();
 
-    expect(await issueScenario(db, await w.viewer("consultant"), w.P.id, scenarioId, {})).toMatchObject({ ok: false, status: 409 });
+    expect(await issueScenario(db, await w.viewer("consultant"), { projectId: w.P.id, scenarioId: scenarioId })).toMatchObject({ ok: false, status: 409 });
     await analyse(scenarioId);
-    const v2 = await issueScenario(db, await w.viewer("admin"), w.P.id, scenarioId, {});
+    const v2 = await issueScenario(db, await w.viewer("admin"), { projectId: w.P.id, scenarioId: scenarioId });
     expect(v2.ok && v2.value.versionNumber).toBe(2);
 
     const v1After = await db.selectFrom("scenario_versions").selectAll().where("id", "=", v1.id).executeTakeFirstOrThrow();

@@ -36,7 +36,7 @@ async function tokenFromOutbox(invitationId: string): Promise<string> {
 }
 
 async function invite(email: string, role: "owner" | "finance" = "owner") {
-  const r = await createInvitation(db, await w.viewer("consultant"), w.P.id, { email, role }, { appUrl: APP });
+  const r = await createInvitation(db, await w.viewer("consultant"), { projectId: w.P.id, email, role }, { appUrl: APP });
   if (!r.ok) throw new Error(r.error);
   return { ...r.value, token: await tokenFromOutbox(r.value.invitationId) };
 }
@@ -65,24 +65,24 @@ describe("invitations", () => {
 
   it("validates the address and role and refuses members of the firm and people who already have access", async () => {
     const consultant = await w.viewer("consultant");
-    const bad = await createInvitation(db, consultant, w.P.id, { email: "not-an-address", role: "boss" }, { appUrl: APP });
+    const bad = await createInvitation(db, consultant, { projectId: w.P.id, email: "not-an-address", role: "boss" }, { appUrl: APP });
     expect(bad.ok).toBe(false);
     if (!bad.ok) {
-      expect(bad.status).toBe(400);
+      expect(bad.status).toBe(422);
       expect(Object.keys(bad.fieldErrors ?? {}).sort()).toEqual(["email", "role"]);
     }
-    const member = await createInvitation(db, consultant, w.P.id, { email: w.users.admin.email, role: "owner" }, { appUrl: APP });
+    const member = await createInvitation(db, consultant, { projectId: w.P.id, email: w.users.admin.email, role: "owner" }, { appUrl: APP });
     expect(member.ok || member.status).toBe(409);
-    const already = await createInvitation(db, consultant, w.P.id, { email: w.users.owner.email, role: "finance" }, { appUrl: APP });
+    const already = await createInvitation(db, consultant, { projectId: w.P.id, email: w.users.owner.email, role: "finance" }, { appUrl: APP });
     expect(already.ok || already.status).toBe(409);
   });
 
   it("only a consultant or admin of the project's firm can invite", async () => {
     for (const role of ["owner", "finance", "consultantOther", "ownerOther", "anonymous"] as const) {
-      const r = await createInvitation(db, await w.viewer(role), w.P.id, { email: `${uniq()}@example.test`, role: "owner" }, { appUrl: APP });
+      const r = await createInvitation(db, await w.viewer(role), { projectId: w.P.id, email: `${uniq()}@example.test`, role: "owner" }, { appUrl: APP });
       expect(r.ok ? 200 : r.status, role).toBe({ owner: 403, finance: 403, consultantOther: 404, ownerOther: 404, anonymous: 401 }[role]);
     }
-    const admin = await createInvitation(db, await w.viewer("admin"), w.P.id, { email: `${uniq()}@example.test`, role: "owner" }, { appUrl: APP });
+    const admin = await createInvitation(db, await w.viewer("admin"), { projectId: w.P.id, email: `${uniq()}@example.test`, role: "owner" }, { appUrl: APP });
     expect(admin.ok).toBe(true);
   });
 
@@ -90,8 +90,8 @@ describe("invitations", () => {
     const email = `${uniq("again")}@example.test`;
     const first = await invite(email);
     const second = await invite(email);
-    expect((await inspectInvitation(db, first.token)).state).toBe("revoked");
-    expect((await inspectInvitation(db, second.token)).state).toBe("open");
+    expect((await inspectInvitation(db, null, first.token)).state).toBe("revoked");
+    expect((await inspectInvitation(db, null, second.token)).state).toBe("open");
     const firstMail = await db.selectFrom("mail_outbox").selectAll().where("id", "=", first.mailId).executeTakeFirstOrThrow();
     expect(firstMail.status).toBe("failed");
     expect(firstMail.text_body).toBe("");
@@ -100,19 +100,19 @@ describe("invitations", () => {
   it("a new person sets a name and a password under the policy, gets exactly the invited role, and the link is spent", async () => {
     const email = `${uniq("new")}@example.test`;
     const inv = await invite(email, "finance");
-    const link = await inspectInvitation(db, inv.token);
+    const link = await inspectInvitation(db, null, inv.token);
     expect(link).toMatchObject({ state: "open", email, role: "finance", projectName: w.P.name, accountExists: false });
 
-    const weak = await acceptAsNewAccount(db, inv.token, { name: "", password: email, confirmPassword: "x" });
+    const weak = await acceptAsNewAccount(db, null, { token: inv.token, name: "", password: email, confirmPassword: "x" });
     expect(weak.ok).toBe(false);
     if (!weak.ok) {
       expect(weak.fieldErrors?.name).toBeDefined();
       expect(weak.fieldErrors?.confirmPassword).toBeDefined();
       expect(weak.fieldErrors?.password?.join(" ")).toMatch(/e-mail/);
     }
-    expect((await inspectInvitation(db, inv.token)).state).toBe("open");
+    expect((await inspectInvitation(db, null, inv.token)).state).toBe("open");
 
-    const ok = await acceptAsNewAccount(db, inv.token, { name: "Nia New", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" });
+    const ok = await acceptAsNewAccount(db, null, { token: inv.token, name: "Nia New", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" });
     expect(ok.ok).toBe(true);
     const user = await db.selectFrom("users").selectAll().where("email", "=", email).executeTakeFirstOrThrow();
     expect(user.password_hash).toMatch(/^\$2[aby]\$/);
@@ -124,45 +124,45 @@ describe("invitations", () => {
     expect(await loadProjectAccess(db, (await loadViewer(db, user.id))!, w.Q.id)).toBeNull();
 
     // Reuse: refused with the message a person can act on.
-    const again = await acceptAsNewAccount(db, inv.token, { name: "X", password: "another long passphrase", confirmPassword: "another long passphrase" });
+    const again = await acceptAsNewAccount(db, null, { token: inv.token, name: "X", password: "another long passphrase", confirmPassword: "another long passphrase" });
     expect(again.ok).toBe(false);
     if (!again.ok) {
       expect(again.status).toBe(410);
       expect(again.error).toBe(LINK_MESSAGES.accepted);
     }
-    expect(await acceptAsViewer(db, await loadViewer(db, user.id), inv.token)).toMatchObject({ ok: false, status: 410 });
+    expect(await acceptAsViewer(db, await loadViewer(db, user.id), { token: inv.token })).toMatchObject({ ok: false, status: 410 });
   });
 
   it("an expired link is refused and says when it expired", async () => {
     const inv = await invite(`${uniq("exp")}@example.test`);
     await db.updateTable("invitations").set({ expires_at: sql`now() - interval '1 minute'` }).where("id", "=", inv.invitationId).execute();
-    const link = await inspectInvitation(db, inv.token);
+    const link = await inspectInvitation(db, null, inv.token);
     expect(link.state).toBe("expired");
     if (link.state === "expired") expect(link.message).toMatch(/expired on \d{4}-\d{2}-\d{2}/);
-    const r = await acceptAsNewAccount(db, inv.token, { name: "Late", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" });
+    const r = await acceptAsNewAccount(db, null, { token: inv.token, name: "Late", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" });
     expect(r).toMatchObject({ ok: false, status: 410 });
   });
 
   it("a withdrawn link is refused; a made-up token is unknown", async () => {
     const inv = await invite(`${uniq("rev")}@example.test`);
-    const owner = await revokeInvitation(db, await w.viewer("owner"), w.P.id, inv.invitationId);
+    const owner = await revokeInvitation(db, await w.viewer("owner"), { projectId: w.P.id, invitationId: inv.invitationId });
     expect(owner).toMatchObject({ ok: false, status: 403 });
-    const other = await revokeInvitation(db, await w.viewer("consultantOther"), w.C.id, inv.invitationId);
+    const other = await revokeInvitation(db, await w.viewer("consultantOther"), { projectId: w.C.id, invitationId: inv.invitationId });
     expect(other).toMatchObject({ ok: false, status: 404 });
-    expect((await revokeInvitation(db, await w.viewer("consultant"), w.P.id, inv.invitationId)).ok).toBe(true);
-    expect(await inspectInvitation(db, inv.token)).toEqual({ state: "revoked", message: LINK_MESSAGES.revoked });
-    expect((await inspectInvitation(db, "A".repeat(43))).state).toBe("unknown");
-    expect((await inspectInvitation(db, "short")).state).toBe("unknown");
+    expect((await revokeInvitation(db, await w.viewer("consultant"), { projectId: w.P.id, invitationId: inv.invitationId })).ok).toBe(true);
+    expect(await inspectInvitation(db, null, inv.token)).toEqual({ state: "revoked", message: LINK_MESSAGES.revoked });
+    expect((await inspectInvitation(db, null, "A".repeat(43))).state).toBe("unknown");
+    expect((await inspectInvitation(db, null, "short")).state).toBe("unknown");
   });
 
   it("an existing account accepts only when signed in as the invited address", async () => {
     const inv = await invite(w.users.ownerOther.email, "finance");
-    expect(await inspectInvitation(db, inv.token)).toMatchObject({ state: "open", accountExists: true });
-    const asNew = await acceptAsNewAccount(db, inv.token, { name: "X", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" });
+    expect(await inspectInvitation(db, null, inv.token)).toMatchObject({ state: "open", accountExists: true });
+    const asNew = await acceptAsNewAccount(db, null, { token: inv.token, name: "X", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" });
     expect(asNew).toMatchObject({ ok: false, status: 409 });
-    expect(await acceptAsViewer(db, await w.viewer("owner"), inv.token)).toMatchObject({ ok: false, status: 403 });
-    expect(await acceptAsViewer(db, null, inv.token)).toMatchObject({ ok: false, status: 401 });
-    const ok = await acceptAsViewer(db, await w.viewer("ownerOther"), inv.token);
+    expect(await acceptAsViewer(db, await w.viewer("owner"), { token: inv.token })).toMatchObject({ ok: false, status: 403 });
+    expect(await acceptAsViewer(db, null, { token: inv.token })).toMatchObject({ ok: false, status: 401 });
+    const ok = await acceptAsViewer(db, await w.viewer("ownerOther"), { token: inv.token });
     expect(ok).toEqual({ ok: true, value: { projectId: w.P.id, role: "finance" } });
     expect((await loadProjectAccess(db, (await w.viewer("ownerOther"))!, w.P.id))?.relation).toBe("finance");
     // Their grant on Q is untouched.
@@ -174,7 +174,7 @@ describe("invitations", () => {
   it("two acceptances of one link at the same moment: exactly one succeeds", async () => {
     const inv = await invite(w.users.financeOther.email, "owner");
     const v = await w.viewer("financeOther");
-    const results = await Promise.all([acceptAsViewer(db, v, inv.token), acceptAsViewer(db, v, inv.token), acceptAsViewer(db, v, inv.token)]);
+    const results = await Promise.all([acceptAsViewer(db, v, { token: inv.token }), acceptAsViewer(db, v, { token: inv.token }), acceptAsViewer(db, v, { token: inv.token })]);
     expect(results.filter((r) => r.ok)).toHaveLength(1);
     await db.deleteFrom("project_access").where("project_id", "=", w.P.id).where("user_id", "=", w.users.financeOther.id).execute();
   });
@@ -194,13 +194,13 @@ describe("invitations", () => {
 describe("revoking access", () => {
   it("takes effect at the viewer's next read of their access, and is audited", async () => {
     const inv = await invite(`${uniq("gone")}@example.test`, "owner");
-    const acc = await acceptAsNewAccount(db, inv.token, { name: "Gone Soon", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" });
+    const acc = await acceptAsNewAccount(db, null, { token: inv.token, name: "Gone Soon", password: "a long enough passphrase", confirmPassword: "a long enough passphrase" });
     if (!acc.ok) throw new Error(acc.error);
     const viewer = (await loadViewer(db, acc.value.userId))!;
     expect(await loadProjectAccess(db, viewer, w.P.id)).not.toBeNull();
-    expect(await revokeViewerAccess(db, await w.viewer("finance"), w.P.id, acc.value.userId)).toMatchObject({ ok: false, status: 403 });
-    expect(await revokeViewerAccess(db, await w.viewer("consultantOther"), w.P.id, acc.value.userId)).toMatchObject({ ok: false, status: 404 });
-    expect((await revokeViewerAccess(db, await w.viewer("consultant"), w.P.id, acc.value.userId)).ok).toBe(true);
+    expect(await revokeViewerAccess(db, await w.viewer("finance"), { projectId: w.P.id, userId: acc.value.userId })).toMatchObject({ ok: false, status: 403 });
+    expect(await revokeViewerAccess(db, await w.viewer("consultantOther"), { projectId: w.P.id, userId: acc.value.userId })).toMatchObject({ ok: false, status: 404 });
+    expect((await revokeViewerAccess(db, await w.viewer("consultant"), { projectId: w.P.id, userId: acc.value.userId })).ok).toBe(true);
     // The same Viewer object (as a request that started before the revocation would hold) is refused now.
     expect(await loadProjectAccess(db, viewer, w.P.id)).toBeNull();
     expect(await listIssuedVersions(db, viewer, w.P.id)).toMatchObject({ ok: false, status: 404 });
@@ -216,17 +216,17 @@ describe("issued versions", () => {
   const none: CurrentResultResolver = async () => null;
 
   it("issuing needs scenario.issue and a current result", async () => {
-    expect(await issueScenario(db, await w.viewer("owner"), w.P.id, w.P.scenarioId, {}, stub)).toMatchObject({ ok: false, status: 403 });
-    expect(await issueScenario(db, await w.viewer("consultantOther"), w.P.id, w.P.scenarioId, {}, stub)).toMatchObject({ ok: false, status: 404 });
+    expect(await issueScenario(db, await w.viewer("owner"), { projectId: w.P.id, scenarioId: w.P.scenarioId }, { resolveResult: stub })).toMatchObject({ ok: false, status: 403 });
+    expect(await issueScenario(db, await w.viewer("consultantOther"), { projectId: w.P.id, scenarioId: w.P.scenarioId }, { resolveResult: stub })).toMatchObject({ ok: false, status: 404 });
     // Another firm's scenario under this project's id: not found, nothing issued.
-    expect(await issueScenario(db, await w.viewer("consultant"), w.P.id, w.C.scenarioId, {}, stub)).toMatchObject({ ok: false, status: 404 });
-    const r = await issueScenario(db, await w.viewer("consultant"), w.P.id, w.P.scenarioId, {}, none);
+    expect(await issueScenario(db, await w.viewer("consultant"), { projectId: w.P.id, scenarioId: w.C.scenarioId }, { resolveResult: stub })).toMatchObject({ ok: false, status: 404 });
+    const r = await issueScenario(db, await w.viewer("consultant"), { projectId: w.P.id, scenarioId: w.P.scenarioId }, { resolveResult: none });
     expect(r).toMatchObject({ ok: false, status: 409 });
   });
 
   it("freezes the inputs and result; a later edit makes a new draft and never alters what was issued", async () => {
     const consultant = await w.viewer("consultant");
-    const issued = await issueScenario(db, consultant, w.P.id, w.P.scenarioId, { note: "For the board" }, stub);
+    const issued = await issueScenario(db, consultant, { projectId: w.P.id, scenarioId: w.P.scenarioId, note: "For the board" }, { resolveResult: stub });
     expect(issued.ok).toBe(true);
     if (!issued.ok) return;
     expect(issued.value.versionNumber).toBe(2);
@@ -248,7 +248,7 @@ describe("issued versions", () => {
     expect(opened.ok && opened.value.version.name).toBe(`Scenario of P ${w.tag}`);
 
     // Issuing again freezes the edited draft as version 3; version 2 still holds the old one.
-    const third = await issueScenario(db, consultant, w.P.id, w.P.scenarioId, {}, stub);
+    const third = await issueScenario(db, consultant, { projectId: w.P.id, scenarioId: w.P.scenarioId }, { resolveResult: stub });
     expect(third.ok && third.value.versionNumber).toBe(3);
     const v3 = await db.selectFrom("scenario_versions").select(["input", "name", "scenario_revision"]).where("scenario_id", "=", w.P.scenarioId).where("version_number", "=", 3).executeTakeFirstOrThrow();
     expect(v3.input).toEqual({ marker: "edited after issue" });
@@ -258,7 +258,7 @@ describe("issued versions", () => {
 
   it("two issues at the same moment take two numbers", async () => {
     const consultant = await w.viewer("consultant");
-    const rs = await Promise.all([1, 2, 3].map(() => issueScenario(db, consultant, w.P.id, w.P.scenarioId, {}, stub)));
+    const rs = await Promise.all([1, 2, 3].map(() => issueScenario(db, consultant, { projectId: w.P.id, scenarioId: w.P.scenarioId }, { resolveResult: stub })));
     const numbers = rs.map((r) => (r.ok ? r.value.versionNumber : -1)).sort();
     expect(new Set(numbers).size).toBe(3);
     expect(numbers.every((n) => n > 3)).toBe(true);
@@ -285,7 +285,7 @@ describe("issued versions", () => {
 
 describe("comments", () => {
   it("owner and finance comment on an issued version; every firm member but the author gets an e-mail", async () => {
-    const r = await addComment(db, await w.viewer("owner"), w.P.id, w.P.versionId, { body: "  Why is the cooler's spray water so high in July?  " }, { appUrl: APP });
+    const r = await addComment(db, await w.viewer("owner"), { projectId: w.P.id, versionId: w.P.versionId, body: "  Why is the cooler's spray water so high in July?  " }, { appUrl: APP });
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.value.notified).toBe(2);
@@ -299,11 +299,11 @@ describe("comments", () => {
   });
 
   it("refuses empty comments, other projects' versions and people without the right", async () => {
-    expect(await addComment(db, await w.viewer("finance"), w.P.id, w.P.versionId, { body: "   " }, { appUrl: APP })).toMatchObject({ ok: false, status: 400 });
-    expect(await addComment(db, await w.viewer("finance"), w.P.id, w.C.versionId, { body: "hi" }, { appUrl: APP })).toMatchObject({ ok: false, status: 404 });
-    expect(await addComment(db, await w.viewer("ownerOther"), w.P.id, w.P.versionId, { body: "hi" }, { appUrl: APP })).toMatchObject({ ok: false, status: 404 });
-    expect(await addComment(db, await w.viewer("consultantOther"), w.C.id, w.P.versionId, { body: "hi" }, { appUrl: APP })).toMatchObject({ ok: false, status: 404 });
-    expect(await addComment(db, null, w.P.id, w.P.versionId, { body: "hi" }, { appUrl: APP })).toMatchObject({ ok: false, status: 401 });
+    expect(await addComment(db, await w.viewer("finance"), { projectId: w.P.id, versionId: w.P.versionId, body: "   " }, { appUrl: APP })).toMatchObject({ ok: false, status: 422 });
+    expect(await addComment(db, await w.viewer("finance"), { projectId: w.P.id, versionId: w.C.versionId, body: "hi" }, { appUrl: APP })).toMatchObject({ ok: false, status: 404 });
+    expect(await addComment(db, await w.viewer("ownerOther"), { projectId: w.P.id, versionId: w.P.versionId, body: "hi" }, { appUrl: APP })).toMatchObject({ ok: false, status: 404 });
+    expect(await addComment(db, await w.viewer("consultantOther"), { projectId: w.C.id, versionId: w.P.versionId, body: "hi" }, { appUrl: APP })).toMatchObject({ ok: false, status: 404 });
+    expect(await addComment(db, null, { projectId: w.P.id, versionId: w.P.versionId, body: "hi" }, { appUrl: APP })).toMatchObject({ ok: false, status: 401 });
   });
 });
 

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { requireViewer } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import { ROLE_LABELS } from "@/lib/auth/roles";
-import { formatWhen } from "@/lib/sharing/form-state";
+import { formatWhen } from "@/lib/dates";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { PasswordForm } from "./_components/password-form";
 

@@ -1,19 +1,19 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { forbidden } from "next/navigation";
-import { db } from "@/db";
+import { perform } from "@/lib/actions/request";
 import { requireViewer } from "@/lib/auth/session";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { firmOverview } from "@/lib/sharing/firm";
-import { formatWhen } from "@/lib/sharing/form-state";
+import { formatWhen } from "@/lib/dates";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 
 export const metadata: Metadata = { title: "Firm members" };
 
 /** The firm admin's page: members and roles, and which client viewers see which project. */
 export default async function FirmPage() {
-  const viewer = await requireViewer();
-  const r = await firmOverview(db, viewer);
+  await requireViewer();
+  const r = await perform(firmOverview);
   if (!r.ok) forbidden();
   const { firmName, members, clientAccess } = r.value;
   return (

@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { db } from "@/db";
-import { listProjectsForUser } from "@/db/queries/projects";
 import { requireViewer } from "@/lib/auth/session";
+import { perform } from "@/lib/actions/request";
+import { listProjectsFor } from "@/lib/projects/data";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { ButtonLink } from "@/components/ui/button";
@@ -10,7 +10,7 @@ import { canInFirm } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Projects" };
 
-type Row = Awaited<ReturnType<typeof listProjectsForUser>>[number];
+type Row = Awaited<ReturnType<typeof listProjectsFor>>[number];
 
 function ProjectTable({ rows, testId }: { rows: Row[]; testId: string }) {
   return (
@@ -44,7 +44,7 @@ function ProjectTable({ rows, testId }: { rows: Row[]; testId: string }) {
 export default async function ProjectsPage({ searchParams }: { searchParams: Promise<{ q?: string }> }) {
   const viewer = await requireViewer();
   const { q } = await searchParams;
-  const rows = await listProjectsForUser(db, viewer.id, q);
+  const rows = await perform(listProjectsFor, q);
   const mine = rows.filter((r) => r.firmRole);
   const shared = rows.filter((r) => !r.firmRole && r.clientRole);
   const isFirm = viewer.firms.length > 0;

@@ -1,29 +1,23 @@
 "use server";
 
 import { redirect } from "next/navigation";
-import { db } from "@/db";
-import { currentViewer } from "@/lib/auth/session";
+import { formFields } from "@/lib/actions/define";
+import { perform } from "@/lib/actions/request";
 import { acceptAsNewAccount, acceptAsViewer } from "@/lib/sharing/acceptance";
-import { formStateOf, type FormState } from "@/lib/sharing/form-state";
+import type { ActionState } from "@/components/forms/action-form";
 
-/** A new person accepts: account for the invited address, exactly the invited role, link spent. */
-export async function acceptNewAccountAction(token: string, _prev: FormState, form: FormData): Promise<FormState> {
-  const outcome = await acceptAsNewAccount(db, token, {
-    name: String(form.get("name") ?? ""),
-    password: String(form.get("password") ?? ""),
-    confirmPassword: String(form.get("confirmPassword") ?? ""),
-  });
-  // The browser signs in next with the password it just chose; only the project id and address go back.
-  return formStateOf(
-    outcome,
-    () => "Account created. Signing you in…",
-    (v) => ({ projectId: v.projectId, email: v.email }),
-  );
+/**
+ * A new person accepts: account for the invited address, exactly the invited role, link spent. The browser
+ * signs in next with the password it just chose; only the project id and address go back.
+ */
+export async function acceptNewAccountAction(token: string, _prev: ActionState, form: FormData) {
+  const r = await perform(acceptAsNewAccount, { ...formFields(form), token });
+  return r.ok ? { ok: true as const, value: { projectId: r.value.projectId, email: r.value.email } } : r;
 }
 
 /** A signed-in person with the invited address accepts. */
-export async function acceptSignedInAction(token: string, _prev: FormState, _form: FormData): Promise<FormState> {
-  const outcome = await acceptAsViewer(db, await currentViewer(), token);
-  if (outcome.ok) redirect(`/projects/${outcome.value.projectId}`);
-  return formStateOf(outcome, () => "");
+export async function acceptSignedInAction(token: string, _prev: ActionState, _form: FormData) {
+  const r = await perform(acceptAsViewer, { token });
+  if (r.ok) redirect(`/projects/${r.value.projectId}`);
+  return r;
 }

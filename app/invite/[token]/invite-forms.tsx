@@ -3,24 +3,23 @@
 import { useActionState, useEffect, useRef, useState } from "react";
 import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
-import { Field, FormMessage, submitKeepingFields } from "../_components/form-bits";
-import { IDLE, type FormState } from "@/lib/sharing/form-state";
+import { Field, FormMessage, submitKeepingFields, type ActionState } from "@/components/forms/action-form";
 import { acceptNewAccountAction, acceptSignedInAction } from "./actions";
 
 export function NewAccountForm({ token, email }: { token: string; email: string }) {
   const router = useRouter();
   // The chosen password stays in this page's memory only, so the browser can sign in once the account exists.
   const password = useRef("");
-  const [state, action, pending] = useActionState(async (prev: FormState, form: FormData) => {
+  const [state, action, pending] = useActionState(async (prev: ActionState, form: FormData) => {
     password.current = String(form.get("password") ?? "");
     return acceptNewAccountAction(token, prev, form);
-  }, IDLE);
+  }, null);
   const [signInError, setSignInError] = useState<string | null>(null);
 
   useEffect(() => {
-    if (state.status !== "ok" || !state.data) return;
-    const { projectId } = state.data;
-    void signIn("credentials", { email: state.data.email, password: password.current, redirect: false }).then((res) => {
+    if (!state?.ok) return;
+    const { projectId, email: address } = state.value;
+    void signIn("credentials", { email: address, password: password.current, redirect: false }).then((res) => {
       if (!res || res.error) {
         setSignInError("Your account is ready, but signing in failed. Sign in with your e-mail and the password you chose.");
         return;
@@ -45,7 +44,7 @@ export function NewAccountForm({ token, email }: { token: string; email: string 
         required
       />
       <Field id="invite-confirm" name="confirmPassword" label="Password again" type="password" autoComplete="new-password" state={state} required />
-      <FormMessage state={state} testId="invite-message" />
+      <FormMessage state={state} testId="invite-message" success="Account created. Signing you in…" />
       {signInError && (
         <p role="alert" className="rounded-md bg-danger-50 px-3 py-2 text-sm text-danger-700">
           {signInError}
@@ -53,7 +52,7 @@ export function NewAccountForm({ token, email }: { token: string; email: string 
       )}
       <button
         type="submit"
-        disabled={pending || state.status === "ok"}
+        disabled={pending || Boolean(state?.ok)}
         className="w-full rounded-md bg-basin-600 px-3 py-2 font-medium text-white hover:bg-basin-700 disabled:bg-basin-300"
       >
         {pending ? "Creating your account…" : "Accept and create my account"}
@@ -63,7 +62,7 @@ export function NewAccountForm({ token, email }: { token: string; email: string 
 }
 
 export function AcceptSignedInForm({ token }: { token: string }) {
-  const [state, action, pending] = useActionState(acceptSignedInAction.bind(null, token), IDLE);
+  const [state, action, pending] = useActionState<ActionState, FormData>(acceptSignedInAction.bind(null, token), null);
   return (
     <form action={action} className="space-y-3" data-testid="invite-accept">
       <FormMessage state={state} testId="invite-message" />

@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
 import type { ReactNode } from "react";
 import Link from "next/link";
-import { db } from "@/db";
+import { perform } from "@/lib/actions/request";
 import { currentViewer } from "@/lib/auth/session";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { inspectInvitation } from "@/lib/sharing/acceptance";
-import { formatWhen } from "@/lib/sharing/form-state";
+import { formatWhen } from "@/lib/dates";
 import { Logo } from "@/components/ui/logo";
 import { AcceptSignedInForm, NewAccountForm } from "./invite-forms";
 
@@ -31,7 +31,7 @@ function Card({ title, children }: { title: string; children: ReactNode }) {
 /** The link from an invitation e-mail: accept (new account or existing one), or a clear refusal. */
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const link = await inspectInvitation(db, token);
+  const link = await perform(inspectInvitation, token);
   if (link.state !== "open") {
     const title = { unknown: "This link does not work", accepted: "This invitation was already used", revoked: "This invitation was withdrawn", expired: "This invitation has expired" }[link.state];
     return (

@@ -3,8 +3,7 @@
 import { useActionState, useEffect, useRef, useState } from "react";
 import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
-import { Field, FormMessage, submitKeepingFields } from "@/app/invite/_components/form-bits";
-import { IDLE, type FormState } from "@/lib/sharing/form-state";
+import { Field, FormMessage, submitKeepingFields, type ActionState } from "@/components/forms/action-form";
 import { changePasswordAction } from "../actions";
 
 export function PasswordForm() {
@@ -12,15 +11,15 @@ export function PasswordForm() {
   const formRef = useRef<HTMLFormElement>(null);
   // The change voids this session too; the browser signs in again with the new password it just sent.
   const next = useRef("");
-  const [state, action, pending] = useActionState(async (prev: FormState, form: FormData) => {
+  const [state, action, pending] = useActionState(async (prev: ActionState, form: FormData) => {
     next.current = String(form.get("newPassword") ?? "");
     return changePasswordAction(prev, form);
-  }, IDLE);
+  }, null);
   const [note, setNote] = useState<string | null>(null);
   useEffect(() => {
-    if (state.status !== "ok" || !state.data?.email) return;
+    if (!state?.ok) return;
     formRef.current?.reset();
-    void signIn("credentials", { email: state.data.email, password: next.current, redirect: false }).then((res) => {
+    void signIn("credentials", { email: state.value.email, password: next.current, redirect: false }).then((res) => {
       next.current = "";
       if (!res || res.error) {
         router.push("/signin");
@@ -44,7 +43,7 @@ export function PasswordForm() {
         required
       />
       <Field id="pw-confirm" name="confirmPassword" label="New password again" type="password" autoComplete="new-password" state={state} required />
-      <FormMessage state={state} testId="password-message" />
+      <FormMessage state={state} testId="password-message" success="Password changed. Every other session is signed out." />
       {note && <p className="text-sm text-ink-soft">{note}</p>}
       <button
         type="submit"

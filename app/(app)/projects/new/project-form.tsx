@@ -56,12 +56,12 @@ export function ProjectForm({ mode, projectId, firms, initial, cancelHref }: Pro
     setSaved(null);
     const result = mode === "create" ? await createProjectAction(values) : await updateProjectAction(projectId ?? "", values);
     if (!result.ok) {
-      const formLevel = applyFieldErrors(setError, result.fieldErrors);
-      setFormError(result.formError ?? formLevel[0] ?? null);
+      const formLevel = applyFieldErrors(setError, result.fieldErrors ?? {});
+      setFormError(formLevel[0] ?? (result.status === 422 ? null : result.error));
       return;
     }
-    if (mode === "create" && result.data && "projectId" in result.data) {
-      router.push(`/projects/${result.data.projectId}`);
+    if (mode === "create" && "projectId" in result.value) {
+      router.push(`/projects/${result.value.projectId}`);
     } else {
       setSaved("Saved.");
       router.push(cancelHref);

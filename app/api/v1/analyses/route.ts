@@ -4,7 +4,7 @@ import { db } from "@/db";
 import { writeAudit } from "@/db/queries/audit";
 import { currentViewer } from "@/lib/auth/session";
 import { analyzeDocument } from "@/lib/scenarios/analysis";
-import { jsonError, readJsonBody } from "@/lib/scenarios/http";
+import { jsonError, readJsonBody, resultResponse } from "@/lib/http";
 import { parseScenarioDocument } from "@/lib/scenarios/validate";
 
 export const runtime = "nodejs";
@@ -22,7 +22,7 @@ export async function POST(request: Request) {
   const viewer = await currentViewer();
   if (!viewer) return jsonError(401, "Sign in first.");
   const body = await readJsonBody(request, MAX_ANALYSIS_BYTES);
-  if (!body.ok) return body.response;
+  if (!body.ok) return resultResponse(body);
   const parsed = parseScenarioDocument(body.value);
   if (!parsed.ok) {
     const issues = Object.entries(parsed.fieldErrors).flatMap(([path, messages]) => messages.map((message) => ({ path, message })));

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { db } from "@/db";
+import { perform } from "@/lib/actions/request";
 import type { ProjectAccess } from "@/lib/auth/session";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { accessOverview } from "@/lib/sharing/invitations";
@@ -14,7 +14,7 @@ import { VersionList } from "../scenarios/[scenarioId]/versions/_components/vers
  */
 export async function AccessSection({ access }: { access: ProjectAccess }) {
   const projectId = access.project.id;
-  const versions = await listIssuedVersions(db, access.viewer, projectId);
+  const versions = await perform(listIssuedVersions, projectId);
   const issued = versions.ok ? versions.value : [];
 
   if (!access.can("access.share")) {
@@ -31,7 +31,7 @@ export async function AccessSection({ access }: { access: ProjectAccess }) {
     );
   }
 
-  const overview = await accessOverview(db, access.viewer, projectId);
+  const overview = await perform(accessOverview, projectId);
   const viewers = overview.ok ? overview.value.viewers : [];
   const open = overview.ok ? overview.value.invitations.filter((i) => i.state === "pending") : [];
   const failedMail = overview.ok ? overview.value.invitations.filter((i) => i.state === "pending" && i.mail?.status === "failed").length : 0;

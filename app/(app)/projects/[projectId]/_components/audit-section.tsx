@@ -1,7 +1,7 @@
-import { db } from "@/db";
+import { perform } from "@/lib/actions/request";
 import type { ProjectAccess } from "@/lib/auth/session";
 import { projectAuditTrail } from "@/lib/sharing/audit";
-import { formatWhen } from "@/lib/sharing/form-state";
+import { formatWhen } from "@/lib/dates";
 import { EmptyState, Panel } from "@/components/ui/panel";
 
 const CATEGORY_STYLE: Record<string, string> = {
@@ -17,7 +17,7 @@ const CATEGORY_STYLE: Record<string, string> = {
 /** The project's audit trail, for the firm only (audit.view): who viewed, changed, issued, shared, revoked, downloaded. */
 export async function AuditSection({ access }: { access: ProjectAccess }) {
   if (!access.can("audit.view")) return null;
-  const trail = await projectAuditTrail(db, access.viewer, access.project.id, 60);
+  const trail = await perform(projectAuditTrail, access.project.id, 60);
   const rows = trail.ok ? trail.value : [];
   return (
     <Panel title="Audit trail">

@@ -1,13 +1,12 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { db } from "@/db";
-import { env } from "@/lib/env";
-import { currentViewer } from "@/lib/auth/session";
+import { formFields } from "@/lib/actions/define";
+import { perform } from "@/lib/actions/request";
 import { createInvitation, revokeInvitation } from "@/lib/sharing/invitations";
 import { revokeViewerAccess } from "@/lib/sharing/access";
-import { formStateOf, type FormState } from "@/lib/sharing/form-state";
 import { kickMailer } from "@/lib/mail/worker";
+import type { ActionState } from "@/components/forms/action-form";
 
 function refresh(projectId: string) {
   revalidatePath(`/projects/${projectId}/access`);
@@ -15,31 +14,25 @@ function refresh(projectId: string) {
 }
 
 /** Invite an address to the project (access.share); the e-mail goes out through the outbox. */
-export async function inviteAction(projectId: string, _prev: FormState, form: FormData): Promise<FormState> {
-  const outcome = await createInvitation(
-    db,
-    await currentViewer(),
-    projectId,
-    { email: String(form.get("email") ?? ""), role: String(form.get("role") ?? "") },
-    { appUrl: env().APP_URL },
-  );
-  if (outcome.ok) {
+export async function inviteAction(projectId: string, _prev: ActionState, form: FormData) {
+  const r = await perform(createInvitation, { ...formFields(form), projectId });
+  if (r.ok) {
     kickMailer();
     refresh(projectId);
   }
-  return formStateOf(outcome, (v) => `Invitation for ${v.email} (${v.role}) saved; the e-mail is on its way. Its delivery shows below.`);
+  return r;
 }
 
 /** Take a client viewer's access away (access.revoke); their next request is refused. */
-export async function revokeAccessAction(projectId: string, userId: string, _prev: FormState, _form: FormData): Promise<FormState> {
-  const outcome = await revokeViewerAccess(db, await currentViewer(), projectId, userId);
-  if (outcome.ok) refresh(projectId);
-  return formStateOf(outcome, () => "Access revoked.");
+export async function revokeAccessAction(projectId: string, userId: string, _prev: ActionState, _form: FormData) {
+  const r = await perform(revokeViewerAccess, { projectId, userId });
+  if (r.ok) refresh(projectId);
+  return r;
 }
 
 /** Withdraw an open invitation (access.revoke). */
-export async function withdrawInvitationAction(projectId: string, invitationId: string, _prev: FormState, _form: FormData): Promise<FormState> {
-  const outcome = await revokeInvitation(db, await currentViewer(), projectId, invitationId);
-  if (outcome.ok) refresh(projectId);
-  return formStateOf(outcome, (v) => `Invitation for ${v.email} withdrawn.`);
+export async function withdrawInvitationAction(projectId: string, invitationId: string, _prev: ActionState, _form: FormData) {
+  const r = await perform(revokeInvitation, { projectId, invitationId });
+  if (r.ok) refresh(projectId);
+  return r;
 }

@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { db } from "@/db";
+import { perform } from "@/lib/actions/request";
 import { requireProjectAction } from "@/lib/auth/session";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { accessOverview, type InvitationDTO } from "@/lib/sharing/invitations";
-import { formatWhen } from "@/lib/sharing/form-state";
+import { formatWhen } from "@/lib/dates";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { InviteForm } from "./_components/invite-form";
 import { ConfirmButton } from "./_components/confirm-button";
@@ -48,7 +48,7 @@ function MailStatus({ mail }: { mail: InvitationDTO["mail"] }) {
 export default async function AccessPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
   const access = await requireProjectAction(projectId, "access.share");
-  const overview = await accessOverview(db, access.viewer, projectId);
+  const overview = await perform(accessOverview, projectId);
   if (!overview.ok) notFound();
   const { viewers, invitations } = overview.value;
   const mayRevoke = access.can("access.revoke");

@@ -1,20 +1,15 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { db } from "@/db";
-import { currentViewer, isUuid } from "@/lib/auth/session";
-import { updateProjectFor } from "@/lib/projects/data";
-import type { ActionResult } from "@/components/forms/errors";
+import { perform } from "@/lib/actions/request";
+import { updateProject } from "@/lib/projects/data";
 
-/** Save a project's fields; authorization (project.edit) and validation happen in the DAL. */
-export async function updateProjectAction(projectId: string, input: unknown): Promise<ActionResult<{ changed: string[] }>> {
-  const viewer = await currentViewer();
-  if (!viewer) return { ok: false, fieldErrors: {}, formError: "Your session has ended. Sign in again; nothing was saved." };
-  if (!isUuid(projectId)) return { ok: false, fieldErrors: {}, formError: "That project was not found." };
-  const result = await updateProjectFor(db, { userId: viewer.id, principal: viewer.principal }, projectId, input);
-  if (result.ok) {
+/** Save a project's fields; authorization (project.edit) and validation happen in the wrapper. */
+export async function updateProjectAction(projectId: string, input: Record<string, unknown>) {
+  const r = await perform(updateProject, { ...input, projectId });
+  if (r.ok) {
     revalidatePath(`/projects/${projectId}`);
     revalidatePath("/projects");
   }
-  return result;
+  return r;
 }

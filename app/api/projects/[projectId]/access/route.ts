@@ -1,8 +1,6 @@
-import { db } from "@/db";
-import { currentViewer } from "@/lib/auth/session";
+import { perform } from "@/lib/actions/request";
+import { resultResponse } from "@/lib/http";
 import { accessOverview } from "@/lib/sharing/invitations";
-import { success } from "@/lib/sharing/outcome";
-import { outcomeResponse } from "@/lib/sharing/http";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
@@ -10,6 +8,6 @@ export const dynamic = "force-dynamic";
 /** GET: the project's client viewers with role and since when (access.share). */
 export async function GET(_req: Request, { params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
-  const r = await accessOverview(db, await currentViewer(), projectId);
-  return outcomeResponse(r.ok ? success({ viewers: r.value.viewers }) : r);
+  const r = await perform(accessOverview, projectId);
+  return resultResponse(r.ok ? { ok: true, value: { viewers: r.value.viewers } } : r);
 }

@@ -1,3 +1,4 @@
+import { crossSiteRefusal, isCrossSite, jsonOk, NO_STORE } from "@/lib/http";
 import { NextResponse } from "next/server";
 import { db } from "@/db";
 import { authorizeProjectApi } from "@/lib/auth/session";
@@ -10,27 +11,13 @@ export const dynamic = "force-dynamic";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
-const noStore = { "cache-control": "no-store" };
-
-/** A browser on another site cannot post here with the viewer's cookies (SameSite=Lax), but refuse a foreign Origin anyway. */
-function foreignOrigin(request: Request): boolean {
-  const origin = request.headers.get("origin");
-  if (!origin) return false;
-  const host = request.headers.get("x-forwarded-host") ?? request.headers.get("host");
-  try {
-    return new URL(origin).host !== host;
-  } catch {
-    return true;
-  }
-}
-
 /** The project's climate datasets (anyone who may view the project). */
 export async function GET(_request: Request, { params }: Ctx) {
   const { projectId } = await params;
   const auth = await authorizeProjectApi(projectId, "project.view");
-  if (!auth.ok) return NextResponse.json(auth.body, { status: auth.status, headers: noStore });
+  if (!auth.ok) return NextResponse.json(auth.body, { status: auth.status, headers: NO_STORE });
   const datasets = await listClimateDatasets(auth.access);
-  return NextResponse.json({ datasets }, { headers: noStore });
+  return jsonOk({ datasets });
 }
 
 /**
@@ -41,15 +28,15 @@ export async function GET(_request: Request, { params }: Ctx) {
 export async function POST(request: Request, { params }: Ctx) {
   const { projectId } = await params;
   const auth = await authorizeProjectApi(projectId, "climate.manage");
-  if (!auth.ok) return NextResponse.json(auth.body, { status: auth.status, headers: noStore });
-  if (foreignOrigin(request)) return NextResponse.json({ error: "Cross-site upload refused." }, { status: 403, headers: noStore });
+  if (!auth.ok) return NextResponse.json(auth.body, { status: auth.status, headers: NO_STORE });
+  if (isCrossSite(request)) return crossSiteRefusal();
   const upload = await readClimateUpload(request);
-  if (!upload.ok) return NextResponse.json(upload.outcome.body, { status: upload.outcome.status, headers: noStore });
+  if (!upload.ok) return NextResponse.json(upload.outcome.body, { status: upload.outcome.status, headers: NO_STORE });
   const { project, viewer } = auth.access;
   const outcome = await importClimateFile(
     db,
     { projectId: project.id, firmId: project.firmId, actorId: viewer.id, siteElevationM: project.elevationM },
     upload.form,
   );
-  return NextResponse.json(outcome.body, { status: outcome.status, headers: noStore });
+  return NextResponse.json(outcome.body, { status: outcome.status, headers: NO_STORE });
 }

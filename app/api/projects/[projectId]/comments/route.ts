@@ -1,9 +1,6 @@
-import { db } from "@/db";
-import { env } from "@/lib/env";
-import { currentViewer } from "@/lib/auth/session";
+import { anonymousRefusal, perform } from "@/lib/actions/request";
+import { crossSiteRefusal, failureResponse, isCrossSite, readJsonBody, resultResponse } from "@/lib/http";
 import { addComment, versionComments } from "@/lib/sharing/comments";
-import { success } from "@/lib/sharing/outcome";
-import { errorResponse, isCrossSite, outcomeResponse, readJsonBody } from "@/lib/sharing/http";
 import { kickMailer } from "@/lib/mail/worker";
 
 export const runtime = "nodejs";
@@ -15,17 +12,20 @@ type Ctx = { params: Promise<{ projectId: string }> };
 export async function GET(req: Request, { params }: Ctx) {
   const { projectId } = await params;
   const versionId = new URL(req.url).searchParams.get("versionId") ?? "";
-  const r = await versionComments(db, await currentViewer(), projectId, versionId);
-  return outcomeResponse(r.ok ? success({ comments: r.value }) : r);
+  const r = await perform(versionComments, projectId, versionId);
+  return resultResponse(r.ok ? { ok: true, value: { comments: r.value } } : r);
 }
 
 /** POST { versionId, body }: comment on an issued version (scenario.comment); the firm is e-mailed. */
 export async function POST(req: Request, { params }: Ctx) {
   const { projectId } = await params;
-  if (isCrossSite(req)) return errorResponse(403, "Cross-site request refused.");
-  const body = (await readJsonBody(req)) as { versionId?: unknown; body?: unknown } | undefined;
-  const versionId = typeof body?.versionId === "string" ? body.versionId : "";
-  const r = await addComment(db, await currentViewer(), projectId, versionId, { body: body?.body }, { appUrl: env().APP_URL });
+  if (isCrossSite(req)) return crossSiteRefusal();
+  const anonymous = await anonymousRefusal();
+  if (anonymous) return failureResponse(anonymous);
+  const body = await readJsonBody(req, 16 * 1024);
+  if (!body.ok) return resultResponse(body);
+  const v = body.value && typeof body.value === "object" ? (body.value as Record<string, unknown>) : {};
+  const r = await perform(addComment, { versionId: v.versionId, body: v.body, projectId });
   if (r.ok) kickMailer();
-  return outcomeResponse(r, 201);
+  return resultResponse(r, 201);
 }

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { after } from "next/server";
 import { auditScenario, authorizeScenarioApi, issuedVersionOf } from "@/lib/scenarios/data";
-import { jsonError } from "@/lib/scenarios/http";
+import { jsonError } from "@/lib/http";
 import { exportDocument } from "@/lib/scenarios/export";
 
 export const runtime = "nodejs";

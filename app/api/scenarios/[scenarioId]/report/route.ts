@@ -1,4 +1,5 @@
-import { downloadHeaders, jsonError, prepareReportRequest, reportFileName } from "@/lib/reports/http";
+import { download, jsonError } from "@/lib/http";
+import { prepareReportRequest, reportFileName } from "@/lib/reports/http";
 import { renderReportPdfOffThread } from "@/lib/reports/pdf/offthread";
 
 export const runtime = "nodejs";
@@ -18,8 +19,5 @@ export async function GET(req: Request, ctx: { params: Promise<{ scenarioId: str
   }
   await prep.audit("pdf", { bytes: pdf.length });
   const name = reportFileName(prep.source, "report", "pdf");
-  return new Response(new Uint8Array(pdf), {
-    status: 200,
-    headers: downloadHeaders(name, "application/pdf", pdf.length),
-  });
+  return download(pdf, name, "application/pdf");
 }

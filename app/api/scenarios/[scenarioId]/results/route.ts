@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { after } from "next/server";
 import { auditScenario, authorizeScenarioApi, draftSource, issuedSource, issuedVersionOf } from "@/lib/scenarios/data";
-import { jsonError } from "@/lib/scenarios/http";
+import { jsonError } from "@/lib/http";
 import { kickJobs } from "@/lib/scenarios/jobs";
 import { monteCarloStatusOf } from "@/lib/scenarios/analysis";
 import { findResult } from "@/db/queries/results";

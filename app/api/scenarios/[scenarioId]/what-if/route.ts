@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { authorizeScenarioApi, draftSource, issuedSource, issuedVersionOf } from "@/lib/scenarios/data";
-import { toFieldErrors } from "@/components/forms/errors";
-import { jsonError, readJsonBody } from "@/lib/scenarios/http";
+import { toFieldErrors } from "@/lib/result";
+import { jsonError, readJsonBody, resultResponse } from "@/lib/http";
 import { computeWhatIf, whatIfBodySchema, WHAT_IF_MAX_BYTES } from "@/lib/scenarios/what-if";
 
 export const runtime = "nodejs";
@@ -16,7 +16,7 @@ export async function POST(request: Request, { params }: { params: Promise<{ sce
   const auth = await authorizeScenarioApi(scenarioId, "scenario.whatIf", { withClimateData: false });
   if (!auth.ok) return jsonError(auth.status, auth.error);
   const body = await readJsonBody(request, WHAT_IF_MAX_BYTES);
-  if (!body.ok) return body.response;
+  if (!body.ok) return resultResponse(body);
   const parsed = whatIfBodySchema.safeParse(body.value);
   if (!parsed.success) return jsonError(422, "The what-if values are not valid.", { fieldErrors: toFieldErrors(parsed.error.issues) });
 

@@ -1,4 +1,5 @@
-import { downloadHeaders, jsonError, prepareReportRequest, reportFileName } from "@/lib/reports/http";
+import { download, jsonError } from "@/lib/http";
+import { prepareReportRequest, reportFileName } from "@/lib/reports/http";
 import { buildWorkbook } from "@/lib/reports/workbook";
 
 export const runtime = "nodejs";
@@ -20,8 +21,5 @@ export async function GET(req: Request, ctx: { params: Promise<{ scenarioId: str
   }
   await prep.audit("xlsx", { bytes: xlsx.length });
   const name = reportFileName(prep.source, "cash-flows", "xlsx");
-  return new Response(new Uint8Array(xlsx), {
-    status: 200,
-    headers: downloadHeaders(name, XLSX, xlsx.length),
-  });
+  return download(xlsx, name, XLSX);
 }

@@ -1,8 +1,7 @@
 "use client";
 
 import { useActionState } from "react";
-import type { FormState } from "@/lib/sharing/form-state";
-import { IDLE } from "@/lib/sharing/form-state";
+import { failureText, type ActionState } from "@/components/forms/action-form";
 
 /** A one-button form for a destructive action, with a confirmation and the refusal shown beside it. */
 export function ConfirmButton({
@@ -11,12 +10,12 @@ export function ConfirmButton({
   confirm,
   testId,
 }: {
-  action: (prev: FormState, form: FormData) => Promise<FormState>;
+  action: (prev: ActionState, form: FormData) => Promise<ActionState>;
   label: string;
   confirm: string;
   testId: string;
 }) {
-  const [state, run, pending] = useActionState(action, IDLE);
+  const [state, run, pending] = useActionState(action, null);
   return (
     <form
       action={run}
@@ -33,9 +32,9 @@ export function ConfirmButton({
       >
         {pending ? "…" : label}
       </button>
-      {state.status === "error" && (
+      {state && !state.ok && (
         <span role="status" className="text-xs text-danger-700">
-          {state.message}
+          {failureText(state)}
         </span>
       )}
     </form>

@@ -1,15 +1,14 @@
 "use client";
 
 import { useActionState, useEffect, useRef } from "react";
-import { Field, FormMessage, submitKeepingFields } from "@/app/invite/_components/form-bits";
-import { IDLE } from "@/lib/sharing/form-state";
+import { Field, FormMessage, submitKeepingFields } from "@/components/forms/action-form";
 import { inviteAction } from "../actions";
 
 export function InviteForm({ projectId }: { projectId: string }) {
-  const [state, action, pending] = useActionState(inviteAction.bind(null, projectId), IDLE);
+  const [state, action, pending] = useActionState(inviteAction.bind(null, projectId), null);
   const formRef = useRef<HTMLFormElement>(null);
   useEffect(() => {
-    if (state.status === "ok") formRef.current?.reset();
+    if (state?.ok) formRef.current?.reset();
   }, [state]);
   return (
     <form ref={formRef} onSubmit={submitKeepingFields(action)} className="grid gap-4 md:grid-cols-[2fr_1fr_auto] md:items-start" data-testid="invite-form" noValidate>
@@ -35,7 +34,11 @@ export function InviteForm({ projectId }: { projectId: string }) {
         </button>
       </div>
       <div className="md:col-span-3">
-        <FormMessage state={state} testId="invite-message" />
+        <FormMessage
+          state={state}
+          testId="invite-message"
+          success={(v) => `Invitation for ${v.email} (${v.role}) saved; the e-mail is on its way. Its delivery shows below.`}
+        />
       </div>
     </form>
   );

@@ -4,7 +4,7 @@ import { useId, useState } from "react";
 import { useRouter } from "next/navigation";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/forms/field-shell";
-import { toFieldErrors, type FieldErrorMap } from "@/components/forms/errors";
+import { toFieldErrors, type FieldErrorMap } from "@/lib/result";
 import { BIN_FIELDS, binTableSubmissionSchema } from "@/lib/climate/bins-schema";
 import { parsePastedBins } from "@/lib/climate/paste";
 import { formatNumber, inputText, parseNumberInput, toSI, unitLabel, type UnitSystem } from "@/lib/units";
@@ -108,15 +108,13 @@ export function BinTableEditor({ projectId, unitSystem }: { projectId: string; u
     setPending(true);
     try {
       const r = await saveBinTableAction(projectId, check.data);
-      if (r.ok && r.data) {
-        router.push(`/projects/${projectId}/climate/${r.data.datasetId}`);
+      if (r.ok) {
+        router.push(`/projects/${projectId}/climate/${r.value.datasetId}`);
         router.refresh();
         return;
       }
-      if (!r.ok) {
-        setServerErrors(r.fieldErrors);
-        setFormError(r.formError ?? null);
-      }
+      setServerErrors(r.fieldErrors ?? {});
+      setFormError(r.fieldErrors ? null : r.error);
     } finally {
       setPending(false);
     }

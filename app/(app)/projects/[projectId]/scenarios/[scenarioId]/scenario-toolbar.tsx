@@ -1,4 +1,5 @@
 import { ButtonLink } from "@/components/ui/button";
+import { ActionButton } from "@/components/forms/action-form";
 import { archiveScenarioAction, cloneScenarioAction } from "./actions";
 
 /** Edit, clone, export and issue, for those allowed. Plain forms: they work before hydration and by keyboard. */
@@ -20,11 +21,12 @@ export function ScenarioToolbar({
     <div className="flex flex-wrap gap-2">
       {canEdit && !archived ? <ButtonLink href={`${base}/edit`}>Edit inputs</ButtonLink> : null}
       {canEdit ? (
-        <form action={cloneScenarioAction.bind(null, projectId, scenarioId)}>
-          <button type="submit" className="inline-flex items-center justify-center gap-2 rounded-md border border-line-strong bg-paper-raised px-3.5 py-2 text-sm font-medium text-ink hover:bg-paper-sunk">
-            Clone
-          </button>
-        </form>
+        <ActionButton
+          action={cloneScenarioAction.bind(null, projectId, scenarioId)}
+          className="inline-flex items-center justify-center gap-2 rounded-md border border-line-strong bg-paper-raised px-3.5 py-2 text-sm font-medium text-ink hover:bg-paper-sunk"
+        >
+          Clone
+        </ActionButton>
       ) : null}
       <a
         href={`/api/scenarios/${scenarioId}/export`}
@@ -37,15 +39,13 @@ export function ScenarioToolbar({
         {canIssue ? "Issue / versions" : "Issued versions"}
       </ButtonLink>
       {canEdit ? (
-        <form action={archiveScenarioAction.bind(null, projectId, scenarioId, !archived)}>
-          <button
-            type="submit"
-            className="inline-flex items-center justify-center gap-2 rounded-md px-3.5 py-2 text-sm font-medium text-ink-soft hover:bg-paper-sunk"
-            title={archived ? "Show it in the project's list again" : "Hide it from the project's list; issued versions stay visible to clients"}
-          >
-            {archived ? "Restore" : "Archive"}
-          </button>
-        </form>
+        <ActionButton
+          action={archiveScenarioAction.bind(null, projectId, scenarioId, !archived)}
+          className="inline-flex items-center justify-center gap-2 rounded-md px-3.5 py-2 text-sm font-medium text-ink-soft hover:bg-paper-sunk"
+          title={archived ? "Show it in the project's list again" : "Hide it from the project's list; issued versions stay visible to clients"}
+        >
+          {archived ? "Restore" : "Archive"}
+        </ActionButton>
       ) : null}
     </div>
   );

@@ -1,12 +1,14 @@
 "use client";
 
 import { useActionState } from "react";
-import { createScenarioAction, type CreateScenarioState } from "../actions";
+import { failureText, type ActionState } from "@/components/forms/action-form";
+import { createScenarioAction } from "../actions";
 
 /** Name + climate dataset → a new scenario from the defaults, opened in the editor. */
 export function NewScenarioForm({ projectId, datasets }: { projectId: string; datasets: { id: string; name: string; detail: string }[] }) {
-  const [state, action, pending] = useActionState<CreateScenarioState, FormData>(createScenarioAction.bind(null, projectId), null);
-  const err = (k: string) => state?.fieldErrors[k]?.join(" ");
+  const [state, action, pending] = useActionState<ActionState, FormData>(createScenarioAction.bind(null, projectId), null);
+  const err = (k: string) => (state && !state.ok ? state.fieldErrors?.[k]?.join(" ") : undefined);
+  const formError = state && !state.ok && !state.fieldErrors ? failureText(state) : null;
   return (
     <form action={action} className="grid gap-3 md:grid-cols-[1fr_1fr_auto] md:items-end" data-testid="new-scenario-form">
       <div>
@@ -57,9 +59,9 @@ export function NewScenarioForm({ projectId, datasets }: { projectId: string; da
           {pending ? "Creating…" : "New scenario"}
         </button>
       </div>
-      {state?.formError ? (
+      {formError ? (
         <p role="alert" className="text-sm text-danger-700 md:col-span-3">
-          {state.formError}
+          {formError}
         </p>
       ) : null}
     </form>

@@ -1,7 +1,6 @@
-import { db } from "@/db";
-import { currentViewer } from "@/lib/auth/session";
+import { perform } from "@/lib/actions/request";
+import { crossSiteRefusal, isCrossSite, resultResponse } from "@/lib/http";
 import { revokeViewerAccess } from "@/lib/sharing/access";
-import { errorResponse, isCrossSite, outcomeResponse } from "@/lib/sharing/http";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
@@ -9,6 +8,6 @@ export const dynamic = "force-dynamic";
 /** DELETE: revoke a client viewer's access (access.revoke); effective at their next request. */
 export async function DELETE(req: Request, { params }: { params: Promise<{ projectId: string; userId: string }> }) {
   const { projectId, userId } = await params;
-  if (isCrossSite(req)) return errorResponse(403, "Cross-site request refused.");
-  return outcomeResponse(await revokeViewerAccess(db, await currentViewer(), projectId, userId));
+  if (isCrossSite(req)) return crossSiteRefusal();
+  return resultResponse(await perform(revokeViewerAccess, { projectId, userId }));
 }

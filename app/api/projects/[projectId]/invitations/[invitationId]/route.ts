@@ -1,7 +1,6 @@
-import { db } from "@/db";
-import { currentViewer } from "@/lib/auth/session";
+import { perform } from "@/lib/actions/request";
+import { crossSiteRefusal, isCrossSite, resultResponse } from "@/lib/http";
 import { revokeInvitation } from "@/lib/sharing/invitations";
-import { errorResponse, isCrossSite, outcomeResponse } from "@/lib/sharing/http";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
@@ -9,6 +8,6 @@ export const dynamic = "force-dynamic";
 /** DELETE: withdraw an open invitation (access.revoke). */
 export async function DELETE(req: Request, { params }: { params: Promise<{ projectId: string; invitationId: string }> }) {
   const { projectId, invitationId } = await params;
-  if (isCrossSite(req)) return errorResponse(403, "Cross-site request refused.");
-  return outcomeResponse(await revokeInvitation(db, await currentViewer(), projectId, invitationId));
+  if (isCrossSite(req)) return crossSiteRefusal();
+  return resultResponse(await perform(revokeInvitation, { projectId, invitationId }));
 }

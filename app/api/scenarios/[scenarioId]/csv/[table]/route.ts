@@ -1,5 +1,6 @@
 import { buildCsv, isCsvTable } from "@/lib/reports/csv";
-import { downloadHeaders, jsonError, prepareReportRequest, reportFileName } from "@/lib/reports/http";
+import { download, jsonError } from "@/lib/http";
+import { prepareReportRequest, reportFileName } from "@/lib/reports/http";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
@@ -14,8 +15,5 @@ export async function GET(req: Request, ctx: { params: Promise<{ scenarioId: str
   const body = Buffer.from("\ufeff" + buildCsv(prep.source, table), "utf8");
   await prep.audit("csv", { table, bytes: body.length });
   const name = reportFileName(prep.source, table, "csv");
-  return new Response(new Uint8Array(body), {
-    status: 200,
-    headers: downloadHeaders(name, "text/csv; charset=utf-8", body.length),
-  });
+  return download(body, name, "text/csv; charset=utf-8");
 }

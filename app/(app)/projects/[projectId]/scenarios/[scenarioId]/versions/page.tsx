@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { forbidden, notFound } from "next/navigation";
-import { db } from "@/db";
+import { perform } from "@/lib/actions/request";
 import { requireViewer } from "@/lib/auth/session";
 import { scenarioVersions } from "@/lib/sharing/versions";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
@@ -13,8 +13,8 @@ export const metadata: Metadata = { title: "Issued versions" };
 /** A scenario's issued versions; for the firm also the form that issues the draft as the next one. */
 export default async function VersionsPage({ params }: { params: Promise<{ projectId: string; scenarioId: string }> }) {
   const { projectId, scenarioId } = await params;
-  const viewer = await requireViewer();
-  const r = await scenarioVersions(db, viewer, projectId, scenarioId);
+  await requireViewer();
+  const r = await perform(scenarioVersions, projectId, scenarioId);
   if (!r.ok) return r.status === 403 ? forbidden() : notFound();
   const { access, draft, versions } = r.value;
   const title = draft?.name ?? versions[0]?.name ?? "Scenario";

@@ -33,7 +33,7 @@ import { statusBySection, validateEditorValues, type EditorProblem } from "@/lib
 import { placeOf, placeText, type MessageContext } from "@/lib/scenarios/field-messages";
 import { OPTION_KIND_LABELS } from "@/lib/engine/types";
 import type { UnitSystem } from "@/lib/units";
-import { cloneScenarioAction, saveScenarioAction, type SaveScenarioResult } from "../../actions";
+import { cloneScenarioAction, saveScenarioAction } from "../../actions";
 import { toFormErrors } from "./form-errors";
 import {
   DutySection,
@@ -190,7 +190,7 @@ export function ScenarioEditor(props: {
       setShowSummary(false);
       startTransition(async () => {
         const { climateDatasetId, ...document } = values;
-        let r: SaveScenarioResult;
+        let r: Awaited<ReturnType<typeof saveScenarioAction>>;
         try {
           r = await saveScenarioAction(projectId, scenarioId, {
             revision,
@@ -206,30 +206,32 @@ export function ScenarioEditor(props: {
           return;
         }
         if (r.ok) {
-          setRevision(r.revision);
+          const v = r.value;
+          setRevision(v.revision);
           setFormMessages([]);
           form.reset(form.getValues(), { keepValues: true });
           setBanner({
             kind: "saved",
             text:
-              `Saved as revision ${r.revision}. ` +
-              (r.reusedResult
+              `Saved as revision ${v.revision}. ` +
+              (v.reusedResult
                 ? "The stored result for these inputs was reused."
-                : `Analysed in ${(r.analysisMs / 1000).toFixed(1)} s.`) +
-              (r.firstCostsMissing.length > 0
-                ? ` First costs are still missing for ${r.firstCostsMissing.join(", ")}: the life-cycle cost waits for them.`
+                : `Analysed in ${(v.analysisMs / 1000).toFixed(1)} s.`) +
+              (v.firstCostsMissing.length > 0
+                ? ` First costs are still missing for ${v.firstCostsMissing.join(", ")}: the life-cycle cost waits for them.`
                 : "") +
-              (r.monteCarlo === "queued" || r.monteCarlo === "running"
+              (v.monteCarlo === "queued" || v.monteCarlo === "running"
                 ? " Monte Carlo runs in the background."
                 : ""),
           });
           return;
         }
-        if (r.kind === "invalid") {
+        const problems = r.detail?.problems;
+        if (problems) {
           // Field problems go onto their fields and into the summary; only form-level ones stay as text.
           const fieldProblems: EditorProblem[] = [];
           const formLevel: string[] = [];
-          for (const p of r.problems) {
+          for (const p of problems) {
             if (!p.path) formLevel.push(p.message);
             else fieldProblems.push(p);
           }
@@ -245,14 +247,18 @@ export function ScenarioEditor(props: {
           setFormMessages(formLevel);
           setShowSummary(true);
           setSummaryFocus((n) => n + 1);
-          setBanner({ kind: "error", text: r.message });
+          setBanner({ kind: "error", text: r.error });
           return;
         }
-        if (r.kind === "conflict") {
-          setBanner({ kind: "conflict", text: r.message, currentRevision: r.currentRevision });
+        const conflict = r.detail?.conflict;
+        if (conflict) {
+          setBanner({ kind: "conflict", text: r.error, currentRevision: conflict.currentRevision });
           return;
         }
-        setBanner({ kind: "error", text: r.message });
+        setBanner({
+          kind: "error",
+          text: r.status === 401 ? "Your session has ended: sign in again (your edits stay in this tab)." : r.error,
+        });
       });
     },
     [form, projectId, revision, scenarioId, store],
@@ -455,7 +461,10 @@ export function ScenarioEditor(props: {
                       : "Make a copy of this scenario and open it?";
                     if (!window.confirm(note)) return;
                     dirtyRef.current = false;
-                    startTransition(() => cloneScenarioAction(projectId, scenarioId));
+                    startTransition(async () => {
+                      const r = await cloneScenarioAction(projectId, scenarioId);
+                      if (!r.ok) setBanner({ kind: "error", text: r.error });
+                    });
                   }}
                 >
                   Clone

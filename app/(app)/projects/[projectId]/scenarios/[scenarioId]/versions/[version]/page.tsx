@@ -1,12 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { forbidden, notFound } from "next/navigation";
-import { db } from "@/db";
+import { perform } from "@/lib/actions/request";
 import { requireViewer } from "@/lib/auth/session";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { openIssuedVersion, parseVersionParam } from "@/lib/sharing/versions";
 import { versionComments } from "@/lib/sharing/comments";
-import { formatWhen } from "@/lib/sharing/form-state";
+import { formatWhen } from "@/lib/dates";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { ComparisonView } from "@/components/comparison/comparison-view";
 import { DownloadLinks, reportRights } from "@/components/reports/download-links";
@@ -18,13 +18,13 @@ export const metadata: Metadata = { title: "Issued version" };
 /** One issued version: frozen inputs and result, read-only, with the comment thread. */
 export default async function VersionPage({ params }: { params: Promise<{ projectId: string; scenarioId: string; version: string }> }) {
   const { projectId, scenarioId, version } = await params;
-  const viewer = await requireViewer();
+  await requireViewer();
   const n = parseVersionParam(version);
   if (n === null) notFound();
-  const opened = await openIssuedVersion(db, viewer, projectId, scenarioId, n);
+  const opened = await perform(openIssuedVersion, projectId, scenarioId, n);
   if (!opened.ok) return opened.status === 403 ? forbidden() : notFound();
   const { access, version: v } = opened.value;
-  const comments = await versionComments(db, viewer, projectId, v.id);
+  const comments = await perform(versionComments, projectId, v.id);
   const isFirm = access.can("scenario.viewDraft");
   const drawable = displayableVersion(v.input, v.result);
   return (

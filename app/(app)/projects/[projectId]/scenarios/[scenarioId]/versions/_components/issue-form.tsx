@@ -1,12 +1,11 @@
 "use client";
 
 import { useActionState } from "react";
-import { FormMessage, submitKeepingFields } from "@/app/invite/_components/form-bits";
-import { IDLE } from "@/lib/sharing/form-state";
+import { FormMessage, submitKeepingFields, type ActionState } from "@/components/forms/action-form";
 import { issueAction } from "../actions";
 
 export function IssueForm({ projectId, scenarioId, nextNumber }: { projectId: string; scenarioId: string; nextNumber: number }) {
-  const [state, action, pending] = useActionState(issueAction.bind(null, projectId, scenarioId), IDLE);
+  const [state, action, pending] = useActionState<ActionState, FormData>(issueAction.bind(null, projectId, scenarioId), null);
   return (
     <form onSubmit={submitKeepingFields(action)} className="space-y-3" data-testid="issue-form">
       <div>

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import type { IssuedVersionSummary } from "@/lib/sharing/versions";
-import { formatWhen } from "@/lib/sharing/form-state";
+import { formatWhen } from "@/lib/dates";
 
 /** Issued versions as a table linking each to its page. */
 export function VersionList({

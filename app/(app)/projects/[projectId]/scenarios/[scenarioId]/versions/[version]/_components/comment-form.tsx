@@ -1,17 +1,16 @@
 "use client";
 
 import { useActionState, useEffect, useRef } from "react";
-import { FormMessage, submitKeepingFields } from "@/app/invite/_components/form-bits";
-import { IDLE } from "@/lib/sharing/form-state";
+import { FormMessage, submitKeepingFields, type ActionState } from "@/components/forms/action-form";
 import { commentAction } from "../../actions";
 
 export function CommentForm({ projectId, versionId }: { projectId: string; versionId: string }) {
-  const [state, action, pending] = useActionState(commentAction.bind(null, projectId, versionId), IDLE);
+  const [state, action, pending] = useActionState<ActionState, FormData>(commentAction.bind(null, projectId, versionId), null);
   const ref = useRef<HTMLFormElement>(null);
   useEffect(() => {
-    if (state.status === "ok") ref.current?.reset();
+    if (state?.ok) ref.current?.reset();
   }, [state]);
-  const errors = state.status === "error" ? state.fieldErrors?.body : undefined;
+  const errors = state && !state.ok ? state.fieldErrors?.body : undefined;
   return (
     <form ref={ref} onSubmit={submitKeepingFields(action)} className="space-y-3" data-testid="comment-form">
       <label htmlFor="comment-body" className="block text-sm font-medium">
@@ -32,7 +31,7 @@ export function CommentForm({ projectId, versionId }: { projectId: string; versi
           {errors.join(" ")}
         </p>
       ) : null}
-      <FormMessage state={state} testId="comment-message" />
+      <FormMessage state={state} testId="comment-message" success="Comment posted. The consultants have been notified." />
       <button
         type="submit"
         disabled={pending}

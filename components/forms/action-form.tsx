@@ -1,12 +1,21 @@
 "use client";
 
-import { startTransition, type FormEvent, type ReactNode } from "react";
-import type { FormState } from "@/lib/sharing/form-state";
+import { startTransition, useActionState, type FormEvent, type ReactNode } from "react";
+import type { Result } from "@/lib/result";
+import { errorIdOf, hintIdOf } from "./errors";
 
 /**
- * Small form pieces shared by LoopLedger's sharing and account forms (server actions + useActionState):
- * a labelled input whose errors are announced and tied to it, and the form-level message.
+ * Small form pieces of the forms that post to a server action through useActionState: a labelled input
+ * whose errors are announced and tied to it, and the form-level message. The action's state is its
+ * `Result` (null before the first submit).
  */
+export type ActionState<T = unknown> = Result<T, unknown> | null;
+
+/** The sentence over a refusal: a 401 tells the person their session has ended. */
+export function failureText(state: ActionState): string | null {
+  if (!state || state.ok) return null;
+  return state.status === 401 ? "Your session has ended. Sign in again." : state.error;
+}
 export function Field({
   id,
   name,
@@ -24,7 +33,7 @@ export function Field({
   name: string;
   label: string;
   type?: string;
-  state: FormState;
+  state: ActionState;
   hint?: ReactNode;
   autoComplete?: string;
   defaultValue?: string;
@@ -32,9 +41,9 @@ export function Field({
   readOnly?: boolean;
   children?: ReactNode;
 }) {
-  const errors = state.status === "error" ? state.fieldErrors?.[name] : undefined;
-  const errorId = `${id}-error`;
-  const hintId = `${id}-hint`;
+  const errors = state && !state.ok ? state.fieldErrors?.[name] : undefined;
+  const errorId = errorIdOf(id);
+  const hintId = hintIdOf(id);
   const describedBy = [hint ? hintId : null, errors?.length ? errorId : null].filter(Boolean).join(" ") || undefined;
   const cls = `mt-1 w-full rounded-md border bg-paper-raised px-3 py-2 text-sm ${errors?.length ? "border-danger-600" : "border-line-strong"} ${readOnly ? "bg-paper-sunk text-ink-soft" : ""}`;
   return (
@@ -76,17 +85,28 @@ export function Field({
   );
 }
 
-export function FormMessage({ state, testId = "form-message" }: { state: FormState; testId?: string }) {
+/** The form-level message: the refusal's sentence, or `success` (of the value) once the action succeeded. */
+export function FormMessage<T>({
+  state,
+  success,
+  testId = "form-message",
+}: {
+  state: ActionState<T>;
+  success?: string | ((value: T) => string);
+  testId?: string;
+}) {
+  const error = failureText(state);
+  const done = state?.ok ? (typeof success === "function" ? success(state.value) : success) : null;
   return (
     <div aria-live="polite" role="status">
-      {state.status === "error" && (
+      {error && (
         <p data-testid={testId} className="rounded-md bg-danger-50 px-3 py-2 text-sm text-danger-700">
-          {state.message}
+          {error}
         </p>
       )}
-      {state.status === "ok" && (
+      {done && (
         <p data-testid={testId} className="rounded-md bg-ok-50 px-3 py-2 text-sm text-ok-600">
-          {state.message}
+          {done}
         </p>
       )}
     </div>
@@ -103,4 +123,25 @@ export function submitKeepingFields(dispatch: (form: FormData) => void) {
     const form = new FormData(e.currentTarget);
     startTransition(() => dispatch(form));
   };
+}
+
+/**
+ * A one-button form for a server action that needs no fields (clone, archive): it works by keyboard, and a
+ * refusal is shown beside the button instead of an error page.
+ */
+export function ActionButton({ action, children, className, title }: { action: () => Promise<ActionState>; children: ReactNode; className?: string; title?: string }) {
+  const [state, run, pending] = useActionState<ActionState, FormData>(() => action(), null);
+  const error = failureText(state);
+  return (
+    <form action={run} className="inline-flex items-center gap-2">
+      <button type="submit" disabled={pending} className={className} title={title}>
+        {children}
+      </button>
+      {error && (
+        <span role="status" className="text-xs text-danger-700">
+          {error}
+        </span>
+      )}
+    </form>
+  );
 }

@@ -1,0 +1,136 @@
+import "server-only";
+import { NextResponse } from "next/server";
+import { env } from "@/lib/env";
+import { fail, type Failure, type Result } from "@/lib/result";
+
+/**
+ * The one HTTP helper module of the route handlers: JSON answers (errors always `{ error, fieldErrors? }`),
+ * a byte-limited body reader, the cross-site check for state-changing requests and download headers.
+ */
+
+/** Nothing a route answers is cached by the browser or a proxy: every answer depends on the viewer. */
+export const NO_STORE = { "cache-control": "private, no-store" } as const;
+
+/** A JSON error answer: `{ error, ...extra }` (extra: `fieldErrors` by dotted input path, limits, …). */
+export function jsonError(status: number, error: string, extra: Record<string, unknown> = {}): NextResponse {
+  return NextResponse.json({ error, ...extra }, { status, headers: NO_STORE });
+}
+
+/** A JSON answer with a value. */
+export function jsonOk(value: unknown, status = 200): NextResponse {
+  return NextResponse.json(value, { status, headers: NO_STORE });
+}
+
+/** A failure as JSON: its status with `{ error, fieldErrors?, detail? }`. */
+export function failureResponse(f: Failure<unknown>): NextResponse {
+  return jsonError(f.status, f.error, {
+    ...(f.fieldErrors ? { fieldErrors: f.fieldErrors } : {}),
+    ...(f.detail !== undefined ? { detail: f.detail } : {}),
+  });
+}
+
+/** A result as JSON: `okStatus` with the value, or the failure's status with its error and field errors. */
+export function resultResponse<T>(r: Result<T, unknown>, okStatus = 200): NextResponse {
+  return r.ok ? jsonOk(r.value, okStatus) : failureResponse(r);
+}
+
+/**
+ * Read a request body, refusing it as soon as it passes `limitBytes` (a Content-Length above the limit is
+ * refused before anything is read; a chunked or mis-declared body is counted in bytes as it streams).
+ */
+export async function readBodyLimited(
+  request: Request,
+  limitBytes: number,
+): Promise<{ ok: true; bytes: Uint8Array } | { ok: false; reason: "tooLarge" | "empty" }> {
+  const declared = Number(request.headers.get("content-length") ?? NaN);
+  if (Number.isFinite(declared) && declared > limitBytes) return { ok: false, reason: "tooLarge" };
+  if (!request.body) return { ok: false, reason: "empty" };
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > limitBytes) {
+      await reader.cancel().catch(() => undefined);
+      return { ok: false, reason: "tooLarge" };
+    }
+    chunks.push(value);
+  }
+  const bytes = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    bytes.set(c, at);
+    at += c.byteLength;
+  }
+  return { ok: true, bytes };
+}
+
+/** "16 kB", "5 MB": a limit in words for an error message. */
+export function bytesInWords(n: number): string {
+  if (n < 1e6) return `${Math.round(n / 1e3)} kB`;
+  return `${(n / 1e6).toLocaleString("en-US", { maximumFractionDigits: 1 })} MB`;
+}
+
+/**
+ * A JSON request body of at most `maxBytes` (counted in bytes, not characters). 415 for another content
+ * type, 413 when too large, 400 for an empty body or text that is not JSON.
+ */
+export async function readJsonBody(request: Request, maxBytes: number): Promise<Result<unknown>> {
+  const type = request.headers.get("content-type") ?? "";
+  if (!/^application\/(.+\+)?json\b/i.test(type)) {
+    return fail(415, "Send the document as JSON (Content-Type: application/json).");
+  }
+  const body = await readBodyLimited(request, maxBytes);
+  if (!body.ok) {
+    return body.reason === "tooLarge"
+      ? fail(413, `The body is larger than ${bytesInWords(maxBytes)}.`)
+      : fail(400, "The request has no body.");
+  }
+  try {
+    return { ok: true, value: JSON.parse(new TextDecoder().decode(body.bytes)) as unknown };
+  } catch (err) {
+    return fail(400, `The body is not valid JSON: ${(err as Error).message}`);
+  }
+}
+
+/**
+ * A state-changing request must come from LoopLedger's own pages or from a client that sends no Origin
+ * (a script with the session cookie). Browsers send Origin on cross-site POST/DELETE; refusing a foreign
+ * one closes the cross-site request forgery door that SameSite=Lax leaves ajar on some browsers.
+ */
+export function isCrossSite(request: Request): boolean {
+  const origin = request.headers.get("origin");
+  if (!origin) return request.headers.get("sec-fetch-site") === "cross-site";
+  const allowed = new Set([new URL(env().APP_URL).origin, new URL(env().NEXTAUTH_URL).origin]);
+  const host = request.headers.get("x-forwarded-host") ?? request.headers.get("host");
+  if (host) allowed.add(`${new URL(request.url).protocol}//${host}`);
+  return !allowed.has(origin);
+}
+
+/** The 403 a cross-site state-changing request gets. */
+export const crossSiteRefusal = (): NextResponse => jsonError(403, "Cross-site request refused.");
+
+/** Headers of a file download (the name must be ASCII already; filename* repeats it per RFC 6266). */
+export function downloadHeaders(
+  fileName: string,
+  contentType: string,
+  length: number,
+): Record<string, string> {
+  return {
+    ...NO_STORE,
+    "content-type": contentType,
+    "content-length": String(length),
+    "content-disposition": `attachment; filename="${fileName}"; filename*=UTF-8''${encodeURIComponent(fileName)}`,
+    "x-content-type-options": "nosniff",
+  };
+}
+
+/** A file download answer. */
+export function download(bytes: Uint8Array, fileName: string, contentType: string): Response {
+  return new Response(new Uint8Array(bytes), {
+    status: 200,
+    headers: downloadHeaders(fileName, contentType, bytes.byteLength),
+  });
+}
