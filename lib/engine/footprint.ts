@@ -8,8 +8,11 @@
  * (100-year, from the IPCC assessment report named in the project; ammonia 0).
  * Optional carbon price: cost per year = emissions (t) × price per t CO₂e, escalated on its own stream.
  */
+import type { CondenserPlan } from "./condenser-plan";
 import type { Sourced } from "./condenser-construction";
-import type { WaterByComponentM3 } from "./types";
+import type { FootprintInput } from "./input";
+import { GWP_REPORT_LABELS, type GwpReport, type Refrigerant, REFRIGERANT_LABELS, globalWarmingPotential100 } from "./refrigerants";
+import type { OptionAnnualPhysics, WaterByComponentM3 } from "./types";
 
 /** Default grid factor: recalled, with its data year. */
 export const DEFAULT_GRID_EMISSION_FACTOR: Sourced<{ kgCO2ePerKWh: number; dataYear: number }> = {
@@ -91,4 +94,60 @@ export function emissionsFootprint(args: {
 /** Carbon cost per year at base-date prices: emissions (kg) / 1000 × price per tonne CO₂e. */
 export function carbonCostPerYear(emissionsKgCO2e: number, pricePerTonneCO2e: number): number {
   return (emissionsKgCO2e / 1000) * pricePerTonneCO2e;
+}
+
+export interface OptionFootprint {
+  optionId: string;
+  water: WaterFootprint;
+  emissions: EmissionsFootprint;
+  /** Electricity counted, kWh per year (the energy the life-cycle cost prices). */
+  electricityKWh: number;
+  inventoryKg: number;
+}
+
+export interface ScenarioFootprint {
+  refrigerant: Refrigerant;
+  refrigerantLabel: string;
+  gwp100: number;
+  gwpReport: GwpReport;
+  gwpReportLabel: string;
+  gridFactorKgCO2ePerKWh: number;
+  gridFactorYear: number;
+  gridFactorSource: string;
+  annualLeakFraction: number;
+  options: OptionFootprint[];
+}
+
+/** Every option's footprint from its yearly physics and condenser plan (same order as the physics). */
+export function scenarioFootprint(physics: OptionAnnualPhysics[], plans: CondenserPlan[], refrigerant: Refrigerant, f: FootprintInput): ScenarioFootprint {
+  const gwp = globalWarmingPotential100(refrigerant, f.gwpReport);
+  const inventory = new Map(plans.map((p) => [p.optionId, p.inventoryKg]));
+  return {
+    refrigerant,
+    refrigerantLabel: REFRIGERANT_LABELS[refrigerant],
+    gwp100: gwp,
+    gwpReport: f.gwpReport,
+    gwpReportLabel: GWP_REPORT_LABELS[f.gwpReport],
+    gridFactorKgCO2ePerKWh: f.gridEmissionFactorKgCO2ePerKWh,
+    gridFactorYear: f.gridEmissionFactorYear,
+    gridFactorSource: f.gridEmissionFactorSource,
+    annualLeakFraction: f.annualLeakFraction,
+    options: physics.map((p) => {
+      const inv = inventory.get(p.optionId) ?? 0;
+      return {
+        optionId: p.optionId,
+        water: waterFootprint(p.waterM3, p.heatRejectedKWh),
+        electricityKWh: p.energyKWh.total,
+        inventoryKg: inv,
+        emissions: emissionsFootprint({
+          electricityKWh: p.energyKWh.total,
+          gridFactorKgCO2ePerKWh: f.gridEmissionFactorKgCO2ePerKWh,
+          inventoryKg: inv,
+          annualLeakFraction: f.annualLeakFraction,
+          gwp100: gwp,
+          heatRejectedKWh: p.heatRejectedKWh,
+        }),
+      };
+    }),
+  };
 }

@@ -15,6 +15,8 @@ import { type ClimateCompression, compressHourlyYear, prepareCompressedClimate }
 import { optionVariant } from "./annual/variants";
 import { physicsNear } from "./what-if";
 import { climateYearWarnings, toClimateYear } from "./climate/input";
+import { type CondenserPlan, condenserPlans, economicsOptionsOf, inventoryWarnings, optionsWithCondenserPlans } from "./condenser-plan";
+import { type ScenarioFootprint, scenarioFootprint } from "./footprint";
 import { type ClimateSummary, summarizeClimate } from "./climate/summary";
 import type { ClimateYear } from "./climate/types";
 import { analyzeEconomics } from "./economics";
@@ -27,6 +29,8 @@ import { ENGINE_VERSION } from "./version";
 export { ENGINE_VERSION } from "./version";
 export type { ScenarioInput } from "./input";
 export type { PhysicsOverrides } from "./economics/types";
+export type { CondenserPlan } from "./condenser-plan";
+export type { OptionFootprint, ScenarioFootprint } from "./footprint";
 
 export interface ScenarioResult {
   engineVersion: string;
@@ -37,6 +41,10 @@ export interface ScenarioResult {
   climateSummary: ClimateSummary & { sitePressurePa: number };
   /** The compressor model every option's compressor energy comes from. */
   compressor?: CompressorSummary;
+  /** Each option's condenser as built and kept (absent from results stored before engine 2.1). */
+  condensers?: CondenserPlan[];
+  /** Each option's water and carbon footprint (absent from results stored before engine 2.1). */
+  footprint?: ScenarioFootprint;
   warnings: EngineWarning[];
 }
 
@@ -47,6 +55,8 @@ export interface PreparedScenario {
   year: ClimateYear;
   climate: PreparedClimate;
   options: PreparedOption[];
+  /** Each option's condenser plan (construction, inventory, upkeep), resolved once. */
+  plans: CondenserPlan[];
   foulingCostCache: Map<string, number>;
   /** Climates prepared for what-if runs, by resolution and shift (built on first use). */
   climateCache: Map<string, PreparedClimate>;
@@ -67,12 +77,17 @@ export type PhysicsResolution = "full" | "compressed";
 export function prepareScenario(input: ScenarioInput): PreparedScenario {
   const pressurePa = pressureFromElevationPa(input.site.elevationM);
   const year = toClimateYear(input.climate);
+  const plans = condenserPlans(input);
+  // Physics and economics read the options with their condenser plans folded in (cleaning cost,
+  // inspection, wear part, fouling multiplier on open-tower water).
+  const options = optionsWithCondenserPlans(input, plans);
   return {
     input,
     pressurePa,
     year,
     climate: prepareClimate(year, pressurePa),
-    options: input.options.map((o, i) => prepareOption(o, i, input.duty, input.fouling, pressurePa)),
+    options: options.map((o, i) => prepareOption(o, i, input.duty, input.fouling, pressurePa)),
+    plans,
     foulingCostCache: new Map(),
     climateCache: new Map(),
   };
@@ -169,7 +184,7 @@ export function analyzeScenario(input: ScenarioInput, onProgress?: (fraction: nu
   const physics = physicsOf(prepared);
   const economics = analyzeEconomics({
     physics,
-    options: input.options.map((o) => ({ optionId: o.id, kind: o.kind, label: o.label, costs: o.costs })),
+    options: economicsOptionsOf(input, prepared.plans),
     tariffs: input.tariffs,
     upkeep: input.upkeep,
     economics: input.economics,
@@ -191,6 +206,8 @@ export function analyzeScenario(input: ScenarioInput, onProgress?: (fraction: nu
     });
   }
   for (const p of physics) warnings.push(...p.warnings);
+  for (const p of prepared.plans) warnings.push(...p.warnings);
+  warnings.push(...inventoryWarnings(input, prepared.plans));
   warnings.push(...economics.warnings);
   return {
     engineVersion: ENGINE_VERSION,
@@ -198,6 +215,8 @@ export function analyzeScenario(input: ScenarioInput, onProgress?: (fraction: nu
     economics,
     climateSummary: { ...summarizeClimate(prepared.year), sitePressurePa: prepared.pressurePa },
     compressor: compressor.summary,
+    condensers: prepared.plans,
+    footprint: scenarioFootprint(physics, prepared.plans, input.duty.refrigerant, input.footprint),
     warnings,
   };
 }

@@ -314,7 +314,7 @@ interface AmountColumn {
 function amountColumns(src: ReportSource): AmountColumn[] {
   const eco = src.result.economics;
   const midYear = eco.discounting === "midYear";
-  const recurring = new Set<CostCategory>(["energy", "demand", "water", "sewer", "chemicals"]);
+  const recurring = new Set<CostCategory>(["energy", "demand", "water", "sewer", "chemicals", "carbon"]);
   const cols: AmountColumn[] = [];
   for (const c of COST_CATEGORIES) {
     const at = (o: OptionEconomics, i: number) => o.cashFlows[i];

@@ -253,6 +253,10 @@ export const componentLifeDefaultsYears: Record<ComponentKey, FieldDefault> = {
   sprayPump: { default: 10, source: "[memory] ASHRAE Applications: pipe-mounted pumps ≈ 10 years median" },
   variableSpeedDrive: { default: 15, source: "[practice]" },
   driftEliminators: { default: 15, source: "[practice]" },
+  condenserWearPart: {
+    default: 20,
+    source: "[practice] shell-and-tube bundle 15–25 years on treated tower water; plate gaskets 5–10 years",
+  },
   other: { default: 15, source: "[practice]" },
 };
 

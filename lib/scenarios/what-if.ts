@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import type { ScenarioResult } from "@/lib/engine";
+import { economicsOptionsOf } from "@/lib/engine/condenser-plan";
 import { whatIf, type StoredEconomicsInputs, type WhatIfOverrides } from "@/lib/engine/economics";
 import type { ScenarioInput } from "@/lib/engine/input";
 import type { UnitSystem } from "@/lib/units";
@@ -48,7 +49,7 @@ export interface WhatIfResponse {
 export function storedEconomicsInputs(input: ScenarioInput, result: ScenarioResult): StoredEconomicsInputs {
   return {
     physics: result.physics,
-    options: input.options.map((o) => ({ optionId: o.id, kind: o.kind, label: o.label, costs: o.costs })),
+    options: economicsOptionsOf(input),
     tariffs: input.tariffs,
     upkeep: input.upkeep,
     economics: input.economics,

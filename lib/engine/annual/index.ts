@@ -81,7 +81,13 @@ export function computeOptionsPhysics(
     const warnings: EngineWarning[] = [...po.warnings];
     const isDirect = o.kind === "openTowerDirect";
     const isPlate = o.kind === "openTowerPlateHx";
-    const growth = isPlate ? scaleGrowth(baseGrowth, o.plateExchanger.foulingGrowthFactor) : baseGrowth;
+    // The plate option's exchanger fouls at its own factor; the direct option's condenser at its
+    // construction's multiplier on open-tower water (condenser-plan.ts).
+    const growth = isPlate
+      ? scaleGrowth(baseGrowth, o.plateExchanger.foulingGrowthFactor)
+      : isDirect
+        ? scaleGrowth(baseGrowth, o.condenser.foulingGrowthMultiplier ?? 1)
+        : baseGrowth;
     const intervalMonths = isDirect
       ? fouling.condenserCleaningIntervalMonths
       : isPlate

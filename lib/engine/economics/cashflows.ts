@@ -81,6 +81,10 @@ export interface OptionBasis {
   chemicalsFixedPerYear: number;
   /** Own labour + service contract + condenser/exchanger cleanings, per year. */
   upkeepPerYear: number;
+  /** Emissions per year, kg CO₂e: electricity × grid factor + refrigerant leakage. */
+  emissionsKgCO2ePerYear: number;
+  /** Carbon price per tonne CO₂e at base-date prices; 0 when no carbon price is applied. */
+  carbonPricePerTonne: number;
   events: DatedEvent[];
   studyPeriodYears: number;
 }
@@ -117,6 +121,7 @@ export function zeroCategories(): CategoryAmounts {
     sewer: 0,
     chemicals: 0,
     upkeep: 0,
+    carbon: 0,
     replacements: 0,
     residual: 0,
   };
@@ -464,6 +469,8 @@ export function buildOptionBasis(
 
   const up = costs.upkeep;
   const cleanings = physics?.cleaningsPerYear ?? 0;
+  const kwh = physics?.energyKWh.total ?? 0;
+  const emissions = option.carbon ? kwh * option.carbon.gridFactorKgCO2ePerKWh + option.carbon.leakageKgCO2ePerYear : 0;
   return {
     optionId: option.optionId,
     kind: option.kind,
@@ -492,6 +499,8 @@ export function buildOptionBasis(
       up.annualLabourHours * upkeep.labourRatePerHour +
       up.annualServiceCost +
       cleanings * up.cleaningCostPerEvent,
+    emissionsKgCO2ePerYear: emissions,
+    carbonPricePerTonne: tariffs.carbon.enabled ? tariffs.carbon.pricePerTonneCO2e : 0,
     events,
     studyPeriodYears: economics.studyPeriodYears,
   };
@@ -539,7 +548,7 @@ function eventGroups(events: DatedEvent[], n: number): EventGroup[] {
 }
 
 interface RecurringStream {
-  category: "energy" | "demand" | "water" | "sewer" | "chemicals" | "upkeep";
+  category: "energy" | "demand" | "water" | "sewer" | "chemicals" | "upkeep" | "carbon";
   stream: EscalationStream;
   amount: number;
 }
@@ -570,6 +579,8 @@ function recurringStreams(b: OptionBasis, p: Pricing): RecurringStream[] {
         b.chemicalsFixedPerYear,
     },
     { category: "upkeep", stream: "labour", amount: b.upkeepPerYear },
+    // Optional carbon price: tonnes CO₂e × price per tonne, escalated on its own stream.
+    { category: "carbon", stream: "carbon", amount: (b.emissionsKgCO2ePerYear / 1000) * b.carbonPricePerTonne },
   ];
 }
 

@@ -37,6 +37,8 @@ export const COMPONENT_KEYS = [
   "sprayPump",
   "variableSpeedDrive",
   "driftEliminators",
+  /** The condenser's tube bundle or gasket set (from its construction's upkeep plan). */
+  "condenserWearPart",
   "other",
 ] as const;
 export type ComponentKey = (typeof COMPONENT_KEYS)[number];
@@ -302,6 +304,11 @@ export interface EconomicsOptionInput {
   kind: OptionKind;
   label: string;
   costs: OptionCostsInput;
+  /**
+   * The option's emissions basis for the optional carbon price: the grid factor that turns its yearly
+   * electricity into kg CO₂e, and its refrigerant leakage in kg CO₂e per year. Absent: no emissions.
+   */
+  carbon?: { gridFactorKgCO2ePerKWh: number; leakageKgCO2ePerYear: number };
 }
 
 export interface AnalyzeEconomicsArgs {
@@ -346,6 +353,7 @@ export const COST_CATEGORIES = [
   "sewer",
   "chemicals",
   "upkeep",
+  "carbon",
   "replacements",
   "residual",
 ] as const;
@@ -361,6 +369,7 @@ export const COST_CATEGORY_LABELS: Record<CostCategory, string> = {
   sewer: "Sewer",
   chemicals: "Chemicals & water-management programme",
   upkeep: "Upkeep (labour, cleaning, testing)",
+  carbon: "Carbon price on emissions",
   replacements: "Replacements",
   residual: "Residual value",
 };

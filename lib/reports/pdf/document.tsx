@@ -48,6 +48,7 @@ export const CATEGORY_COLORS: Record<CostCategory, string> = {
   sewer: "#9cc3de",
   chemicals: COLORS.copper500,
   upkeep: COLORS.copper400,
+  carbon: "#5b6b3a",
   replacements: "#7d8b96",
   residual: "#b9c4cc",
 };

@@ -9,6 +9,7 @@ import ExcelJS from "exceljs";
 import { npv } from "financial";
 import { beforeAll, describe, expect, it } from "vitest";
 import { whatIf } from "@/lib/engine/economics";
+import { economicsOptionsOf } from "@/lib/engine/condenser-plan";
 import type { ScenarioInput } from "@/lib/engine/input";
 import type { ReportSource } from "@/lib/reports/types";
 import { NAMES, buildWorkbook, cashFlowSheetName, lccName } from "@/lib/reports/workbook";
@@ -48,7 +49,8 @@ function storedEconomics(src: ReportSource) {
   const input = src.input as ScenarioInput;
   return {
     physics: src.result.physics,
-    options: input.options.map((o) => ({ optionId: o.id, kind: o.kind, label: o.label, costs: o.costs })),
+    // The options as the engine priced them (condenser plans folded into their costs).
+    options: economicsOptionsOf(input),
     tariffs: input.tariffs,
     upkeep: input.upkeep,
     economics: input.economics,

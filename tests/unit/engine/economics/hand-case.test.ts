@@ -141,6 +141,7 @@ describe("hand-checkable two-option, three-year case (worked in the header comme
       sewer: 100,
       chemicals: 100,
       upkeep: 100,
+      carbon: 0,
       replacements: 0,
       residual: 0,
     });
@@ -176,5 +177,36 @@ describe("hand-checkable two-option, three-year case (worked in the header comme
     expect(cmp?.discountedPaybackYears).toBeCloseTo(1.233955, 6);
     expect(cmp?.differenceCashFlows).toEqual([-500, 436, 536, 736].map((v) => expect.closeTo(v, 9)));
     expect(cmp?.irr).toBeCloseTo(0.867842, 5);
+  });
+});
+
+describe("carbon price stream (hand calculation)", () => {
+  // Option A of the case above with a carbon price: 5000 kWh × 0.4 kg CO2e/kWh = 2000 kg, plus 500 kg CO2e of
+  // refrigerant leakage = 2.5 t/yr × 40 per t = 100/yr at base-date prices, escalating 5 %/yr real on its own
+  // stream: 105, 110.25, 115.7625 in years 1–3; PV at 10 % = 105/1.1 + 110.25/1.21 + 115.7625/1.331
+  // = 95.454545 + 91.115702 + 86.974080 = 273.544327. Option B has no emissions basis: no carbon cost.
+  const withCarbon = analyzeEconomics({
+    physics,
+    options: [{ ...options[0]!, carbon: { gridFactorKgCO2ePerKWh: 0.4, leakageKgCO2ePerYear: 500 } }, options[1]!],
+    tariffs: { ...tariffs, carbon: { enabled: true, pricePerTonneCO2e: 40 }, escalation: { ...tariffs.escalation, carbon: 0.05 } },
+    upkeep: { labourRatePerHour: 25 },
+    economics: { baseYear: 2030, studyPeriodYears: 3, discounting: "endOfYear", analysis: "real", realDiscountRate: 0.1, inflationRate: 0.02, residualValueMethod: "linear" },
+  });
+  it("adds tonnes × price, escalated on its own stream, to the LCC", () => {
+    const a2 = withCarbon.options[0];
+    expect(a2?.cashFlows.map((r) => r.byCategory.carbon)).toEqual([0, 105, 110.25, 115.7625].map((v) => expect.closeTo(v, 9)));
+    expect(a2?.pvByCategory.carbon).toBeCloseTo(273.544327, 5);
+    expect(a2?.lcc).toBeCloseTo(3529.827 + 273.544327, 3);
+    expect(withCarbon.options[1]?.pvByCategory.carbon).toBe(0);
+  });
+  it("is off by default: the same emissions basis costs nothing without a carbon price", () => {
+    const off = analyzeEconomics({
+      physics,
+      options: [{ ...options[0]!, carbon: { gridFactorKgCO2ePerKWh: 0.4, leakageKgCO2ePerYear: 500 } }, options[1]!],
+      tariffs,
+      upkeep: { labourRatePerHour: 25 },
+      economics: { baseYear: 2030, studyPeriodYears: 3, discounting: "endOfYear", analysis: "real", realDiscountRate: 0.1, inflationRate: 0.02, residualValueMethod: "linear" },
+    });
+    expect(off.options[0]?.lcc).toBeCloseTo(3529.827, 3);
   });
 });

@@ -44,6 +44,7 @@ const COMPONENT_LABELS: Record<(typeof COMPONENT_KEYS)[number], string> = {
   sprayPump: "Spray pump",
   variableSpeedDrive: "Variable-speed drive",
   driftEliminators: "Drift eliminators",
+  condenserWearPart: "Condenser tube bundle or gasket set",
   other: "Other",
 };
 
