@@ -93,6 +93,7 @@ export function navigationFor(principal: Principal): { href: string; label: stri
   const items = [{ href: "/projects", label: "Projects" }];
   if (principal.firms.some((f) => allows(f.role, "project.create"))) items.push({ href: "/projects/new", label: "New project" });
   if (principal.firms.some((f) => allows(f.role, "firm.manageMembers"))) items.push({ href: "/firm", label: "Firm members" });
+  items.push({ href: "/methods", label: "Methods" });
   items.push({ href: "/account", label: "Account" });
   return items;
 }

@@ -5,7 +5,7 @@
  * Each construction carries screening defaults — clean overall coefficient, how much faster it fouls
  * on open-tower water, how it is cleaned and inspected and what that costs, component lives, tube or
  * plate material, refrigerant charge per kW, and the first-cost items to price — every one with its
- * source or a [practice]/[memory] tag (LoopLedger engineering notes §12). The consultant replaces them
+ * source or a [practice]/[memory] tag (Methods §12). The consultant replaces them
  * with the selected unit's data; costs are order-of-magnitude figures in the project's currency for a
  * condenser of about 1 MW and must be replaced by quotes.
  */

@@ -5,7 +5,7 @@
  *
  * Model [pub: Webb (1984), ASHRAE Trans. 90(2); Jaber & Webb (1989), ASME J. Heat Transfer 111:837–843 —
  * effectiveness-NTU in enthalpy potential for evaporative equipment], in the screening form of
- * LoopLedger's engineering notes §11: with the inside isothermal the capacity-rate ratio is 0, so
+ * Methods §11: with the inside isothermal the capacity-rate ratio is 0, so
  *   Q = (1 − s)·ε·ma·(hs(Tc) − ha,in),   ε = 1 − e^(−NTU),   NTU = UAh/ma,
  *   1/UAh = 1/(hD·A) + cs/UAint,   hD·A = (hD·A)design·(ma/ma,design)^0.8,
  * UAh the overall conductance on an enthalpy basis (kg/s), hD·A the external film → air mass-transfer

@@ -3,7 +3,7 @@
  *
  * Model: effectiveness-NTU with an enthalpy-based ("fictitious") air specific heat cs = dhs/dT —
  * Jaber & Webb (1989), ASME J. Heat Transfer 111:837–843; Webb (1984), ASHRAE Trans. 90(2) — in
- * the screening form of LoopLedger's engineering notes: overall conductance from an internal
+ * the screening form of Methods §3: overall conductance from an internal
  * (fluid → tube, ∝ fluid flow^0.8, derated for glycol) and an external (film → air, ∝ airflow^0.8·cs/cs,design)
  * resistance in series, calibrated on the manufacturer's wet rating; counterflow effectiveness;
  * Q = ε·Cmin·(Tfluid,in − Twb) with the air capacity ma·cs.

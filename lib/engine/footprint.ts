@@ -1,5 +1,5 @@
 /**
- * Water and carbon footprint of an option (LoopLedger engineering notes §13).
+ * Water and carbon footprint of an option (Methods §13).
  *
  * Water withdrawn = makeup; water consumed = evaporation + drift (the water that leaves to the air and
  * does not return to a sewer or a river); both per year and per MWh of heat rejected.

@@ -236,7 +236,7 @@ export interface FoulingInput {
   closedLoopFoulingM2KPerW: number;
 }
 
-/** Water and carbon footprint settings of the project (LoopLedger engineering notes §13). */
+/** Water and carbon footprint settings of the project (Methods §13). */
 export interface FootprintInput {
   /** Grid emission factor, kg CO₂e per kWh, with its data year and source. */
   gridEmissionFactorKgCO2ePerKWh: number;

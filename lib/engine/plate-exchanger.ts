@@ -5,7 +5,7 @@
  * approach = clean-loop supply − tower cold water = Q·(1/(ε·Cmin) − 1/Chot); balanced counterflow
  * (Chot = Ccold): approach = R·(1 − ε)/ε. UA calibrated at the design approach; constant flows keep
  * UA (and so ε) constant, fouling lowers it: UA = UAclean/(1 + Rf·Uclean).
- * Source: counterflow ε-NTU (Incropera & DeWitt; Kays & London); LoopLedger engineering notes §5.
+ * Source: counterflow ε-NTU (Incropera & DeWitt; Kays & London); Methods §5.
  */
 import { counterflowEffectiveness, counterflowNtu } from "./heat-exchanger";
 

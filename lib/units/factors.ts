@@ -1,7 +1,7 @@
 /**
  * Conversion factors, SI per IP unit. Exact where the unit is defined exactly; each carries its source.
  * Sources:
- *  [E8]  /work/shared/engineering.md §8 (the project's unit definitions).
+ *  [E8]  lib/methods/methods.md §8 (the project's unit definitions).
  *  [SP811] NIST Special Publication 811 (2008), "Guide for the Use of the International System of Units",
  *        Appendix B.8/B.9 (conversion factors; the international foot, pound and Btu_IT are exact by definition).
  * Derived factors are built from the exact base definitions, so their digits follow from them.

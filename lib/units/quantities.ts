@@ -31,7 +31,7 @@ export interface QuantityDef {
 }
 
 const SAME = "identical unit in both systems";
-const E8 = "engineering.md §8";
+const E8 = "Methods §8";
 const SP811 = "NIST SP 811 (2008) App. B.8";
 
 const same = (symbol: string, name: string): DisplayUnit => ({ symbol, name, factor: 1, source: SAME });

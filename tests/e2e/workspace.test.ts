@@ -176,7 +176,7 @@ describe("the consultant's day: project, climate, scenario with three options, c
     const si = observed.SI!;
     // Money does not depend on the unit system.
     expect(ip.lccText).toEqual(si.lccText);
-    // Makeup shown to 4 significant figures: kgal × 3.785411784 = m³ (engineering.md §8), within display rounding.
+    // Makeup shown to 4 significant figures: kgal × 3.785411784 = m³ (Methods §8), within display rounding.
     for (let i = 0; i < 3; i++) {
       expect(Math.abs(ip.makeup[i]! * 3.785411784 - si.makeup[i]!) / si.makeup[i]!).toBeLessThan(2e-3);
       expect(Math.abs(ip.energy[i]! - si.energy[i]!) / si.energy[i]!).toBeLessThan(2e-3);

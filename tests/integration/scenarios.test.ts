@@ -255,7 +255,7 @@ describe("the demo seed", () => {
     expect(v[0]!.version_number).toBe(1);
     expect(v[0]!.inputs_hash).toBe(st.inputsHash);
     expect((v[0]!.result as ScenarioResult).economics.monteCarlo?.draws).toBe(10_000);
-    // Heat rejected by every option over the year equals the duty served (engineering.md §4 balance):
+    // Heat rejected by every option over the year equals the duty served (Methods §4 balance):
     // the same for all three options, since they serve the same load.
     const q = (st.result as ScenarioResult).physics.map((p) => p.heatRejectedKWh);
     expect(Math.max(...q) / Math.min(...q)).toBeCloseTo(1, 3);

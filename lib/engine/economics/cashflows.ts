@@ -231,7 +231,7 @@ export function waterQuantitiesFromPhysics(p: OptionAnnualPhysics): WaterQuantit
  * the heat rejected and the air) and D (set by the circulating flow) do not change. The billed sewer
  * volume keeps its exempt part (the evaporation credit, E) fixed. Treated outflow = B + D; inhibitor and
  * biocide scale with it (dosing to a concentration in the water that leaves) [practice].
- * Source: the standard cooling-water mass balance (engineering.md §4).
+ * Source: the standard cooling-water mass balance (Methods §4).
  */
 export function waterAtCycles(q: WaterQuantities, cycles: number): WaterQuantities {
   const c = Math.max(cycles, 1 + 1e-6);

@@ -1,5 +1,5 @@
 /**
- * Monte Carlo view of the LCC comparison (engineering.md §7; ASTM E1369 treats uncertainty in
+ * Monte Carlo view of the LCC comparison (Methods §7; ASTM E1369 treats uncertainty in
  * building-economics studies [memory]).
  *
  * Reproducible: a seeded 32-bit PRNG (mulberry32) drives every draw, one uniform per sampled input in a

@@ -1,5 +1,5 @@
 /**
- * One-at-a-time sensitivity (tornado) and break-even values (engineering.md §7; NIST Handbook 135 ch. 7
+ * One-at-a-time sensitivity (tornado) and break-even values (Methods §7; NIST Handbook 135 ch. 7
  * on sensitivity analysis and break-even analysis).
  *
  * The tornado is drawn for every alternative against the base option: each input at its low and high

@@ -34,7 +34,8 @@ import {
   MonthlyBarsChart,
   TornadoChart,
 } from "./charts";
-import { METHODS, REFERENCES, cautionsFor, SCREENING_NOTE } from "./text";
+import { cautionsFor, SCREENING_NOTE } from "./text";
+import { methodsDocument, type Inline } from "@/lib/methods";
 import { Facts, H1, H2, H3, Note, P, T, Table, type Column } from "./primitives";
 import { COLORS, OPTION_COLORS, S } from "./theme";
 
@@ -778,24 +779,39 @@ function CashFlowPages({ source, size }: { source: ReportSource; size: "A4" | "L
   );
 }
 
+/** The methods document (lib/methods/methods.md), the same text as the app's Methods page. */
 function MethodsSection() {
+  const doc = methodsDocument();
+  const line = (inlines: Inline[]) => inlines.map((i) => i.text).join("");
   return (
     <View>
-      <T style={S.kicker}>Methods</T>
-      <H1>How the numbers were made</H1>
-      {METHODS.map((m, i) => (
-        <View key={i} wrap={false} style={{ marginBottom: 5 }}>
-          <T style={{ fontWeight: 600, color: COLORS.basin700 }}>{m.title}</T>
-          <T>{m.text}</T>
-        </View>
-      ))}
-      <H2>References</H2>
-      {REFERENCES.map((r, i) => (
-        <View key={i} style={{ flexDirection: "row", marginBottom: 2 }} wrap={false}>
-          <T style={{ width: 18, color: COLORS.inkFaint }}>{`[${i + 1}]`}</T>
-          <T style={{ flex: 1, fontSize: 8 }}>{r}</T>
-        </View>
-      ))}
+      <T style={S.kicker}>Appendix</T>
+      <H1>{doc.title}</H1>
+      {doc.blocks.map((b, n) => {
+        if (b.kind === "heading") return b.level <= 2 ? <H2 key={n}>{b.text}</H2> : <H3 key={n}>{b.text}</H3>;
+        if (b.kind === "paragraph") return <P key={n}>{line(b.inlines)}</P>;
+        if (b.kind === "list") {
+          return (
+            <View key={n} style={{ marginBottom: 4 }}>
+              {b.items.map((item, k) => (
+                <View key={k} style={{ flexDirection: "row", marginBottom: 2 }}>
+                  <T style={{ width: 10, color: COLORS.inkFaint }}>{"•"}</T>
+                  <T style={{ flex: 1, fontSize: 8 }}>{line(item)}</T>
+                </View>
+              ))}
+            </View>
+          );
+        }
+        return (
+          <Table
+            key={n}
+            zebra={false}
+            columns={b.header.map((h, k) => ({ title: h, width: k === 2 ? 3.6 : k === 0 ? 2.4 : 1.4, cell: (r: string[]) => r[k] ?? "" }))}
+            rows={b.rows}
+            fontSize={6.8}
+          />
+        );
+      })}
     </View>
   );
 }

@@ -1,6 +1,6 @@
 /**
- * Fixed prose of the report: methods, references, cautions and the screening-estimate note.
- * LoopLedger's own wording; references are the published methods the engine implements.
+ * Fixed prose of the report: cautions and the screening-estimate note (the methods and references are
+ * lib/methods/methods.md, rendered as the report's appendix). LoopLedger's own wording.
  */
 import type { OptionKind } from "@/lib/engine/types";
 
@@ -8,53 +8,6 @@ export const SCREENING_NOTE =
   "Screening estimate. These results compare options for a decision; they are not a design. Equipment ratings must come from certified " +
   "manufacturer selections at the project's conditions, tariffs from the local utilities, and water-treatment limits from the treatment " +
   "specialist. Local codes, the authority having jurisdiction and a licensed professional engineer govern the design, installation and operation.";
-
-export const METHODS: { title: string; text: string }[] = [
-  {
-    title: "Psychrometrics",
-    text: "Wet-bulb temperature, humidity ratio and moist-air enthalpy from the hourly or binned weather at the site's pressure, p = 101325(1 - 2.25577e-5 Z)^5.2559 Pa, with the saturation-pressure correlations and the wet-bulb relation of ASHRAE Handbook-Fundamentals, chapter 1 [1].",
-  },
-  {
-    title: "Open cooling tower",
-    text: "Merkel's integral KaV/L = int cp dT/(hs - ha) evaluated with the four-point Chebyshev rule of CTI ATC-105 [2, 3]; the tower characteristic KaV/L = C(L/G)^-n calibrated at the manufacturer's design point. Fan speed is the root that holds the cold-water set-point; when full speed cannot, the cold water floats. Fan power follows the fan laws with the installed control (variable speed, two-speed or cycling).",
-  },
-  {
-    title: "Closed-circuit cooler",
-    text: "Effectiveness-NTU with an enthalpy-based (fictitious) specific heat of the saturated air film for the wet coil, and plain dry-coil heat transfer when the spray pump is off below the switch-over temperature [4, 5]. The selection's rating point calibrates the coil conductance; glycol properties adjust the process side.",
-  },
-  {
-    title: "Condenser, fouling and compressor",
-    text: "Condensing temperature from the entering water by effectiveness-NTU of the condenser, with 1/U = 1/Uclean + Rf(t). Fouling grows asymptotically, Rf(t) = Rf,inf(1 - e^(-t/tau)) after Kern and Seaton [6], or linearly, and is reset by each cleaning; the cleaning interval that minimises the average cost rate is reported. The compressor's extra energy follows from the higher condensing temperature. A plate exchanger adds its approach and a second pump.",
-  },
-  {
-    title: "Water balance",
-    text: "Evaporation from the air-side mass and energy balance, drift as a share of the circulating flow, blowdown from the cycles of concentration, B = E/(C - 1) - D, and makeup M = E + B + D. Cycles are entered or derived from the makeup analysis and the chemistry limits. Sewer volume is the makeup, or the makeup less evaporation where the utility grants an evaporation credit.",
-  },
-  {
-    title: "Life-cycle cost",
-    text: "Present-value life-cycle cost per NIST Handbook 135 and ASTM E917 [7, 8]: first cost, energy, demand, water, sewer, chemicals and upkeep, replacements and residual value, each stream with its own escalation, discounted to 1 January of the base year (single present value (1 + d)^-t, uniform present value with escalation for recurring costs). A real analysis uses constant dollars throughout; a nominal one converts rates with (1 + D) = (1 + d)(1 + I). Against the base option: net savings, the savings-to-investment ratio (ASTM E964 [9]), the adjusted internal rate of return AIRR = (1 + r)SIR^(1/N) - 1 (ASTM E1057 [10]) and simple and discounted payback (ASTM E1121 [11]).",
-  },
-  {
-    title: "Sensitivity and uncertainty",
-    text: "Tornado: one input at a time at its low and high value, ranked by the swing of net savings. Break-even: the value of one input at which two options cost the same over their life, by root finding. Monte Carlo: seeded draws of prices, escalation, first cost and other entered distributions; the share of draws in which each option is cheapest and the P10/P50/P90 of net savings [7, 12].",
-  },
-];
-
-export const REFERENCES: string[] = [
-  "ASHRAE. 2017 ASHRAE Handbook - Fundamentals, chapter 1, Psychrometrics. Atlanta: ASHRAE.",
-  "Merkel, F. (1925). Verdunstungskühlung. VDI-Forschungsheft 275.",
-  "Cooling Technology Institute. ATC-105, Acceptance Test Code for Water Cooling Towers (four-point Chebyshev integration of the Merkel integral).",
-  "Incropera, F. P., DeWitt, D. P. et al. Fundamentals of Heat and Mass Transfer, effectiveness-NTU method.",
-  "Braun, J. E., Klein, S. A., Mitchell, J. W. (1989). Effectiveness models for cooling towers and cooling coils. ASHRAE Transactions 95(2).",
-  "Kern, D. Q., Seaton, R. E. (1959). A theoretical analysis of thermal surface fouling. British Chemical Engineering 4(5).",
-  "Fuller, S. K., Petersen, S. R. (1996). Life-Cycle Costing Manual for the Federal Energy Management Program, NIST Handbook 135.",
-  "ASTM E917, Standard Practice for Measuring Life-Cycle Costs of Buildings and Building Systems.",
-  "ASTM E964, Standard Practice for Measuring Benefit-to-Cost and Savings-to-Investment Ratios for Buildings and Building Systems.",
-  "ASTM E1057, Standard Practice for Measuring Internal Rate of Return and Adjusted Internal Rate of Return for Investments in Buildings and Building Systems.",
-  "ASTM E1121, Standard Practice for Measuring Payback for Investments in Buildings and Building Systems.",
-  "ASTM E1369, Standard Guide for Selecting Techniques for Treating Uncertainty and Risk in the Economic Evaluation of Buildings and Building Systems.",
-  "ANSI/ASHRAE Standard 188, Legionellosis: Risk Management for Building Water Systems; ASHRAE Guideline 12, Managing the Risk of Legionellosis Associated with Building Water Systems.",
-];
 
 export interface Caution {
   title: string;

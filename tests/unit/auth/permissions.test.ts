@@ -59,11 +59,11 @@ describe("relation to a project", () => {
   it("navigation shows firm members to admins only", () => {
     expect(navigationFor({ userId: "a", firms: [{ firmId: firmA, role: "admin" }] }).map((n) => n.label)).toContain("Firm members");
     expect(navigationFor(consultantA).map((n) => n.label)).not.toContain("Firm members");
-    expect(navigationFor(client).map((n) => n.label)).toEqual(["Projects", "Account"]);
+    expect(navigationFor(client).map((n) => n.label)).toEqual(["Projects", "Methods", "Account"]);
   });
 
   it("navigation offers New project to firm members (project.create) and not to client viewers", () => {
-    expect(navigationFor(consultantA).map((n) => n.href)).toEqual(["/projects", "/projects/new", "/account"]);
+    expect(navigationFor(consultantA).map((n) => n.href)).toEqual(["/projects", "/projects/new", "/methods", "/account"]);
     expect(navigationFor({ userId: "a", firms: [{ firmId: firmA, role: "admin" }] }).map((n) => n.label)).toContain("New project");
     expect(navigationFor(client).map((n) => n.label)).not.toContain("New project");
   });

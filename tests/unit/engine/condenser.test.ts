@@ -57,7 +57,7 @@ describe("condenser ε-NTU", () => {
 
 describe("compressor penalty", () => {
   // Source: reversed Carnot cycle; COP = η·Te/(Tc − Te) gives dW/dTc = W/(Tc − Te) per K
-  // (LoopLedger engineering notes §5).
+  // (Methods §5).
   it("the Carnot-fraction sensitivity is W/(Tc − Te) per kelvin", () => {
     const model = { kind: "carnotFraction" as const, carnotEfficiency: carnotEfficiency(2, 35, -32), evaporatingK: 241.15 };
     expect(carnotFractionCop(model, 35)).toBeCloseTo(2, 12);

@@ -22,7 +22,7 @@ describe("fan laws", () => {
     expect(fanPowerAtSpeedKW(base, 0.5)).toBeCloseTo(30 / 8, 12);
   });
 
-  // Source: LoopLedger engineering notes §2 (P/Pd = a + (1 − a)·f³, a ≈ 0.05 [practice]).
+  // Source: Methods §2 (P/Pd = a + (1 − a)·f³, a ≈ 0.05 [practice]).
   it("a variable-speed drive adds its floor: P/Pd = a + (1 − a)·f³", () => {
     const vsd = { ...base, control: "variableSpeed" as const };
     expect(fanPowerAtSpeedKW(vsd, 1)).toBeCloseTo(30, 12);

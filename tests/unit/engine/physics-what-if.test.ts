@@ -75,7 +75,7 @@ describe("compressed climate", () => {
     full.forEach((l, i) => expect(Math.abs((compressed[i] ?? 0) / l - 1)).toBeLessThan(0.005));
   });
 
-  it("keeps the water balance closed in every month (M − E − B − D = 0, engineering.md §4)", () => {
+  it("keeps the water balance closed in every month (M − E − B − D = 0, Methods §4)", () => {
     for (const o of physicsOf(prepareScenario(hourly), {}, "compressed")) {
       for (const m of o.monthly) {
         const w = m.waterM3;

@@ -10,7 +10,7 @@ const C = 72 * 4.186;
 
 describe("plate exchanger approach", () => {
   // Source: counterflow ε-NTU (Incropera & DeWitt); balanced counterflow approach = R·(1 − ε)/ε
-  // (LoopLedger engineering notes §5).
+  // (Methods §5).
   it("reproduces the design approach and the balanced-counterflow formula", () => {
     const ua = calibratePlateExchangerUaKWPerK(1500, 1.5, C, C);
     expect(plateExchangerApproachK(1500, ua, C, C)).toBeCloseTo(1.5, 9);

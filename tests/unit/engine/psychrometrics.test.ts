@@ -43,7 +43,7 @@ describe("standard atmosphere", () => {
 
 describe("saturation pressure (Hyland–Wexler, ASHRAE 2017 ch.1 eqs. 5–6)", () => {
   // ASHRAE 2017 ch.1 Table 3 (Thermodynamic Properties of Water at Saturation), kPa. 25 °C = 3.1699 kPa
-  // is quoted in engineering.md §1; the other rows are IAPWS values as tabulated there [memory].
+  // is quoted in Methods §1; the other rows are IAPWS values as tabulated there [memory].
   // The formula reproduces the table to ~0.05 %: the table's pure-water pws carries no enhancement factor.
   it.each([
     [-20, 0.10326], // over ice [memory]
@@ -58,7 +58,7 @@ describe("saturation pressure (Hyland–Wexler, ASHRAE 2017 ch.1 eqs. 5–6)", (
     expect(relErr(saturationVaporPressurePa(tC), pwsKPa * 1000)).toBeLessThan(1e-3);
   });
 
-  it("gives the formula value 3169.2 Pa at 25 °C (engineering.md §1, from the Handbook's eq. 6)", () => {
+  it("gives the formula value 3169.2 Pa at 25 °C (Methods §1, from the Handbook's eq. 6)", () => {
     expect(Math.abs(saturationVaporPressurePa(25) - 3169.2)).toBeLessThan(0.1);
   });
 
@@ -88,7 +88,7 @@ describe("moist-air table values at 101.325 kPa (ASHRAE 2017 ch.1 Table 2)", () 
 });
 
 describe("ASHRAE 2017 ch.1 Example 1: 40 °C dry-bulb, 20 °C wet-bulb, 101.325 kPa", () => {
-  // Handbook answers: W = 0.0065 kg/kg, h = 56.7 kJ/kg, dew point ≈ 7 °C, φ ≈ 14 % (engineering.md §1).
+  // Handbook answers: W = 0.0065 kg/kg, h = 56.7 kJ/kg, dew point ≈ 7 °C, φ ≈ 14 % (Methods §1).
   // The Handbook takes Ws* = 0.014758 from Table 2 (with enhancement factor); the formula's Ws* is 0.4 %
   // lower, which lowers W by ~1 % (≈ 0.00006): hence the W tolerance of 1.2e-4 kg/kg.
   const w = humidityRatioFromWetBulb(40, 20, P0);
@@ -115,7 +115,7 @@ describe("ASHRAE 2017 ch.1 Example 1: 40 °C dry-bulb, 20 °C wet-bulb, 101.325 
 });
 
 describe("latent heat of vaporization", () => {
-  // ~2430 kJ/kg at 30 °C (engineering.md §1); IAPWS-95 saturated hfg: 2500.9 (0.01 °C), 2453.5 (20 °C),
+  // ~2430 kJ/kg at 30 °C (Methods §1); IAPWS-95 saturated hfg: 2500.9 (0.01 °C), 2453.5 (20 °C),
   // 2429.8 (30 °C), 2382.0 (50 °C), 2256.4 (100 °C) kJ/kg [memory].
   it.each([
     [0.01, 2500.9],

@@ -42,7 +42,7 @@ const designHeatKW = 72 * CPW * 5;
 
 describe("Merkel number", () => {
   // Source: CTI ATC-105 four-point Chebyshev rule vs a fine numerical integration (Simpson, 2000
-  // intervals) of the same Merkel integral; they agree within ~0.3 % (LoopLedger engineering notes §2).
+  // intervals) of the same Merkel integral; they agree within ~0.3 % (Methods §2).
   // Domain of real selections: range and approach ≥ 3 K, L/G ≤ 1.5, KaV/L ≤ 2.0 (typical design Merkel
   // numbers are about 1–2: common practice, no source). A grid scan found a worst case of 0.24 % there.
   // Up to KaV/L 2.5 at cold wet-bulbs (5–8 °C) the rule errs by up to 0.35 %: tested separately below.

@@ -60,7 +60,7 @@ describe("CSV exports", () => {
     }
     const year = rows.find((r) => r[1] === "Year")!;
     const phys = src.result.physics[0]!;
-    // 1 kgal = 3.785411784 m³ (engineering.md §8).
+    // 1 kgal = 3.785411784 m³ (Methods §8).
     expect(Number(year[m!])).toBeCloseTo(phys.waterM3.makeup / 3.785411784, 2);
   });
 

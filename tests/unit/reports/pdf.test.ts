@@ -120,6 +120,10 @@ describe("PDF report", () => {
     expectContains(text, `Page 2 of ${pages}`);
     expectContains(text, `Page ${pages} of ${pages}`);
     expectContains(text, `${src.scenarioName} · ${src.versionLabel}`);
+    // The appendix is the methods document, the same text as the app's Methods page.
+    for (const s of ["Methods and sources", "4. Water balance and chemistry", "Water density: 998.2 kg/m³", "14. Defaults and their sources"]) {
+      expectContains(text, s);
+    }
     for (const s of [
       "Merkel",
       "ATC-105",

@@ -180,7 +180,7 @@ describe("comparison series in the viewer's units", () => {
   });
   const physics = [{ optionId: "c", kind: "closedCircuitCooler", label: "Cooler", monthly: Array.from({ length: 12 }, (_, i) => month(i + 1, 3785.411784)) }] as unknown as OptionAnnualPhysics[];
 
-  it("monthly water: 3785.411784 m³ is 1000 kgal in IP (engineering.md §8: 1 kgal = 3.785411784 m³)", () => {
+  it("monthly water: 3785.411784 m³ is 1000 kgal in IP (Methods §8: 1 kgal = 3.785411784 m³)", () => {
     const ip = monthlyWaterSeries(physics, "IP");
     expect(ip.unit).toBe("kgal");
     expect(ip.series[0]!.months[0]!.evaporation).toBeCloseTo(1000, 9);

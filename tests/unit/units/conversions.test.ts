@@ -4,7 +4,7 @@ import { QUANTITY_KINDS, fromSI, toSI, unitLabel, convertBetween, type QuantityK
 /**
  * One row per quantity kind: a value in the IP unit and the SI value it equals, as PUBLISHED by the named
  * source (not computed from lib/units' constants), with the relative tolerance the published digits allow.
- * E8 = /work/shared/engineering.md §8; SP811 = NIST Special Publication 811 (2008), Appendix B.8 / B.9.
+ * E8 = lib/methods/methods.md §8; SP811 = NIST Special Publication 811 (2008), Appendix B.8 / B.9.
  */
 interface Case {
   ip: number;

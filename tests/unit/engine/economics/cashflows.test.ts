@@ -109,7 +109,7 @@ describe("cash flows", () => {
   });
 });
 
-describe("water balance at other cycles (engineering.md §4: B = E/(C − 1) − D, M = E + B + D)", () => {
+describe("water balance at other cycles (Methods §4: B = E/(C − 1) − D, M = E + B + D)", () => {
   it("reproduces the physics at its own cycles and scales blowdown at others", () => {
     const p = physicsFor({}, true)[0];
     if (!p) throw new Error("fixture");

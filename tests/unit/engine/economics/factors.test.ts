@@ -20,12 +20,12 @@ const series = (n: number, term: (t: number) => number) => {
 
 describe("NIST Handbook 135 discount factors", () => {
   it("UPV(3 %, 20) = 14.8775", () => {
-    // NIST Handbook 135, UPV factor definition (Table 4-1 formula); value quoted in engineering.md §6.
+    // NIST Handbook 135, UPV factor definition (Table 4-1 formula); value quoted in Methods §6.
     expect(upv(0.03, 20)).toBeCloseTo(14.8775, 4);
   });
 
   it("SPV(3 %, 10) = 0.744094", () => {
-    // NIST Handbook 135, SPV factor definition; value quoted in engineering.md §6.
+    // NIST Handbook 135, SPV factor definition; value quoted in Methods §6.
     expect(spv(0.03, 10)).toBeCloseTo(0.744094, 6);
   });
 

@@ -214,7 +214,7 @@ export function DutySection() {
             <option value="percentPerK">Entered percent per degree</option>
           </select>
           <p className="mt-1 text-xs text-ink-faint">
-            Default · Carnot fraction · LoopLedger engineering notes §5
+            Default · Carnot fraction · Methods §5
           </p>
         </div>
         {compressor?.kind === "percentPerK" ? (
