@@ -90,6 +90,14 @@ const primitive = (): void => {
 for (let i = 0; i < 3; i++) primitive();
 const primitiveMs = median(time(primitive, runs));
 
+// The same year under floating head pressure (each hour's fan speed and cooler mode by the fan +
+// spray + compressor optimum).
+const floating = { ...light, duty: { ...light.duty, headPressureControl: "floating" as const } };
+const floatingMs = median(time(() => physicsOf(prepareScenario(floating)), runs));
+psychroCounters.saturatedEnthalpyCalls = 0;
+physicsOf(prepareScenario(floating));
+const floatingCalls = psychroCounters.saturatedEnthalpyCalls;
+
 const c0 = process.cpuUsage();
 analyzeScenario(input);
 const c1 = process.cpuUsage(c0);
@@ -100,6 +108,7 @@ const lines = [
   `LoopLedger engine benchmark — ${hours} h × ${options} options (tests/fixtures/scenario-hourly.json), median of ${runs}, CPU time`,
   `physics only (climate + calibration + year):     ${physicsMs.toFixed(1)} ms`,
   `physics re-run on a prepared scenario (what-if):  ${rerunMs.toFixed(1)} ms`,
+  `physics only, floating head pressure:            ${floatingMs.toFixed(1)} ms (${(floatingCalls / (hours * options)).toFixed(2)} saturated-enthalpy evaluations per hour and option)`,
   `full analysis, deterministic economics:          ${fullMs.toFixed(1)} ms (wall clock ${fullWallMs.toFixed(1)} ms, load average ${os.loadavg()[0]?.toFixed(1)})`,
   `full analysis with the fixture's sensitivity and Monte Carlo (${input.monteCarlo?.draws ?? 0} draws), once: ${withSensitivityMs.toFixed(0)} ms`,
   `saturated-enthalpy evaluations per physics run:  ${calls} = ${perHourOption.toFixed(2)} per hour and option`,

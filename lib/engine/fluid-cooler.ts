@@ -329,8 +329,10 @@ export function allowedCoolerModes(model: CoolerModel, dryBulbC: number): { wet:
 }
 
 /**
- * Required airflow fraction for a leaving-fluid temperature in one mode, and its slope (1/K) by a
- * forward difference of 0.05 K (wet: cs from the required temperatures, one saturated enthalpy each).
+ * Required airflow fraction for a leaving-fluid temperature in one mode, and its slope (1/K): f solves
+ * εCmin(f) = need(T) = Q/(Tin − Tair), Tin = T + Q/Cf; df/dT = need′(T)/(d(εCmin)/df) with
+ * need′ = −Q/(Tin − Tair)² and d(εCmin)/df by a 0.1 % difference at the root (cs held at the required
+ * temperatures' value, its drift with T being second order).
  */
 export function coolerAirflowForLeavingFluid(
   model: CoolerModel,
@@ -340,17 +342,17 @@ export function coolerAirflowForLeavingFluid(
   wet: boolean,
   pPa: number,
 ): { fraction: number; slopePerK: number } {
-  const at = (tout: number): number => {
-    const tin = tout + heatKW / model.fluidCapacityKWPerK;
-    if (!wet) return tin > air.dryBulbC ? requiredAirflowFraction(model, air, heatKW / (tin - air.dryBulbC), undefined) : Number.POSITIVE_INFINITY;
-    if (!(tout > air.wetBulbC)) return Number.POSITIVE_INFINITY;
-    const cs = enthalpyBasedAirSpecificHeat(0.5 * (tin + tout), air, pPa);
-    return requiredAirflowFraction(model, air, heatKW / (tin - air.wetBulbC), cs);
-  };
-  const f0 = at(leavingFluidC);
-  if (!Number.isFinite(f0)) return { fraction: f0, slopePerK: 0 };
-  const f1 = at(leavingFluidC + 0.05);
-  return { fraction: f0, slopePerK: Number.isFinite(f1) ? (f1 - f0) / 0.05 : 0 };
+  const tin = leavingFluidC + heatKW / model.fluidCapacityKWPerK;
+  const tAir = wet ? air.wetBulbC : air.dryBulbC;
+  if (!(tin > tAir) || (wet && !(leavingFluidC > air.wetBulbC))) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
+  const cs = wet ? enthalpyBasedAirSpecificHeat(0.5 * (tin + leavingFluidC), air, pPa) : undefined;
+  const need = heatKW / (tin - tAir);
+  const f = requiredAirflowFraction(model, air, need, cs);
+  if (!Number.isFinite(f)) return { fraction: f, slopePerK: 0 };
+  const df = 1e-3 * f;
+  const dK = (coolerConductanceKWPerK(model, f + df, air, cs) - coolerConductanceKWPerK(model, f, air, cs)) / df;
+  const dNeed = -need / (tin - tAir);
+  return { fraction: f, slopePerK: dK > 0 ? dNeed / dK : 0 };
 }
 
 /**

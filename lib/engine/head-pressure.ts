@@ -28,66 +28,79 @@ export function fanCompressorMarginalKWPerK(fan: FanModel, airflow: AirflowAtCon
 }
 
 /**
+ * One hour of one device as the search sees it (an object reused across hours, not a closure per hour:
+ * the annual loop calls this a few times per hour and option).
+ */
+export interface FloatingHour {
+  /** The device's required airflow (and its slope) to hold condensing temperature Tc. */
+  airflowAt(condensingC: number): AirflowAtCondensing;
+  /** dW/dTc of the compressors at this hour's load, kW/K. */
+  compressorSlope(condensingC: number): number;
+}
+
+/**
  * The condensing temperature in [lowC, highC] minimising fan + compressor power of a variable-speed fan
- * (see the file comment). `airflowAt(Tc)` is the device's required airflow; `compressorSlope(Tc)` dW/dTc.
- * `atLow` is airflowAt(lowC) when the caller has it. The fan's speed stays ≥ its minimum speed.
+ * (see the file comment). `atLow` is hour.airflowAt(lowC) when the caller has it. The fan's speed stays
+ * ≥ its minimum speed.
  */
 export function optimalFloatingCondensing(
   fan: FanModel,
   lowC: number,
   highC: number,
-  airflowAt: (condensingC: number) => AirflowAtCondensing,
-  compressorSlope: (condensingC: number) => number,
+  hour: FloatingHour,
   atLow?: AirflowAtCondensing,
 ): { condensingC: number; airflow: AirflowAtCondensing } {
   const fMin = Math.max(fan.minSpeedFraction, fan.naturalDraftAirflowFraction);
-  const a0 = atLow ?? airflowAt(lowC);
+  const a0 = atLow ?? hour.airflowAt(lowC);
   if (!(highC > lowC + 1e-6) || !(a0.fraction > fMin) || !Number.isFinite(a0.fraction)) return { condensingC: lowC, airflow: a0 };
-  const m0 = fanCompressorMarginalKWPerK(fan, a0, compressorSlope(lowC));
+  const m0 = fanCompressorMarginalKWPerK(fan, a0, hour.compressorSlope(lowC));
   if (m0 >= 0) return { condensingC: lowC, airflow: a0 };
-  // Bracket: the first Tc where the marginal turns positive, the speed reaches its minimum, or the set-point.
+  // Bracket by secant steps on the marginal (nearly linear over a few K): the first Tc where it turns
+  // positive, the fan's minimum speed, or the set-point.
   let tLo = lowC;
   let gLo = m0;
   let aLo = a0;
-  let step = 0.5;
-  let tHi = lowC;
-  let aHi = a0;
-  let gHi = m0;
-  let boundary: "marginal" | "minSpeed" | "setPoint" = "setPoint";
+  let tHi = Math.min(highC, lowC + 1);
+  let aHi = hour.airflowAt(tHi);
+  let gHi = 0;
+  let boundary: "marginal" | "minSpeed" | null = null;
   for (let i = 0; i < 12; i++) {
-    tHi = Math.min(highC, tLo + step);
-    aHi = airflowAt(tHi);
     if (!(aHi.fraction > fMin)) {
       boundary = "minSpeed";
       break;
     }
-    gHi = fanCompressorMarginalKWPerK(fan, aHi, compressorSlope(tHi));
+    gHi = fanCompressorMarginalKWPerK(fan, aHi, hour.compressorSlope(tHi));
     if (gHi >= 0) {
       boundary = "marginal";
       break;
     }
     if (tHi >= highC) return { condensingC: highC, airflow: aHi };
+    const span = tHi - tLo;
+    let next = gHi > gLo ? tHi - (gHi * span) / (gHi - gLo) : tHi + 2 * span;
+    next = Math.min(highC, Math.max(tHi + 0.05, Math.min(next + 0.02, tHi + 4)));
     tLo = tHi;
     gLo = gHi;
     aLo = aHi;
-    step *= 2;
+    tHi = next;
+    aHi = hour.airflowAt(tHi);
   }
-  if (boundary === "setPoint") return { condensingC: tHi, airflow: aHi };
-  // Illinois on the marginal (or on f − fMin when the minimum speed binds first).
-  const g = (a: AirflowAtCondensing, t: number): number =>
-    boundary === "marginal" ? fanCompressorMarginalKWPerK(fan, a, compressorSlope(t)) : a.fraction - fMin;
+  if (boundary === null) return { condensingC: tHi, airflow: aHi };
   if (boundary === "minSpeed") {
     gLo = aLo.fraction - fMin;
     gHi = aHi.fraction - fMin;
   }
+  // Illinois inside the bracket on the marginal (or on f − fMin when the minimum speed binds first).
   let side = 0;
   let best = { condensingC: tLo, airflow: aLo };
+  let prev = Number.NaN;
   for (let i = 0; i < 20; i++) {
-    const t = boundary === "minSpeed" || gHi !== gLo ? (tLo * gHi - tHi * gLo) / (gHi - gLo) : 0.5 * (tLo + tHi);
-    const a = airflowAt(t);
-    const gt = g(a, t);
+    const t = (tLo * gHi - tHi * gLo) / (gHi - gLo);
+    const a = hour.airflowAt(t);
+    const gt = boundary === "marginal" ? fanCompressorMarginalKWPerK(fan, a, hour.compressorSlope(t)) : a.fraction - fMin;
     best = { condensingC: t, airflow: a };
-    if (tHi - tLo < 0.02 || Math.abs(gt) < 1e-9) break;
+    // 0.05 K: near its minimum the total is flat (quadratic), so the power error is far below 0.1 %.
+    if (tHi - tLo < 0.05 || Math.abs(t - prev) < 0.05 || gt === 0) break;
+    prev = t;
     // Marginal: negative below the optimum. f − fMin: positive below the minimum-speed point.
     const below = boundary === "marginal" ? gt < 0 : gt > 0;
     if (below) {

@@ -226,6 +226,8 @@ export function requiredLiquidToGasRatio(
  * the Tc where Chebyshev demand equals the characteristic, found by bracketed Newton on
  * 1/demand − 1/supply with the analytic slope of hs.
  * 4 saturated-enthalpy evaluations per iteration; `guessC` (e.g. the set-point) speeds it up.
+ * `slopeOut` receives d(required airflow fraction)/dT at the solution (towerAirflowForColdWater's slope,
+ * from the last iterate's saturated enthalpies: no further evaluation).
  */
 export function towerColdWaterAtAirflowC(
   model: TowerModel,
@@ -237,6 +239,7 @@ export function towerColdWaterAtAirflowC(
   known?: { tC: number; saturatedEnthalpiesKJPerKg: readonly number[] },
   toleranceK = 2e-4,
   relativeTolerance = 0,
+  slopeOut?: { airflowSlopePerK: number },
 ): number {
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   const lg = model.waterFlowKgPerS / (model.designAirFlowKgPerS * Math.max(airflowFraction, 1e-3));
@@ -266,6 +269,7 @@ export function towerColdWaterAtAirflowC(
   for (let iter = 0; iter < 40; iter++) {
     let sum = 0;
     let dsum = 0;
+    let lsum = 0;
     let feasible = true;
     const reuse = iter === 0 && knownUsable && known.tC === t;
     for (let i = 0; i < 4; i++) {
@@ -279,6 +283,7 @@ export function towerColdWaterAtAirflowC(
       }
       sum += 1 / drive;
       dsum += saturatedEnthalpySlopeKJPerKgK(tk, hs) / (drive * drive);
+      lsum += (CPW * k * rangeK) / (drive * drive);
     }
     if (!feasible) {
       lo = Math.max(lo, t);
@@ -294,7 +299,16 @@ export function towerColdWaterAtAirflowC(
     const dRho = (((CPW * rangeK) / 4) * dsum) / (demand * demand);
     let next = t - rho / dRho;
     const tol = toleranceK + (guessC !== undefined ? relativeTolerance * Math.abs(next - guessC) : 0);
-    if (rho === 0 || Math.abs(next - t) < tol) return Math.max(next, floorC);
+    if (rho === 0 || Math.abs(next - t) < tol) {
+      if (slopeOut) {
+        // d(airflow fraction)/dT of the requirement at this temperature (see towerAirflowForColdWater).
+        const k4 = 4 / (CPW * rangeK);
+        const psiT = (k4 * dsum) / (sum * sum);
+        const psiL = (-k4 * lsum) / (sum * sum) - (model.exponentN * Math.pow(lg, model.exponentN - 1)) / model.coefficientC;
+        slopeOut.airflowSlopePerK = (-Math.max(airflowFraction, 1e-3) / lg) * (-psiT / psiL);
+      }
+      return Math.max(next, floorC);
+    }
     if (!(next > lo && next < hi)) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : t + Math.max(2, rangeK);
     t = next;
   }
@@ -429,6 +443,8 @@ export interface AirflowAtTemperature {
   fraction: number;
   /** d(fraction)/d(leaving temperature), 1/K (≤ 0: warmer water needs less air). */
   slopePerK: number;
+  /** The tower's L/G at that airflow (a warm start for the next, nearby evaluation); absent for coolers. */
+  liquidToGasRatio?: number;
 }
 
 /**
@@ -444,12 +460,13 @@ export function towerAirflowForColdWater(
   heatKW: number,
   coldWaterC: number,
   pPa: number,
+  guessLiquidToGasRatio = model.designLiquidToGasRatio,
 ): AirflowAtTemperature {
   if (!(coldWaterC > air.wetBulbC)) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   const hs = [0, 0, 0, 0];
   for (let i = 0; i < 4; i++) hs[i] = saturatedAirEnthalpyKJPerKg(coldWaterC + (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK, pPa);
-  const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN, model.designLiquidToGasRatio);
+  const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN, guessLiquidToGasRatio);
   if (!(lg > 0)) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
   const c = CPW * rangeK;
   let sumInv = 0;
@@ -469,5 +486,5 @@ export function towerAirflowForColdWater(
   const psiL = (-k4 * sumL) / (sumInv * sumInv) - (model.exponentN * Math.pow(lg, model.exponentN - 1)) / model.coefficientC;
   const dLgdT = -psiT / psiL;
   const fraction = model.waterFlowKgPerS / lg / model.designAirFlowKgPerS;
-  return { fraction, slopePerK: (-fraction / lg) * dLgdT };
+  return { fraction, slopePerK: (-fraction / lg) * dLgdT, liquidToGasRatio: lg };
 }

@@ -18,6 +18,7 @@ import {
 } from "../water";
 import type { OptionYearTotals } from "./accumulate";
 import type { PreparedOption } from "./options";
+import { numericWarning, wv } from "../warnings";
 import { round1 } from "./shared";
 
 export function finishOption(
@@ -54,33 +55,44 @@ export function finishOption(
     });
   }
   if (t.unmetHours > 0) {
-    warnings.push({
-      code: "loop.unmetHours",
-      severity: "warning",
-      message: `${Math.round(t.unmetHours)} h in which the loop could not hold the condensing set-point at full fan speed.`,
-      path: `${po.path}`,
-      optionId: o.id,
-    });
+    warnings.push(
+      numericWarning({
+        code: "loop.unmetHours",
+        severity: "warning",
+        template: "{hours} in which the loop could not hold the condensing set-point at full fan speed: the plant condensed hotter then and its compressors paid for it (included in the compressor energy).",
+        values: { hours: wv.hours(t.unmetHours) },
+        path: `${po.path}`,
+        optionId: o.id,
+      }),
+    );
   }
   if (t.wetHoursBelowFreezing > 0) {
-    warnings.push({
-      code: "caution.winterOperation",
-      severity: "warning",
-      message: `${Math.round(t.wetHoursBelowFreezing)} h of wet operation below 0 °C: icing of fill, louvres and basin, and freezing of exposed piping must be designed out (basin heat, bypass to the basin, fan de-icing, heat tracing) — follow the manufacturer and local codes.`,
-      path: `${po.path}.basinHeater`,
-      optionId: o.id,
-    });
+    warnings.push(
+      numericWarning({
+        code: "caution.winterOperation",
+        severity: "warning",
+        template:
+          "{hours} of wet operation below {zero}: icing of fill, louvres and basin, and freezing of exposed piping must be designed out (basin heat, bypass to the basin, fan de-icing, heat tracing) — follow the manufacturer and local codes.",
+        values: { hours: wv.hours(t.wetHoursBelowFreezing), zero: wv.tempC(0) },
+        path: `${po.path}.basinHeater`,
+        optionId: o.id,
+      }),
+    );
   }
   if (o.kind === "closedCircuitCooler" && Number.isFinite(t.minDryBulbC)) {
     const fp = freezingPointC(o.cooler.glycol.kind, o.cooler.glycol.massFraction);
     if (t.minDryBulbC < fp + 2) {
-      warnings.push({
-        code: "caution.coilFreeze",
-        severity: "warning",
-        message: `The outdoor air reaches ${round1(t.minDryBulbC)} °C and the coil fluid freezes near ${round1(fp)} °C: a coil that stands idle or loses flow can burst — use enough glycol, or keep flow and a minimum heat load, or drain the coil; follow the manufacturer.`,
-        path: `${po.path}.cooler.glycol`,
-        optionId: o.id,
-      });
+      warnings.push(
+        numericWarning({
+          code: "caution.coilFreeze",
+          severity: "warning",
+          template:
+            "The outdoor air reaches {air} and the coil fluid freezes near {fp}: a coil that stands idle or loses flow can burst — use enough glycol, or keep flow and a minimum heat load, or drain the coil; follow the manufacturer.",
+          values: { air: wv.tempC(t.minDryBulbC), fp: wv.tempC(fp) },
+          path: `${po.path}.cooler.glycol`,
+          optionId: o.id,
+        }),
+      );
     }
   }
   // Scaling indices at the hottest wetted surface (tower fill inlet / wetted coil).

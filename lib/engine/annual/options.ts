@@ -14,7 +14,8 @@ import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
 import { glycolPumpPowerKW, pumpPowerKW, waterHeadFromPressureDropM } from "../pumps";
 import { type TowerModel, calibrateTower } from "../tower";
 import type { EngineWarning } from "../types";
-import { WATER_DENSITY_KG_PER_M3, round1 } from "./shared";
+import { numericWarning, wv } from "../warnings";
+import { WATER_DENSITY_KG_PER_M3 } from "./shared";
 
 const CPW = waterSpecificHeatKJPerKgK;
 
@@ -74,13 +75,17 @@ function calibrateCondenser(
   );
   if (!Number.isFinite(ua)) {
     ua = -capacityKWPerK * Math.log(0.05);
-    warnings.push({
-      code: "condenser.designInfeasible",
-      severity: "warning",
-      message: `A condensing temperature of ${o.condenser.designCondensingC} °C cannot reject ${Math.round(designHeatKW)} kW into ${round1(entering)} °C water at this flow (it needs more than the water's temperature rise); a condenser effectiveness of 0.95 was assumed.`,
-      path: `${path}.condenser.designCondensingC`,
-      optionId: o.id,
-    });
+    warnings.push(
+      numericWarning({
+        code: "condenser.designInfeasible",
+        severity: "warning",
+        template:
+          "A condensing temperature of {tc} cannot reject {q} into {tw} water at this flow (it needs more than the water's temperature rise); a condenser effectiveness of 0.95 was assumed.",
+        values: { tc: wv.tempC(o.condenser.designCondensingC), q: wv.dutyKW(designHeatKW), tw: wv.tempC(entering) },
+        path: `${path}.condenser.designCondensingC`,
+        optionId: o.id,
+      }),
+    );
   }
   return ua;
 }
@@ -157,13 +162,16 @@ export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fo
   const hotC = cleanFlow * CPW;
   const uaHx = calibratePlateExchangerUaKWPerK(qDesign, px.designApproachK, hotC, towerC);
   if (px.designApproachK < 0.5) {
-    warnings.push({
-      code: "plateExchanger.approachImplausiblySmall",
-      severity: "warning",
-      message: `A plate-exchanger approach of ${px.designApproachK} K is implausibly small for a screening study (1–2 K is usual).`,
-      path: `${path}.plateExchanger.designApproachK`,
-      optionId: o.id,
-    });
+    warnings.push(
+      numericWarning({
+        code: "plateExchanger.approachImplausiblySmall",
+        severity: "warning",
+        template: "A plate-exchanger approach of {a} is implausibly small for a screening study ({lo}–{hi} is usual).",
+        values: { a: wv.dK(px.designApproachK), lo: wv.dK(1), hi: wv.dK(2) },
+        path: `${path}.plateExchanger.designApproachK`,
+        optionId: o.id,
+      }),
+    );
   }
   const ua = calibrateCondenser(o, path, qDesign, t.leavingWaterC + px.designApproachK, hotC, warnings);
   return {
@@ -197,21 +205,27 @@ function designChecks(
   what: "tower" | "cooler",
 ): void {
   if (approachK < minApproachK) {
-    warnings.push({
-      code: `${what}.approachImplausiblySmall`,
-      severity: "warning",
-      message: `The ${what} selection's approach to the design wet-bulb is ${round1(approachK)} K: below ${minApproachK} K is implausibly small for a real selection; check the rating.`,
-      path: `${path}.${what}.leavingWaterC`.replace("cooler.leavingWaterC", "cooler.leavingFluidC"),
-      optionId: o.id,
-    });
+    warnings.push(
+      numericWarning({
+        code: `${what}.approachImplausiblySmall`,
+        severity: "warning",
+        template: `The ${what} selection's approach to the design wet-bulb is {a}: below {min} is implausibly small for a real selection; check the rating.`,
+        values: { a: wv.dK(approachK), min: wv.dK(minApproachK) },
+        path: `${path}.${what}.leavingWaterC`.replace("cooler.leavingWaterC", "cooler.leavingFluidC"),
+        optionId: o.id,
+      }),
+    );
   }
   if (dutyKW > 0 && Math.abs(selectionKW / dutyKW - 1) > 0.1) {
-    warnings.push({
-      code: `${what}.selectionDutyMismatch`,
-      severity: "info",
-      message: `The ${what} is rated for ${Math.round(selectionKW)} kW at its design point, the duty is ${Math.round(dutyKW)} kW; the model uses the rating as the unit's characteristic and the duty as the load.`,
-      path: `${path}.${what}`,
-      optionId: o.id,
-    });
+    warnings.push(
+      numericWarning({
+        code: `${what}.selectionDutyMismatch`,
+        severity: "info",
+        template: `The ${what} is rated for {sel} at its design point, the duty is {duty}; the model uses the rating as the unit's characteristic and the duty as the load.`,
+        values: { sel: wv.dutyKW(selectionKW), duty: wv.dutyKW(dutyKW) },
+        path: `${path}.${what}`,
+        optionId: o.id,
+      }),
+    );
   }
 }

@@ -8,7 +8,7 @@
  * the spray; the basin heater runs when the spray is off below its dry-bulb.
  */
 import { type EnteringAir, evaporationKgPerS } from "../air-side";
-import { compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
+import { type CompressorModel, compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
 import { fanPowerAtSpeedKW } from "../fans";
 import {
   type CoolerModel,
@@ -17,7 +17,7 @@ import {
   coolerLeavingFluidAtAirflowC,
   solveCoolerModeHour,
 } from "../fluid-cooler";
-import { optimalFloatingCondensing } from "../head-pressure";
+import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, lowerFanStates } from "./record-types";
@@ -74,47 +74,77 @@ function coolerMode(po: PreparedOption, model: CoolerModel, ctx: YearContext, ai
   const floating = ctx.duty.headPressureControl === "floating";
   const targetC = floating ? ctx.duty.minimumCondensingC : setC;
   const spray = wet ? po.sprayPumpKW : 0;
-  const ma = model.designAirFlowKgPerS;
-  const evapAt = (f: number): number => (wet ? evaporationKgPerS(heatKW, Math.max(f, 1e-3) * ma, ctx.pPa, air) : 0);
-  const outcome = (held: boolean, condensingC: number, fanKW: number, evaporation: number): ModeOutcome => ({
-    wet,
-    held,
-    condensingC,
-    fanKW,
-    evaporationKgPerS: evaporation,
-    totalKW: fanKW + spray + compressorPowerKW(ctx.compressor, qe, condensingC),
-  });
 
   if (floating && po.fan.control === "variableSpeed") {
-    const airflowAt = (tc: number) => coolerAirflowForLeavingFluid(model, air, heatKW, tc - lift, wet, ctx.pPa);
-    const slope = (tc: number) => compressorPowerSlopeKWPerK(ctx.compressor, qe, tc);
+    const h = COOLER_HOUR;
+    h.set(model, air, heatKW, lift, wet, ctx, qe);
     const fMin = Math.max(po.fan.minSpeedFraction, po.fan.naturalDraftAirflowFraction);
-    const a0 = airflowAt(targetC);
+    const a0 = h.airflowAt(targetC);
     if (a0.fraction <= fMin) {
       const r = solveCoolerModeHour(model, po.fan, air, heatKW, targetC - lift, wet, ctx.pPa);
-      return outcome(true, targetC, r.fanPowerKW, r.evaporationKgPerS);
+      return outcome(ctx, qe, spray, wet, true, targetC, r.fanPowerKW, r.evaporationKgPerS);
     }
     let lowC = targetC;
     let atLow = a0;
     if (!(a0.fraction <= 1 + 1e-6)) {
       lowC = coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, ctx.pPa) + lift;
-      if (lowC >= setC) return outcome(false, lowC, po.fan.designPowerKW, evapAt(1));
-      atLow = { fraction: 1, slopePerK: airflowAt(lowC).slopePerK };
+      if (lowC >= setC) return outcome(ctx, qe, spray, wet, false, lowC, po.fan.designPowerKW, sprayEvaporation(wet, heatKW, 1, model, ctx, air));
+      atLow = { fraction: 1, slopePerK: h.airflowAt(lowC).slopePerK };
     }
-    const best = optimalFloatingCondensing(po.fan, lowC, setC, airflowAt, slope, atLow);
+    const best = optimalFloatingCondensing(po.fan, lowC, setC, h, atLow);
     const f = Math.min(1, Math.max(best.airflow.fraction, fMin));
-    return outcome(true, best.condensingC, fanPowerAtSpeedKW(po.fan, f), evapAt(f));
+    return outcome(ctx, qe, spray, wet, true, best.condensingC, fanPowerAtSpeedKW(po.fan, f), sprayEvaporation(wet, heatKW, f, model, ctx, air));
   }
 
   const hold = solveCoolerModeHour(model, po.fan, air, heatKW, targetC - lift, wet, ctx.pPa);
   const holdC = hold.held ? targetC : hold.leavingFluidC + lift;
-  let best = outcome(floating ? holdC <= setC + SET_POINT_TOLERANCE_K : hold.held, holdC, hold.fanPowerKW, hold.evaporationKgPerS);
+  let best = outcome(ctx, qe, spray, wet, floating ? holdC <= setC + SET_POINT_TOLERANCE_K : hold.held, holdC, hold.fanPowerKW, hold.evaporationKgPerS);
   if (!floating) return best;
   for (const s of lowerFanStates(po, hold.airflowFraction)) {
     const tc = coolerLeavingFluidAtAirflowC(model, air, heatKW, s.airflowFraction, wet, ctx.pPa) + lift;
     if (tc > setC + SET_POINT_TOLERANCE_K || tc < targetC) continue;
-    const c = outcome(true, tc, s.powerKW, evapAt(s.airflowFraction));
+    const c = outcome(ctx, qe, spray, wet, true, tc, s.powerKW, sprayEvaporation(wet, heatKW, s.airflowFraction, model, ctx, air));
     if (c.totalKW < best.totalKW) best = c;
   }
   return best;
 }
+
+function outcome(ctx: YearContext, qe: number, sprayKW: number, wet: boolean, held: boolean, condensingC: number, fanKW: number, evaporation: number): ModeOutcome {
+  return { wet, held, condensingC, fanKW, evaporationKgPerS: evaporation, totalKW: fanKW + sprayKW + compressorPowerKW(ctx.compressor, qe, condensingC) };
+}
+
+/** Spray evaporation at an airflow fraction (air-side balance); 0 dry. */
+function sprayEvaporation(wet: boolean, heatKW: number, airflowFraction: number, model: CoolerModel, ctx: YearContext, air: EnteringAir): number {
+  return wet ? evaporationKgPerS(heatKW, Math.max(airflowFraction, 1e-3) * model.designAirFlowKgPerS, ctx.pPa, air) : 0;
+}
+
+/** The cooler's hour in one mode as the floating-head search sees it: Tc = leaving fluid + lift. */
+class CoolerFloatingHour implements FloatingHour {
+  private model!: CoolerModel;
+  private air!: EnteringAir;
+  private heatKW = 0;
+  private liftK = 0;
+  private wet = true;
+  private pPa = 0;
+  private compressor!: CompressorModel;
+  private qe = 0;
+  set(model: CoolerModel, air: EnteringAir, heatKW: number, liftK: number, wet: boolean, ctx: YearContext, qe: number): void {
+    this.model = model;
+    this.air = air;
+    this.heatKW = heatKW;
+    this.liftK = liftK;
+    this.wet = wet;
+    this.pPa = ctx.pPa;
+    this.compressor = ctx.compressor;
+    this.qe = qe;
+  }
+  airflowAt(condensingC: number) {
+    return coolerAirflowForLeavingFluid(this.model, this.air, this.heatKW, condensingC - this.liftK, this.wet, this.pPa);
+  }
+  compressorSlope(condensingC: number): number {
+    return compressorPowerSlopeKWPerK(this.compressor, this.qe, condensingC);
+  }
+}
+
+/** One instance reused hour after hour (the engine is synchronous and never re-enters a record). */
+const COOLER_HOUR = new CoolerFloatingHour();

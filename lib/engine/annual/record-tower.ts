@@ -10,10 +10,10 @@
  *   so the optimum is at a state or at the minimum).
  */
 import { type EnteringAir, evaporationKgPerS } from "../air-side";
-import { compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
+import { type CompressorModel, compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
 import { fouledUaKWPerK } from "../condenser";
 import { fanPowerAtSpeedKW } from "../fans";
-import { optimalFloatingCondensing } from "../head-pressure";
+import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
 import { plateExchangerApproachK } from "../plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
 import { type TowerModel, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC } from "../tower";
@@ -43,40 +43,33 @@ export function towerRecord(
   const floating = ctx.duty.headPressureControl === "floating";
   const targetC = floating ? ctx.duty.minimumCondensingC : setC;
 
-  const finish = (held: boolean, condensingC: number, fanKW: number, evaporation: number): DeviceRecord => {
-    const cold = condensingC - liftK;
-    rates.fanKW = fanKW;
-    rates.evaporationKgPerS = evaporation;
-    rates.hottestSurfaceC = cold + rangeK;
-    return { held, condensingC, leavingC: cold };
-  };
-
   if (floating && po.fan.control === "variableSpeed") {
     const qe = hour.refrigerationKW;
-    const airflowAt = (tc: number) => towerAirflowForColdWater(model, air, heatKW, tc - liftK, ctx.pPa);
-    const slope = (tc: number) => compressorPowerSlopeKWPerK(ctx.compressor, qe, tc);
+    const h = TOWER_HOUR;
+    h.set(model, air, heatKW, liftK, ctx, qe);
     const fMin = Math.max(po.fan.minSpeedFraction, po.fan.naturalDraftAirflowFraction);
-    const a0 = airflowAt(targetC);
+    const a0 = h.airflowAt(targetC);
     if (a0.fraction <= fMin) {
       // Below the minimum speed the fan cycles to hold the minimum: nothing left to trade.
       const r = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa);
-      return finish(true, targetC, r.fanPowerKW, r.evaporationKgPerS);
+      return finishTower(rates, liftK, rangeK, true, targetC, r.fanPowerKW, r.evaporationKgPerS);
     }
     let lowC = targetC;
     let atLow = a0;
     if (!(a0.fraction <= 1 + 1e-6)) {
-      lowC = towerColdWaterAtAirflowC(model, air, heatKW, 1, ctx.pPa, targetC - liftK) + liftK;
-      if (lowC >= setC) return finish(false, lowC, po.fan.designPowerKW, evaporationKgPerS(heatKW, model.designAirFlowKgPerS, ctx.pPa, air));
-      atLow = { fraction: 1, slopePerK: airflowAt(lowC).slopePerK };
+      const slope = { airflowSlopePerK: 0 };
+      lowC = towerColdWaterAtAirflowC(model, air, heatKW, 1, ctx.pPa, targetC - liftK, undefined, 2e-4, 0, slope) + liftK;
+      if (lowC >= setC) return finishTower(rates, liftK, rangeK, false, lowC, po.fan.designPowerKW, evaporationKgPerS(heatKW, model.designAirFlowKgPerS, ctx.pPa, air));
+      atLow = { fraction: 1, slopePerK: slope.airflowSlopePerK };
     }
-    const best = optimalFloatingCondensing(po.fan, lowC, setC, airflowAt, slope, atLow);
+    const best = optimalFloatingCondensing(po.fan, lowC, setC, h, atLow);
     const f = Math.min(1, Math.max(best.airflow.fraction, fMin));
-    return finish(true, best.condensingC, fanPowerAtSpeedKW(po.fan, f), evaporationKgPerS(heatKW, f * model.designAirFlowKgPerS, ctx.pPa, air));
+    return finishTower(rates, liftK, rangeK, true, best.condensingC, fanPowerAtSpeedKW(po.fan, f), evaporationKgPerS(heatKW, f * model.designAirFlowKgPerS, ctx.pPa, air));
   }
 
   const hold = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa);
   const holdC = hold.held ? targetC : hold.coldWaterC + liftK;
-  if (!floating) return finish(hold.held, holdC, hold.fanPowerKW, hold.evaporationKgPerS);
+  if (!floating) return finishTower(rates, liftK, rangeK, hold.held, holdC, hold.fanPowerKW, hold.evaporationKgPerS);
 
   // Floating with a two-speed or cycling fan: compare holding (or full speed) with each lower state.
   const qe = hour.refrigerationKW;
@@ -95,5 +88,47 @@ export function towerRecord(
       bestEvap = evaporationKgPerS(heatKW, Math.max(s.airflowFraction, 1e-3) * model.designAirFlowKgPerS, ctx.pPa, air);
     }
   }
-  return finish(bestC <= setC + SET_POINT_TOLERANCE_K, bestC, bestFan, bestEvap);
+  return finishTower(rates, liftK, rangeK, bestC <= setC + SET_POINT_TOLERANCE_K, bestC, bestFan, bestEvap);
 }
+
+function finishTower(rates: RecordRates, liftK: number, rangeK: number, held: boolean, condensingC: number, fanKW: number, evaporation: number): DeviceRecord {
+  const cold = condensingC - liftK;
+  rates.fanKW = fanKW;
+  rates.evaporationKgPerS = evaporation;
+  rates.hottestSurfaceC = cold + rangeK;
+  return { held, condensingC, leavingC: cold };
+}
+
+/** The tower's hour as the floating-head search sees it: Tc = cold water + lift. */
+class TowerFloatingHour implements FloatingHour {
+  private model!: TowerModel;
+  private air!: EnteringAir;
+  private heatKW = 0;
+  private liftK = 0;
+  private pPa = 0;
+  private compressor!: CompressorModel;
+  private qe = 0;
+  set(model: TowerModel, air: EnteringAir, heatKW: number, liftK: number, ctx: YearContext, qe: number): void {
+    this.model = model;
+    this.air = air;
+    this.heatKW = heatKW;
+    this.liftK = liftK;
+    this.pPa = ctx.pPa;
+    this.compressor = ctx.compressor;
+    this.qe = qe;
+    this.lastLg = model.designLiquidToGasRatio;
+  }
+  /** The previous evaluation's L/G: the search's evaluations lie within a few K of each other. */
+  private lastLg = 1;
+  airflowAt(condensingC: number) {
+    const a = towerAirflowForColdWater(this.model, this.air, this.heatKW, condensingC - this.liftK, this.pPa, this.lastLg);
+    if (a.liquidToGasRatio !== undefined) this.lastLg = a.liquidToGasRatio;
+    return a;
+  }
+  compressorSlope(condensingC: number): number {
+    return compressorPowerSlopeKWPerK(this.compressor, this.qe, condensingC);
+  }
+}
+
+/** One instance reused hour after hour (the engine is synchronous and never re-enters a record). */
+const TOWER_HOUR = new TowerFloatingHour();
