@@ -17,7 +17,7 @@ function percentPerK(cop: (tc: number) => number, tc: number): number {
 }
 
 describe("refrigerant-cycle compressor model", () => {
-  // Check values of issue 10 / LoopLedger engineering notes §5 [pub: computed with the CoolProp reference
+  // Check values of issue 10 and Methods §5 [pub: computed with the CoolProp reference
   // library; single-stage, saturated suction, no subcooling, isentropic efficiency 0.75].
   const issue: { r: "R717" | "R134a"; te: number; tc: number; cop: number; pctPerK: number }[] = [
     { r: "R717", te: -10, tc: 35, cop: 3.647, pctPerK: 2.65 },
@@ -54,7 +54,7 @@ describe("refrigerant-cycle compressor model", () => {
   });
 
   // The Carnot fraction's sensitivity 1/(Tc − Te) per K is 15–25 % below the real ammonia cycle's
-  // (LoopLedger engineering notes §5, from the check values above).
+  // (Methods §5, from the check values above).
   it("the Carnot fraction understates the ammonia cycle's sensitivity by 15–25 %", () => {
     const carnot: CompressorModel = { kind: "carnotFraction", carnotEfficiency: carnotEfficiency(3.647, 35, -10), evaporatingK: 263.15 };
     const cop = (tc: number) => 1 / compressorPowerKW(carnot, 1, tc);

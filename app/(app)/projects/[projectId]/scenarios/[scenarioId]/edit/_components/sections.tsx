@@ -96,6 +96,7 @@ export function DutySection() {
   const basis = useWatch<V, "duty.designBasis">({ name: "duty.designBasis" });
   const profile = useWatch<V, "duty.loadProfile">({ name: "duty.loadProfile" });
   const compressor = useWatch<V, "duty.compressorModel">({ name: "duty.compressorModel" });
+  const evaporatingC = useWatch<V, "duty.evaporatingC">({ name: "duty.evaporatingC" });
   return (
     <Section id="duty" title="Duty" intro="The heat the loop rejects and the refrigeration cycle it serves.">
       <Group title="Design duty">
@@ -191,7 +192,10 @@ export function DutySection() {
           </>
         ) : null}
       </Group>
-      <Group title="Compressor power">
+      <Group
+        title="Compressor power"
+        note="Every option pays its own compressor energy at the condensing temperature it reaches in each hour."
+      >
         <div>
           <label htmlFor="f-duty-compressorModel-kind" className="block text-sm font-medium">
             Model of compressor power vs condensing temperature
@@ -199,34 +203,102 @@ export function DutySection() {
           <select
             id="f-duty-compressorModel-kind"
             className="mt-1 w-full rounded-md border border-line-strong bg-paper-raised px-3 py-2 text-sm"
-            value={compressor?.kind ?? "carnotFraction"}
-            onChange={(e) =>
+            value={compressor?.kind ?? "refrigerantCycle"}
+            onChange={(e) => {
+              const k = e.target.value;
               setValue(
                 "duty.compressorModel",
-                e.target.value === "percentPerK"
-                  ? { kind: "percentPerK", percentPerK: 3 }
-                  : { kind: "carnotFraction" },
+                k === "percentPerK"
+                  ? { kind: "percentPerK", percentPerK: 3, floorFraction: 0.4 }
+                  : k === "manufacturer"
+                    ? {
+                        kind: "manufacturer",
+                        curves: [
+                          {
+                            evaporatingC: evaporatingC ?? -10,
+                            points: [25, 35, 45].map((t) => ({ condensingC: t, cop: undefined })),
+                          },
+                        ],
+                      }
+                    : k === "carnotFraction"
+                      ? { kind: "carnotFraction" }
+                      : { kind: "refrigerantCycle" },
                 { shouldDirty: true, shouldValidate: true },
-              )
-            }
+              );
+            }}
           >
-            <option value="carnotFraction">Carnot fraction calibrated on the design COP</option>
-            <option value="percentPerK">Entered percent per degree</option>
+            <option value="refrigerantCycle">Refrigerant cycle of the plant, scaled to the design COP</option>
+            <option value="manufacturer">The manufacturer&apos;s data (COP at three or more condensing temperatures)</option>
+            <option value="percentPerK">Entered percent per degree (compounding, with a floor)</option>
+            <option value="carnotFraction">Carnot fraction (the simplest model)</option>
           </select>
           <p className="mt-1 text-xs text-ink-faint">
-            Default · Carnot fraction · Methods §5
+            Default · refrigerant cycle · single-stage saturated R-717 or R-134a cycle fitted to CoolProp
+            reference-library values (Methods §5)
           </p>
         </div>
-        {compressor?.kind === "percentPerK" ? (
-          <Num
-            name="duty.compressorModel.percentPerK"
-            label="Compressor power rise"
-            kind="percentPerK"
-            description="2–4 %/K in industrial refrigeration [practice]."
+        {compressor?.kind === "refrigerantCycle" ? (
+          <Choice
+            name="duty.compressorModel.refrigerant"
+            label="Cycle"
+            options={[
+              { value: "", label: "The plant's refrigerant" },
+              { value: "R717", label: "Ammonia (R-717)" },
+              { value: "R134a", label: "R-134a" },
+            ]}
           />
         ) : null}
+        {compressor?.kind === "percentPerK" ? (
+          <>
+            <Num
+              name="duty.compressorModel.percentPerK"
+              label="Compressor power rise"
+              kind="percentPerK"
+              description="2–4 %/K in industrial refrigeration [practice]."
+            />
+            <Pct name="duty.compressorModel.floorFraction" label="Never below (of design power)" />
+          </>
+        ) : null}
+        {compressor?.kind === "manufacturer" ? <CompressorDataTable /> : null}
       </Group>
     </Section>
+  );
+}
+
+/** The manufacturer's compressor points at the first suction temperature (a second one: JSON document). */
+function CompressorDataTable() {
+  const { fields, append, remove } = useFieldArray<V, "duty.compressorModel.curves.0.points">({
+    name: "duty.compressorModel.curves.0.points",
+  });
+  return (
+    <div className="space-y-2 sm:col-span-2 xl:col-span-3" data-testid="compressor-data">
+      <Num name="duty.compressorModel.curves.0.evaporatingC" label="Suction (evaporating) temperature" kind="temperatureC" />
+      {fields.map((f, j) => (
+        <div key={f.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
+          <Num name={`duty.compressorModel.curves.0.points.${j}.condensingC`} label={`Point ${j + 1}: condensing`} kind="temperatureC" />
+          <Plain name={`duty.compressorModel.curves.0.points.${j}.cop`} label="COP" unit="kW/kW" />
+          <button
+            type="button"
+            className="mb-1 rounded border border-line px-2 py-1 text-xs"
+            onClick={() => remove(j)}
+            disabled={fields.length <= 3}
+          >
+            Remove
+          </button>
+        </div>
+      ))}
+      <button
+        type="button"
+        className="rounded border border-line px-2 py-1 text-xs"
+        onClick={() => append({ condensingC: 50 })}
+        disabled={fields.length >= 12}
+      >
+        Add a point
+      </button>
+      <p className="text-xs text-ink-faint">
+        Rising condensing temperatures, falling COP; interpolated monotonically, warned outside the points.
+      </p>
+    </div>
   );
 }
 
@@ -385,6 +457,9 @@ export function OptionSection({
   const dryRating = useWatch<V, `options.${number}.cooler.dryRating`>({
     name: `options.${i}.cooler.dryRating`,
   });
+  const modeSelection = useWatch<V, `options.${number}.cooler.modeSelection`>({
+    name: `options.${i}.cooler.modeSelection`,
+  });
   const glycolKind = useWatch<V, `options.${number}.cooler.glycol.kind`>({
     name: `options.${i}.cooler.glycol.kind`,
   });
@@ -452,6 +527,23 @@ export function OptionSection({
             unit="—"
           />
           <Check name={`${p}.cooler.allowDryMode`} label="May run dry (spray pump off)" />
+          <Choice
+            name={`${p}.cooler.modeSelection`}
+            label="Wet or dry in each hour"
+            options={[
+              { value: "lowestTotalPower", label: "Whichever needs less fan + spray + compressor power" },
+              { value: "switchOverDryBulb", label: "Dry at or below a switch-over dry-bulb" },
+            ]}
+          />
+          {modeSelection === "switchOverDryBulb" ? (
+            <Num name={`${p}.cooler.switchOverDryBulbC`} label="Switch-over dry-bulb" kind="temperatureC" />
+          ) : null}
+          <Num
+            name={`${p}.cooler.sprayLockoutDryBulbC`}
+            label="Spray locked out below dry-bulb"
+            kind="temperatureC"
+            description="Freeze protection: always dry below it."
+          />
           <Num
             name={`${p}.cooler.dryModeMaxDryBulbC`}
             label="Dry operation only below dry-bulb"
