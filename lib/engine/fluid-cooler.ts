@@ -281,7 +281,9 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
   if (!(needKWPerK > 0)) return Number.POSITIVE_INFINITY;
   let hi = 1;
   let gHi = coolerConductanceKWPerK(model, hi, air, cs) - needKWPerK;
-  if (gHi < 0) return Number.POSITIVE_INFINITY;
+  // The rating point itself counts as held: a relative 1e−6 of the conductance (rounding of the
+  // calibration round trip), as the tower's L/G root and the fan map allow.
+  if (gHi < 0) return gHi >= -1e-6 * needKWPerK ? 1 : Number.POSITIVE_INFINITY;
   let lo = 1e-3;
   let gLo = coolerConductanceKWPerK(model, lo, air, cs) - needKWPerK;
   if (gLo >= 0) return lo;

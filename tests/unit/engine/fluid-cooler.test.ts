@@ -119,3 +119,31 @@ describe("cooler mode selection", () => {
     expect(r.mode).toBe("wet");
   });
 });
+
+describe("a selection exactly at its rating point holds it", () => {
+  // Common practice, no source: a unit operated at the very conditions it was selected for (design
+  // wet-bulb, flow, range, leaving temperature) meets its rating; a model calibrated on that point must
+  // report the set-point as held, within the rounding of the calibration round trip.
+  it("the cooler at its wet rating point, over a grid of pressures, wet-bulbs, approaches and ranges", () => {
+    let notHeld = 0;
+    for (const p of [101_325, 98_500, 89_875])
+      for (const wb of [18, 21.3, 24, 25.6, 27.1])
+        for (const approach of [2.5, 3.1, 4.7, 6])
+          for (const range of [3, 5.5, 7.7])
+            for (const glycol of [{ kind: "none" as const, massFraction: 0 }, { kind: "propyleneGlycol" as const, massFraction: 0.3 }]) {
+              const s: CoolerSelection = {
+                ...sel,
+                fluidFlowKgPerS: 50.3,
+                enteringFluidC: wb + approach + range,
+                leavingFluidC: wb + approach,
+                designWetBulbC: wb,
+                glycol,
+                ratingFluid: glycol.kind === "none" ? "water" : "loopFluid",
+              };
+              const m = calibrateCooler(s, p, "c").model;
+              const r = solveCoolerHour(m, fan, enteringAir(wb + 8, wb, p), m.fluidCapacityKWPerK * range, wb + approach, p);
+              if (!r.held) notHeld++;
+            }
+    expect(notHeld).toBe(0);
+  });
+});

@@ -241,3 +241,21 @@ describe("evaporation", () => {
     expect(latent).toBeLessThan(1.05);
   });
 });
+
+describe("a selection exactly at its rating point holds it", () => {
+  // Common practice, no source: a tower operated at the conditions it was selected for meets its
+  // rating; the calibrated model must report the cold-water set-point as held at full fan speed or less.
+  it("over a grid of pressures, wet-bulbs, approaches and ranges", () => {
+    let notHeld = 0;
+    for (const p of [101_325, 98_500, 89_875])
+      for (const wb of [18, 21.3, 24, 25.6, 27.1])
+        for (const approach of [2.5, 3.1, 4.7, 6])
+          for (const range of [3, 5.5, 7.7]) {
+            const s = { ...selection, waterFlowKgPerS: 50.3, enteringWaterC: wb + approach + range, leavingWaterC: wb + approach, designWetBulbC: wb };
+            const m = calibrateTower(s, p, "t").model;
+            const r = solveTowerHour(m, vsd, enteringAir(wb + 8, wb, p), 50.3 * CPW * range, wb + approach, p);
+            if (!r.held || r.airflowFraction > 1 + 1e-6) notHeld++;
+          }
+    expect(notHeld).toBe(0);
+  });
+});
