@@ -54,3 +54,14 @@ export function requiredEnteringWaterC(
 ): number {
   return condensingC - heatKW / (isothermalStreamEffectiveness(uaKWPerK, waterCapacityRateKWPerK) * waterCapacityRateKWPerK);
 }
+
+/**
+ * Clean overall coefficient on a glycol loop relative to water, for a condenser whose water-side film is
+ * a share f of its clean resistance 1/U: U_g/U_w = 1/(f/r + 1 − f), r = h_glycol/h_water (Dittus–Boelter
+ * ratio at the same mass flow, glycol.ts). Resistances in series: Incropera & DeWitt, Fundamentals of
+ * Heat and Mass Transfer (overall coefficient). Dimensionless; 1 for water (r = 1).
+ */
+export function condenserGlycolUFactor(waterSideResistanceFraction: number, coefficientRatio: number): number {
+  const f = waterSideResistanceFraction;
+  return 1 / (f / coefficientRatio + 1 - f);
+}

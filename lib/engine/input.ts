@@ -17,6 +17,7 @@ import type { CleaningMethod, CondenserConstruction, CondenserMaterial } from ".
 import type { CoolerSelection } from "./fluid-cooler";
 import type { GwpReport, Refrigerant } from "./refrigerants";
 import type { TowerSelection } from "./tower";
+import type { ScaleControl, SewerBasis } from "./water";
 
 export interface SiteInput {
   elevationM: number;
@@ -96,10 +97,21 @@ export interface PumpInput {
   efficiency: number;
 }
 
+/**
+ * Basin heater: a thermostat holds the basin water at `setPointC`; the heat it must supply is the basin's
+ * loss to the air, heatLoss·(set-point − dry-bulb), capped at the heater's rating. It runs only in hours
+ * when the basin holds still water: not while warm water circulates (tower under load, cooler spraying),
+ * and not when the basin is drained in those hours (`drainedWhenIdle`).
+ */
 export interface BasinHeaterInput {
+  /** Heater rating, kW (0 = no heater). */
   powerKW: number;
-  /** The heater runs in hours below this dry-bulb in which no warm water wets the basin (see annual.ts). */
-  belowDryBulbC: number;
+  /** Thermostat set-point of the basin water, °C. */
+  setPointC: number;
+  /** Heat loss of the basin per kelvin of set-point above the dry-bulb, kW/K. */
+  heatLossKWPerK: number;
+  /** The basin is drained whenever no water circulates over the fill or coil (tower idle, cooler dry or idle). */
+  drainedWhenIdle: boolean;
 }
 
 /** The condenser's upkeep plan; undefined fields take the construction's defaults (condenser-construction.ts). */
@@ -131,6 +143,11 @@ export interface CondenserInput {
   /** Refrigerant held per kW of design heat rejection, kg/kW; default by construction and refrigerant. */
   specificChargeKgPerKW?: number;
   upkeep: CondenserUpkeepInput;
+  /**
+   * Share of the clean condenser's resistance 1/U on the water (loop-fluid) side; the part glycol derates
+   * when the condenser's design point is stated on water and the loop carries glycol.
+   */
+  waterSideResistanceFraction: number;
 }
 
 /** The tower's design point as entered: the same fields calibrateTower reads (documented there). */
@@ -171,6 +188,12 @@ interface OptionBaseInput {
   driftFractionOfFlow: number;
   /** Water volume of the wet loop; default: 3 minutes of its circulating flow. */
   wetLoopVolumeM3?: number;
+  /**
+   * This wet loop's own cycles of concentration (e.g. a cooler's spray loop run lower than a tower);
+   * default: the scenario's cycles (`water`). A cycles what-if or sensitivity scales every loop's cycles
+   * by the same factor as the scenario's.
+   */
+  cyclesOfConcentration?: number;
 }
 
 export interface OpenTowerDirectOptionInput extends OptionBaseInput {
@@ -217,9 +240,12 @@ export interface WaterInput {
   /** "entered": use `cyclesOfConcentration`; "fromChemistry": Cmax from makeup and limits. */
   cyclesMode: "entered" | "fromChemistry";
   cyclesOfConcentration?: number;
-  /** pH of the recirculating water for the scaling indices. */
+  /** pH of the recirculating water for the scaling indices (before any acid feed). */
   recirculatingPh: number;
-  sewerEvaporationCredit: boolean;
+  /** What the sewer utility bills: makeup, makeup − evaporation (B + D), or metered blowdown (B). */
+  sewerBasis: SewerBasis;
+  /** Highest Langelier index accepted at the hottest wetted surface, and acid feed to hold it. */
+  scaleControl: ScaleControl;
   dosing: { inhibitorMgPerLOutflow: number; biocideMgPerLSystemVolume: number; biocideSlugsPerYear: number };
 }
 

@@ -138,8 +138,12 @@ export interface OptionAnnualPhysics {
   cleaningsPerYear: number;
   /** Cost-minimising cleaning interval, months (null where the option has no fouled surface). */
   optimalCleaningIntervalMonths: number | null;
-  /** Chemical programme quantities: water leaving the wet loop (blowdown + drift) and loop volume. */
-  chemicals: { treatedOutflowM3: number; systemVolumeM3: number; inhibitorKg: number; biocideKg: number };
+  /**
+   * Chemical programme quantities: water leaving the wet loop (blowdown + drift), loop volume, inhibitor
+   * and biocide, and the acid product fed to hold the Langelier limit (0 where none is needed). Stored
+   * results from before acid feed carry no `acidKg` (read as 0).
+   */
+  chemicals: { treatedOutflowM3: number; systemVolumeM3: number; inhibitorKg: number; biocideKg: number; acidKg?: number };
   /**
    * Explanation only, never priced: the compressor energy above what the same hours would need with a
    * clean condenser and no plate exchanger on the same tower or cooler water, kWh/yr (≥ 0 per hour).
@@ -149,7 +153,10 @@ export interface OptionAnnualPhysics {
   compressorExtrapolatedHours: number;
   /** The 0.4 % design-hour check of this option's selection (absent where the climate has no hours). */
   designDay?: OptionDesignDay;
-  /** Scaling indices of the recirculating (tower or spray) water at the hottest wetted surface. */
+  /**
+   * Scaling indices of the recirculating (tower or spray) water at the hottest wetted surface, at the
+   * cycles the loop actually achieves (M/(B + D) over the year), after any acid feed.
+   */
   waterChemistry?: {
     hottestWettedSurfaceC: number;
     saturationPh: number;
@@ -157,6 +164,37 @@ export interface OptionAnnualPhysics {
     ryznarIndex: number;
     cyclesLimitFromChemistry: number;
     limitingSpecies: "silica" | "chloride" | "tds" | "calciumHardness" | null;
+    /** Cycles the indices are computed at (achieved), and the loop's target cycles. */
+    atCycles?: number;
+    targetCycles?: number;
+    /** pH after acid feed, and the Langelier index the water would have without it. */
+    ph?: number;
+    untreatedLangelierIndex?: number;
+    /** The limit the treatment holds, and whether acid is fed to hold it. */
+    maximumLangelierIndex?: number;
+    acidFeed?: boolean;
+    /** What the economics need to recompute the acid at other cycles without the physics. */
+    acidBasis?: AcidBasis;
   };
   warnings: EngineWarning[];
+}
+
+/**
+ * The chemistry a cycles recompute needs to re-derive the acid feed (lib/engine/water.ts
+ * `loopChemistryAtCycles`): makeup analysis, untreated recirculating pH, hottest wetted surface, the limit.
+ */
+export interface AcidBasis {
+  makeup: {
+    calciumHardnessMgPerLAsCaCO3: number;
+    mAlkalinityMgPerLAsCaCO3: number;
+    silicaMgPerL: number;
+    chlorideMgPerL: number;
+    tdsMgPerL: number;
+    ph: number;
+  };
+  recirculatingPh: number;
+  hottestSurfaceC: number;
+  maximumLangelierIndex: number;
+  acidFeed: boolean;
+  acidStrengthFraction: number;
 }

@@ -69,9 +69,22 @@ export function achievedCycles(evaporation: number, blowdownAmount: number, drif
   return out > 0 ? (evaporation + out) / out : Number.POSITIVE_INFINITY;
 }
 
-/** Volume billed by the sewer utility: makeup, or makeup − evaporation with an evaporation credit. */
-export function sewerBilled(makeup: number, evaporation: number, evaporationCredit: boolean): number {
-  return evaporationCredit ? Math.max(0, makeup - evaporation) : makeup;
+/**
+ * What the sewer utility bills (the user's choice, stated in the results):
+ * - "makeup": every m³ of makeup (no credit);
+ * - "makeupMinusEvaporation": makeup less evaporation, M − E = B + D (an evaporation credit on the makeup
+ *   meter; drift is billed because it is not metered separately);
+ * - "blowdown": the metered blowdown B only (a blowdown meter on the sewer connection; drift and
+ *   evaporation never reach the sewer).
+ * Source: the water balance M = E + B + D; credit practice varies by utility [practice].
+ */
+export type SewerBasis = "makeup" | "makeupMinusEvaporation" | "blowdown";
+
+/** Volume billed by the sewer utility on a basis (same units as the inputs): M, M − E (= B + D) or B. */
+export function sewerBilled(basis: SewerBasis, makeup: number, evaporation: number, blowdownAmount: number): number {
+  if (basis === "blowdown") return blowdownAmount;
+  if (basis === "makeupMinusEvaporation") return Math.max(0, makeup - evaporation);
+  return makeup;
 }
 
 /**
@@ -126,5 +139,83 @@ export function chemicalQuantitiesKg(
   return {
     inhibitorKg: (inhibitorMgPerL * treatedOutflowM3) / 1000,
     biocideKg: (biocideMgPerL * systemVolumeM3 * biocideSlugsPerYear * yearFraction) / 1000,
+  };
+}
+
+/**
+ * Scale control of a wet loop: the highest Langelier index the treatment programme accepts at the hottest
+ * wetted surface, and whether sulfuric acid is fed to hold it there (else the excess is only warned of).
+ */
+export interface ScaleControl {
+  maximumLangelierIndex: number;
+  acidFeed: boolean;
+  /** Mass fraction of H2SO4 in the acid product (e.g. 0.93 for 66 °Bé acid). */
+  acidStrengthFraction: number;
+}
+
+/** Mass of 100 % H2SO4 that neutralises 1 mg of M-alkalinity as CaCO3: 49.04/50.04 = 0.980 (equivalent weights). */
+export const SULFURIC_ACID_PER_ALKALINITY_AS_CACO3 = 49.04 / 50.04;
+
+/** Chemistry of a wet loop's recirculating water at C cycles, with acid feed where it is needed. */
+export interface LoopChemistry {
+  cycles: number;
+  hottestSurfaceC: number;
+  /** Untreated: conservative species × C at the entered recirculating pH. */
+  untreatedLangelierIndex: number;
+  /** After acid feed (equal to the untreated values without acid). */
+  ph: number;
+  mAlkalinityMgPerLAsCaCO3: number;
+  saturationPh: number;
+  langelierIndex: number;
+  ryznarIndex: number;
+  /** Alkalinity the acid destroys per m³ of water leaving the loop (B + D), mg/L as CaCO3. */
+  alkalinityNeutralisedMgPerL: number;
+  /** Acid product dosed per m³ of water leaving the loop (B + D), kg/m³. */
+  acidProductKgPerM3Outflow: number;
+}
+
+/**
+ * Recirculating-water chemistry at C cycles and the acid feed that holds the Langelier index at the limit.
+ *
+ * Untreated: Ca, M-alkalinity and TDS × C (conservative species), pH as entered → pHs (Langelier 1936,
+ * standard A–D form), LSI = pH − pHs, RSI = 2·pHs − pH (Ryznar 1944).
+ * Acid (H2SO4 + 2 HCO3⁻ → SO4²⁻ + 2 CO2 + 2 H2O) lowers the alkalinity from Alk_r = C·Alk_m to Alk_t. With the
+ * dissolved CO2 held by stripping in the tower, pH = pK1 + log10([HCO3⁻]/[CO2]) falls by
+ * Δ = log10(Alk_r/Alk_t) (carbonate equilibrium, e.g. Stumm & Morgan, Aquatic Chemistry) while pHs rises by
+ * the same Δ (its D term), so LSI falls by 2Δ: Δ = (LSI − LSImax)/2. Calcium and TDS are taken as unchanged
+ * (sulfate replaces bicarbonate; a small TDS change is neglected).
+ * Alkalinity balance of the loop: acid destroys M·Alk_m − (B + D)·Alk_t = (B + D)·(Alk_r − Alk_t), so the
+ * acid per m³ of outflow is 0.980·(Alk_r − Alk_t) g/m³ of H2SO4 (equivalent weights 49.04/50.04), divided
+ * by the product strength. Rising cycles raise Alk_r and so the acid per m³ of (smaller) outflow.
+ * Units: mg/L, °C, kg/m³.
+ */
+export function loopChemistryAtCycles(
+  makeup: MakeupAnalysis,
+  recirculatingPh: number,
+  hottestSurfaceC: number,
+  cycles: number,
+  scale: ScaleControl,
+): LoopChemistry {
+  const r = concentrated(makeup, cycles);
+  const phs0 = saturationPh(hottestSurfaceC, r.tdsMgPerL, r.calciumHardnessMgPerLAsCaCO3, r.mAlkalinityMgPerLAsCaCO3);
+  const lsi0 = langelierIndex(recirculatingPh, phs0);
+  const excess = lsi0 - scale.maximumLangelierIndex;
+  const delta = scale.acidFeed && excess > 0 && r.mAlkalinityMgPerLAsCaCO3 > 0 ? excess / 2 : 0;
+  const alkT = r.mAlkalinityMgPerLAsCaCO3 * Math.pow(10, -delta);
+  const ph = recirculatingPh - delta;
+  const phs = phs0 + delta;
+  const neutralised = r.mAlkalinityMgPerLAsCaCO3 - alkT;
+  return {
+    cycles,
+    hottestSurfaceC,
+    untreatedLangelierIndex: lsi0,
+    ph,
+    mAlkalinityMgPerLAsCaCO3: alkT,
+    saturationPh: phs,
+    langelierIndex: langelierIndex(ph, phs),
+    ryznarIndex: ryznarIndex(ph, phs),
+    alkalinityNeutralisedMgPerL: neutralised,
+    acidProductKgPerM3Outflow:
+      neutralised > 0 ? (SULFURIC_ACID_PER_ALKALINITY_AS_CACO3 * neutralised) / 1000 / Math.max(scale.acidStrengthFraction, 1e-6) : 0,
   };
 }

@@ -6,7 +6,8 @@
 import type { UnitSystem } from "@/lib/auth/roles";
 import type { ClimateSummary } from "@/lib/engine/climate/summary";
 import { FIRST_COST_ITEMS, type FirstCostItem } from "@/lib/engine/economics/types";
-import type { DutyInput, FoulingInput, OptionInput, ScenarioInput, WaterInput } from "@/lib/engine/input";
+import type { BasinHeaterInput, DutyInput, FoulingInput, OptionInput, ScenarioInput, WaterInput } from "@/lib/engine/input";
+import type { SewerBasis } from "@/lib/engine/water";
 import { OPTION_KIND_LABELS, type OptionKind } from "@/lib/engine/types";
 import { economicsFieldDefaults } from "@/lib/scenarios/schema-economics";
 import { fmtMoney, fmtNumber, fmtPercent } from "./format";
@@ -302,9 +303,16 @@ function optionGroup(
     r.q("Design condensing temperature", "temperatureC", o.condenser.designCondensingC, 1, SELECTION);
   r.pct("Drift, share of circulating flow", o.driftFractionOfFlow, ENTERED, "%", 3);
   if (o.basinHeater && o.basinHeater.powerKW > 0) {
-    r.q("Basin heater", "powerKW", o.basinHeater.powerKW, 1, ENTERED);
-    r.q("Basin heater runs below dry-bulb", "temperatureC", o.basinHeater.belowDryBulbC, 1, ENTERED);
+    // Inputs stored before the heat-loss basis carry `belowDryBulbC` (the set-point) only.
+    const bh = o.basinHeater as Partial<BasinHeaterInput> & { belowDryBulbC?: number };
+    r.q("Basin heater rating", "powerKW", o.basinHeater.powerKW, 1, ENTERED);
+    r.q("Basin heater thermostat set-point", "temperatureC", bh.setPointC ?? bh.belowDryBulbC, 1, ENTERED);
+    if (bh.heatLossKWPerK !== undefined)
+      r.n("Basin heat loss below the set-point", bh.heatLossKWPerK, 3, "kW/K", "entered, or the rating over the set-point's margin above -17.8 °C (0 °F)");
+    if (bh.drainedWhenIdle) r.text("Basin when no water circulates", "drained (no heater)", ENTERED);
   }
+  if (o.cyclesOfConcentration !== undefined)
+    r.n("This loop's own cycles of concentration", o.cyclesOfConcentration, 1, "", ENTERED);
   if (physicsCycles !== undefined && physicsCycles > 1)
     r.n("Cycles of concentration (as run)", physicsCycles, 1, "", "from the water input");
   const costs = o.costs;
@@ -358,6 +366,12 @@ function optionGroup(
   return { title: o.label ?? kindLabel, note: kindLabel, rows: r.rows };
 }
 
+const SEWER_BASIS_WORDS: Record<SewerBasis, string> = {
+  makeup: "all makeup (no credit)",
+  makeupMinusEvaporation: "makeup less evaporation (blowdown + drift)",
+  blowdown: "metered blowdown only",
+};
+
 function waterGroup(
   w: Partial<WaterInput> | undefined,
   f: Partial<FoulingInput> | undefined,
@@ -402,15 +416,19 @@ function waterGroup(
           : undefined,
       ENTERED,
     );
-    r.text(
-      "Sewer evaporation credit",
-      w.sewerEvaporationCredit === undefined
-        ? undefined
-        : w.sewerEvaporationCredit
-          ? "yes (sewer billed on makeup less evaporation)"
-          : "no (sewer billed on makeup)",
-      ENTERED,
-    );
+    // Inputs stored before the sewer basis carry the evaporation-credit flag only.
+    const legacyCredit = (w as { sewerEvaporationCredit?: boolean }).sewerEvaporationCredit;
+    const basis = w.sewerBasis ?? (legacyCredit === undefined ? undefined : legacyCredit ? "makeupMinusEvaporation" : "makeup");
+    r.text("Sewer billed on", basis === undefined ? undefined : SEWER_BASIS_WORDS[basis], ENTERED);
+    const sc = w.scaleControl;
+    if (sc) {
+      r.n("Highest Langelier index accepted", sc.maximumLangelierIndex, 1, "", ENTERED);
+      r.text(
+        "Scale control above it",
+        sc.acidFeed ? `sulfuric acid feed (${fmtPercent(sc.acidStrengthFraction, 0)} product)` : "none costed (warning only)",
+        ENTERED,
+      );
+    }
   }
   if (f) {
     r.text(

@@ -34,6 +34,9 @@ import {
 
 export type { FieldDefault } from "./schema-economics";
 
+/** Outdoor dry-bulb at which a basin heater's rating just holds its set-point (the default heat-loss basis), °C. */
+export const BASIN_HEATER_SIZING_AMBIENT_C = -17.8;
+
 /** Default value and source of every defaulted physics field (economics: see `economicsFieldDefaults`). */
 export const physicsFieldDefaults = {
   "duty.headPressureControl": {
@@ -125,7 +128,26 @@ export const physicsFieldDefaults = {
   "options[].towerPump.headM": { default: 15, source: "[practice] tower-side loop head (static lift + piping)" },
   "options[].towerPump.efficiency": { default: 0.65, source: "[practice] wire-to-water efficiency" },
   "options[].basinHeater.powerKW": { default: 0, source: "none entered; enter the heater rating (0 = no heater)" },
-  "options[].basinHeater.belowDryBulbC": { default: 4.4, source: "[practice] basin-heater thermostat at about 40 °F" },
+  "options[].basinHeater.setPointC": {
+    default: 4.4,
+    source: "[practice] basin-heater thermostat at about 40 °F (a stored 'runs below dry-bulb' value is read as the set-point)",
+  },
+  "options[].basinHeater.heatLossKWPerK": {
+    default: "rating ÷ (set-point + 17.8 K)",
+    source: `[practice] heaters are sized to hold the set-point at about ${BASIN_HEATER_SIZING_AMBIENT_C} °C (0 °F) outdoors with the fan off; enter the manufacturer's basin heat loss if known`,
+  },
+  "options[].basinHeater.drainedWhenIdle": {
+    default: false,
+    source: "[practice] the basin stays filled when no water circulates; choose drained for a drain-down (or remote-sump) winter sequence",
+  },
+  "options[].cyclesOfConcentration": {
+    default: "the scenario's cycles (Water)",
+    source: "enter a loop's own cycles where it runs differently, e.g. a cooler's spray loop held lower to protect the coil",
+  },
+  "options[].condenser.waterSideResistanceFraction": {
+    default: 0.4,
+    source: "[practice] the water-side film is about 30–50 % of a clean condenser's resistance; glycol derates this part (Dittus–Boelter)",
+  },
   "options[].driftFractionOfFlow": {
     default: 0.00005,
     source: "[practice] modern drift eliminators 0.0005–0.005 % of circulating flow; 0.005 % used",
@@ -179,7 +201,20 @@ export const physicsFieldDefaults = {
   },
   "water.cyclesMode": { default: "fromChemistry", source: "cycles from the makeup analysis and the limits" },
   "water.recirculatingPh": { default: 8.5, source: "[practice] alkaline treatment programmes run pH 8.0–9.0" },
-  "water.sewerEvaporationCredit": { default: false, source: "[practice] a credit needs makeup and blowdown meters and the utility's consent" },
+  "water.sewerBasis": {
+    default: "makeup",
+    source:
+      "[practice] without a credit the utility bills all makeup; a credit needs meters and the utility's consent (a stored evaporation-credit choice is read as makeup − evaporation)",
+  },
+  "water.scaleControl.maximumLangelierIndex": {
+    default: 2.5,
+    source: "[practice] inhibitor programmes commonly accept an LSI of about 2.0–2.8 at the hottest wetted surface; ask the treatment vendor",
+  },
+  "water.scaleControl.acidFeed": {
+    default: true,
+    source: "[practice] sulfuric acid feed holds the LSI at the limit where the cycles would exceed it",
+  },
+  "water.scaleControl.acidStrengthFraction": { default: 0.93, source: "[practice] 66 °Bé sulfuric acid is 93 % H2SO4" },
   "water.dosing.inhibitorMgPerLOutflow": { default: 100, source: "[practice] inhibitor product 50–150 mg/L in the blowdown" },
   "water.dosing.biocideMgPerLSystemVolume": { default: 10, source: "[practice] slug dose of a non-oxidising biocide" },
   "water.dosing.biocideSlugsPerYear": { default: 52, source: "[practice] weekly slug dosing" },
@@ -342,10 +377,27 @@ const fanSchema = z
 const pumpSchema = (head: number, eff: number) =>
   z.object({ headM: nonNegative.max(200).default(head), efficiency: efficiency.default(eff) });
 
-const basinHeaterSchema = z.object({
-  powerKW: nonNegative.max(1000).default(d("options[].basinHeater.powerKW")),
-  belowDryBulbC: airC.default(d("options[].basinHeater.belowDryBulbC")),
-});
+/**
+ * Basin heater. `belowDryBulbC` is the earlier name of the thermostat set-point (stored scenarios keep
+ * it); the heat loss defaults to the rating spread over the set-point's margin above the sizing ambient.
+ */
+const basinHeaterSchema = z
+  .object({
+    powerKW: nonNegative.max(1000).default(d("options[].basinHeater.powerKW")),
+    setPointC: num.min(0).max(30).optional(),
+    /** @deprecated stored scenarios: read as `setPointC`. */
+    belowDryBulbC: airC.optional(),
+    heatLossKWPerK: nonNegative.max(100).optional(),
+    drainedWhenIdle: z.boolean().default(d("options[].basinHeater.drainedWhenIdle")),
+  })
+  .transform(({ belowDryBulbC, setPointC, heatLossKWPerK, ...rest }) => {
+    const setPoint = setPointC ?? Math.min(Math.max(belowDryBulbC ?? d("options[].basinHeater.setPointC"), 0), 30);
+    return {
+      ...rest,
+      setPointC: setPoint,
+      heatLossKWPerK: heatLossKWPerK ?? rest.powerKW / (setPoint - BASIN_HEATER_SIZING_AMBIENT_C),
+    };
+  });
 
 /** The condenser's upkeep plan; every field defaults from its construction (condenser-construction.ts). */
 const condenserUpkeepSchema = z.object({
@@ -371,6 +423,7 @@ const condenserSchema = z
     foulingGrowthMultiplier: nonNegative.max(10).optional(),
     specificChargeKgPerKW: nonNegative.max(5).optional(),
     upkeep: condenserUpkeepSchema.prefault({}),
+    waterSideResistanceFraction: num.gt(0).lt(1).default(d("options[].condenser.waterSideResistanceFraction")),
   })
   .refine((c) => c.designEnteringWaterC === undefined || c.designEnteringWaterC < c.designCondensingC, {
     message: "the design entering water must be colder than the design condensing temperature",
@@ -458,6 +511,7 @@ const optionBase = {
   basinHeater: basinHeaterSchema.prefault({}),
   driftFractionOfFlow: num.min(0).max(0.01).default(d("options[].driftFractionOfFlow")),
   wetLoopVolumeM3: positive.max(1e5).optional(),
+  cyclesOfConcentration: num.gt(1).max(50).optional(),
 };
 
 export const openTowerDirectOptionSchema = z.object({ ...optionBase, kind: z.literal("openTowerDirect"), tower: towerSchema });
@@ -490,8 +544,8 @@ export const makeupAnalysisSchema = z.object({
   tdsMgPerL: concentrationMgPerL,
 });
 
-export const waterSchema = z
-  .object({
+/** The water object's fields (what-if reads single fields from it); `waterSchema` adds its checks. */
+export const waterObjectSchema = z.object({
     makeup: makeupAnalysisSchema,
     limits: z
       .object({
@@ -504,7 +558,16 @@ export const waterSchema = z
     cyclesMode: z.enum(["entered", "fromChemistry"]).default(d("water.cyclesMode")),
     cyclesOfConcentration: num.gt(1).max(50).optional(),
     recirculatingPh: num.min(5).max(10).default(d("water.recirculatingPh")),
-    sewerEvaporationCredit: z.boolean().default(d("water.sewerEvaporationCredit")),
+    sewerBasis: z.enum(["makeup", "makeupMinusEvaporation", "blowdown"]).optional(),
+    /** @deprecated stored scenarios: true is read as sewerBasis "makeupMinusEvaporation", false as "makeup". */
+    sewerEvaporationCredit: z.boolean().optional(),
+    scaleControl: z
+      .object({
+        maximumLangelierIndex: num.min(-1).max(4).default(d("water.scaleControl.maximumLangelierIndex")),
+        acidFeed: z.boolean().default(d("water.scaleControl.acidFeed")),
+        acidStrengthFraction: num.min(0.1).max(1).default(d("water.scaleControl.acidStrengthFraction")),
+      })
+      .prefault({}),
     dosing: z
       .object({
         inhibitorMgPerLOutflow: nonNegative.max(10000).default(d("water.dosing.inhibitorMgPerLOutflow")),
@@ -512,11 +575,17 @@ export const waterSchema = z
         biocideSlugsPerYear: nonNegative.max(365).default(d("water.dosing.biocideSlugsPerYear")),
       })
       .prefault({}),
-  })
+  });
+
+export const waterSchema = waterObjectSchema
   .refine((w) => w.cyclesMode !== "entered" || w.cyclesOfConcentration !== undefined, {
     message: "enter the cycles of concentration, or derive them from the chemistry",
     path: ["cyclesOfConcentration"],
-  });
+  })
+  .transform(({ sewerEvaporationCredit, sewerBasis, ...rest }) => ({
+    ...rest,
+    sewerBasis: sewerBasis ?? (sewerEvaporationCredit ? ("makeupMinusEvaporation" as const) : d("water.sewerBasis")),
+  }));
 
 const months = num.int().min(1).max(120);
 export const foulingSchema = z.object({

@@ -10,7 +10,7 @@ import { whatIf, type StoredEconomicsInputs, type WhatIfOverrides } from "@/lib/
 import type { ScenarioInput } from "@/lib/engine/input";
 import type { UnitSystem } from "@/lib/units";
 import { buildHeadline, type Headline } from "@/components/comparison/headline";
-import { waterSchema } from "./schema";
+import { waterObjectSchema } from "./schema";
 import { economicsSchema } from "./schema-economics";
 
 const factor = z.number().finite().min(0, "a factor cannot be negative").max(10, "at most ×10");
@@ -19,7 +19,7 @@ export const whatIfBodySchema = z
   .object({
     waterAndSewerPriceFactor: factor.optional(),
     electricityPriceFactor: factor.optional(),
-    cyclesOfConcentration: waterSchema.shape.cyclesOfConcentration,
+    cyclesOfConcentration: waterObjectSchema.shape.cyclesOfConcentration,
     discountRate: economicsSchema.shape.realDiscountRate.unwrap().optional(),
     firstCostPremiumFactor: factor.optional(),
   })

@@ -75,7 +75,7 @@ export function simulateOptionYear(
   };
   const meanRf = foulingByMonth.reduce((a, b) => a + b, 0) / 12;
   const cycles = ctx.cycles;
-  const credit = ctx.water.sewerEvaporationCredit;
+  const sewerBasis = ctx.water.sewerBasis;
   const toM3PerH = 3600 / WATER_DENSITY_KG_PER_M3;
   const profile = ctx.duty.loadProfile;
   for (let i = 0; i < cl.count; i += stride) {
@@ -95,7 +95,7 @@ export function simulateOptionYear(
     const d = r.driftKgPerS * toM3PerH * w;
     const b = blowdown(e, cycles, d);
     const m = e + b + d;
-    const sewer = sewerBilled(m, e, credit);
+    const sewer = sewerBilled(sewerBasis, m, e, b);
     const totalKW = r.fanKW + r.condenserPumpKW + r.secondaryPumpKW + r.sprayPumpKW + r.heaterKW + r.compressorKW;
     if (r.running) {
       acc.runningHours += w;

@@ -18,7 +18,7 @@ import { designRefrigerationLoadKW } from "../duty";
 import type { EngineWarning } from "../types";
 import { numericWarning, wv } from "../warnings";
 import { type FoulingGrowth } from "../fouling";
-import type { DutyInput, FoulingInput, WaterInput } from "../input";
+import type { DutyInput, FoulingInput, OptionInput, WaterInput } from "../input";
 import { maximumCyclesFromChemistry } from "../water";
 
 /** Scenario-wide settings the year loop needs. */
@@ -31,6 +31,7 @@ export interface YearContext {
   refrigerationPerRejection: number;
   compressor: CompressorModel;
   water: WaterInput;
+  /** Target cycles of concentration of the wet loop being run (set per option, see `loopCycles`). */
   cycles: number;
   loadFactor: number;
 }
@@ -180,4 +181,15 @@ export function scenarioCycles(water: WaterInput): { cycles: number; limit: Retu
   const limit = maximumCyclesFromChemistry(water.makeup, water.limits);
   const cycles = water.cyclesMode === "entered" ? (water.cyclesOfConcentration ?? limit.cycles) : limit.cycles;
   return { cycles, limit };
+}
+
+/**
+ * Target cycles of one wet loop: its own entered cycles, else the scenario's. A cycles override (what-if,
+ * sensitivity, break-even) replaces the scenario's cycles and scales a loop's own cycles by the same
+ * factor, so a spray loop held lower than the tower stays proportionally lower. Never below 1.05.
+ */
+export function loopCycles(option: Pick<OptionInput, "cyclesOfConcentration">, scenarioCyclesValue: number, override?: number): number {
+  const own = option.cyclesOfConcentration ?? scenarioCyclesValue;
+  const scaled = override !== undefined ? (own * override) / scenarioCyclesValue : own;
+  return Math.max(scaled, 1.05);
 }

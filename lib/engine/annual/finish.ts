@@ -7,15 +7,7 @@
 import { freezingPointC } from "../glycol";
 import type { WaterInput } from "../input";
 import type { EngineWarning, OptionAnnualPhysics } from "../types";
-import {
-  achievedCycles,
-  chemicalQuantitiesKg,
-  concentrated,
-  langelierIndex,
-  type maximumCyclesFromChemistry,
-  ryznarIndex,
-  saturationPh,
-} from "../water";
+import { achievedCycles, chemicalQuantitiesKg, loopChemistryAtCycles, type maximumCyclesFromChemistry } from "../water";
 import type { OptionYearTotals } from "./accumulate";
 import type { PreparedOption } from "./options";
 import { numericWarning, wv } from "../warnings";
@@ -36,12 +28,13 @@ export function finishOption(
   const w = t.waterM3;
   const achieved = achievedCycles(w.evaporation, w.blowdown, w.drift);
   const reportedCycles = Number.isFinite(achieved) && w.makeup > 0 ? achieved : cycles;
-  if (!cyclesOverridden && water.cyclesMode === "entered" && cycles > limit.cycles + 1e-9) {
+  const ownCycles = o.cyclesOfConcentration !== undefined;
+  if (!cyclesOverridden && (ownCycles || water.cyclesMode === "entered") && cycles > limit.cycles + 1e-9) {
     warnings.push({
       code: "water.cyclesBeyondChemistryLimit",
       severity: "warning",
       message: `${round1(cycles)} cycles exceed the ${round1(limit.cycles)} the makeup chemistry allows (${limit.limitingSpecies ?? "—"} limit): scale or corrosion risk unless the treatment programme supports it.`,
-      path: "water.cyclesOfConcentration",
+      path: ownCycles ? `${po.path}.cyclesOfConcentration` : "water.cyclesOfConcentration",
       optionId: o.id,
     });
   }
@@ -95,24 +88,34 @@ export function finishOption(
       );
     }
   }
-  // Scaling indices at the hottest wetted surface (tower fill inlet / wetted coil).
+  // Scaling indices at the hottest wetted surface (tower fill inlet / wetted coil), at the cycles the
+  // loop achieves over the year (drift can hold them below the target), after acid feed where needed.
   const hottest = Number.isFinite(t.hottestSurfaceC) ? t.hottestSurfaceC : po.designHottestSurfaceC;
-  const recirc = concentrated(water.makeup, cycles);
-  const phs = saturationPh(hottest, recirc.tdsMgPerL, recirc.calciumHardnessMgPerLAsCaCO3, recirc.mAlkalinityMgPerLAsCaCO3);
-  const lsi = langelierIndex(water.recirculatingPh, phs);
-  const rsi = ryznarIndex(water.recirculatingPh, phs);
-  // [practice] treated towers commonly run up to LSI ≈ 2.5 with a scale inhibitor; beyond that, or at a
-  // Ryznar index below 4, scale control needs more than an inhibitor (acid feed, softening, fewer cycles).
-  if (w.makeup > 0 && (lsi > 2.5 || rsi < 4)) {
+  const atCycles = Number.isFinite(achieved) && w.makeup > 0 ? achieved : cycles;
+  const sc = water.scaleControl;
+  const loopChem = loopChemistryAtCycles(water.makeup, water.recirculatingPh, hottest, atCycles, sc);
+  const outflow = w.blowdown + w.drift;
+  const acidKg = w.makeup > 0 ? loopChem.acidProductKgPerM3Outflow * outflow : 0;
+  // [practice] treated towers commonly run up to the entered LSI limit with a scale inhibitor; beyond it,
+  // or at a Ryznar index below 4, scale control needs more than an inhibitor (acid feed, softening, fewer cycles).
+  if (w.makeup > 0 && (loopChem.langelierIndex > sc.maximumLangelierIndex + 1e-9 || loopChem.ryznarIndex < 4)) {
     warnings.push({
       code: "water.scaleForming",
       severity: "info",
-      message: `At ${round1(hottest)} °C and ${round1(cycles)} cycles the recirculating water is strongly scale-forming (LSI ${lsi.toFixed(2)}, RSI ${rsi.toFixed(2)}): the treatment programme must control it.`,
-      path: "water",
+      message: `At ${round1(hottest)} °C and ${round1(atCycles)} cycles the recirculating water is strongly scale-forming (LSI ${loopChem.langelierIndex.toFixed(2)}, RSI ${loopChem.ryznarIndex.toFixed(2)}; limit LSI ${sc.maximumLangelierIndex}): the treatment programme must control it.`,
+      path: sc.acidFeed ? "water" : "water.scaleControl.acidFeed",
       optionId: o.id,
     });
   }
-  const outflow = w.blowdown + w.drift;
+  if (acidKg > 0) {
+    warnings.push({
+      code: "caution.acidFeed",
+      severity: "info",
+      message: `At ${round1(atCycles)} cycles the Langelier index would reach ${loopChem.untreatedLangelierIndex.toFixed(2)} at ${round1(hottest)} °C: acid feed of about ${Math.round(acidKg).toLocaleString("en-US")} kg/yr of ${Math.round(sc.acidStrengthFraction * 100)} % sulfuric acid holds it at ${sc.maximumLangelierIndex} (pH ${water.recirculatingPh.toFixed(1)} → ${loopChem.ph.toFixed(1)}). Concentrated acid burns: bunded storage, a pH-interlocked feed, eye-wash and protective equipment per the supplier's safety data sheet and local rules; an acid overfeed corrodes the system.`,
+      path: "water.scaleControl",
+      optionId: o.id,
+    });
+  }
   const yearFraction = t.hoursTotal / 8760;
   const wetVolume = w.makeup > 0 ? po.wetLoopVolumeM3 : 0;
   const chem = chemicalQuantitiesKg(outflow, wetVolume, water.dosing.inhibitorMgPerLOutflow, water.dosing.biocideMgPerLSystemVolume, water.dosing.biocideSlugsPerYear, yearFraction);
@@ -133,16 +136,37 @@ export function finishOption(
     meanReferenceCondensingC: t.meanReferenceCondensingC,
     cleaningsPerYear: intervalMonths > 0 ? 12 / intervalMonths : 0,
     optimalCleaningIntervalMonths: optimal,
-    chemicals: { treatedOutflowM3: outflow, systemVolumeM3: wetVolume, inhibitorKg: chem.inhibitorKg, biocideKg: chem.biocideKg },
+    chemicals: { treatedOutflowM3: outflow, systemVolumeM3: wetVolume, inhibitorKg: chem.inhibitorKg, biocideKg: chem.biocideKg, acidKg },
     compressorAboveCleanReferenceKWh: t.aboveCleanKWh,
     compressorExtrapolatedHours: t.extrapolatedHours,
     waterChemistry: {
       hottestWettedSurfaceC: hottest,
-      saturationPh: phs,
-      langelierIndex: lsi,
-      ryznarIndex: rsi,
+      saturationPh: loopChem.saturationPh,
+      langelierIndex: loopChem.langelierIndex,
+      ryznarIndex: loopChem.ryznarIndex,
       cyclesLimitFromChemistry: limit.cycles,
       limitingSpecies: limit.limitingSpecies,
+      atCycles,
+      targetCycles: cycles,
+      ph: loopChem.ph,
+      untreatedLangelierIndex: loopChem.untreatedLangelierIndex,
+      maximumLangelierIndex: sc.maximumLangelierIndex,
+      acidFeed: sc.acidFeed,
+      acidBasis: {
+        makeup: {
+          calciumHardnessMgPerLAsCaCO3: water.makeup.calciumHardnessMgPerLAsCaCO3,
+          mAlkalinityMgPerLAsCaCO3: water.makeup.mAlkalinityMgPerLAsCaCO3,
+          silicaMgPerL: water.makeup.silicaMgPerL,
+          chlorideMgPerL: water.makeup.chlorideMgPerL,
+          tdsMgPerL: water.makeup.tdsMgPerL,
+          ph: water.makeup.ph,
+        },
+        recirculatingPh: water.recirculatingPh,
+        hottestSurfaceC: hottest,
+        maximumLangelierIndex: sc.maximumLangelierIndex,
+        acidFeed: sc.acidFeed,
+        acidStrengthFraction: sc.acidStrengthFraction,
+      },
     },
     warnings,
   };

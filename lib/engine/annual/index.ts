@@ -22,7 +22,7 @@ import type { EngineWarning, OptionAnnualPhysics } from "../types";
 import { simulateOptionYear } from "./accumulate";
 import { foulingCostPerMonthPerUnit } from "./cleaning";
 import type { PreparedClimate } from "./climate";
-import { type YearContext, compressorModelFromDuty, foulingGrowthFromInput, scenarioCycles } from "./context";
+import { type YearContext, compressorModelFromDuty, foulingGrowthFromInput, loopCycles, scenarioCycles } from "./context";
 import { finishOption } from "./finish";
 import type { PreparedOption } from "./options";
 import { numericWarning, wv } from "../warnings";
@@ -30,7 +30,7 @@ import { designDayCheck } from "./design-day";
 
 export { type PreparedClimate, prepareClimate } from "./climate";
 export { type Device, type PreparedOption, prepareOption } from "./options";
-export { type CompressorSummary, type YearContext, compressorModelFromDuty, foulingGrowthFromInput, scenarioCycles } from "./context";
+export { type CompressorSummary, type YearContext, compressorModelFromDuty, foulingGrowthFromInput, loopCycles, scenarioCycles } from "./context";
 export { type OptionYearTotals, simulateOptionYear } from "./accumulate";
 export { WATER_DENSITY_KG_PER_M3 } from "./shared";
 
@@ -63,6 +63,7 @@ export function computeOptionsPhysics(
 ): OptionAnnualPhysics[] {
   const { cycles: baseCycles, limit } = scenarioCycles(water);
   const cycles = Math.max(opts.cyclesOverride ?? baseCycles, 1.05);
+  const override = opts.cyclesOverride !== undefined ? cycles : undefined;
   const loadFactor = opts.loadFactor ?? 1;
   const ctx: YearContext = {
     pPa,
@@ -94,11 +95,13 @@ export function computeOptionsPhysics(
         ? fouling.plateExchangerCleaningIntervalMonths
         : 0;
     const monthlyRf = isDirect || isPlate ? monthlyFoulingM2KPerW(growth, intervalMonths) : new Array<number>(12).fill(0);
-    const totals = simulateOptionYear(po, ctx, monthlyRf);
+    const optionCycles = loopCycles(o, baseCycles, override);
+    const optionCtx: YearContext = { ...ctx, cycles: optionCycles };
+    const totals = simulateOptionYear(po, optionCtx, monthlyRf);
 
     let optimal: number | null = null;
     if ((isDirect || isPlate) && (opts.electricityPricePerKWh ?? 0) > 0) {
-      const s = foulingCostPerMonthPerUnit(po, ctx, growth, intervalMonths, fouling, opts);
+      const s = foulingCostPerMonthPerUnit(po, optionCtx, growth, intervalMonths, fouling, opts);
       optimal = optimalCleaningIntervalMonths(growth, o.costs.upkeep.cleaningCostPerEvent, s);
       if (optimal === null && o.costs.upkeep.cleaningCostPerEvent > 0 && s > 0) {
         warnings.push({
@@ -142,7 +145,7 @@ export function computeOptionsPhysics(
         }),
       );
     }
-    const physics = finishOption(po, totals, cycles, limit, water, intervalMonths, optimal, warnings, opts.cyclesOverride !== undefined);
+    const physics = finishOption(po, totals, optionCycles, limit, water, intervalMonths, optimal, warnings, opts.cyclesOverride !== undefined);
     if (!opts.skipDesignDay) {
       const dd = designDayCheck(po, ctx);
       if (dd) {

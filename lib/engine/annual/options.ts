@@ -3,11 +3,11 @@
  * plate exchanger calibrated once on their design points, the constant pump powers, and the design-point
  * sanity checks (as warnings). Independent of the what-if overrides.
  */
-import { calibrateCondenserCleanUaKWPerK } from "../condenser";
+import { calibrateCondenserCleanUaKWPerK, condenserGlycolUFactor } from "../condenser";
 import { designHeatRejectionKW } from "../duty";
 import type { FanModel } from "../fans";
 import { type CoolerModel, calibrateCooler } from "../fluid-cooler";
-import { fluidProperties } from "../glycol";
+import { fluidProperties, tubeSideCoefficientRatio } from "../glycol";
 import type { DutyInput, FoulingInput, OptionInput } from "../input";
 import { calibratePlateExchangerUaKWPerK } from "../plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
@@ -108,7 +108,15 @@ export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fo
     const loop = fluidProperties(c.glycol.kind, c.glycol.massFraction, meanC);
     const water = fluidProperties("none", 0, meanC);
     const cw = model.fluidCapacityKWPerK;
-    const ua = calibrateCondenser(o, path, qDesign, c.leavingFluidC, cw, warnings);
+    // The condenser's design point is stated on the same fluid as the cooler's rating. Rated on water
+    // with glycol in the loop: calibrate on water at the same mass flow, then derate the water-side
+    // film (its share of the clean resistance) by the Dittus–Boelter coefficient ratio.
+    const glycolOnWaterRating = c.ratingFluid === "water" && c.glycol.kind !== "none" && c.glycol.massFraction > 0;
+    const cwRating = glycolOnWaterRating ? c.fluidFlowKgPerS * water.specificHeatKJPerKgK : cw;
+    const glycolDerate = glycolOnWaterRating
+      ? condenserGlycolUFactor(o.condenser.waterSideResistanceFraction, tubeSideCoefficientRatio(loop, water))
+      : 1;
+    const ua = calibrateCondenser(o, path, qDesign, c.leavingFluidC, cwRating, warnings) * glycolDerate;
     designChecks(warnings, o, path, qDesign, model.fluidCapacityKWPerK * (c.enteringFluidC - c.leavingFluidC), c.leavingFluidC - c.designWetBulbC, 2.5, "cooler");
     const sprayKW = o.sprayPump.powerKW ?? pumpPowerKW(o.sprayPump.flowKgPerS, o.sprayPump.headM, o.sprayPump.efficiency);
     return {
@@ -117,7 +125,7 @@ export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fo
       fan,
       device: { kind: "cooler", model },
       condenserCleanUaKWPerK: ua,
-      condenserCleanUWPerM2K: o.condenser.cleanUWPerM2K,
+      condenserCleanUWPerM2K: o.condenser.cleanUWPerM2K * glycolDerate,
       condenserCapacityKWPerK: cw,
       condenserFixedFoulingM2KPerW: fouling.closedLoopFoulingM2KPerW,
       condenserPumpKW:

@@ -37,7 +37,7 @@ export function coolerRecord(
   ctx: YearContext,
   air: EnteringAir,
   hour: HourCondenser,
-  heaterBelow: boolean,
+  stillBasinHeaterKW: number,
   rates: RecordRates,
 ): DeviceRecord {
   const o = po.input;
@@ -59,8 +59,8 @@ export function coolerRecord(
     rates.sprayPumpKW = po.sprayPumpKW;
     rates.driftKgPerS = o.driftFractionOfFlow * po.driftFlowKgPerS;
     rates.hottestSurfaceC = leaving + hour.heatKW / model.fluidCapacityKWPerK;
-  } else if (heaterBelow) {
-    rates.heaterKW = o.basinHeater.powerKW;
+  } else {
+    rates.heaterKW = stillBasinHeaterKW;
   }
   return { held: r.held, condensingC: r.condensingC, leavingC: leaving };
 }

@@ -9,13 +9,16 @@
  * (compressor.ts) is what the option pays; W(Tc) − W(Tc,ref) against the clean reference (clean
  * condenser, no exchanger, the same device water) is kept as an explanation only.
  *
- * Basin heater rule: the heater runs in hours below its dry-bulb threshold in which no warm water
- * wets the basin — the tower idle (no load), or the cooler's spray pump off (dry mode or idle).
+ * Basin heater rule: the heater holds the still basin at its thermostat set-point against the basin's
+ * heat loss (basin-heater.ts) in the hours when the basin holds water and no warm water wets it — the
+ * tower idle (no load), or the cooler's spray pump off (dry mode or idle) — unless the basin is drained
+ * in those hours (`basinHeater.drainedWhenIdle`).
  */
 import type { EnteringAir } from "../air-side";
 import { compressorExtrapolates, compressorPowerKW } from "../compressor";
 import { condensingTemperatureC, fouledUaKWPerK } from "../condenser";
 import { isothermalStreamEffectiveness } from "../heat-exchanger";
+import { basinHeaterPowerKW } from "../basin-heater";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { coolerRecord } from "./record-cooler";
@@ -47,9 +50,10 @@ export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: Enteri
     referenceC: 0,
     hottestSurfaceC: Number.NEGATIVE_INFINITY,
   };
-  const heaterBelow = air.dryBulbC < o.basinHeater.belowDryBulbC;
+  // Heater power should the basin hold still water in this hour (0 when drained then).
+  const stillBasinHeaterKW = o.basinHeater.drainedWhenIdle ? 0 : basinHeaterPowerKW(o.basinHeater, air.dryBulbC);
   if (!(heatKW > 0)) {
-    if (heaterBelow) rates.heaterKW = o.basinHeater.powerKW;
+    rates.heaterKW = stillBasinHeaterKW;
     return rates;
   }
   rates.running = true;
@@ -65,7 +69,7 @@ export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: Enteri
   const dev: DeviceRecord =
     po.device.kind === "tower"
       ? towerRecord(po, po.device.model, ctx, air, hour, towerSideRf, rates)
-      : coolerRecord(po, po.device.model, ctx, air, hour, heaterBelow, rates);
+      : coolerRecord(po, po.device.model, ctx, air, hour, stillBasinHeaterKW, rates);
   rates.condenserPumpKW = po.condenserPumpKW;
   rates.secondaryPumpKW = po.secondaryPumpKW;
   const condensing = dev.condensingC;

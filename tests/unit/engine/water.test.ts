@@ -34,9 +34,11 @@ describe("water balance", () => {
     expect(achievedCycles(10, b, 4)).toBeCloseTo(3.5, 12);
   });
 
-  it("bills the sewer on makeup, or makeup − evaporation with a credit", () => {
-    expect(sewerBilled(120, 100, false)).toBe(120);
-    expect(sewerBilled(120, 100, true)).toBe(20);
+  // Hand numbers (water balance M = E + B + D): E = 100, D = 2, B = 18, M = 120.
+  it("bills the sewer on makeup, on makeup − evaporation (B + D), or on metered blowdown (B)", () => {
+    expect(sewerBilled("makeup", 120, 100, 18)).toBe(120);
+    expect(sewerBilled("makeupMinusEvaporation", 120, 100, 18)).toBe(20);
+    expect(sewerBilled("blowdown", 120, 100, 18)).toBe(18);
   });
 });
 
