@@ -129,6 +129,15 @@ export interface OptionAnnualPhysics {
   waterM3: WaterByComponentM3;
   monthly: MonthlyPhysics[];
   cyclesOfConcentration: number;
+  /**
+   * The scenario's cycles the run used (entered or from the chemistry, or the override); a loop with its
+   * own cycles runs at a fixed ratio to them. Absent in results stored before per-loop cycles.
+   */
+  scenarioCyclesOfConcentration?: number;
+  /** This loop's target cycles (its own, or the scenario's). */
+  targetCyclesOfConcentration?: number;
+  /** What the sewer utility bills (absent in results stored before the choice existed). */
+  sewerBasis?: "makeup" | "makeupMinusEvaporation" | "blowdown";
   dryModeHours: number;
   unmetHours: number;
   /** Hour-weighted mean condensing temperature and the clean reference one, °C. */

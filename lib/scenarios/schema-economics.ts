@@ -84,6 +84,11 @@ export const economicsFieldDefaults = {
     default: 0,
     source: "[practice] 0 when the per-m³ price already covers the product",
   },
+  "tariffs.chemicals.acidPricePerKg": {
+    default: 0.25,
+    source:
+      "[practice] placeholder for bulk 93 % sulfuric acid, only used where acid holds the Langelier limit; get the vendor's quote",
+  },
   "tariffs.chemicals.fixedCostPerYear": {
     default: 3000,
     source: "[practice] monthly service visits and test kits of a treatment vendor; get a quote",
@@ -181,6 +186,10 @@ export const economicsFieldDefaults = {
     source: "[practice] ×0.5 … ×2",
   },
   "sensitivity.tornado.load": { default: { enabled: true, low: 0.8, high: 1.2 }, source: "[practice] ±20 %" },
+  "sensitivity.tornado.waterAndSewerEscalation": {
+    default: { enabled: true, low: -0.02, high: 0.02 },
+    source: "[practice] ±2 %/yr around the entered real water and sewer escalations, moved together",
+  },
   "sensitivity.breakEven.waterAndSewerPrice": {
     default: { enabled: true, min: 0, max: 10 },
     source: "searches ×0 … ×10 the entered water and sewer prices",
@@ -207,6 +216,7 @@ export const economicsFieldDefaults = {
       sewerPriceFactor: { type: "triangular", min: 0.8, mode: 1, max: 1.5 },
       electricityPriceFactor: { type: "triangular", min: 0.85, mode: 1, max: 1.3 },
       energyEscalationDelta: { type: "triangular", min: -0.01, mode: 0, max: 0.02 },
+      waterAndSewerEscalationDelta: { type: "triangular", min: -0.015, mode: 0, max: 0.02 },
       firstCostFactor: { type: "triangular", min: 0.9, mode: 1, max: 1.25 },
     },
     source: "[practice] screening ranges; set them from the tariff history and the quotes",
@@ -343,6 +353,7 @@ export const tariffsSchema = z.object({
       costPerM3Outflow: money.default(dflt("tariffs.chemicals.costPerM3Outflow")),
       inhibitorPricePerKg: money.default(dflt("tariffs.chemicals.inhibitorPricePerKg")),
       biocidePricePerKg: money.default(dflt("tariffs.chemicals.biocidePricePerKg")),
+      acidPricePerKg: money.default(dflt("tariffs.chemicals.acidPricePerKg")),
       fixedCostPerYear: money.default(dflt("tariffs.chemicals.fixedCostPerYear")),
     })
     .prefault({}),

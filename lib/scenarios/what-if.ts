@@ -91,13 +91,18 @@ export function computeWhatIf(input: ScenarioInput, result: ScenarioResult, body
   };
 }
 
-/** The panel's starting points, in SI: combined water + sewer price, mean cycles, the discount rate. */
+/**
+ * The panel's starting points, in SI: combined water + sewer price, the scenario's cycles (what the
+ * cycles slider replaces; loops with their own cycles follow in proportion), the discount rate.
+ */
 export function whatIfBaseline(input: ScenarioInput, result: ScenarioResult) {
   const wet = result.physics.filter((p) => p.waterM3.makeup > 0);
+  const scenarioCycles = wet.find((p) => p.scenarioCyclesOfConcentration !== undefined)?.scenarioCyclesOfConcentration;
   return {
     waterAndSewerPricePerM3: input.tariffs.water.pricePerM3 + input.tariffs.sewer.pricePerM3,
     electricityPricePerKWh: input.tariffs.electricity.energyPricePerKWh,
-    cyclesOfConcentration: wet.length > 0 ? wet.reduce((s, p) => s + p.cyclesOfConcentration, 0) / wet.length : 3,
+    cyclesOfConcentration:
+      scenarioCycles ?? (wet.length > 0 ? wet.reduce((s, p) => s + p.cyclesOfConcentration, 0) / wet.length : 3),
     discountRate: result.economics.discountRate,
     analysis: result.economics.analysis,
   };

@@ -16,6 +16,7 @@ import { round1 } from "./shared";
 export function finishOption(
   po: PreparedOption,
   t: OptionYearTotals,
+  scenarioCyclesValue: number,
   cycles: number,
   limit: ReturnType<typeof maximumCyclesFromChemistry>,
   water: WaterInput,
@@ -130,6 +131,9 @@ export function finishOption(
     waterM3: w,
     monthly: t.monthly,
     cyclesOfConcentration: reportedCycles,
+    scenarioCyclesOfConcentration: scenarioCyclesValue,
+    targetCyclesOfConcentration: cycles,
+    sewerBasis: water.sewerBasis,
     dryModeHours: t.dryModeHours,
     unmetHours: t.unmetHours,
     meanCondensingC: t.meanCondensingC,

@@ -145,7 +145,7 @@ export function computeOptionsPhysics(
         }),
       );
     }
-    const physics = finishOption(po, totals, optionCycles, limit, water, intervalMonths, optimal, warnings, opts.cyclesOverride !== undefined);
+    const physics = finishOption(po, totals, cycles, optionCycles, limit, water, intervalMonths, optimal, warnings, opts.cyclesOverride !== undefined);
     if (!opts.skipDesignDay) {
       const dd = designDayCheck(po, ctx);
       if (dd) {

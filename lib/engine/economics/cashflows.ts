@@ -14,7 +14,8 @@
  * price A escalating at e costs A·(1 + e)^t in year t (the UPV* series). Escalation rates are real; a
  * nominal analysis turns each into (1 + e)(1 + I) − 1 and discounts at (1 + d)(1 + I) − 1.
  */
-import type { EngineWarning, OptionAnnualPhysics } from "../types";
+import type { AcidBasis, EngineWarning, OptionAnnualPhysics } from "../types";
+import { loopChemistryAtCycles, type SewerBasis, sewerBilled } from "../water";
 import { nominalFromReal, upvStar, upvStarMidYear } from "./factors";
 import {
   COST_CATEGORIES,
@@ -44,7 +45,19 @@ export interface WaterQuantities {
   treatedOutflowM3: number;
   inhibitorKg: number;
   biocideKg: number;
+  /** Acid product fed to hold the Langelier limit, kg. */
+  acidKg: number;
   cyclesOfConcentration: number;
+  /**
+   * The scenario's cycles in the run (a cycles override replaces them), and this loop's target cycles
+   * per scenario cycle (1 unless the loop has its own cycles).
+   */
+  scenarioCycles: number;
+  loopCyclesPerScenarioCycle: number;
+  /** What the sewer bills; null for results stored before the choice (the exempt volume is then held). */
+  sewerBasis: SewerBasis | null;
+  /** Chemistry to recompute the acid at other cycles (null: no acid recompute, e.g. stored results). */
+  acidBasis: AcidBasis | null;
 }
 
 /** A cost that falls in one year of the study period. */
@@ -77,6 +90,7 @@ export interface OptionBasis {
   chemicalsPricePerM3Outflow: number;
   inhibitorPricePerKg: number;
   biocidePricePerKg: number;
+  acidPricePerKg: number;
   /** Chemical programme fixed cost + water-management programme, per year. */
   chemicalsFixedPerYear: number;
   /** Own labour + service contract + condenser/exchanger cleanings, per year. */
@@ -211,6 +225,8 @@ export function demandCostPerYear(physics: OptionAnnualPhysics, tariffs: Tariffs
 /** The yearly water volumes (m³) the water, sewer and chemical cost streams are priced on, from the physics. */
 export function waterQuantitiesFromPhysics(p: OptionAnnualPhysics): WaterQuantities {
   const w = p.waterM3;
+  const scenarioCycles = p.scenarioCyclesOfConcentration ?? p.cyclesOfConcentration;
+  const target = p.targetCyclesOfConcentration ?? scenarioCycles;
   return {
     evaporationM3: w.evaporation,
     driftM3: w.drift,
@@ -221,33 +237,58 @@ export function waterQuantitiesFromPhysics(p: OptionAnnualPhysics): WaterQuantit
     treatedOutflowM3: p.chemicals.treatedOutflowM3,
     inhibitorKg: p.chemicals.inhibitorKg,
     biocideKg: p.chemicals.biocideKg,
+    acidKg: p.chemicals.acidKg ?? 0,
     cyclesOfConcentration: p.cyclesOfConcentration,
+    scenarioCycles,
+    loopCyclesPerScenarioCycle: scenarioCycles > 0 ? target / scenarioCycles : 1,
+    sewerBasis: p.sewerBasis ?? null,
+    acidBasis: p.waterChemistry?.acidBasis ?? null,
   };
 }
 
 /**
- * Water quantities at other cycles of concentration, without re-running the physics.
+ * Water quantities at other cycles of concentration, without re-running the physics. `cycles` are the
+ * scenario's cycles; a loop with its own cycles runs at C = cycles × (its ratio to the scenario's).
  * Cycles act only through the mass balance: B = max(E/(C − 1) − D, 0), M = E + B + D, while E (set by
  * the heat rejected and the air) and D (set by the circulating flow) do not change. The billed sewer
- * volume keeps its exempt part (the evaporation credit, E) fixed. Treated outflow = B + D; inhibitor and
- * biocide scale with it (dosing to a concentration in the water that leaves) [practice].
+ * volume follows its basis (M, M − E = B + D, or B; results stored without a basis keep their exempt
+ * volume). Treated outflow = B + D; inhibitor (dosed to a concentration in the water that leaves)
+ * scales with it [practice]; biocide (slug doses on the loop volume) does not depend on cycles; the acid
+ * is recomputed at C from the loop's chemistry (water.ts `loopChemistryAtCycles`), so it rises with
+ * cycles once the Langelier limit binds.
  * Source: the standard cooling-water mass balance (Methods §4).
  */
 export function waterAtCycles(q: WaterQuantities, cycles: number): WaterQuantities {
-  const c = Math.max(cycles, 1 + 1e-6);
+  const c = Math.max(cycles * q.loopCyclesPerScenarioCycle, 1 + 1e-6);
   const blowdownM3 = Math.max(q.evaporationM3 / (c - 1) - q.driftM3, 0);
   const makeupM3 = q.evaporationM3 + blowdownM3 + q.driftM3;
   const outflow = blowdownM3 + q.driftM3;
   const scale = q.treatedOutflowM3 > 0 ? outflow / q.treatedOutflowM3 : 1;
+  const a = q.acidBasis;
+  const acidKg =
+    a && makeupM3 > 0
+      ? outflow *
+        loopChemistryAtCycles(a.makeup, a.recirculatingPh, a.hottestSurfaceC, c, {
+          maximumLangelierIndex: a.maximumLangelierIndex,
+          acidFeed: a.acidFeed,
+          acidStrengthFraction: a.acidStrengthFraction,
+        }).acidProductKgPerM3Outflow
+      : q.acidKg * scale;
+  const sewerBilledM3 =
+    q.sewerBasis === null
+      ? Math.max(0, makeupM3 - q.sewerExemptM3)
+      : sewerBilled(q.sewerBasis, makeupM3, q.evaporationM3, blowdownM3);
   return {
     ...q,
     blowdownM3,
     makeupM3,
-    sewerBilledM3: Math.max(0, makeupM3 - q.sewerExemptM3),
+    sewerBilledM3,
+    sewerExemptM3: Math.max(0, makeupM3 - sewerBilledM3),
     treatedOutflowM3: outflow,
     inhibitorKg: q.inhibitorKg * scale,
-    biocideKg: q.biocideKg * scale,
+    acidKg,
     cyclesOfConcentration: c,
+    scenarioCycles: cycles,
   };
 }
 
@@ -458,7 +499,12 @@ export function buildOptionBasis(
         treatedOutflowM3: 0,
         inhibitorKg: 0,
         biocideKg: 0,
+        acidKg: 0,
         cyclesOfConcentration: 1,
+        scenarioCycles: 1,
+        loopCyclesPerScenarioCycle: 1,
+        sewerBasis: null,
+        acidBasis: null,
       };
   const creditApplied = water.sewerExemptM3 > 1e-9 * Math.max(1, water.makeupM3);
 
@@ -490,6 +536,7 @@ export function buildOptionBasis(
     chemicalsPricePerM3Outflow: tariffs.chemicals.costPerM3Outflow,
     inhibitorPricePerKg: tariffs.chemicals.inhibitorPricePerKg,
     biocidePricePerKg: tariffs.chemicals.biocidePricePerKg,
+    acidPricePerKg: tariffs.chemicals.acidPricePerKg,
     // All three loop kinds have a wet loop (the closed-circuit cooler's spray loop too), so each carries
     // a treatment programme and a water-management programme unless the option overrides them.
     chemicalsFixedPerYear:
@@ -574,7 +621,8 @@ function recurringStreams(b: OptionBasis, p: Pricing): RecurringStream[] {
       amount:
         (w.treatedOutflowM3 * b.chemicalsPricePerM3Outflow +
           w.inhibitorKg * b.inhibitorPricePerKg +
-          w.biocideKg * b.biocidePricePerKg) *
+          w.biocideKg * b.biocidePricePerKg +
+          w.acidKg * b.acidPricePerKg) *
           p.chemicalsPriceFactor +
         b.chemicalsFixedPerYear,
     },

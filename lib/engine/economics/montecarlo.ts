@@ -161,6 +161,7 @@ function lerpBasis(a: OptionBasis, b: OptionBasis, w: number): OptionBasis {
       treatedOutflowM3: l(a.water.treatedOutflowM3, b.water.treatedOutflowM3),
       inhibitorKg: l(a.water.inhibitorKg, b.water.inhibitorKg),
       biocideKg: l(a.water.biocideKg, b.water.biocideKg),
+      acidKg: l(a.water.acidKg, b.water.acidKg),
     },
   };
 }
@@ -244,7 +245,7 @@ export function runMonteCarlo(
   }
   if (dist.cyclesOfConcentration) {
     notes.push(
-      "Cycles of concentration: makeup, blowdown and billed sewer recomputed exactly from evaporation and drift (B = E/(C − 1) − D) for every wet loop.",
+      "Cycles of concentration (the scenario's; loops with their own cycles in proportion): makeup, blowdown, billed sewer and acid feed recomputed exactly from evaporation and drift (B = E/(C − 1) − D) for every wet loop.",
     );
   }
   const used = sampled.filter((k) => perDrawPhysics || (k !== "loadFactor" && k !== "climateShiftK" && (k !== "foulingRateFactor" || nodes !== null)));
@@ -289,8 +290,8 @@ export function runMonteCarlo(
         ...p0.escalation,
         energy: p0.escalation.energy + (s.energyEscalationDelta ?? 0),
         demand: p0.escalation.demand + (s.energyEscalationDelta ?? 0),
-        water: p0.escalation.water + (s.waterEscalationDelta ?? 0),
-        sewer: p0.escalation.sewer + (s.sewerEscalationDelta ?? 0),
+        water: p0.escalation.water + (s.waterEscalationDelta ?? 0) + (s.waterAndSewerEscalationDelta ?? 0),
+        sewer: p0.escalation.sewer + (s.sewerEscalationDelta ?? 0) + (s.waterAndSewerEscalationDelta ?? 0),
       },
     };
     let bases: OptionBasis[];

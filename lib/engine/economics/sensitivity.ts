@@ -35,6 +35,7 @@ export const SENSITIVITY_LABELS: Record<SensitivityInputKey, string> = {
   firstCostPremium: "Extra first cost of the alternative",
   foulingRate: "Condenser fouling rate",
   load: "Heat-rejection load",
+  waterAndSewerEscalation: "Water and sewer escalation",
 };
 
 /** Physics re-runs memoised by their overrides, so each distinct re-run happens once per analysis. */
@@ -58,15 +59,24 @@ export class PhysicsCache {
   }
 }
 
-/** The cycles every wet loop runs at in the base case: the base option's (or the first wet option's). */
+/**
+ * The scenario's cycles in the base case (what cycles overrides replace): from the base option's water
+ * (or the first wet option's); loops with their own cycles follow at their ratio.
+ */
 export function baseCycles(model: EconomicsModel): number {
   const b = model.bases[model.baseIndex];
-  if (b && b.water.cyclesOfConcentration > 1) return b.water.cyclesOfConcentration;
-  return model.bases.find((x) => x.water.cyclesOfConcentration > 1)?.water.cyclesOfConcentration ?? 4;
+  if (b && b.water.cyclesOfConcentration > 1) return b.water.scenarioCycles;
+  return model.bases.find((x) => x.water.cyclesOfConcentration > 1)?.water.scenarioCycles ?? 4;
 }
 
-function withDelta(p: Pricing, key: "electricityEscalation" | "discountRate", delta: number): Pricing {
+function withDelta(
+  p: Pricing,
+  key: "electricityEscalation" | "discountRate" | "waterAndSewerEscalation",
+  delta: number,
+): Pricing {
   if (key === "discountRate") return { ...p, realDiscountRate: Math.max(-0.5, p.realDiscountRate + delta) };
+  if (key === "waterAndSewerEscalation")
+    return { ...p, escalation: { ...p.escalation, water: p.escalation.water + delta, sewer: p.escalation.sewer + delta } };
   return {
     ...p,
     escalation: { ...p.escalation, energy: p.escalation.energy + delta, demand: p.escalation.demand + delta },
@@ -91,6 +101,7 @@ function lccsWithInput(
       return lccsOf(bases, { ...p, electricityPriceFactor: value });
     case "electricityEscalation":
     case "discountRate":
+    case "waterAndSewerEscalation":
       return lccsOf(bases, withDelta(p, key, value));
     case "firstCostPremium":
       return lccsOf(bases, p, premiumScales(bases, model.baseIndex, value));

@@ -14,6 +14,8 @@ export interface SyntheticPhysicsSpec {
   driftM3: number;
   cyclesOfConcentration: number;
   sewerEvaporationCredit?: boolean;
+  /** Overrides the credit flag: what the sewer bills. */
+  sewerBasis?: "makeup" | "makeupMinusEvaporation" | "blowdown";
   cleaningsPerYear?: number;
   /** Spread of energy over the months: a weight per month (defaults to equal). */
   monthlyWeights?: number[];
@@ -28,7 +30,8 @@ export function syntheticPhysics(spec: SyntheticPhysicsSpec): OptionAnnualPhysic
   const d = spec.driftM3;
   const b = Math.max(e / (c - 1) - d, 0);
   const m = e + b + d;
-  const sewer = spec.sewerEvaporationCredit ? m - e : m;
+  const basis = spec.sewerBasis ?? (spec.sewerEvaporationCredit ? "makeupMinusEvaporation" : "makeup");
+  const sewer = basis === "blowdown" ? b : basis === "makeupMinusEvaporation" ? m - e : m;
   const byMonthHour: number[] = [];
   const monthly = weights.map((w, i) => {
     const share = w / wSum;
@@ -78,13 +81,16 @@ export function syntheticPhysics(spec: SyntheticPhysicsSpec): OptionAnnualPhysic
     waterM3: { evaporation: e, drift: d, blowdown: b, makeup: m, sewerBilled: sewer },
     monthly,
     cyclesOfConcentration: c,
+    scenarioCyclesOfConcentration: c,
+    targetCyclesOfConcentration: c,
+    sewerBasis: basis,
     dryModeHours: 0,
     unmetHours: 0,
     meanCondensingC: 35,
     meanReferenceCondensingC: 35,
     cleaningsPerYear: spec.cleaningsPerYear ?? 0,
     optimalCleaningIntervalMonths: null,
-    chemicals: { treatedOutflowM3: b + d, systemVolumeM3: 10, inhibitorKg: 0, biocideKg: 0 },
+    chemicals: { treatedOutflowM3: b + d, systemVolumeM3: 10, inhibitorKg: 0, biocideKg: 0, acidKg: 0 },
     compressorAboveCleanReferenceKWh: 0,
     compressorExtrapolatedHours: 0,
     warnings: [],

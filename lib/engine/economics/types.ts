@@ -155,6 +155,8 @@ export interface TariffsInput {
     /** Priced quantities from the physics' dosing model (0 when the per-m³ price already covers them). */
     inhibitorPricePerKg: number;
     biocidePricePerKg: number;
+    /** Price of the acid product (as delivered, e.g. 93 % sulfuric acid) fed to hold the Langelier limit. */
+    acidPricePerKg: number;
     /** Service visits, testing and equipment rental, per wet loop and year. */
     fixedCostPerYear: number;
   };
@@ -204,6 +206,7 @@ export const SENSITIVITY_INPUTS = [
   "firstCostPremium",
   "foulingRate",
   "load",
+  "waterAndSewerEscalation",
 ] as const;
 export type SensitivityInputKey = (typeof SENSITIVITY_INPUTS)[number];
 
@@ -217,6 +220,7 @@ export const SENSITIVITY_INPUT_MODES: Record<SensitivityInputKey, "factor" | "de
   firstCostPremium: "factor",
   foulingRate: "factor",
   load: "factor",
+  waterAndSewerEscalation: "delta",
 };
 
 export interface SensitivityRange {
@@ -251,7 +255,12 @@ export type Distribution =
   | { type: "triangular"; min: number; mode: number; max: number }
   | { type: "uniform"; min: number; max: number };
 
-/** Uncertain inputs of the Monte Carlo. Prices and fouling as factors, escalations and discount rate as deltas, cycles absolute. */
+/**
+ * Uncertain inputs of the Monte Carlo. Prices and fouling as factors, escalations and discount rate as
+ * deltas, cycles absolute (the scenario's; loops with their own cycles in proportion).
+ * `waterAndSewerEscalationDelta` moves both escalations together (utilities raise both tariffs
+ * together), on top of any separate water or sewer delta.
+ */
 export const MONTE_CARLO_INPUTS = [
   "waterPriceFactor",
   "sewerPriceFactor",
@@ -267,6 +276,7 @@ export const MONTE_CARLO_INPUTS = [
   "foulingRateFactor",
   "loadFactor",
   "climateShiftK",
+  "waterAndSewerEscalationDelta",
 ] as const;
 export type MonteCarloInputKey = (typeof MONTE_CARLO_INPUTS)[number];
 
@@ -280,7 +290,10 @@ export interface MonteCarloInput {
 
 /** What the economics (and the what-if panel) may ask the physics to re-run with. */
 export interface PhysicsOverrides {
-  /** Absolute cycles of concentration applied to every wet loop. */
+  /**
+   * The scenario's cycles of concentration (absolute): loops on the scenario's cycles run at this value,
+   * loops with their own cycles at the same ratio to it as entered.
+   */
   cyclesOfConcentration?: number;
   /** Multiplier on the fouling growth rate. */
   foulingRateFactor?: number;

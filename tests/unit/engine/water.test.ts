@@ -4,6 +4,7 @@ import {
   achievedCycles,
   blowdown,
   langelierIndex,
+  loopChemistryAtCycles,
   maximumCyclesFromChemistry,
   ryznarIndex,
   saturationPh,
@@ -99,5 +100,36 @@ describe("scaling indices", () => {
     expect(Math.abs(phs - 7.4782)).toBeLessThan(5e-5);
     expect(Math.abs(langelierIndex(7.5, phs) - 0.0218)).toBeLessThan(5e-5);
     expect(Math.abs(ryznarIndex(7.5, phs) - 7.4564)).toBeLessThan(5e-5);
+  });
+});
+
+describe("acid feed to a Langelier limit", () => {
+  const makeup = { calciumHardnessMgPerLAsCaCO3: 80, mAlkalinityMgPerLAsCaCO3: 60, silicaMgPerL: 18, chlorideMgPerL: 40, tdsMgPerL: 300, ph: 7.8 };
+  // Hand calculation: Langelier (1936) A–D form at C = 8 and 35 °C: Ca 640, alkalinity 480, TDS 2400 mg/L →
+  // pHs = 9.3 + 0.23802 + 1.89740 − 2.40618 − 2.68124 = 6.3480, LSI = 8.4 − 6.348 = 2.052.
+  // Carbonate equilibrium at fixed dissolved CO2 (pH = pK1 + log[HCO3⁻]/[CO2], Stumm & Morgan): destroying
+  // alkalinity by a factor 10^Δ lowers pH by Δ and raises pHs by Δ, so a limit of 1.5 needs
+  // Δ = 0.2760, alkalinity 480·10^−0.276 = 254.25 mg/L, 225.75 mg/L neutralised, × 0.980 (H2SO4 49.04 /
+  // CaCO3 50.04 g/eq) / 0.93 = 0.2379 kg of 93 % acid per m³ leaving the loop; pH 8.4 − 0.276 = 8.124.
+  it("holds the limit and doses the hand-computed acid per m³ of outflow", () => {
+    const r = loopChemistryAtCycles(makeup, 8.4, 35, 8, { maximumLangelierIndex: 1.5, acidFeed: true, acidStrengthFraction: 0.93 });
+    expect(r.untreatedLangelierIndex).toBeCloseTo(2.052, 3);
+    expect(r.langelierIndex).toBeCloseTo(1.5, 9);
+    expect(r.mAlkalinityMgPerLAsCaCO3).toBeCloseTo(254.25, 1);
+    expect(r.ph).toBeCloseTo(8.124, 3);
+    expect(r.acidProductKgPerM3Outflow).toBeCloseTo(0.2379, 4);
+    // The treated water's indices from the hand formula with alkalinity 254.25 and pH 8.124.
+    const pHsTreated = 9.3 + (Math.log10(2400) - 1) / 10 - 13.12 * Math.log10(308.15) + 34.55 - (Math.log10(640) - 0.4) - Math.log10(r.mAlkalinityMgPerLAsCaCO3);
+    expect(r.ph - pHsTreated).toBeCloseTo(1.5, 9);
+    expect(r.ryznarIndex).toBeCloseTo(2 * pHsTreated - r.ph, 9);
+  });
+
+  it("feeds nothing below the limit or without acid feed (then the untreated index stands)", () => {
+    const below = loopChemistryAtCycles(makeup, 8.4, 35, 8, { maximumLangelierIndex: 2.5, acidFeed: true, acidStrengthFraction: 0.93 });
+    expect(below.acidProductKgPerM3Outflow).toBe(0);
+    expect(below.langelierIndex).toBeCloseTo(2.052, 3);
+    const off = loopChemistryAtCycles(makeup, 8.4, 35, 8, { maximumLangelierIndex: 1.5, acidFeed: false, acidStrengthFraction: 0.93 });
+    expect(off.acidProductKgPerM3Outflow).toBe(0);
+    expect(off.langelierIndex).toBeCloseTo(2.052, 3);
   });
 });

@@ -123,4 +123,71 @@ describe("water balance at other cycles (Methods §4: B = E/(C − 1) − D, M =
     // Evaporation credit: the billed sewer volume stays makeup − evaporation.
     expect(six.sewerBilledM3).toBeCloseTo(six.makeupM3 - 20000, 6);
   });
+
+  // Hand numbers, E = 20000 m³, D = 15 m³, C = 6: B = 20000/5 − 15 = 3985, M = 24000.
+  it("bills the sewer on its basis: makeup 24000, makeup − evaporation 4000, metered blowdown 3985 m³", () => {
+    const base = physicsFor({})[0];
+    if (!base) throw new Error("fixture");
+    const q = waterQuantitiesFromPhysics(base);
+    expect(waterAtCycles({ ...q, sewerBasis: "makeup" }, 6).sewerBilledM3).toBeCloseTo(24000, 9);
+    expect(waterAtCycles({ ...q, sewerBasis: "makeupMinusEvaporation" }, 6).sewerBilledM3).toBeCloseTo(4000, 9);
+    expect(waterAtCycles({ ...q, sewerBasis: "blowdown" }, 6).sewerBilledM3).toBeCloseTo(3985, 9);
+  });
+
+  // A spray loop entered at half the scenario's cycles keeps that ratio: scenario 8 → loop 4:
+  // B = 20000/3 − 15 = 6651.67, M = 26666.67 (hand numbers, standard mass balance).
+  it("a loop with its own cycles follows a cycles override in proportion", () => {
+    const base = physicsFor({})[0];
+    if (!base) throw new Error("fixture");
+    const q = { ...waterQuantitiesFromPhysics(base), scenarioCycles: 8, loopCyclesPerScenarioCycle: 0.5 };
+    const at8 = waterAtCycles(q, 8);
+    expect(at8.cyclesOfConcentration).toBeCloseTo(4, 12);
+    expect(at8.blowdownM3).toBeCloseTo(20000 / 3 - 15, 9);
+    expect(at8.makeupM3).toBeCloseTo(80000 / 3, 9);
+  });
+
+  // Acid feed (hand calculation, Langelier 1936 A–D form; acid stoichiometry 49.04/50.04 = 0.980 g of
+  // H2SO4 per g of alkalinity as CaCO3): makeup Ca 80, M-alk 60, TDS 300 mg/L, recirculating pH 8.4,
+  // hottest surface 35 °C, LSI limit 1.5, 93 % acid. At C cycles the untreated LSI is
+  // 8.4 − [9.3 + (log TDS·C − 1)/10 − 13.12·log 308.15 + 34.55 − (log 80C − 0.4) − log 60C]; above the
+  // limit the acid lowers log(alkalinity) by Δ = (LSI − 1.5)/2 and its mass is
+  // 0.980·(B + D)·(60C − 60C·10^−Δ)/0.93 g. The chemicals cost therefore rises again at high cycles.
+  it("recomputes the acid feed at other cycles, so more cycles stop paying once the LSI limit binds", () => {
+    const base = physicsFor({})[0];
+    if (!base) throw new Error("fixture");
+    const acidBasis = {
+      makeup: { calciumHardnessMgPerLAsCaCO3: 80, mAlkalinityMgPerLAsCaCO3: 60, silicaMgPerL: 18, chlorideMgPerL: 40, tdsMgPerL: 300, ph: 7.8 },
+      recirculatingPh: 8.4,
+      hottestSurfaceC: 35,
+      maximumLangelierIndex: 1.5,
+      acidFeed: true,
+      acidStrengthFraction: 0.93,
+    };
+    const q = { ...waterQuantitiesFromPhysics(base), acidBasis };
+    const handAcidKg = (c: number): number => {
+      const pHs = 9.3 + (Math.log10(300 * c) - 1) / 10 - 13.12 * Math.log10(35 + 273.15) + 34.55 - (Math.log10(80 * c) - 0.4) - Math.log10(60 * c);
+      const lsi = 8.4 - pHs;
+      if (lsi <= 1.5) return 0;
+      const delta = (lsi - 1.5) / 2;
+      const outflow = 20000 / (c - 1);
+      return (0.98 * outflow * 60 * c * (1 - Math.pow(10, -delta))) / 0.93 / 1000;
+    };
+    for (const c of [3, 6, 8, 12]) {
+      const w = waterAtCycles(q, c);
+      const hand = handAcidKg(c);
+      if (hand === 0) expect(w.acidKg).toBe(0);
+      else expect(w.acidKg / hand).toBeCloseTo(1, 2);
+    }
+    expect(handAcidKg(3)).toBe(0);
+    expect(handAcidKg(12)).toBeGreaterThan(handAcidKg(8));
+    // Priced: 0.6 per m³ of outflow + 0.25 per kg of acid (schema defaults): the chemicals cost per m³
+    // of water leaving the loop rises with cycles once the limit binds (it was a constant 0.6 before).
+    const perM3 = (c: number) => {
+      const w = waterAtCycles(q, c);
+      return (w.treatedOutflowM3 * 0.6 + w.acidKg * 0.25) / w.treatedOutflowM3;
+    };
+    expect(perM3(3)).toBeCloseTo(0.6, 12);
+    expect(perM3(12)).toBeGreaterThan(perM3(8));
+    expect(perM3(8)).toBeGreaterThan(0.6);
+  });
 });

@@ -53,7 +53,7 @@ const tariffs: TariffsInput = {
   },
   water: { pricePerM3: 2, fixedChargePerMonth: 0 },
   sewer: { pricePerM3: 1, fixedChargePerMonth: 0, evaporationCreditMeterChargePerMonth: 0 },
-  chemicals: { costPerM3Outflow: 0.4, inhibitorPricePerKg: 0, biocidePricePerKg: 0, fixedCostPerYear: 40 },
+  chemicals: { costPerM3Outflow: 0.4, inhibitorPricePerKg: 0, biocidePricePerKg: 0, acidPricePerKg: 0, fixedCostPerYear: 40 },
   waterManagementProgrammeCostPerYear: 50,
   carbon: { enabled: false, pricePerTonneCO2e: 0 },
   escalation: { energy: 0, demand: 0, water: 0, sewer: 0, chemicals: 0, labour: 0, replacements: 0, carbon: 0 },

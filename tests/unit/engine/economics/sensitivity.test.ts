@@ -40,9 +40,26 @@ describe("tornado and break-even", () => {
     for (const t of s?.tornado ?? []) {
       const swings = t.bars.map((b) => b.swing);
       expect([...swings].sort((a, b) => b - a)).toEqual(swings);
-      expect(t.bars).toHaveLength(9);
+      expect(t.bars).toHaveLength(10);
       expect(t.bars.every((b) => b.skippedReason === undefined)).toBe(true);
     }
+  });
+
+  // Hand calculation with NIST Handbook 135's UPV* = [(1 + e)/(d − e)]·[1 − ((1 + e)/(1 + d))^n]:
+  // the synthetic loops run C = 4 with B > 0, so M = E·C/(C − 1) = 4E/3 (standard mass balance), sewer
+  // billed on makeup. Water 2.0 + sewer 2.5 per m³ (schema defaults), both escalating 2 %/yr real,
+  // d = 3 %, n = 25. Moving both escalations by +2 %/yr changes the closed cooler's net savings by
+  // (M_direct − M_closed)·4.5·[UPV*(3 %, 4 %, 25) − UPV*(3 %, 2 %, 25)].
+  it("the water-and-sewer escalation bar moves both escalations together (hand UPV* check)", () => {
+    const upvStar = (d: number, e: number, n: number) => ((1 + e) / (d - e)) * (1 - Math.pow((1 + e) / (1 + d), n));
+    const mDirect = (4 / 3) * 20000;
+    const mClosed = (4 / 3) * 12000;
+    const expected = (mDirect - mClosed) * 4.5 * (upvStar(0.03, 0.04, 25) - upvStar(0.03, 0.02, 25));
+    const closed = s?.tornado.find((t) => t.alternativeOptionId === "closed");
+    const bar = closed?.bars.find((b) => b.input === "waterAndSewerEscalation");
+    expect(bar?.mode).toBe("delta");
+    expect(bar?.high).toBe(0.02);
+    expect(((bar?.netSavingsAtHigh ?? NaN) - (closed?.baseNetSavings ?? NaN)) / expected).toBeCloseTo(1, 9);
   });
 
   it("physics-dependent inputs re-run the physics (two values each), prices do not", () => {

@@ -1063,6 +1063,7 @@ const TORNADO_LABELS: Record<(typeof SENSITIVITY_INPUTS)[number], string> = {
   firstCostPremium: "Extra first cost",
   foulingRate: "Fouling rate",
   load: "Heat-rejection load",
+  waterAndSewerEscalation: "Water and sewer escalation",
 };
 
 const BREAK_EVEN_LABELS: Record<(typeof BREAK_EVEN_INPUTS)[number], string> = {
