@@ -57,7 +57,7 @@ export function demoScenarioDocument(): ScenarioDocument {
         fan: { designPowerKW: 22, control: "variableSpeed" },
         condenser: { designCondensingC: 35.5 },
         condenserPump: { headM: 18, efficiency: 0.68 },
-        basinHeater: { powerKW: 8, belowDryBulbC: 4.4 },
+        basinHeater: { powerKW: 8, setPointC: 4.4 },
         costs: {
           firstCost: { equipment: 185_000, installation: 62_000, structureAndCrane: 34_000, electrical: 28_000, controls: 14_000, plateExchanger: 0, waterTreatmentEquipment: 18_000, meters: 3_500, other: 6_000 },
           serviceLifeYears: 20,
@@ -87,7 +87,7 @@ export function demoScenarioDocument(): ScenarioDocument {
         fan: { designPowerKW: 30, control: "variableSpeed" },
         condenser: { designCondensingC: 35.5 },
         condenserPump: { headM: 16, efficiency: 0.68 },
-        basinHeater: { powerKW: 9, belowDryBulbC: 4.4 },
+        basinHeater: { powerKW: 9, setPointC: 4.4 },
         costs: {
           firstCost: { equipment: 205_000, installation: 70_000, structureAndCrane: 38_000, electrical: 32_000, controls: 16_000, plateExchanger: 62_000, waterTreatmentEquipment: 18_000, meters: 3_500, other: 6_000 },
           serviceLifeYears: 20,
@@ -121,7 +121,7 @@ export function demoScenarioDocument(): ScenarioDocument {
         fan: { designPowerKW: 37, control: "variableSpeed" },
         condenser: { designCondensingC: 37 },
         condenserPump: { headM: 20, efficiency: 0.68 },
-        basinHeater: { powerKW: 4, belowDryBulbC: 4.4 },
+        basinHeater: { powerKW: 4, setPointC: 4.4 },
         costs: {
           firstCost: { equipment: 310_000, installation: 75_000, structureAndCrane: 45_000, electrical: 30_000, controls: 15_000, plateExchanger: 0, waterTreatmentEquipment: 12_000, meters: 3_500, other: 6_000 },
           serviceLifeYears: 22,

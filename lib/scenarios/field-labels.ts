@@ -55,6 +55,7 @@ export const TORNADO_LABELS: Record<(typeof SENSITIVITY_INPUTS)[number], string>
   firstCostPremium: "Extra first cost",
   foulingRate: "Fouling rate",
   load: "Heat-rejection load",
+  waterAndSewerEscalation: "Water and sewer escalation",
 };
 
 export const BREAK_EVEN_LABELS: Record<(typeof BREAK_EVEN_INPUTS)[number], string> = {
@@ -79,6 +80,7 @@ export const MC_LABELS: Record<MonteCarloInputKey, { label: string; pct: boolean
   foulingRateFactor: { label: "Fouling rate factor", pct: false },
   loadFactor: { label: "Load factor (on the duty in every hour)", pct: false },
   climateShiftK: { label: "Climate shift (added to every dry-bulb and wet-bulb)", pct: false, kind: "temperatureDifferenceK" },
+  waterAndSewerEscalationDelta: { label: "Water and sewer escalation change", pct: true },
 };
 
 const q = (kind: QuantityKind): FieldDisplay => ({ q: kind });
@@ -193,6 +195,7 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
     [`${O}.condenser.designEnteringWaterC`]: ["Design entering water", q("temperatureC")],
     [`${O}.condenser.cleanUWPerM2K`]: ["Clean U", unit("W/(m²·K)")],
     [`${O}.condenser.designFoulingM2KPerW`]: ["Fouling allowance in the design point", q("foulingM2KPerW")],
+    [`${O}.condenser.waterSideResistanceFraction`]: ["Water-side share of the clean condenser's resistance", pct],
   }),
   ...grouped("Pumps, basin and drift", {
     [`${O}.condenserPump.headM`]: ["Condenser-loop pump head", q("headM")],
@@ -203,8 +206,12 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
     [`${O}.sprayPump.headM`]: ["Spray pump head", q("headM")],
     [`${O}.sprayPump.efficiency`]: ["Spray pump efficiency", pct],
     [`${O}.sprayPump.powerKW`]: ["Spray pump motor input", q("powerKW")],
-    [`${O}.basinHeater.powerKW`]: ["Basin heater", q("powerKW")],
-    [`${O}.basinHeater.belowDryBulbC`]: ["Basin heater runs below dry-bulb", q("temperatureC")],
+    [`${O}.basinHeater.powerKW`]: ["Basin heater rating", q("powerKW")],
+    [`${O}.basinHeater.setPointC`]: ["Basin heater thermostat set-point", q("temperatureC")],
+    [`${O}.basinHeater.belowDryBulbC`]: ["Basin heater thermostat set-point", q("temperatureC")],
+    [`${O}.basinHeater.heatLossKWPerK`]: ["Basin heat loss per degree below the set-point", q("uaKWPerK")],
+    [`${O}.basinHeater.drainedWhenIdle`]: ["Basin drained whenever no water circulates"],
+    [`${O}.cyclesOfConcentration`]: ["This loop's own cycles of concentration", unit("—")],
     [`${O}.driftFractionOfFlow`]: ["Drift", unit("% of flow")],
     [`${O}.wetLoopVolumeM3`]: ["Wet-loop water volume", q("volumeM3")],
   }),
@@ -253,12 +260,18 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
     "water.limits.calciumHardnessMgPerLAsCaCO3": ["Calcium hardness limit", q("concentrationMgPerL")],
     "water.recirculatingPh": ["Recirculating-water pH", unit("pH")],
   }),
+  ...grouped("Scale control", {
+    "water.scaleControl.maximumLangelierIndex": ["Highest Langelier index accepted", unit("LSI")],
+    "water.scaleControl.acidFeed": ["Feed sulfuric acid to hold it"],
+    "water.scaleControl.acidStrengthFraction": ["Acid product strength (H₂SO₄)", pct],
+  }),
   ...grouped("Water and sewer prices", {
     "tariffs.water.pricePerM3": ["Water price", q("pricePerM3")],
     "tariffs.water.fixedChargePerMonth": ["Water fixed charge", q("money")],
     "tariffs.sewer.pricePerM3": ["Sewer price", q("pricePerM3")],
     "tariffs.sewer.fixedChargePerMonth": ["Sewer fixed charge", q("money")],
-    "water.sewerEvaporationCredit": ["Sewer bill credits the evaporated water"],
+    "water.sewerBasis": ["Sewer billed on"],
+    "water.sewerEvaporationCredit": ["Sewer billed on"],
     "tariffs.sewer.evaporationCreditMeterChargePerMonth": ["Credit-meter charge", q("money")],
   }),
   ...grouped("Treatment chemicals and the water-management programme", {
@@ -268,6 +281,7 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
     ],
     "tariffs.chemicals.inhibitorPricePerKg": ["Inhibitor product price", q("pricePerKg")],
     "tariffs.chemicals.biocidePricePerKg": ["Biocide product price", q("pricePerKg")],
+    "tariffs.chemicals.acidPricePerKg": ["Acid product price", q("pricePerKg")],
     "tariffs.chemicals.fixedCostPerYear": ["Vendor service and testing, per wet loop", q("money")],
     "tariffs.waterManagementProgrammeCostPerYear": [
       "Water-management programme (Legionella), per wet loop",

@@ -46,6 +46,32 @@ function arrayAt(doc: unknown, path: string): unknown[] {
 }
 
 describe("scenario schema", () => {
+  // Stored scenarios written before issue 10 keep reading: the evaporation-credit flag becomes the sewer
+  // basis, the heater's "runs below dry-bulb" becomes its thermostat set-point, and the heat loss defaults
+  // to the rating over the set-point's margin above −17.8 °C (hand: 8 kW / (4.4 + 17.8) K = 0.3604 kW/K).
+  it("reads stored scenarios with the earlier sewer-credit flag and basin-heater threshold", () => {
+    const doc = readFixture("scenario-hourly.json");
+    at(doc, "water").sewerEvaporationCredit = true;
+    at(doc, "options.0").basinHeater = { powerKW: 8, belowDryBulbC: 4.4 };
+    const climate = fixtureDocument("scenario-hourly.json").climate;
+    const r = parseScenario({ ...doc, climate });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.value.water.sewerBasis).toBe("makeupMinusEvaporation");
+    expect("sewerEvaporationCredit" in r.value.water).toBe(false);
+    const bh = r.value.options[0]?.basinHeater;
+    expect(bh?.setPointC).toBe(4.4);
+    expect(bh?.heatLossKWPerK).toBeCloseTo(8 / 22.2, 12);
+    expect(bh?.drainedWhenIdle).toBe(false);
+    at(doc, "water").sewerEvaporationCredit = false;
+    const r2 = parseScenario({ ...doc, climate });
+    expect(r2.ok && r2.value.water.sewerBasis).toBe("makeup");
+    // An explicit basis wins over the old flag.
+    at(doc, "water").sewerBasis = "blowdown";
+    const r3 = parseScenario({ ...doc, climate });
+    expect(r3.ok && r3.value.water.sewerBasis).toBe("blowdown");
+  });
+
   it("parses both example scenarios and fills the defaults from fieldDefaults", () => {
     const r = parseScenario(readFixture("scenario-bins.json"));
     expect(r.ok).toBe(true);

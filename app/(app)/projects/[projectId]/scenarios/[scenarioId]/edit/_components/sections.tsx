@@ -672,6 +672,13 @@ export function OptionSection({
           label="Fouling allowance in the design point"
           kind="foulingM2KPerW"
         />
+        {kind === "closedCircuitCooler" ? (
+          <Pct
+            name={`${p}.condenser.waterSideResistanceFraction`}
+            label="Water-side share of the clean condenser's resistance"
+            description="With glycol in the loop and ratings on water, glycol derates this share."
+          />
+        ) : null}
       </Group>
       <Group title="Pumps, basin and drift">
         <Num
@@ -700,11 +707,29 @@ export function OptionSection({
             <Num name={`${p}.sprayPump.powerKW`} label="Spray pump motor input" kind="powerKW" optional />
           </>
         ) : null}
-        <Num name={`${p}.basinHeater.powerKW`} label="Basin heater" kind="powerKW" />
+        <Num name={`${p}.basinHeater.powerKW`} label="Basin heater rating" kind="powerKW" />
         <Num
-          name={`${p}.basinHeater.belowDryBulbC`}
-          label="Basin heater runs below dry-bulb"
+          name={`${p}.basinHeater.setPointC`}
+          label="Basin heater thermostat set-point"
           kind="temperatureC"
+        />
+        <Num
+          name={`${p}.basinHeater.heatLossKWPerK`}
+          label="Basin heat loss per degree below the set-point"
+          kind="uaKWPerK"
+          description="The heater supplies this loss, up to its rating, while the basin holds still water."
+          optional
+        />
+        <Check
+          name={`${p}.basinHeater.drainedWhenIdle`}
+          label="Basin drained whenever no water circulates"
+          description="Idle tower, or cooler running dry: no basin heat then."
+        />
+        <Plain
+          name={`${p}.cyclesOfConcentration`}
+          label="This loop's own cycles of concentration"
+          unit="—"
+          description="Leave empty to run at the scenario's cycles (Water); e.g. a cooler's spray loop held lower."
         />
         <ScaledField
           name={`${p}.driftFractionOfFlow`}
@@ -871,6 +896,18 @@ export function WaterSection() {
         />
         <Plain name="water.recirculatingPh" label="Recirculating-water pH" unit="pH" />
       </Group>
+      <Group
+        title="Scale control"
+        note="Langelier index at the hottest wetted surface and the cycles each loop achieves."
+      >
+        <Plain name="water.scaleControl.maximumLangelierIndex" label="Highest Langelier index accepted" unit="LSI" />
+        <Check
+          name="water.scaleControl.acidFeed"
+          label="Feed sulfuric acid to hold it"
+          description="Concentrated acid is hazardous: bunded storage, pH-interlocked feed, protective equipment."
+        />
+        <Pct name="water.scaleControl.acidStrengthFraction" label="Acid product strength (H₂SO₄)" />
+      </Group>
       <Group title="Water and sewer prices">
         <Num name="tariffs.water.pricePerM3" label="Water price" kind="pricePerM3" />
         <Num
@@ -886,10 +923,15 @@ export function WaterSection() {
           kind="money"
           description="Per month."
         />
-        <Check
-          name="water.sewerEvaporationCredit"
-          label="Sewer bill credits the evaporated water"
-          description="Needs makeup and blowdown meters and the utility's consent."
+        <Choice
+          name="water.sewerBasis"
+          label="Sewer billed on"
+          options={[
+            { value: "makeup", label: "All makeup (no credit)" },
+            { value: "makeupMinusEvaporation", label: "Makeup less evaporation (blowdown + drift)" },
+            { value: "blowdown", label: "Metered blowdown only" },
+          ]}
+          description="A credit needs meters and the utility's consent."
         />
         <Num
           name="tariffs.sewer.evaporationCreditMeterChargePerMonth"
@@ -909,6 +951,7 @@ export function WaterSection() {
         />
         <Num name="tariffs.chemicals.inhibitorPricePerKg" label="Inhibitor product price" kind="pricePerKg" />
         <Num name="tariffs.chemicals.biocidePricePerKg" label="Biocide product price" kind="pricePerKg" />
+        <Num name="tariffs.chemicals.acidPricePerKg" label="Acid product price" kind="pricePerKg" />
         <Num
           name="tariffs.chemicals.fixedCostPerYear"
           label="Vendor service and testing, per wet loop"
