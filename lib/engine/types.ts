@@ -27,6 +27,7 @@ export type WarningQuantity =
   | "heatDutyKW"
   | "energyKWh"
   | "waterVolumeM3"
+  | "massKg"
   | "foulingM2KPerW"
   | "hours"
   | "months"

@@ -16,6 +16,7 @@ const KIND: Record<WarningQuantity, QuantityKind> = {
   heatDutyKW: "heatDutyKW",
   energyKWh: "energyKWh",
   waterVolumeM3: "waterVolumeM3",
+  massKg: "massKg",
   foulingM2KPerW: "foulingM2KPerW",
   hours: "hours",
   months: "months",

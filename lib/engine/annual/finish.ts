@@ -100,22 +100,45 @@ export function finishOption(
   // [practice] treated towers commonly run up to the entered LSI limit with a scale inhibitor; beyond it,
   // or at a Ryznar index below 4, scale control needs more than an inhibitor (acid feed, softening, fewer cycles).
   if (w.makeup > 0 && (loopChem.langelierIndex > sc.maximumLangelierIndex + 1e-9 || loopChem.ryznarIndex < 4)) {
-    warnings.push({
-      code: "water.scaleForming",
-      severity: "info",
-      message: `At ${round1(hottest)} °C and ${round1(atCycles)} cycles the recirculating water is strongly scale-forming (LSI ${loopChem.langelierIndex.toFixed(2)}, RSI ${loopChem.ryznarIndex.toFixed(2)}; limit LSI ${sc.maximumLangelierIndex}): the treatment programme must control it.`,
-      path: sc.acidFeed ? "water" : "water.scaleControl.acidFeed",
-      optionId: o.id,
-    });
+    warnings.push(
+      numericWarning({
+        code: "water.scaleForming",
+        severity: "info",
+        template:
+          "At {surface} and {cycles} cycles the recirculating water is strongly scale-forming (LSI {lsi}, RSI {rsi}; limit LSI {limit}): the treatment programme must control it.",
+        values: {
+          surface: wv.tempC(hottest),
+          cycles: wv.ratio(atCycles),
+          lsi: wv.ratio(loopChem.langelierIndex),
+          rsi: wv.ratio(loopChem.ryznarIndex),
+          limit: wv.ratio(sc.maximumLangelierIndex),
+        },
+        path: sc.acidFeed ? "water" : "water.scaleControl.acidFeed",
+        optionId: o.id,
+      }),
+    );
   }
   if (acidKg > 0) {
-    warnings.push({
-      code: "caution.acidFeed",
-      severity: "info",
-      message: `At ${round1(atCycles)} cycles the Langelier index would reach ${loopChem.untreatedLangelierIndex.toFixed(2)} at ${round1(hottest)} °C: acid feed of about ${Math.round(acidKg).toLocaleString("en-US")} kg/yr of ${Math.round(sc.acidStrengthFraction * 100)} % sulfuric acid holds it at ${sc.maximumLangelierIndex} (pH ${water.recirculatingPh.toFixed(1)} → ${loopChem.ph.toFixed(1)}). Concentrated acid burns: bunded storage, a pH-interlocked feed, eye-wash and protective equipment per the supplier's safety data sheet and local rules; an acid overfeed corrodes the system.`,
-      path: "water.scaleControl",
-      optionId: o.id,
-    });
+    warnings.push(
+      numericWarning({
+        code: "caution.acidFeed",
+        severity: "info",
+        template:
+          "At {cycles} cycles the Langelier index would reach {untreated} at {surface}: acid feed of about {acid} a year of {strength} sulfuric acid holds it at {limit} (pH {ph0} → {ph1}). Concentrated acid burns: bunded storage, a pH-interlocked feed, eye-wash and protective equipment per the supplier's safety data sheet and local rules; an acid overfeed corrodes the system.",
+        values: {
+          cycles: wv.ratio(atCycles),
+          untreated: wv.ratio(loopChem.untreatedLangelierIndex),
+          surface: wv.tempC(hottest),
+          acid: wv.kg(acidKg),
+          strength: wv.percent(sc.acidStrengthFraction * 100),
+          limit: wv.ratio(sc.maximumLangelierIndex),
+          ph0: wv.ratio(water.recirculatingPh),
+          ph1: wv.ratio(loopChem.ph),
+        },
+        path: "water.scaleControl",
+        optionId: o.id,
+      }),
+    );
   }
   const yearFraction = t.hoursTotal / 8760;
   const wetVolume = w.makeup > 0 ? po.wetLoopVolumeM3 : 0;

@@ -5,7 +5,8 @@
  * tower (record-tower.ts): fixed set-point — hold it or float at full speed; floating — the fan speed
  * minimising fan + compressor power. Where both modes are allowed, the hour runs in the one with the
  * lower fan + spray pump + compressor power. The spray pump, drift and the hottest wetted surface follow
- * the spray; the basin heater runs when the spray is off below its dry-bulb.
+ * the spray; with the spray off the basin heater holds the still basin at its set-point (record.ts),
+ * and that heater power counts against the dry mode in the choice.
  */
 import { type EnteringAir, evaporationKgPerS } from "../air-side";
 import { type CompressorModel, compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
@@ -43,7 +44,11 @@ export function coolerRecord(
   const o = po.input;
   const modes = allowedCoolerModes(model, air.dryBulbC);
   let best: ModeOutcome | null = null;
-  if (modes.dry) best = coolerMode(po, model, ctx, air, hour, false);
+  if (modes.dry) {
+    // Dry, the basin holds still water (unless drained): its heater belongs to the dry mode's power.
+    const dry = coolerMode(po, model, ctx, air, hour, false);
+    best = { ...dry, totalKW: dry.totalKW + stillBasinHeaterKW };
+  }
   if (modes.wet) {
     const wet = coolerMode(po, model, ctx, air, hour, true);
     // Ties go to dry: no water, no spray, no plume.
