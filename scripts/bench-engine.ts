@@ -1,21 +1,36 @@
 /**
- * npm run bench:engine — speed of the engine on a full hourly year with three options.
+ * npm run bench:engine — speed of the engine on a full hourly year and on its compressed climate.
  *
- * Prints the median CPU time per analysis (physics only, and the full analysis with deterministic
- * economics), the saturated-air enthalpy evaluations per hour and option, and the ratio of the physics
- * time to the time of that many bare primitive evaluations measured in the same run.
+ * Prints, for the hourly fixture with three options and with a fourth option added (a second
+ * closed-circuit cooler with two-speed fans), at full resolution (8760 h) and on the compressed climate:
+ *  - the median CPU time per analysis: physics (climate + calibration + year + cleaning optimum) and the
+ *    full analysis with deterministic economics;
+ *  - saturated-air enthalpy evaluations per hour and option over the whole physics run (cleaning optimum
+ *    included), and how many of them evaluated the formula itself (exp/log) rather than its table;
+ *  - the ratio of the physics time to the bare cost of that many evaluations of the primitive — the full
+ *    formula (one exp, one log) and its per-pressure table — measured in the same run;
+ *  - the what-if physics re-run (physical overrides on the compressed climate, applied to the stored hourly
+ *    result, and its economics);
+ *  - Monte Carlo draws per second with physics per draw (load, climate shift, fouling, cycles and prices),
+ *    and the CPU time 10,000 draws take; the same per-draw physics at full resolution for comparison.
  * Scenario: tests/fixtures/scenario-hourly.json (the invented Harrowgate Flats cold store).
  */
 import { readFileSync } from "node:fs";
 import os from "node:os";
 import { resolve } from "node:path";
 import { parseEpw } from "@/lib/engine/climate";
-import { analyzeScenario, physicsOf, prepareScenario } from "@/lib/engine";
-import { computeOptionsPhysics } from "@/lib/engine/annual";
-import { pressureFromElevationPa, psychroCounters, saturatedAirEnthalpyKJPerKg } from "@/lib/engine/psychrometrics";
+import { analyzeScenario, physicsOf, prepareScenario, type PhysicsOverrides, type ScenarioInput } from "@/lib/engine";
+import { analyzeEconomics } from "@/lib/engine/economics";
+import {
+  pressureFromElevationPa,
+  psychroCounters,
+  saturatedAirEnthalpyExactKJPerKg,
+  saturatedAirEnthalpyKJPerKg,
+} from "@/lib/engine/psychrometrics";
+import { physicsNear } from "@/lib/engine/what-if";
 import { parseScenario } from "@/lib/scenarios/schema";
 
-function loadScenario() {
+function loadScenario(): ScenarioInput {
   const path = resolve(__dirname, "../tests/fixtures/scenario-hourly.json");
   const doc = JSON.parse(readFileSync(path, "utf8"));
   const epw = readFileSync(resolve(__dirname, "../tests/fixtures", doc.climate.epwPath), "utf8");
@@ -25,7 +40,16 @@ function loadScenario() {
   doc.climate = { source: "hourly", label: doc.climate.label, month: y.month, day: y.day, hour: y.hour, dryBulbC: y.dryBulbC, wetBulbC: y.wetBulbC };
   const r = parseScenario(doc);
   if (!r.ok) throw new Error(r.errors.map((e) => `${e.path}: ${e.message}`).join("\n"));
-  return r.value;
+  return { ...r.value, sensitivity: undefined, monteCarlo: undefined };
+}
+
+/** The fixture with a fourth option: a second closed-circuit cooler, two-speed fans. */
+function withFourthOption(input: ScenarioInput): ScenarioInput {
+  const cooler = input.options.find((o) => o.kind === "closedCircuitCooler");
+  if (!cooler) throw new Error("fixture has no cooler");
+  const fourth = { ...structuredClone(cooler), id: "cooler-two-speed", label: "Closed-circuit cooler, two-speed fans" };
+  fourth.fan = { ...fourth.fan, control: "twoSpeed" };
+  return { ...input, options: [...input.options, fourth] };
 }
 
 function median(xs: number[]): number {
@@ -36,9 +60,9 @@ function median(xs: number[]): number {
 
 /**
  * CPU time of this process per run, ms (user + system): on a shared machine the wall-clock time also
- * counts the time other processes held the cores; the CPU time is what one core spends on the analysis.
+ * counts the time other processes held the cores; the CPU time is what one core spends on the work.
  */
-function time(fn: () => void, runs: number): number[] {
+function cpu(fn: () => void, runs: number): number {
   const out: number[] = [];
   for (let i = 0; i < runs; i++) {
     const c0 = process.cpuUsage();
@@ -46,76 +70,115 @@ function time(fn: () => void, runs: number): number[] {
     const c = process.cpuUsage(c0);
     out.push((c.user + c.system) / 1000);
   }
-  return out;
+  return median(out);
 }
 
-function wall(fn: () => void, runs: number): number[] {
-  const out: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    fn();
-    out.push(performance.now() - t0);
+let sink = 0;
+/** CPU time of `calls` evaluations of a primitive over the temperatures the solvers visit, ms. */
+function primitiveMs(calls: number, f: (tC: number, pPa: number) => number, pPa: number): number {
+  const run = () => {
+    for (let i = 0; i < calls; i++) sink += f(-10 + (i % 600) * 0.1, pPa);
+  };
+  run();
+  return cpu(run, 9);
+}
+
+function economicsOf(input: ScenarioInput, physics: ReturnType<typeof physicsOf>) {
+  return analyzeEconomics({
+    physics,
+    options: input.options.map((o) => ({ optionId: o.id, kind: o.kind, label: o.label, costs: o.costs })),
+    tariffs: input.tariffs,
+    upkeep: input.upkeep,
+    economics: input.economics,
+  });
+}
+
+const RUNS = 9;
+const lines: string[] = [];
+const out = (s: string) => lines.push(s);
+
+function benchPhysics(input: ScenarioInput, label: string) {
+  const p = prepareScenario(input);
+  const pPa = p.pressurePa;
+  const hours = p.year.kind === "hourly" ? p.year.dryBulbC.length : 8760;
+  const nOpt = input.options.length;
+  out(`\n${label}: ${nOpt} options`);
+  for (const resolution of ["full", "compressed"] as const) {
+    const fresh = () => {
+      const q = prepareScenario(input);
+      physicsOf(q, {}, resolution);
+      return q;
+    };
+    for (let i = 0; i < 3; i++) fresh();
+    psychroCounters.saturatedEnthalpyCalls = 0;
+    psychroCounters.exactSaturatedEnthalpyCalls = 0;
+    const q = fresh();
+    const calls = psychroCounters.saturatedEnthalpyCalls;
+    const exact = psychroCounters.exactSaturatedEnthalpyCalls;
+    const records = resolution === "full" ? hours : (q.compression?.count ?? hours);
+    const physicsMs = cpu(() => physicsOf(prepareScenario(input), {}, resolution), RUNS);
+    const fullMs = cpu(() => economicsOf(input, physicsOf(prepareScenario(input), {}, resolution)), RUNS);
+    const exactMs = primitiveMs(calls, saturatedAirEnthalpyExactKJPerKg, pPa);
+    const tableMs = primitiveMs(calls, saturatedAirEnthalpyKJPerKg, pPa);
+    const perRecord = calls / (records * nOpt);
+    out(
+      `  ${resolution === "full" ? `full year (${hours} h)` : `compressed (${records} records)`}: physics ${physicsMs.toFixed(1)} ms, analysis with economics ${fullMs.toFixed(1)} ms CPU`,
+    );
+    out(
+      `    saturated-enthalpy evaluations: ${calls} = ${perRecord.toFixed(2)} per ${resolution === "full" ? "hour" : "record"} and option (${exact} of them the full formula: table building and temperatures outside it)`,
+    );
+    out(
+      `    ratio physics / bare evaluations: ${(physicsMs / exactMs).toFixed(2)} against the formula (${exactMs.toFixed(2)} ms for ${calls}), ${(physicsMs / tableMs).toFixed(2)} against the table (${tableMs.toFixed(2)} ms)`,
+    );
   }
-  return out;
+}
+
+function benchWhatIfAndMonteCarlo(input: ScenarioInput) {
+  const p = prepareScenario(input);
+  const full = physicsOf(p);
+  let k = 0;
+  const slider = (): PhysicsOverrides => {
+    k++;
+    return { loadFactor: 0.8 + 0.04 * (k % 10), climateShiftK: 0.5 * (k % 5) };
+  };
+  for (let i = 0; i < 5; i++) economicsOf(input, physicsNear(p, full, slider()));
+  const whatIfMs = cpu(() => economicsOf(input, physicsNear(p, full, slider())), 21);
+  const whatIfFullMs = cpu(() => economicsOf(input, physicsOf(p, slider(), "full", false)), 5);
+  out(`\nwhat-if with physical inputs (load and climate shift moved; physics + economics), ${input.options.length} options:`);
+  out(`  compressed climate applied to the stored hourly result: ${whatIfMs.toFixed(1)} ms CPU per slider move`);
+  out(`  full hourly re-run instead:                          ${whatIfFullMs.toFixed(1)} ms CPU per slider move`);
+
+  const distributions = {
+    waterPriceFactor: { type: "triangular" as const, min: 0.8, mode: 1, max: 1.5 },
+    electricityPriceFactor: { type: "triangular" as const, min: 0.85, mode: 1, max: 1.3 },
+    energyEscalationDelta: { type: "triangular" as const, min: -0.01, mode: 0, max: 0.02 },
+    firstCostFactor: { type: "triangular" as const, min: 0.9, mode: 1, max: 1.25 },
+    cyclesOfConcentration: { type: "triangular" as const, min: 3, mode: 4, max: 6 },
+    loadFactor: { type: "triangular" as const, min: 0.85, mode: 1, max: 1.15 },
+    climateShiftK: { type: "triangular" as const, min: 0, mode: 0.5, max: 2 },
+    foulingRateFactor: { type: "triangular" as const, min: 0.5, mode: 1, max: 2 },
+  };
+  const draws = 1000;
+  const mcInput: ScenarioInput = { ...input, monteCarlo: { enabled: true, draws, seed: 20260101, histogramBins: 30, distributions } };
+  analyzeScenario({ ...mcInput, monteCarlo: { ...mcInput.monteCarlo!, draws: 50 } });
+  const base = cpu(() => analyzeScenario(input), 3);
+  const c0 = process.cpuUsage();
+  const r = analyzeScenario(mcInput);
+  const c = process.cpuUsage(c0);
+  const mcMs = (c.user + c.system) / 1000 - base;
+  const perSecond = draws / (mcMs / 1000);
+  out(`\nMonte Carlo with physics per draw (load, climate shift, fouling on the compressed climate; cycles, prices, escalation, first cost), ${input.options.length} options:`);
+  out(`  ${draws} draws: ${mcMs.toFixed(0)} ms CPU → ${perSecond.toFixed(0)} draws/s; 10,000 draws ≈ ${(10_000 / perSecond).toFixed(1)} s CPU (${r.economics.monteCarlo?.physicsReruns ?? 0} physics re-runs)`);
+  const fullDraw = cpu(() => economicsOf(input, physicsOf(p, slider(), "full", false)), 3);
+  out(`  the same per-draw physics at full resolution: ${(1000 / fullDraw).toFixed(1)} draws/s; 10,000 draws ≈ ${((10_000 * fullDraw) / 1000).toFixed(0)} s CPU`);
 }
 
 const input = loadScenario();
-const light = { ...input, sensitivity: undefined, monteCarlo: undefined };
-const hours = input.climate.source === "hourly" ? input.climate.dryBulbC.length : 0;
-const options = input.options.length;
-
-// Warm-up (JIT), then count the primitive over one physics run.
-for (let i = 0; i < 3; i++) physicsOf(prepareScenario(light));
-psychroCounters.saturatedEnthalpyCalls = 0;
-physicsOf(prepareScenario(light));
-const calls = psychroCounters.saturatedEnthalpyCalls;
-// The year loop alone (no cleaning-interval optimum, which adds two sub-sampled years per fouled option).
-const bare = prepareScenario(light);
-psychroCounters.saturatedEnthalpyCalls = 0;
-computeOptionsPhysics(bare.options, bare.climate, light.duty, light.water, light.fouling, bare.pressurePa, {});
-const yearCalls = psychroCounters.saturatedEnthalpyCalls;
-
-const runs = 15;
-const physicsMs = median(time(() => physicsOf(prepareScenario(light)), runs));
-const fullMs = median(time(() => analyzeScenario(light), runs));
-const fullWallMs = median(wall(() => analyzeScenario(light), runs));
-const prepared = prepareScenario(light);
-const rerunMs = median(time(() => physicsOf(prepared, { cyclesOfConcentration: 5 }), runs));
-
-// The same number of bare primitive evaluations over the temperatures the solvers visit.
-let sink = 0;
-const primitive = (): void => {
-  for (let i = 0; i < calls; i++) sink += saturatedAirEnthalpyKJPerKg(-10 + (i % 600) * 0.1, 98_500);
-};
-for (let i = 0; i < 3; i++) primitive();
-const primitiveMs = median(time(primitive, runs));
-
-// The same year under floating head pressure (each hour's fan speed and cooler mode by the fan +
-// spray + compressor optimum).
-const floating = { ...light, duty: { ...light.duty, headPressureControl: "floating" as const } };
-const floatingMs = median(time(() => physicsOf(prepareScenario(floating)), runs));
-psychroCounters.saturatedEnthalpyCalls = 0;
-physicsOf(prepareScenario(floating));
-const floatingCalls = psychroCounters.saturatedEnthalpyCalls;
-
-const c0 = process.cpuUsage();
-analyzeScenario(input);
-const c1 = process.cpuUsage(c0);
-const withSensitivityMs = (c1.user + c1.system) / 1000;
-
-const perHourOption = calls / (hours * options);
-const lines = [
-  `LoopLedger engine benchmark — ${hours} h × ${options} options (tests/fixtures/scenario-hourly.json), median of ${runs}, CPU time`,
-  `physics only (climate + calibration + year):     ${physicsMs.toFixed(1)} ms`,
-  `physics re-run on a prepared scenario (what-if):  ${rerunMs.toFixed(1)} ms`,
-  `physics only, floating head pressure:            ${floatingMs.toFixed(1)} ms (${(floatingCalls / (hours * options)).toFixed(2)} saturated-enthalpy evaluations per hour and option)`,
-  `full analysis, deterministic economics:          ${fullMs.toFixed(1)} ms (wall clock ${fullWallMs.toFixed(1)} ms, load average ${os.loadavg()[0]?.toFixed(1)})`,
-  `full analysis with the fixture's sensitivity and Monte Carlo (${input.monteCarlo?.draws ?? 0} draws), once: ${withSensitivityMs.toFixed(0)} ms`,
-  `saturated-enthalpy evaluations per physics run:  ${calls} = ${perHourOption.toFixed(2)} per hour and option`,
-  `  of which the year loop alone: ${(yearCalls / (hours * options)).toFixed(2)} per hour and option (the rest: the`,
-  `  cleaning-interval optimum's two sub-sampled years per fouled option, the climate and the saturation table)`,
-  `time of ${calls} bare evaluations:               ${primitiveMs.toFixed(2)} ms`,
-  `ratio physics time / primitive time:             ${(physicsMs / primitiveMs).toFixed(1)}`,
-];
+out(`LoopLedger engine benchmark — tests/fixtures/scenario-hourly.json, CPU time (median), node ${process.version}, load average ${os.loadavg()[0]?.toFixed(1)}`);
+benchPhysics(input, "Hourly fixture");
+benchPhysics({ ...input, duty: { ...input.duty, headPressureControl: "floating" } }, "Hourly fixture, floating head pressure (each hour's fan + spray + compressor optimum)");
+const four = withFourthOption(input);
+benchPhysics(four, "Hourly fixture + a fourth option");
+benchWhatIfAndMonteCarlo(four);
 process.stdout.write(`${lines.join("\n")}\n`);
 if (sink === 42) process.stdout.write("\n");

@@ -1,7 +1,8 @@
 "use client";
 
 import useSWR from "swr";
-import type { MonteCarloResult } from "@/lib/engine/economics/types";
+import type { MonteCarloInputKey, MonteCarloResult } from "@/lib/engine/economics/types";
+import { MC_LABELS } from "@/lib/scenarios/field-labels";
 import { formatNumber } from "@/lib/units";
 import { MonteCarloChart } from "@/components/charts/monte-carlo-chart";
 import { money } from "./headline";
@@ -112,6 +113,7 @@ export function MonteCarloPanel({
                 Net savings P10 {money(ns.p10, currency)} · P50 {money(ns.p50, currency)} · P90 {money(ns.p90, currency)}; the alternative saves money in{" "}
                 {formatNumber(100 * ns.probabilityPositive, { decimals: 0 })} % of draws.
               </p>
+              {ns.drivers && ns.drivers.length > 0 ? <Drivers drivers={ns.drivers} labels={labels} /> : null}
             </div>
           );
         })}
@@ -124,5 +126,42 @@ export function MonteCarloPanel({
         </ul>
       ) : null}
     </div>
+  );
+}
+
+/**
+ * What drives the spread of one pair's net savings: each sampled input's Spearman rank correlation with
+ * them, strongest first (+: a higher value of the input raises the alternative's net savings).
+ */
+function Drivers({
+  drivers,
+  labels,
+}: {
+  drivers: { input: MonteCarloInputKey; optionId?: string; rankCorrelation: number }[];
+  labels: Record<string, string>;
+}) {
+  const shown = drivers.filter((d) => Math.abs(d.rankCorrelation) >= 0.05).slice(0, 6);
+  if (shown.length === 0) return null;
+  return (
+    <table className="mt-2 w-full text-xs" data-testid="mc-drivers">
+      <caption className="text-left text-ink-soft">What drives the spread (rank correlation with the net savings)</caption>
+      <tbody>
+        {shown.map((d) => {
+          const name = `${MC_LABELS[d.input]?.label ?? d.input}${d.optionId ? ` — ${labels[d.optionId] ?? d.optionId}` : ""}`;
+          const w = Math.round(100 * Math.abs(d.rankCorrelation));
+          return (
+            <tr key={`${d.input}|${d.optionId ?? ""}`}>
+              <td className="py-0.5 pr-2">{name}</td>
+              <td className="w-1/3 py-0.5">
+                <div className="h-2 rounded bg-paper-sunk" aria-hidden>
+                  <div className={`h-2 rounded ${d.rankCorrelation >= 0 ? "bg-basin-500" : "bg-danger-600"}`} style={{ width: `${w}%` }} />
+                </div>
+              </td>
+              <td className="num w-16 py-0.5">{d.rankCorrelation > 0 ? "+" : ""}{formatNumber(d.rankCorrelation, { decimals: 2 })}</td>
+            </tr>
+          );
+        })}
+      </tbody>
+    </table>
   );
 }

@@ -2,13 +2,22 @@ import { NextResponse } from "next/server";
 import { authorizeScenarioApi, draftSource, issuedSource, issuedVersionOf } from "@/lib/scenarios/data";
 import { toFieldErrors } from "@/lib/result";
 import { jsonError, readJsonBody, resultResponse } from "@/lib/http";
-import { computeWhatIf, whatIfBodySchema, WHAT_IF_MAX_BYTES } from "@/lib/scenarios/what-if";
+import { needsPhysics } from "@/lib/engine/what-if";
+import {
+  computeWhatIf,
+  physicalOverrides,
+  preparedFor,
+  whatIfBodySchema,
+  whatIfFieldErrors,
+  WHAT_IF_MAX_BYTES,
+} from "@/lib/scenarios/what-if";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /**
- * Re-price the stored physics with the what-if overrides; nothing is saved. Firm members work on the
+ * Re-price the stored physics with the what-if overrides — and re-run the physics on the compressed climate
+ * when a physical input moved (lib/scenarios/what-if.ts); nothing is saved. Firm members work on the
  * draft (or `?version=N`); client viewers only on an issued version (`?version=N`, else the latest).
  */
 export async function POST(request: Request, { params }: { params: Promise<{ scenarioId: string }> }) {
@@ -34,6 +43,10 @@ export async function POST(request: Request, { params }: { params: Promise<{ sce
     src = await draftSource(auth);
     if (!src) return jsonError(409, "The draft has no result for its current inputs yet: save it to analyse it first.");
   }
-  const r = computeWhatIf(src.input, src.result, parsed.data, access.project.unitSystem, access.project.currency);
+  const physical = needsPhysics(physicalOverrides(parsed.data));
+  const prepared = physical ? preparedFor(`${scenarioId}|${src.version ?? "draft"}|${src.inputsHash}`, src.input) : null;
+  const fieldErrors = whatIfFieldErrors(parsed.data, src.input, !physical || prepared !== null);
+  if (Object.keys(fieldErrors).length > 0) return jsonError(422, "The what-if values are not valid for this scenario.", { fieldErrors });
+  const r = computeWhatIf(src.input, src.result, parsed.data, access.project.unitSystem, access.project.currency, prepared);
   return NextResponse.json({ ...r, version: src.version }, { headers: { "cache-control": "no-store" } });
 }
