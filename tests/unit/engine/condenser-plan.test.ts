@@ -85,7 +85,7 @@ describe("the analysis reports condensers and footprints", () => {
     expect(r.warnings.filter((w) => w.code === "caution.ammonia")).toHaveLength(1);
     for (const f of r.footprint?.options ?? []) {
       const p = r.physics.find((x) => x.optionId === f.optionId)!;
-      // Withdrawn is the makeup, consumed evaporation + drift (engineering notes §13).
+      // Withdrawn is the makeup, consumed evaporation + drift (Methods §13).
       expect(f.water.withdrawnM3).toBe(p.waterM3.makeup);
       expect(f.water.consumedM3).toBeCloseTo(p.waterM3.evaporation + p.waterM3.drift, 9);
       expect(f.emissions.leakageKgCO2e).toBe(0);
