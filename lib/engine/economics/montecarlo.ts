@@ -9,10 +9,11 @@
  *  - prices, escalations, the discount rate and first costs re-price the yearly quantities;
  *  - cycles of concentration act on the water only through the mass balance B = E/(C − 1) − D with E and
  *    D unchanged, so makeup, billed sewer and treated outflow are recomputed exactly from E and D;
- *  - the load, the climate shift and the fouling growth re-run the physics of the draw (`drawPhysics`: the
- *    compressed climate, applied as a difference to the full-resolution physics). Without `drawPhysics`
- *    the load and climate are not sampled, and the fouling rate is re-run at the nodes of its distribution
- *    (min, mode, max) and interpolated linearly between them.
+ *  - when the load or the climate shift is sampled, every draw re-runs the physics with its load, climate
+ *    shift and fouling growth (`drawPhysics`: the compressed climate, applied as a difference to the
+ *    full-resolution physics). Otherwise (or without `drawPhysics`) the load and climate are not sampled,
+ *    and the fouling rate is re-run at the nodes of its distribution (min, mode, max) and interpolated
+ *    linearly between them.
  * The result names the inputs that drive the spread: Spearman's rank correlation of each sampled input with
  * each alternative's net savings.
  */
@@ -216,7 +217,9 @@ export function runMonteCarlo(
   const dist = input.distributions;
   const sampled = MONTE_CARLO_INPUTS.filter((k) => dist[k] !== undefined);
   const physical = PHYSICAL_INPUTS.filter((k) => dist[k] !== undefined);
-  const perDrawPhysics = drawPhysics !== undefined && physical.length > 0;
+  // The fouling rate alone stays on its three interpolated nodes (it moves energy smoothly and cheaply);
+  // the load and the climate shift need the physics of every draw.
+  const perDrawPhysics = drawPhysics !== undefined && (dist.loadFactor !== undefined || dist.climateShiftK !== undefined);
   const notes: string[] = [
     "Prices, escalations, the discount rate and first costs re-price the same yearly quantities (no physics re-run).",
   ];

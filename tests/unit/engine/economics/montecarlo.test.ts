@@ -194,6 +194,25 @@ describe("Monte Carlo with physics per draw", () => {
     }
   });
 
+  it("a fouling distribution alone keeps its three node re-runs even when per-draw physics is available", () => {
+    let draws = 0;
+    let nodes = 0;
+    analyzeEconomics(
+      baseArgs({
+        monteCarlo: { ...mc, draws: 500, distributions: { foulingRateFactor: { type: "triangular", min: 0.5, mode: 1, max: 2 } } },
+        rerunPhysics: (o) => {
+          nodes++;
+          return physicsFor(o);
+        },
+        drawPhysics: (o) => {
+          draws++;
+          return physicsFor(o);
+        },
+      }),
+    );
+    expect([nodes, draws]).toEqual([3, 0]);
+  });
+
   it("without per-draw physics the load and the climate shift are reported as not sampled", () => {
     const r = analyzeEconomics(
       baseArgs({ monteCarlo: { ...mc, draws: 200, distributions: { loadFactor: load, climateShiftK: { type: "uniform", min: 0, max: 2 } } } }),
