@@ -115,10 +115,27 @@ export interface ScenarioResultsTable {
   error: string | null;
   created_at: Timestamp;
   finished_at: Date | null;
-  /** Job rows (kind 'monteCarlo'): claimed at, last progress report, tries (migration 2026_12_01_2310). */
+  /** When a worker last started on the row (the queue itself is pg-boss, migration 2026_12_02_0900). */
   started_at: Date | null;
-  heartbeat_at: Date | null;
-  attempts: Generated<number>;
+  /** Who asked for the run (a save, a page view), for the per-user limits. */
+  requested_by: string | null;
+  /** Monte Carlo draws the row stands for (0 for the deterministic result). */
+  draws: Generated<number>;
+}
+
+/** The analysis API's queued requests (migration 2026_12_02_0900). */
+export interface ApiAnalysesTable {
+  id: Generated<string>;
+  user_id: string;
+  status: Generated<ResultStatus>;
+  draws: Generated<number>;
+  inputs_hash: string;
+  input: Json<unknown> | null;
+  result: Json<unknown> | null;
+  error: string | null;
+  created_at: Timestamp;
+  started_at: Date | null;
+  finished_at: Date | null;
 }
 
 export interface ScenarioVersionsTable {
@@ -194,6 +211,7 @@ export interface Database {
   comments: CommentsTable;
   invitations: InvitationsTable;
   mail_outbox: MailOutboxTable;
+  api_analyses: ApiAnalysesTable;
 }
 
 /** What every query function takes first: the app's Kysely instance or a transaction. */

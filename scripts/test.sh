@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # npm test: its own PostgreSQL (port 54339), a fresh database, migrations, unit + integration tests (vitest),
-# then a production build served on 127.0.0.1:$TEST_PORT and browser tests in Debian's chromium.
+# then a production build served on 127.0.0.1:$TEST_PORT with one background worker (scripts/worker.ts) and
+# browser tests in Debian's chromium.
 # Ends with one line "N passed, N failed". Stops what it started.
 set -uo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
@@ -15,13 +16,18 @@ export NEXT_DIST_DIR="${NEXT_DIST_DIR:-.next-test}"
 results=test-results
 rm -rf "$results"; mkdir -p "$results"
 server_pid=""
+worker_pid=""
+stop_group() {
+  # Each service runs in its own process group (setsid): stop the whole group, not only its parent.
+  local pid="$1"
+  [ -n "$pid" ] || return 0
+  kill -TERM -- "-$pid" 2>/dev/null || kill "$pid" 2>/dev/null
+  for _ in $(seq 1 20); do kill -0 "$pid" 2>/dev/null || break; sleep 0.2; done
+  kill -KILL -- "-$pid" 2>/dev/null || true
+}
 cleanup() {
-  # The server runs in its own process group (setsid): stop the whole group, not only its parent.
-  if [ -n "$server_pid" ]; then
-    kill -TERM -- "-$server_pid" 2>/dev/null || kill "$server_pid" 2>/dev/null
-    for _ in $(seq 1 20); do kill -0 "$server_pid" 2>/dev/null || break; sleep 0.2; done
-    kill -KILL -- "-$server_pid" 2>/dev/null || true
-  fi
+  stop_group "$server_pid"
+  stop_group "$worker_pid"
   bash scripts/db.sh stop >/dev/null 2>&1 || true
 }
 trap cleanup EXIT
@@ -43,6 +49,8 @@ if [ "${SKIP_E2E:-0}" != "1" ]; then
     fi
     setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$TEST_PORT" > "$results/next-server.log" 2>&1 &
     server_pid=$!
+    setsid node node_modules/tsx/dist/cli.mjs scripts/worker.ts > "$results/worker.log" 2>&1 &
+    worker_pid=$!
     for _ in $(seq 1 100); do curl -sf -o /dev/null "http://127.0.0.1:${TEST_PORT}/signin" && break; sleep 0.3; done
     E2E_BASE_URL="http://127.0.0.1:${TEST_PORT}" npx vitest run --project e2e --reporter=default --reporter=json \
       --outputFile.json="$results/vitest-e2e.json" || status=1

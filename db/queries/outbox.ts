@@ -20,7 +20,7 @@ export async function insertOutboxMail(db: Executor, m: OutgoingMail) {
     .executeTakeFirstOrThrow();
 }
 
-export interface ClaimedMail {
+export interface PendingMail {
   id: string;
   kind: string;
   refId: string | null;
@@ -31,31 +31,20 @@ export interface ClaimedMail {
   attempts: number;
 }
 
-/**
- * Claim up to `limit` due pending messages for one sender: their next_attempt_at moves forward by the
- * lease, so a second sender (another server, the next timer tick) skips them while this one works, and a
- * sender that dies mid-send leaves them to be retried once the lease runs out. SKIP LOCKED keeps two
- * claims from ever taking the same row.
- */
-export async function claimDueMail(
-  db: Executor,
-  opts: { limit: number; leaseS: number; asOf?: Date; onlyIds?: string[] },
-): Promise<ClaimedMail[]> {
-  const asOf = opts.asOf ?? null;
-  const only = opts.onlyIds ?? null;
-  const r = await sql<ClaimedMail>`
-    update mail_outbox set next_attempt_at = now() + make_interval(secs => ${opts.leaseS})
-    where id in (
-      select id from mail_outbox
-      where status = 'pending'
-        and next_attempt_at <= coalesce(${asOf}::timestamptz, now())
-        and (${only}::uuid[] is null or id = any(${only}::uuid[]))
-      order by next_attempt_at, created_at
-      for update skip locked
-      limit ${opts.limit}
-    )
-    returning id, kind, ref_id as "refId", to_address as "to", subject, text_body as "text", html_body as "html", attempts`.execute(db);
-  return r.rows;
+/** A message still waiting to be sent (the mail job's handler reads it; null once sent or failed). */
+export async function findPendingMail(db: Executor, id: string): Promise<PendingMail | undefined> {
+  return db
+    .selectFrom("mail_outbox")
+    .select(["id", "kind", "ref_id as refId", "to_address as to", "subject", "text_body as text", "html_body as html", "attempts"])
+    .where("id", "=", id)
+    .where("status", "=", "pending")
+    .executeTakeFirst();
+}
+
+/** Pending messages (a worker re-submits their jobs at start; the job id is the message id, so no repeats). */
+export async function pendingMailIds(db: Executor, limit = 1000): Promise<string[]> {
+  const rows = await db.selectFrom("mail_outbox").select("id").where("status", "=", "pending").orderBy("created_at").limit(limit).execute();
+  return rows.map((r) => r.id);
 }
 
 /**
@@ -70,7 +59,7 @@ export async function markMailSent(db: Executor, id: string) {
     .execute();
 }
 
-/** A failed attempt: retry after `retryInS`, or give up (status failed) when `retryInS` is null. */
+/** A failed attempt: the queue retries after at least `retryInS`, or give up (status failed) when `retryInS` is null. */
 export async function markMailAttemptFailed(db: Executor, id: string, error: string, retryInS: number | null) {
   await db
     .updateTable("mail_outbox")
@@ -101,7 +90,7 @@ export async function cancelPendingMail(db: Executor, kind: string, refId: strin
  * An invitation e-mail still waiting (the mail server was down) whose invitation was accepted, withdrawn or
  * has expired in the meantime would only deliver a dead link: it is marked failed with the reason instead.
  */
-export async function cancelStaleInvitationMail(db: Executor) {
+export async function cancelStaleInvitationMail(db: Executor, onlyId?: string) {
   await sql`
     update mail_outbox m set status = 'failed', text_body = '', html_body = null,
       last_error = case when i.accepted_at is not null then 'Invitation already accepted; not sent.'
@@ -109,7 +98,8 @@ export async function cancelStaleInvitationMail(db: Executor) {
                         else 'Invitation expired before it could be sent.' end
     from invitations i
     where m.kind = 'invitation' and m.status = 'pending' and m.ref_id = i.id::text
-      and (i.accepted_at is not null or i.revoked_at is not null or i.expires_at <= now())`.execute(db);
+      and (i.accepted_at is not null or i.revoked_at is not null or i.expires_at <= now())
+      and (${onlyId ?? null}::uuid is null or m.id = ${onlyId ?? null}::uuid)`.execute(db);
 }
 
 /** Delivery state only (never the body) of the messages about these references. */

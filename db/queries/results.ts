@@ -15,9 +15,9 @@ const resultColumns = [
   "error",
   "created_at as createdAt",
   "started_at as startedAt",
-  "heartbeat_at as heartbeatAt",
   "finished_at as finishedAt",
-  "attempts",
+  "requested_by as requestedBy",
+  "draws",
 ] as const;
 
 export type ResultRow = NonNullable<Awaited<ReturnType<typeof findResult>>>;
@@ -78,78 +78,112 @@ export async function upsertDoneResult(
     .executeTakeFirstOrThrow();
 }
 
-/**
- * Queue a job for this key. An existing queued/running/done row is left as it is (the work is under
- * way or done); a failed one is queued again. Returns the row as it stands after the call.
- */
-export async function enqueueJob(db: Executor, j: { scenarioId: string; engineVersion: string; inputsHash: string; kind: ResultKind }) {
-  await db
-    .insertInto("scenario_results")
-    .values({ scenario_id: j.scenarioId, engine_version: j.engineVersion, inputs_hash: j.inputsHash, kind: j.kind, status: "queued" })
-    .onConflict((oc) =>
-      oc
-        .constraint("scenario_results_key")
-        .doUpdateSet({ status: "queued", progress: 0, error: null, result: null, finished_at: null, started_at: null, heartbeat_at: null })
-        .where("scenario_results.status", "=", "failed"),
-    )
-    .execute();
-  return findResult(db, j.scenarioId, j.engineVersion, j.inputsHash, j.kind);
-}
-
-/** Claim the oldest queued job (SKIP LOCKED: two workers never take the same row). */
-export async function claimNextJob(db: Executor, kind: ResultKind) {
-  const row = await sql<{ id: string }>`
-    update scenario_results set status = 'running', started_at = now(), heartbeat_at = now(), attempts = attempts + 1, progress = 0
-    where id = (
-      select id from scenario_results where status = 'queued' and kind = ${kind}
-      order by created_at for update skip locked limit 1
-    )
-    returning id`.execute(db);
-  const id = row.rows[0]?.id;
-  if (!id) return undefined;
+export async function findResultById(db: Executor, id: string) {
   return db.selectFrom("scenario_results").select(resultColumns).where("id", "=", id).executeTakeFirst();
 }
 
-export async function reportJobProgress(db: Executor, id: string, progress: number) {
+/**
+ * A queued row for this key. A failed row is queued again; a queued, running or done row is left as it
+ * is. `queuedNow` says whether this call queued it (and so must send its job, in the same transaction).
+ */
+export async function queueResultRow(
+  db: Executor,
+  j: { scenarioId: string; engineVersion: string; inputsHash: string; kind: ResultKind; requestedBy: string | null; draws: number; status?: "queued" | "failed"; error?: string },
+): Promise<{ row: ResultRow; queuedNow: boolean }> {
+  const status = j.status ?? "queued";
+  const queued = await db
+    .insertInto("scenario_results")
+    .values({
+      scenario_id: j.scenarioId,
+      engine_version: j.engineVersion,
+      inputs_hash: j.inputsHash,
+      kind: j.kind,
+      status,
+      requested_by: j.requestedBy,
+      draws: j.draws,
+      error: j.error ?? null,
+      finished_at: status === "failed" ? sql`now()` : null,
+    })
+    .onConflict((oc) =>
+      oc
+        .constraint("scenario_results_key")
+        .doUpdateSet({ status, progress: 0, error: j.error ?? null, result: null, finished_at: status === "failed" ? sql`now()` : null, started_at: null, requested_by: j.requestedBy, draws: j.draws })
+        .where("scenario_results.status", "=", "failed"),
+    )
+    .returning("id")
+    .executeTakeFirst();
+  const row = await findResult(db, j.scenarioId, j.engineVersion, j.inputsHash, j.kind);
+  if (!row) throw new Error("scenario_results: the queued row vanished");
+  return { row, queuedNow: Boolean(queued) && status === "queued" };
+}
+
+/**
+ * Queued rows of a scenario computed from inputs that a newer save replaced: nobody will look at them,
+ * so they are not run (a running one finishes; its hash check happens before it starts computing).
+ */
+export async function supersedeQueuedResults(db: Executor, scenarioId: string, keepInputsHash: string) {
   await db
     .updateTable("scenario_results")
-    .set({ progress: Math.max(0, Math.min(1, progress)), heartbeat_at: sql`now()` })
-    .where("id", "=", id)
-    .where("status", "=", "running")
+    .set({ status: "failed", error: "Superseded by a newer save before it ran.", finished_at: sql`now()` })
+    .where("scenario_id", "=", scenarioId)
+    .where("status", "=", "queued")
+    .where("inputs_hash", "<>", keepInputsHash)
     .execute();
 }
 
-export async function finishJob(db: Executor, id: string, outcome: { status: Extract<ResultStatus, "done" | "failed">; result?: unknown; error?: string }) {
+/** A worker starts on the row (unless it is finished already): returns false when there is nothing to do. */
+export async function markResultRunning(db: Executor, id: string): Promise<boolean> {
+  const r = await db
+    .updateTable("scenario_results")
+    .set({ status: "running", started_at: sql`now()`, progress: 0.02 })
+    .where("id", "=", id)
+    .where("status", "in", ["queued", "running"])
+    .returning("id")
+    .executeTakeFirst();
+  return Boolean(r);
+}
+
+export async function setResultProgress(db: Executor, id: string, progress: number) {
   await db
     .updateTable("scenario_results")
-    .set({
-      status: outcome.status,
-      progress: outcome.status === "done" ? 1 : sql`progress`,
-      result: outcome.result === undefined ? null : JSON.stringify(outcome.result),
-      error: outcome.error ?? null,
-      finished_at: sql`now()`,
-    })
+    .set({ progress: Math.max(0, Math.min(1, progress)) })
     .where("id", "=", id)
+    .where("status", "=", "running")
     .execute();
 }
 
 /**
- * Re-queue 'running' rows whose worker stopped reporting (a restarted server, a crash) for longer than
- * `staleMinutes`; after `maxAttempts` tries such a row is marked failed instead. Returns how many were re-queued.
+ * Store a finished result once: only a row that is not done yet is written, so a job that ran twice (a
+ * worker killed after computing, a retry racing a slow first try) leaves exactly one stored result.
+ * Returns whether this call stored it.
  */
-export async function requeueStaleJobs(db: Executor, staleMinutes: number, maxAttempts = 3) {
-  await db
-    .updateTable("scenario_results")
-    .set({ status: "failed", error: "The run stopped responding several times; start it again.", finished_at: sql`now()` })
-    .where("status", "=", "running")
-    .where(sql<boolean>`coalesce(heartbeat_at, started_at, created_at) < now() - make_interval(mins => ${staleMinutes})`)
-    .where("attempts", ">=", maxAttempts)
-    .execute();
+export async function storeResultOnce(db: Executor, id: string, result: unknown): Promise<boolean> {
   const r = await db
     .updateTable("scenario_results")
-    .set({ status: "queued", progress: 0, started_at: null, heartbeat_at: null })
-    .where("status", "=", "running")
-    .where(sql<boolean>`coalesce(heartbeat_at, started_at, created_at) < now() - make_interval(mins => ${staleMinutes})`)
+    .set({ status: "done", progress: 1, result: JSON.stringify(result), error: null, finished_at: sql`now()` })
+    .where("id", "=", id)
+    .where("status", "<>", "done")
+    .returning("id")
     .executeTakeFirst();
-  return Number(r.numUpdatedRows);
+  return Boolean(r);
+}
+
+export async function failResult(db: Executor, id: string, error: string) {
+  await db
+    .updateTable("scenario_results")
+    .set({ status: "failed", error: error.slice(0, 1000), finished_at: sql`now()` })
+    .where("id", "=", id)
+    .where("status", "<>", "done")
+    .execute();
+}
+
+/** Rows waiting for a worker (queued or running), oldest first: re-submitted when a worker starts. */
+export async function openResultRows(db: Executor, limit = 500) {
+  return db
+    .selectFrom("scenario_results")
+    .select(["id", "kind", "created_at as createdAt"])
+    .where("status", "in", ["queued", "running"])
+    .orderBy("created_at")
+    .limit(limit)
+    .execute();
 }

@@ -25,8 +25,10 @@ import type { ScenarioInput } from "./input";
 import { pressureFromElevationPa } from "./psychrometrics";
 import type { EngineWarning, OptionAnnualPhysics } from "./types";
 import { ENGINE_VERSION } from "./version";
+import { UNLIMITED_BUDGET, type AnalysisBudget } from "./budget";
 
 export { ENGINE_VERSION } from "./version";
+export { AnalysisBudgetExceeded, isBudgetExceeded, timeBudget, UNLIMITED_BUDGET, type AnalysisBudget } from "./budget";
 export type { ScenarioInput } from "./input";
 export type { PhysicsOverrides } from "./economics/types";
 export type { CondenserPlan } from "./condenser-plan";
@@ -177,11 +179,22 @@ export function rerunPhysics(input: ScenarioInput, overrides: PhysicsOverrides):
 /**
  * Analyse a validated scenario: climate → per-option yearly physics (tower/cooler, condenser, fouling,
  * water) → life-cycle economics with sensitivity and Monte Carlo when enabled. The economics receive a
- * `rerunPhysics` closure over the prepared scenario for physics-dependent sensitivities.
+ * `rerunPhysics` closure over the prepared scenario for physics-dependent sensitivities. `budget` (none by
+ * default) stops a run that takes longer than its time budget with AnalysisBudgetExceeded.
  */
-export function analyzeScenario(input: ScenarioInput, onProgress?: (fraction: number) => void): ScenarioResult {
+export function analyzeScenario(
+  input: ScenarioInput,
+  onProgress?: (fraction: number) => void,
+  budget: AnalysisBudget = UNLIMITED_BUDGET,
+): ScenarioResult {
   const prepared = prepareScenario(input);
+  budget.check("the climate preparation");
   const physics = physicsOf(prepared);
+  budget.check("the yearly physics");
+  const progress = (fraction: number) => {
+    budget.check("the Monte Carlo draws");
+    onProgress?.(fraction);
+  };
   const economics = analyzeEconomics({
     physics,
     options: economicsOptionsOf(input, prepared.plans),
@@ -191,10 +204,17 @@ export function analyzeScenario(input: ScenarioInput, onProgress?: (fraction: nu
     ...(input.sensitivity ? { sensitivity: input.sensitivity } : {}),
     ...(input.monteCarlo ? { monteCarlo: input.monteCarlo } : {}),
     ...(input.economics.baseOptionId !== undefined ? { baseOptionId: input.economics.baseOptionId } : {}),
-    rerunPhysics: (o: PhysicsOverrides) => physicsOf(prepared, o),
-    drawPhysics: (o: PhysicsOverrides) => physicsNear(prepared, physics, o),
-    ...(onProgress ? { onProgress } : {}),
+    rerunPhysics: (o: PhysicsOverrides) => {
+      budget.check("a physics re-run for the sensitivity or Monte Carlo");
+      return physicsOf(prepared, o);
+    },
+    drawPhysics: (o: PhysicsOverrides) => {
+      budget.check("the Monte Carlo draws");
+      return physicsNear(prepared, physics, o);
+    },
+    onProgress: progress,
   });
+  budget.check("the economics");
   const compressor = compressorModelFromDuty(input.duty);
   const warnings: EngineWarning[] = [...climateYearWarnings(prepared.year), ...compressor.warnings];
   if (prepared.climate.monthsUnknown) {

@@ -15,6 +15,7 @@ export interface CapturedMail {
   subject: string;
   text: string;
   html: string | null;
+  messageId: string | null;
 }
 
 export interface CaptureServer {
@@ -55,6 +56,7 @@ export async function startCaptureServer(opts: { host?: string; port: number; ke
             subject: parsed.subject ?? "",
             text: parsed.text ?? "",
             html: typeof parsed.html === "string" ? parsed.html : null,
+            messageId: parsed.messageId ?? null,
           };
           messages.unshift(mail);
           if (messages.length > (opts.keep ?? 500)) messages.pop();

@@ -1,66 +1,63 @@
 import type { Kysely } from "kysely";
 import type { Database, Executor } from "@/db/schema";
-import { cancelStaleInvitationMail, claimDueMail, insertOutboxMail, markMailAttemptFailed, markMailSent, type OutgoingMail } from "@/db/queries/outbox";
+import { cancelStaleInvitationMail, findPendingMail, insertOutboxMail, markMailAttemptFailed, markMailSent, type OutgoingMail } from "@/db/queries/outbox";
+import { sendJob } from "@/lib/jobs/boss";
+import { MAIL_ATTEMPTS, QUEUES } from "@/lib/jobs/queues";
 import type { MailTransport } from "./transport";
 
-
-/** After this many failed attempts a message is marked failed (visible on the access page). */
-export const MAX_MAIL_ATTEMPTS = 10;
-
 /**
- * Wait before the next attempt after `failedAttempts` failures: 30 s doubling, capped at 1 h
- * (30 s, 1 min, 2 min … 1 h; about 4 h from the first try to the tenth).
+ * The earliest the queue retries after `failedAttempts` failures with a first delay of `delayS`: pg-boss
+ * waits delay·2^(n−1) to twice that (exponential back-off with jitter) — 30–60 s, 1–2 min, 2–4 min …
+ * for the default 30 s. Shown on the access page as "next try after".
  */
-export function retryDelayS(failedAttempts: number): number {
-  return Math.min(30 * 2 ** Math.max(0, failedAttempts - 1), 3600);
+export function earliestRetryS(failedAttempts: number, delayS: number): number {
+  return delayS * 2 ** Math.max(0, failedAttempts - 1);
 }
 
-/** Queue a message; pass the transaction that creates what the message is about. */
+/**
+ * Queue a message: its outbox row and its delivery job, in the caller's transaction (the one that creates
+ * what the message is about), so both commit or neither. The job's id is the row's id: one job per
+ * message, whatever re-submits it.
+ */
 export async function enqueueMail(db: Executor, m: OutgoingMail): Promise<string> {
-  return (await insertOutboxMail(db, m)).id;
+  if (!db.isTransaction) return db.transaction().execute((trx) => enqueueMail(trx, m));
+  const { id } = await insertOutboxMail(db, m);
+  await sendJob(db, QUEUES.mail, { kind: "mail", outboxId: id }, { id });
+  return id;
 }
 
-export interface DeliveryReport {
-  sent: number;
-  retrying: number;
-  failed: number;
-}
+export type DeliveryOutcome = "sent" | "skipped" | "failed" | "retry";
+
+/** Thrown so that the queue retries the job later (its message stays pending). */
+export class MailRetryLater extends Error {}
 
 /**
- * Send every due pending message once. Each message is claimed (leased) before it is sent, so two
- * senders never send the same one; a failure is recorded with its error and scheduled again with back-off.
- * `asOf` lets a caller act as if later (tests); `onlyIds` restricts the run to some messages.
+ * Deliver one outbox message (the mail job's handler). A message that is no longer pending — sent
+ * already, failed, withdrawn, or an invitation that expired or was accepted meanwhile — is skipped, so a
+ * job that runs twice sends once; the SMTP Message-ID is derived from the row so that a receiving server
+ * can also recognise a repeat. A failed attempt is recorded and thrown (the queue retries with back-off)
+ * until the last one, which marks the message failed.
  */
-export async function deliverDueMail(
+export async function deliverOutboxMail(
   db: Kysely<Database>,
   transport: MailTransport,
-  opts: { asOf?: Date; onlyIds?: string[]; batch?: number; leaseS?: number } = {},
-): Promise<DeliveryReport> {
-  const report: DeliveryReport = { sent: 0, retrying: 0, failed: 0 };
-  await cancelStaleInvitationMail(db);
-  for (let round = 0; round < 20; round++) {
-    const claimed = await claimDueMail(db, {
-      limit: opts.batch ?? 20,
-      leaseS: opts.leaseS ?? 120,
-      asOf: opts.asOf,
-      onlyIds: opts.onlyIds,
-    });
-    if (claimed.length === 0) break;
-    for (const m of claimed) {
-      try {
-        await transport.send({ to: m.to, subject: m.subject, text: m.text, html: m.html });
-        await markMailSent(db, m.id);
-        report.sent++;
-      } catch (err) {
-        const attempts = m.attempts + 1;
-        const giveUp = attempts >= MAX_MAIL_ATTEMPTS;
-        await markMailAttemptFailed(db, m.id, describeError(err), giveUp ? null : retryDelayS(attempts));
-        if (giveUp) report.failed++;
-        else report.retrying++;
-      }
-    }
+  outboxId: string,
+  attempt: { retryCount: number; retryLimit: number; retryDelayS: number },
+): Promise<DeliveryOutcome> {
+  await cancelStaleInvitationMail(db, outboxId);
+  const m = await findPendingMail(db, outboxId);
+  if (!m) return "skipped";
+  try {
+    await transport.send({ to: m.to, subject: m.subject, text: m.text, html: m.html, messageId: `<${m.id}@loopledger.mail>` });
+  } catch (err) {
+    const attempts = m.attempts + 1;
+    const last = attempt.retryCount >= attempt.retryLimit || attempts >= MAIL_ATTEMPTS;
+    await markMailAttemptFailed(db, m.id, describeError(err), last ? null : earliestRetryS(attempts, attempt.retryDelayS));
+    if (last) return "failed";
+    throw new MailRetryLater(`attempt ${attempts} failed: ${describeError(err)}`);
   }
-  return report;
+  await markMailSent(db, m.id);
+  return "sent";
 }
 
 function describeError(err: unknown): string {

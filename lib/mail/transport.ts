@@ -9,7 +9,7 @@ export interface SmtpConfig {
 
 export interface MailTransport {
   from: string;
-  send(m: { to: string; subject: string; text: string; html: string | null }): Promise<void>;
+  send(m: { to: string; subject: string; text: string; html: string | null; messageId?: string }): Promise<void>;
 }
 
 export function smtpConfigFromEnv(): SmtpConfig {
@@ -24,7 +24,7 @@ function isLoopback(host: string): boolean {
 /**
  * nodemailer over SMTP. On loopback (the development catcher, the tests' in-process server) there is
  * nothing to encrypt against, so STARTTLS is skipped; elsewhere nodemailer upgrades when the server offers it.
- * Short timeouts: a stalled server must not hold the sender for minutes — the outbox retries instead.
+ * Short timeouts: a stalled server must not hold the sender for minutes — the mail queue retries instead.
  */
 export function smtpTransport(config: SmtpConfig = smtpConfigFromEnv()): MailTransport {
   const transporter = nodemailer.createTransport({
@@ -39,7 +39,7 @@ export function smtpTransport(config: SmtpConfig = smtpConfigFromEnv()): MailTra
   return {
     from: config.from,
     async send(m) {
-      await transporter.sendMail({ from: config.from, to: m.to, subject: m.subject, text: m.text, html: m.html ?? undefined });
+      await transporter.sendMail({ from: config.from, to: m.to, subject: m.subject, text: m.text, html: m.html ?? undefined, ...(m.messageId ? { messageId: m.messageId } : {}) });
     },
   };
 }

@@ -2,7 +2,8 @@ import "server-only";
 /**
  * The scenario data access layer for pages, server actions and route handlers: every function resolves
  * the request's viewer, authorizes through lib/auth (404 without a relation, 403 without the action),
- * writes the audit trail and returns DTOs only. The work itself is in ./store, ./analysis and ./jobs.
+ * writes the audit trail and returns DTOs only. The work itself is in ./store and ./analysis; long
+ * analyses run in a worker process (lib/jobs), never here.
  */
 import { forbidden, notFound } from "next/navigation";
 import { z } from "zod";
@@ -20,11 +21,11 @@ import type { Action } from "@/lib/auth/permissions";
 import { currentViewer, isUuid, requireViewer } from "@/lib/auth/session";
 import type { ScenarioResult } from "@/lib/engine";
 import type { ScenarioInput } from "@/lib/engine/input";
-import { analyzeAndStore, monteCarloStatusOf, storedFor } from "./analysis";
+import { analyzeAndStore, awaitResult, monteCarloStatusOf, storedFor, type ResultState, type StoredAnalysis } from "./analysis";
 import { findResult } from "@/db/queries/results";
 import { ENGINE_VERSION } from "@/lib/engine";
 import { upgradeStoredResult } from "@/lib/engine/legacy";
-import { kickJobs } from "./jobs";
+import { inTransaction } from "@/db/transaction";
 import { buildEngineInput, withClimateData, cloneScenario, createScenario, loadScenarioContext, saveScenario, archiveScenario, type ScenarioContext } from "./store";
 import type { ScenarioDocument } from "./mappers";
 import { Lru } from "./cache";
@@ -182,9 +183,29 @@ export interface SavedScenario {
   reusedResult: boolean;
   analysisMs: number;
   monteCarlo: "queued" | "running" | "done" | "failed" | null;
+  /** The deterministic analysis: done, still with a worker ("queued"/"running"), or failed (`analysisError`). */
+  analysis: "queued" | "running" | "done" | "failed";
+  analysisError: string | null;
   warnings: number;
   /** Labels of the options whose first costs are not entered yet (their life-cycle figures wait). */
   firstCostsMissing: string[];
+}
+
+/**
+ * How long a save waits for a worker to finish its deterministic analysis before it answers "analysing"
+ * (the comparison page then shows the result when it is ready). Waiting only reads; nothing is computed here.
+ */
+export const SAVE_WAIT_MS = 15_000;
+
+/** The analysis once its queued deterministic row is finished (or as it stands after `waitMs`). */
+async function settled(db: Executor, analysis: StoredAnalysis, waitMs: number): Promise<StoredAnalysis> {
+  if (!analysis.full || analysis.result) return analysis;
+  const t0 = performance.now();
+  const row = await awaitResult(db, analysis.full.id, waitMs);
+  if (!row) return analysis;
+  const full: ResultState = { id: row.id, status: row.status, progress: row.progress, error: row.error };
+  const result = row.status === "done" ? (row.result as ScenarioResult) : null;
+  return { ...analysis, full, result, elapsedMs: result ? performance.now() - t0 : 0 };
 }
 
 /**
@@ -198,8 +219,10 @@ export interface SaveDetail {
 
 /**
  * Validate with the scenario schema, store when the revision still matches (optimistic concurrency),
- * analyse (stored by engine version + inputs hash) and queue the Monte Carlo for after the response
- * (`opts.schedule`). Input: `{ projectId, scenarioId, revision, name, climateDatasetId, document }`.
+ * analyse (stored by engine version + inputs hash) and queue the Monte Carlo. The scenario, its queued
+ * analyses and the audit event are written in one transaction: all of them or none. A quick (bin-table)
+ * analysis is computed in that transaction; an hourly one is queued for a worker and awaited for up to
+ * `opts.waitMs` (SAVE_WAIT_MS). Input: `{ projectId, scenarioId, revision, name, climateDatasetId, document }`.
  * Nothing is stored when validation fails (422) or the save is stale (409 with the newer revision).
  */
 export const saveScenarioIn = defineAction<
@@ -207,59 +230,66 @@ export const saveScenarioIn = defineAction<
   typeof saveSchema,
   SavedScenario,
   SaveDetail,
-  { schedule: (task: () => void) => void }
+  { waitMs: number }
 >({
   gate: { project: "scenario.edit" },
   schema: saveSchema,
   invalidMessage: "The save was malformed; reload the page.",
   run: async (db, { access }, a, opts) => {
-    const sa = await scenarioIn(db, access, a.scenarioId);
-    if (!sa.ok) return sa;
-    const saved = await saveScenario(db, {
-      scenarioId: a.scenarioId,
-      expectedRevision: a.revision,
-      name: a.name,
-      climateDatasetId: a.climateDatasetId,
-      document: a.document,
-      userId: access.viewer.id,
-    });
-    if (!saved.ok) {
-      if (saved.kind === "invalid") {
-        const problems: EditorProblem[] = Object.entries(saved.fieldErrors).flatMap(([path, messages]) =>
-          messages.map((message) => ({
-            path,
-            section: sectionOfPath(path),
-            kind: /^Enter a value/.test(message) ? ("missing" as const) : ("invalid" as const),
-            message,
-          })),
-        );
-        const n = problems.length;
-        return fail(422, `Not saved: ${n} ${n === 1 ? "problem" : "problems"} to fix (listed at the top).`, saved.fieldErrors, { problems });
+    const out = await inTransaction(db, async (trx): Promise<Result<{ saved: { revision: number; input: ScenarioInput }; analysis: StoredAnalysis }, SaveDetail>> => {
+      const sa = await scenarioIn(trx, access, a.scenarioId);
+      if (!sa.ok) return sa;
+      const saved = await saveScenario(trx, {
+        scenarioId: a.scenarioId,
+        expectedRevision: a.revision,
+        name: a.name,
+        climateDatasetId: a.climateDatasetId,
+        document: a.document,
+        userId: access.viewer.id,
+      });
+      if (!saved.ok) {
+        if (saved.kind === "invalid") {
+          const problems: EditorProblem[] = Object.entries(saved.fieldErrors).flatMap(([path, messages]) =>
+            messages.map((message) => ({
+              path,
+              section: sectionOfPath(path),
+              kind: /^Enter a value/.test(message) ? ("missing" as const) : ("invalid" as const),
+              message,
+            })),
+          );
+          const n = problems.length;
+          return fail(422, `Not saved: ${n} ${n === 1 ? "problem" : "problems"} to fix (listed at the top).`, saved.fieldErrors, { problems });
+        }
+        if (saved.kind === "conflict") {
+          return fail(409, saved.message, undefined, {
+            conflict: { currentRevision: saved.currentRevision, savedBy: saved.savedBy, savedAt: saved.savedAt },
+          });
+        }
+        if (saved.kind === "archived") return fail(409, saved.message);
+        return REFUSALS.notFound;
       }
-      if (saved.kind === "conflict") {
-        return fail(409, saved.message, undefined, {
-          conflict: { currentRevision: saved.currentRevision, savedBy: saved.savedBy, savedAt: saved.savedAt },
-        });
-      }
-      if (saved.kind === "archived") return fail(409, saved.message);
-      return REFUSALS.notFound;
-    }
-    const analysis = await analyzeAndStore(db, a.scenarioId, saved.input);
-    await auditOn(db, access, "scenario.save", a.scenarioId, {
-      revision: saved.revision,
-      inputsHash: analysis.inputsHash,
-      reusedResult: analysis.reused,
-      analysisMs: Math.round(analysis.elapsedMs),
+      const analysis = await analyzeAndStore(trx, a.scenarioId, saved.input, { requestedBy: access.viewer.id });
+      await auditOn(trx, access, "scenario.save", a.scenarioId, {
+        revision: saved.revision,
+        inputsHash: analysis.inputsHash,
+        reusedResult: analysis.reused,
+        analysisMs: Math.round(analysis.elapsedMs),
+        analysis: analysis.full?.status ?? null,
+      });
+      return ok({ saved: { revision: saved.revision, input: saved.input }, analysis });
     });
-    const mc = analysis.monteCarlo?.status ?? null;
-    if (mc === "queued" || mc === "running") (opts.schedule ?? ((t) => t()))(() => kickJobs(db));
+    if (!out.ok) return out;
+    const { saved } = out.value;
+    const analysis = await settled(db, out.value.analysis, opts.waitMs ?? SAVE_WAIT_MS);
     return ok({
       revision: saved.revision,
       inputsHash: analysis.inputsHash,
       reusedResult: analysis.reused,
       analysisMs: Math.round(analysis.elapsedMs),
-      monteCarlo: mc,
-      warnings: analysis.result.warnings.length,
+      monteCarlo: analysis.monteCarlo?.status ?? null,
+      analysis: analysis.result ? "done" : (analysis.full?.status ?? "queued"),
+      analysisError: analysis.full?.status === "failed" ? analysis.full.error : null,
+      warnings: analysis.result?.warnings.length ?? 0,
       firstCostsMissing: saved.input.options.filter((o) => o.costs.firstCost === undefined).map((o) => o.label),
     });
   },
@@ -295,28 +325,29 @@ export const archiveScenarioIn = defineAction({
 export interface DraftView {
   input: ScenarioInput | null;
   inputErrors: Record<string, string[]> | null;
+  /** Null while the analysis is queued or running in a worker (see `full`), or when it failed. */
   result: ScenarioResult | null;
+  full: ResultState | null;
   inputsHash: string | null;
   monteCarlo: Awaited<ReturnType<typeof storedFor>>["monteCarlo"];
 }
 
 /**
  * The draft's engine input and its stored result. When the stored document is valid but has no result
- * for the current engine version (a new engine, a changed dataset or site), it is analysed now.
+ * for the current engine version (a new engine, a changed dataset or site), its analysis is queued (or
+ * run here when quick) and the page shows it as pending.
  */
-export async function draftView(sa: ScenarioAccess, schedule: (task: () => void) => void): Promise<DraftView> {
+export async function draftView(sa: ScenarioAccess): Promise<DraftView> {
   const cached = await draftSource(sa);
   if (cached) {
     const mc = monteCarloStatusOf(await findResult(db, sa.ctx.row.id, ENGINE_VERSION, cached.inputsHash, "monteCarlo"));
-    if (mc && (mc.status === "queued" || mc.status === "running")) schedule(() => kickJobs(db));
-    return { input: cached.input, inputErrors: null, result: cached.result, inputsHash: cached.inputsHash, monteCarlo: mc };
+    return { input: cached.input, inputErrors: null, result: cached.result, full: null, inputsHash: cached.inputsHash, monteCarlo: mc };
   }
   const full = await withClimateData(db, sa.ctx);
   const built = buildEngineInput(full.dto.document as ScenarioDocument, full.dataset, full.project);
-  if (!built.ok) return { input: null, inputErrors: built.fieldErrors, result: null, inputsHash: null, monteCarlo: null };
-  const a = await analyzeAndStore(db, sa.ctx.row.id, built.input);
-  if (a.monteCarlo && (a.monteCarlo.status === "queued" || a.monteCarlo.status === "running")) schedule(() => kickJobs(db));
-  return { input: built.input, inputErrors: null, result: a.result, inputsHash: a.inputsHash, monteCarlo: a.monteCarlo };
+  if (!built.ok) return { input: null, inputErrors: built.fieldErrors, result: null, full: null, inputsHash: null, monteCarlo: null };
+  const a = await analyzeAndStore(db, sa.ctx.row.id, built.input, { requestedBy: sa.access.viewer.id });
+  return { input: built.input, inputErrors: null, result: a.result, full: a.full, inputsHash: a.inputsHash, monteCarlo: a.monteCarlo };
 }
 
 /** The issued version a viewer may see (a number, or the latest), with its frozen input and result. */

@@ -35,7 +35,7 @@ export interface CreatedInvitation {
  * A consultant invites an address to a project as owner or finance. The invitation, its e-mail (in the
  * outbox) and the audit event are written in one transaction: either the invitation exists and its mail
  * will go out, or neither. An older open invitation of the same address is withdrawn (one live link each).
- * The caller triggers delivery afterwards (lib/mail/worker.ts `kickMailer`). Input: `{ projectId, email, role }`.
+ * A worker delivers it (the mail queue, lib/jobs). Input: `{ projectId, email, role }`.
  */
 export const createInvitation = defineAction({
   gate: { project: "access.share" },

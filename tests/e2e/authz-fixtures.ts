@@ -75,7 +75,7 @@ export async function analysedScenario(db: Kysely<Database>, projectId: string, 
   const ctx = await loadScenarioContext(db, s.id);
   const built = ctx && buildEngineInput(ctx.dto.document as ScenarioDocument, ctx.dataset, ctx.project);
   if (!built || !built.ok) throw new Error(`the scenario fixture does not build: ${JSON.stringify(built && !built.ok ? built.fieldErrors : null).slice(0, 400)}`);
-  await analyzeAndStore(db, s.id, built.input);
+  await analyzeAndStore(db, s.id, built.input, { inline: true });
   return s.id;
 }
 

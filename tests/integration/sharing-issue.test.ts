@@ -26,7 +26,7 @@ async function analyse(id: string) {
   const ctx = await loadScenarioContext(db, id);
   const built = buildEngineInput(ctx!.dto.document as ScenarioDocument, ctx!.dataset, ctx!.project);
   if (!built.ok) throw new Error(JSON.stringify(built.fieldErrors));
-  return { built: built.input, stored: await analyzeAndStore(db, id, built.input) };
+  return { built: built.input, stored: await analyzeAndStore(db, id, built.input, { inline: true }) };
 }
 
 beforeAll(async () => {
@@ -65,7 +65,7 @@ describe("issuing freezes exactly what was analysed", () => {
     expect(row.inputs_hash).toBe(inputsHash(built));
     expect(row.inputs_hash).toBe(stored.inputsHash);
     expect(inputsHash(row.input)).toBe(row.inputs_hash);
-    expect((row.result as { economics: { lowestLccOptionId: string } }).economics.lowestLccOptionId).toBe(stored.result.economics.lowestLccOptionId);
+    expect((row.result as { economics: { lowestLccOptionId: string } }).economics.lowestLccOptionId).toBe(stored.result!.economics.lowestLccOptionId);
     // 8760 hourly records of the test year travel with the version.
     expect((row.input as { climate: { dryBulbC: number[] } }).climate.dryBulbC).toHaveLength(8760);
   });

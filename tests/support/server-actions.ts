@@ -42,7 +42,7 @@ export async function postAction(
   baseUrl: string,
   pagePath: string,
   id: string,
-  body: string | Uint8Array,
+  body: BodyInit,
   opts: { cookie?: string; contentType?: string; headers?: Record<string, string>; timeoutMs?: number } = {},
 ): Promise<{ status: number; text: string; ms: number }> {
   const t0 = performance.now();

@@ -3,7 +3,12 @@ import { after } from "next/server";
 import { db } from "@/db";
 import { writeAudit } from "@/db/queries/audit";
 import { currentViewer } from "@/lib/auth/session";
-import { analyzeDocument } from "@/lib/scenarios/analysis";
+import { isBudgetExceeded, timeBudget } from "@/lib/engine";
+import { sendJob } from "@/lib/jobs/boss";
+import { fitsLimits, lockAndCountOpenWork } from "@/lib/jobs/limits";
+import { QUEUES } from "@/lib/jobs/queues";
+import { analyzeDocument, isQuickAnalysis, monteCarloDraws, QUICK_ANALYSIS_MAX_RECORDS } from "@/lib/scenarios/analysis";
+import { inputsHash } from "@/lib/scenarios/hash";
 import { jsonError, readJsonBody, resultResponse } from "@/lib/http";
 import { parseScenarioDocument } from "@/lib/scenarios/validate";
 
@@ -12,11 +17,18 @@ export const dynamic = "force-dynamic";
 
 /** A full hourly scenario is ~0.3 MB of JSON; 5 MB leaves room for 8784-hour years and four options. */
 const MAX_ANALYSIS_BYTES = 5 * 1024 * 1024;
+/** Budget of an analysis answered at once (a quick one takes well under a second). */
+const SYNC_BUDGET_MS = 5_000;
 
 /**
  * Analyse a scenario document (the scenario schema's shape, e.g. from /api/scenarios/[id]/export) for a
- * signed-in user; nothing is stored. 401 anonymous, 413 too large, 415 not JSON, 422 with every field
- * error by path.
+ * signed-in user; nothing of the user's work is stored.
+ *
+ * Answered at once (200 with the result) only when it is small: a bin-table climate of at most
+ * QUICK_ANALYSIS_MAX_RECORDS (400) bins and no Monte Carlo, unless the client sends `Prefer: respond-async`.
+ * Everything else (an hourly year, any Monte Carlo) is queued for a worker: 202 Accepted with
+ * `Location: /api/v1/analyses/{id}` to poll. Per-user limits on waiting work apply (429 + Retry-After).
+ * 401 anonymous, 413 too large, 415 not JSON, 422 with every field error by path.
  */
 export async function POST(request: Request) {
   const viewer = await currentViewer();
@@ -28,14 +40,61 @@ export async function POST(request: Request) {
     const issues = Object.entries(parsed.fieldErrors).flatMap(([path, messages]) => messages.map((message) => ({ path, message })));
     return jsonError(422, `The scenario is not valid: ${issues.length} ${issues.length === 1 ? "problem" : "problems"}.`, { fieldErrors: parsed.fieldErrors, issues });
   }
-  const r = analyzeDocument(parsed.value);
-  after(() =>
-    writeAudit(db, {
+  const input = parsed.value;
+  const draws = monteCarloDraws(input);
+  const preferAsync = /\brespond-async\b/i.test(request.headers.get("prefer") ?? "");
+
+  if (!preferAsync && draws === 0 && isQuickAnalysis(input)) {
+    let r;
+    try {
+      r = analyzeDocument(input, timeBudget(SYNC_BUDGET_MS, () => performance.now()));
+    } catch (err) {
+      if (isBudgetExceeded(err)) return jsonError(422, err.message);
+      throw err;
+    }
+    after(() =>
+      writeAudit(db, {
+        actorId: viewer.id,
+        action: "analysis.api",
+        targetType: "analysis",
+        detail: { inputsHash: r.inputsHash, options: input.options.length, ms: Math.round(r.elapsedMs), mode: "sync" },
+      }),
+    );
+    return NextResponse.json(r, { headers: { "cache-control": "no-store" } });
+  }
+
+  const hash = inputsHash(input);
+  const queued = await db.transaction().execute(async (trx) => {
+    const room = fitsLimits(await lockAndCountOpenWork(trx, viewer.id), draws);
+    if (!room.ok) return room;
+    const row = await trx
+      .insertInto("api_analyses")
+      .values({ user_id: viewer.id, draws, inputs_hash: hash, input: JSON.stringify(input) })
+      .returning(["id", "status", "created_at as createdAt"])
+      .executeTakeFirstOrThrow();
+    await sendJob(trx, QUEUES.apiAnalysis, { kind: "apiAnalysis", analysisId: row.id }, { singletonKey: row.id });
+    await writeAudit(trx, {
       actorId: viewer.id,
       action: "analysis.api",
       targetType: "analysis",
-      detail: { inputsHash: r.inputsHash, options: parsed.value.options.length, ms: Math.round(r.elapsedMs) },
-    }),
+      targetId: row.id,
+      detail: { inputsHash: hash, options: input.options.length, draws, mode: "queued" },
+    });
+    return { ok: true as const, row };
+  });
+  if (!queued.ok) return NextResponse.json({ error: queued.message }, { status: 429, headers: { "cache-control": "no-store", "retry-after": "30" } });
+  const location = `/api/v1/analyses/${queued.row.id}`;
+  return NextResponse.json(
+    {
+      id: queued.row.id,
+      status: queued.row.status,
+      statusUrl: location,
+      inputsHash: hash,
+      why:
+        draws > 0
+          ? `A Monte Carlo of ${draws.toLocaleString("en-US")} draws runs in the background.`
+          : `Analyses of more than ${QUICK_ANALYSIS_MAX_RECORDS} climate records (an hourly year) run in the background.`,
+    },
+    { status: 202, headers: { "cache-control": "no-store", location, "retry-after": "2" } },
   );
-  return NextResponse.json(r, { headers: { "cache-control": "no-store" } });
 }

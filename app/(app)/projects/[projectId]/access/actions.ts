@@ -5,7 +5,6 @@ import { formFields } from "@/lib/actions/define";
 import { perform } from "@/lib/actions/request";
 import { createInvitation, revokeInvitation } from "@/lib/sharing/invitations";
 import { revokeViewerAccess } from "@/lib/sharing/access";
-import { kickMailer } from "@/lib/mail/worker";
 import type { ActionState } from "@/components/forms/action-form";
 
 function refresh(projectId: string) {
@@ -17,7 +16,6 @@ function refresh(projectId: string) {
 export async function inviteAction(projectId: string, _prev: ActionState, form: FormData) {
   const r = await perform(createInvitation, { ...formFields(form), projectId });
   if (r.ok) {
-    kickMailer();
     refresh(projectId);
   }
   return r;

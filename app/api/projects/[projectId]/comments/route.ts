@@ -1,7 +1,6 @@
 import { anonymousRefusal, perform } from "@/lib/actions/request";
 import { crossSiteRefusal, failureResponse, isCrossSite, readJsonBody, resultResponse } from "@/lib/http";
 import { addComment, versionComments } from "@/lib/sharing/comments";
-import { kickMailer } from "@/lib/mail/worker";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
@@ -26,6 +25,5 @@ export async function POST(req: Request, { params }: Ctx) {
   if (!body.ok) return resultResponse(body);
   const v = body.value && typeof body.value === "object" ? (body.value as Record<string, unknown>) : {};
   const r = await perform(addComment, { versionId: v.versionId, body: v.body, projectId });
-  if (r.ok) kickMailer();
   return resultResponse(r, 201);
 }

@@ -1,7 +1,6 @@
 import { anonymousRefusal, perform } from "@/lib/actions/request";
 import { crossSiteRefusal, failureResponse, isCrossSite, readJsonBody, resultResponse } from "@/lib/http";
 import { accessOverview, createInvitation } from "@/lib/sharing/invitations";
-import { kickMailer } from "@/lib/mail/worker";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
@@ -24,7 +23,6 @@ export async function POST(req: Request, { params }: Ctx) {
   const body = await readJsonBody(req, 16 * 1024);
   if (!body.ok) return resultResponse(body);
   const r = await perform(createInvitation, { ...asObject(body.value), projectId });
-  if (r.ok) kickMailer();
   return resultResponse(r, 201);
 }
 

@@ -2,8 +2,9 @@ import { NextResponse } from "next/server";
 import { after } from "next/server";
 import { auditScenario, authorizeScenarioApi, draftSource, issuedSource, issuedVersionOf } from "@/lib/scenarios/data";
 import { jsonError } from "@/lib/http";
-import { kickJobs } from "@/lib/scenarios/jobs";
 import { monteCarloStatusOf } from "@/lib/scenarios/analysis";
+import { inputsHash } from "@/lib/scenarios/hash";
+import { buildEngineInput, withClimateData } from "@/lib/scenarios/store";
 import { findResult } from "@/db/queries/results";
 import { ENGINE_VERSION } from "@/lib/engine";
 import { db } from "@/db";
@@ -14,7 +15,8 @@ export const dynamic = "force-dynamic";
 /**
  * The stored result of a scenario. Firm members get the draft's result for its current inputs (and the
  * Monte Carlo job's state); client viewers get the latest issued version's result (or `?version=N`),
- * 404 when nothing is issued. `?part=monteCarlo` returns only the Monte Carlo state (the page polls it).
+ * 404 when nothing is issued. `?part=monteCarlo` returns only the Monte Carlo state, `?part=full` only the
+ * deterministic result's state while a worker computes it (the pages poll them).
  */
 export async function GET(request: Request, { params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
@@ -42,11 +44,18 @@ export async function GET(request: Request, { params }: { params: Promise<{ scen
     );
   }
 
+  if (part === "full") {
+    // The deterministic result's state while a worker computes it (the comparison page polls this).
+    const full = await withClimateData(db, auth.ctx);
+    const built = buildEngineInput(full.dto.document, full.dataset, full.project);
+    if (!built.ok) return NextResponse.json({ full: null }, { headers });
+    const row = await findResult(db, auth.ctx.row.id, ENGINE_VERSION, inputsHash(built.input), "full");
+    return NextResponse.json({ full: row ? { status: row.status, progress: row.progress, error: row.error } : null }, { headers });
+  }
   const src = await draftSource(auth);
   if (part === "monteCarlo" && !src) return NextResponse.json({ monteCarlo: null }, { headers });
   if (!src) return jsonError(404, "The draft has no stored result for its current inputs: complete and save it to analyse it.");
   const monteCarlo = monteCarloStatusOf(await findResult(db, auth.ctx.row.id, ENGINE_VERSION, src.inputsHash, "monteCarlo"));
-  if (monteCarlo && (monteCarlo.status === "queued" || monteCarlo.status === "running")) after(() => kickJobs(db));
   if (part === "monteCarlo") return NextResponse.json({ monteCarlo }, { headers });
   after(() => auditScenario(auth, "scenario.results.view", { revision: auth.ctx.row.revision }));
   return NextResponse.json(

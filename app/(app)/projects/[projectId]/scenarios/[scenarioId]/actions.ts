@@ -2,7 +2,6 @@
 
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
-import { after } from "next/server";
 import { perform } from "@/lib/actions/request";
 import { archiveScenarioIn, cloneScenarioIn, saveScenarioIn } from "@/lib/scenarios/data";
 
@@ -15,12 +14,12 @@ export interface SaveScenarioPayload {
 
 /**
  * Validate with the scenario schema, store when the revision still matches, analyse (stored by engine
- * version + inputs hash), queue the Monte Carlo. Nothing is stored when validation fails (422 with every
- * problem by section) or the save is stale (409 with the newer revision).
+ * version + inputs hash; an hourly year in a worker, awaited for a while), queue the Monte Carlo. Nothing
+ * is stored when validation fails (422 with every problem by section) or the save is stale (409 with the newer revision).
  */
 export async function saveScenarioAction(projectId: string, scenarioId: string, payload: SaveScenarioPayload) {
   const input = payload && typeof payload === "object" ? payload : {};
-  const r = await perform(saveScenarioIn, { ...input, projectId, scenarioId }, { schedule: (task: () => void) => after(task) });
+  const r = await perform(saveScenarioIn, { ...input, projectId, scenarioId });
   if (r.ok) {
     revalidatePath(`/projects/${projectId}/scenarios/${scenarioId}`);
     revalidatePath(`/projects/${projectId}`);

@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { redirect } from "next/navigation";
-import { after } from "next/server";
 import { projectAccess, requireViewer } from "@/lib/auth/session";
 import { draftView, requireScenario } from "@/lib/scenarios/data";
+import { AnalysisPending } from "@/components/comparison/analysis-pending";
 import { ComparisonView } from "@/components/comparison/comparison-view";
 import { DownloadLinks, reportRights } from "@/components/reports/download-links";
 import { EmptyState, PageHeader } from "@/components/ui/panel";
@@ -20,7 +20,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ proje
   if (pa && !pa.can("scenario.viewDraft") && pa.can("scenario.viewIssued")) redirect(`/projects/${projectId}/scenarios/${scenarioId}/versions`);
   const sa = await requireScenario(projectId, scenarioId, "scenario.viewDraft", { withClimateData: false });
   const { access, ctx } = sa;
-  const view = await draftView(sa, (task) => after(task));
+  const view = await draftView(sa);
   const base = `/projects/${projectId}/scenarios/${scenarioId}`;
   const canEdit = access.can("scenario.edit");
   const header = (
@@ -39,6 +39,29 @@ export default async function ScenarioPage({ params }: { params: Promise<{ proje
       actions={<ScenarioToolbar projectId={projectId} scenarioId={scenarioId} canEdit={canEdit} canIssue={access.can("scenario.issue")} archived={Boolean(ctx.row.archivedAt)} />}
     />
   );
+  if (view.input && !view.result && view.full && (view.full.status === "queued" || view.full.status === "running")) {
+    return (
+      <>
+        {header}
+        <AnalysisPending pollUrl={`/api/scenarios/${scenarioId}/results?part=full`} initialStatus={view.full.status} />
+      </>
+    );
+  }
+  if (view.input && !view.result && view.full?.status === "failed") {
+    return (
+      <>
+        {header}
+        <EmptyState title="The analysis of these inputs failed.">
+          <p>{view.full.error ?? "Unknown error."}</p>
+          {canEdit ? (
+            <div className="mt-4">
+              <ButtonLink href={`${base}/edit`}>Review the inputs</ButtonLink>
+            </div>
+          ) : null}
+        </EmptyState>
+      </>
+    );
+  }
   if (!view.input || !view.result) {
     const problems = Object.entries(view.inputErrors ?? {});
     return (

@@ -6,7 +6,6 @@ import { formFields } from "@/lib/actions/define";
 import { perform } from "@/lib/actions/request";
 import { issueScenario } from "@/lib/sharing/versions";
 import { addComment } from "@/lib/sharing/comments";
-import { kickMailer } from "@/lib/mail/worker";
 import type { ActionState } from "@/components/forms/action-form";
 
 /** Freeze the draft's inputs and current result as the next version (scenario.issue), then open it. */
@@ -21,7 +20,6 @@ export async function issueAction(projectId: string, scenarioId: string, _prev: 
 export async function commentAction(projectId: string, versionId: string, _prev: ActionState, form: FormData) {
   const r = await perform(addComment, { ...formFields(form), projectId, versionId });
   if (r.ok) {
-    kickMailer();
     revalidatePath(`/projects/${projectId}`, "layout");
   }
   return r;

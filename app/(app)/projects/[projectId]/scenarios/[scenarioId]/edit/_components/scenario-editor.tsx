@@ -216,7 +216,11 @@ export function ScenarioEditor(props: {
               `Saved as revision ${v.revision}. ` +
               (v.reusedResult
                 ? "The stored result for these inputs was reused."
-                : `Analysed in ${(v.analysisMs / 1000).toFixed(1)} s.`) +
+                : v.analysis === "done"
+                  ? `Analysed in ${(v.analysisMs / 1000).toFixed(1)} s.`
+                  : v.analysis === "failed"
+                    ? `The analysis failed: ${v.analysisError ?? "unknown error"}`
+                    : "The analysis is still running; the comparison shows it when it is ready.") +
               (v.firstCostsMissing.length > 0
                 ? ` First costs are still missing for ${v.firstCostsMissing.join(", ")}: the life-cycle cost waits for them.`
                 : "") +
