@@ -213,6 +213,12 @@ export const EXPECTATIONS: Record<string, Rule> = {
     // Any signed-in person may analyse a document of their own; nothing is read or stored.
     expect: ({ role }) => ({ status: role === "anonymous" ? 401 : 422 }),
   },
+  "GET /api/v1/analyses/[analysisId]": {
+    variants: ["own"],
+    // A queued analysis is its requester's alone; an id that is not yours is answered like an unknown one.
+    paths: ["/api/v1/analyses/00000000-0000-4000-8000-000000000013", "/api/v1/analyses/not-a-uuid"],
+    expect: ({ role }) => ({ status: role === "anonymous" ? 401 : 404 }),
+  },
 };
 
 // ————————————————————————————————————————— building requests
