@@ -154,6 +154,7 @@ export const EXPECTATIONS: Record<string, Rule> = {
     variants: ["own"],
     expect: ({ role }) => (role === "anonymous" ? SIGNIN : { status: role === "admin" ? 200 : 403 }),
   },
+  "GET /methods": signedInPage,
   "GET /projects/new": {
     variants: ["own"],
     expect: ({ role }) => (role === "anonymous" ? SIGNIN : { status: FIRM_MEMBERS.includes(role) ? 200 : 403 }),
