@@ -221,7 +221,8 @@ export function analyzeScenario(
     warnings.push({
       code: "climate.binsWithoutMonths",
       severity: "info",
-      message: "The bins carry no month: monthly and month × hour results are spread over the year by days, and each month's peak repeats the annual peak.",
+      message:
+        "The bins carry no month: energy and water are spread over the months by days, and each month's peak demand is estimated — halfway between the annual peak and a perfectly seasonal demand-duration curve, averaged over the twelve months (Methods §6). Bins with months, or hourly data, give each month its own peak.",
       path: "climate.bins",
     });
   }

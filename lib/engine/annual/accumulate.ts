@@ -3,6 +3,7 @@
  * over the months (an hour or a monthly bin to its month; a bin without a month pro rata by days), with
  * the water balance closed per record: B from the cycles, M = E + B + D, the sewer volume billed.
  */
+import { monthlyPeakFromMonthlessRecordsKW } from "../demand";
 import { binLoadFraction, hourLoadFraction } from "../duty";
 import type { EnergyByComponentKWh, MonthlyPhysics, WaterByComponentM3 } from "../types";
 import { blowdown, sewerBilled } from "../water";
@@ -78,6 +79,8 @@ export function simulateOptionYear(
   const sewerBasis = ctx.water.sewerBasis;
   const toM3PerH = 3600 / WATER_DENSITY_KG_PER_M3;
   const profile = ctx.duty.loadProfile;
+  // Records without a month (bins without months): their demand sets an estimated monthly peak (demand.ts).
+  const monthless: { kW: number; hours: number }[] = [];
   for (let i = 0; i < cl.count; i += stride) {
     const air = cl.air[i];
     if (!air) continue;
@@ -112,8 +115,10 @@ export function simulateOptionYear(
     acc.heatKWh += (r.running ? heatKW : 0) * w;
     if (w > 0 && air.dryBulbC < acc.minDryBulbC) acc.minDryBulbC = air.dryBulbC;
     if (r.running && !r.dry && air.dryBulbC < 0) acc.wetHoursBelowFreezing += w;
-    // Spread over months: an hour or a monthly bin goes to its month; a bin without month pro rata by days.
+    // Spread over months: an hour or a monthly bin goes to its month; a bin without month pro rata by days
+    // (its energy and water; its demand joins the monthly-peak estimate below).
     const shares = month > 0 ? null : DAYS_IN_MONTH;
+    if (month <= 0) monthless.push({ kW: totalKW, hours: w });
     for (let mi = 0; mi < 12; mi++) {
       const share = shares ? (shares[mi] ?? 0) / 365 : mi === month - 1 ? 1 : 0;
       if (share === 0) continue;
@@ -136,7 +141,7 @@ export function simulateOptionYear(
       wa.blowdown += b * share;
       wa.makeup += m * share;
       wa.sewerBilled += sewer * share;
-      if (totalKW > mo.peakDemandKW) mo.peakDemandKW = totalKW;
+      if (month > 0 && totalKW > mo.peakDemandKW) mo.peakDemandKW = totalKW;
       if (r.dry && r.running) mo.dryModeHours += ws;
       if (r.unmet) mo.unmetHours += ws;
       if (cl.kind === "hourly") {
@@ -153,6 +158,10 @@ export function simulateOptionYear(
         for (let h = 0; h < 24; h++) acc.byMonthHour[mi * 24 + h] = (acc.byMonthHour[mi * 24 + h] ?? 0) + per;
       }
     }
+  }
+  if (monthless.length > 0) {
+    const estimate = monthlyPeakFromMonthlessRecordsKW(monthless);
+    for (const mo of acc.monthly) if (estimate > mo.peakDemandKW) mo.peakDemandKW = estimate;
   }
   return totalsFrom(acc);
 }
