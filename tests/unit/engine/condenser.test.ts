@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import {
   calibrateCondenserCleanUaKWPerK,
+  condenserGlycolUFactor,
   condensingTemperatureC,
   fouledUaKWPerK,
   requiredEnteringWaterC,
@@ -70,5 +71,14 @@ describe("compressor penalty", () => {
   // First law: heat rejected = Qe·(1 + 1/COP).
   it("refrigeration load and heat rejection are consistent", () => {
     expect(refrigerationLoadFromRejectionKW(1500, 2)).toBeCloseTo(1000, 9);
+  });
+});
+
+describe("glycol on the condenser's water side", () => {
+  // Resistances in series (Incropera & DeWitt, overall coefficient): a water-side film that is 40 % of
+  // the clean resistance, its coefficient halved by glycol (r = 0.5): 1/U' = 0.4/0.5 + 0.6 = 1.4 → U'/U = 0.7143.
+  it("derates only the water-side share of the clean resistance", () => {
+    expect(condenserGlycolUFactor(0.4, 0.5)).toBeCloseTo(1 / 1.4, 12);
+    expect(condenserGlycolUFactor(0.4, 1)).toBe(1);
   });
 });
