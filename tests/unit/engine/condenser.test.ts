@@ -79,6 +79,6 @@ describe("glycol on the condenser's water side", () => {
   // the clean resistance, its coefficient halved by glycol (r = 0.5): 1/U' = 0.4/0.5 + 0.6 = 1.4 → U'/U = 0.7143.
   it("derates only the water-side share of the clean resistance", () => {
     expect(condenserGlycolUFactor(0.4, 0.5)).toBeCloseTo(1 / 1.4, 12);
-    expect(condenserGlycolUFactor(0.4, 1)).toBe(1);
+    expect(condenserGlycolUFactor(0.4, 1)).toBeCloseTo(1, 12);
   });
 });
