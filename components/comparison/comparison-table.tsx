@@ -6,6 +6,9 @@ import { formatNumber, formatQuantity, unitLabel, type QuantityKind, type UnitSy
 import { warningText } from "@/lib/units/warnings";
 import { findComparison } from "./headline";
 
+/** What a life-cycle cell shows while an option's first cost is not entered. */
+export const FIRST_COSTS_MISSING = "first costs missing";
+
 interface Row {
   label: string;
   unit: string;
@@ -30,7 +33,13 @@ function Section({ title, rows, span, notes, optionLabel, system }: { title: str
           </th>
           {r.values.map((v, i) => (
             <td key={i} className={`num px-3 py-1.5 ${r.strong ? "font-semibold" : ""}`}>
-              {v ?? <span className="text-ink-faint">—</span>}
+              {v === FIRST_COSTS_MISSING ? (
+                <span className="text-xs italic text-caution-800" data-testid="first-costs-missing-cell">
+                  {v}
+                </span>
+              ) : (
+                (v ?? <span className="text-ink-faint">—</span>)
+              )}
             </td>
           ))}
         </tr>
@@ -106,6 +115,13 @@ export function ComparisonTable({
     return findComparison(e, e.baseOptionId, optionId)?.c ?? null;
   };
   const baseLabel = labelOf(e.baseOptionId);
+  // Without an option's first cost its investment, replacements, residual value and everything derived from
+  // them are not life-cycle figures: those cells say so; water, energy and operating costs stand.
+  const missing = new Set(e.firstCostsMissing ?? []);
+  const anyMissing = missing.size > 0;
+  const lifeCycle = (id: string, v: string | null) => (missing.has(id) ? FIRST_COSTS_MISSING : v);
+  const pairMissing = (id: string) => missing.has(id) || missing.has(e.baseOptionId);
+  const FROM_FIRST_COST = new Set(["investment", "replacements", "residual"]);
 
   const waterRows: Row[] = [
     { label: "Evaporation", unit: `${wu}/yr`, values: physics.map((p) => per(p, (x) => x.waterM3.evaporation, "waterVolumeM3")) },
@@ -186,20 +202,25 @@ export function ComparisonTable({
     ...COST_CATEGORIES.map((c) => ({
       label: COST_CATEGORY_LABELS[c],
       unit: `${currency}, PV`,
-      values: e.options.map((o) => money(o.pvByCategory[c])),
+      values: e.options.map((o) => (FROM_FIRST_COST.has(c) ? lifeCycle(o.optionId, money(o.pvByCategory[c])) : money(o.pvByCategory[c]))),
     })),
-    { label: "Life-cycle cost", unit: `${currency}, PV`, values: e.options.map((o) => money(o.lcc)), strong: true, testId: "row-lcc" },
+    { label: "Life-cycle cost", unit: `${currency}, PV`, values: e.options.map((o) => lifeCycle(o.optionId, money(o.lcc))), strong: true, testId: "row-lcc" },
   ];
   const measureRows: Row[] = [
-    { label: "First cost", unit: currency, values: e.options.map((o) => money(o.firstCost)) },
+    { label: "First cost", unit: currency, values: e.options.map((o) => lifeCycle(o.optionId, money(o.firstCost))) },
     { label: "First-year operating cost", unit: `${currency}/yr`, values: e.options.map((o) => money(o.firstYearOperatingCost)) },
-    { label: "Annualised cost", unit: `${currency}/yr`, values: e.options.map((o) => money(o.annualisedCost)), testId: "row-annualised" },
-    { label: `Net savings against ${baseLabel.toLowerCase()}`, unit: `${currency}, PV`, values: e.options.map((o) => money(cmp(o.optionId)?.netSavings)) },
+    { label: "Annualised cost", unit: `${currency}/yr`, values: e.options.map((o) => lifeCycle(o.optionId, money(o.annualisedCost))), testId: "row-annualised" },
+    {
+      label: `Net savings against ${baseLabel.toLowerCase()}`,
+      unit: `${currency}, PV`,
+      values: e.options.map((o) => (cmp(o.optionId) && pairMissing(o.optionId) ? FIRST_COSTS_MISSING : money(cmp(o.optionId)?.netSavings))),
+    },
     {
       label: "Savings-to-investment ratio (SIR)",
       unit: "",
       values: e.options.map((o) => {
         const c = cmp(o.optionId);
+        if (c && pairMissing(o.optionId)) return FIRST_COSTS_MISSING;
         return c ? (c.sir === null ? (c.sirNote ? "n/a" : null) : formatNumber(c.sir, { decimals: 2 })) : null;
       }),
     },
@@ -208,6 +229,7 @@ export function ComparisonTable({
       unit: "%/yr",
       values: e.options.map((o) => {
         const c = cmp(o.optionId);
+        if (c && pairMissing(o.optionId)) return FIRST_COSTS_MISSING;
         return c ? (c.airr === null ? "n/a" : formatNumber(100 * c.airr, { decimals: 1 })) : null;
       }),
     },
@@ -216,6 +238,7 @@ export function ComparisonTable({
       unit: "years",
       values: e.options.map((o) => {
         const c = cmp(o.optionId);
+        if (c && pairMissing(o.optionId)) return FIRST_COSTS_MISSING;
         return c ? (c.simplePaybackYears === null ? "none" : formatNumber(c.simplePaybackYears, { decimals: 1 })) : null;
       }),
     },
@@ -224,12 +247,13 @@ export function ComparisonTable({
       unit: "years",
       values: e.options.map((o) => {
         const c = cmp(o.optionId);
+        if (c && pairMissing(o.optionId)) return FIRST_COSTS_MISSING;
         return c ? (c.discountedPaybackYears === null ? "none" : formatNumber(c.discountedPaybackYears, { decimals: 1 })) : null;
       }),
     },
   ];
   const notesOf = (id: string) => warnings.filter((w) => w.optionId === id && sectionOfWarning(w) === "general");
-  const measureNotes = e.comparisons.flatMap((c) =>
+  const measureNotes = (anyMissing ? [] : e.comparisons).flatMap((c) =>
     [c.sirNote, c.airrNote, c.paybackNote].filter((n): n is string => Boolean(n)).map((n) => ({
       code: "economics.measureNote",
       severity: "info" as const,
@@ -251,7 +275,8 @@ export function ComparisonTable({
                 <span className="block font-semibold">{o.label}</span>
                 <span className="block text-2xs font-normal text-ink-faint">
                   {o.optionId === e.baseOptionId ? "base" : `against ${baseLabel.toLowerCase()}`}
-                  {o.optionId === e.lowestLccOptionId ? " · lowest LCC" : ""}
+                  {o.optionId === e.lowestLccOptionId && !anyMissing ? " · lowest LCC" : ""}
+                  {missing.has(o.optionId) ? " · first costs missing" : ""}
                 </span>
               </th>
             ))}

@@ -3,6 +3,7 @@ import type { ScenarioResult } from "@/lib/engine";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { formatNumber, formatQuantity, type UnitSystem } from "@/lib/units";
 import { whatIfBaseline } from "@/lib/scenarios/what-if";
+import { firstCostsMissingText } from "@/lib/scenarios/first-costs";
 import { Panel } from "@/components/ui/panel";
 import { CostStackChart } from "@/components/charts/cost-stack-chart";
 import { CumulativeCostChart } from "@/components/charts/cumulative-cost-chart";
@@ -98,10 +99,24 @@ export function ComparisonView(props: ComparisonViewProps) {
           {e.options.map((o) => (
             <div key={o.optionId} className={`rounded-md border px-3 py-2 ${o.optionId === headline.winnerOptionId ? "border-ok-600 bg-ok-50" : "border-line"}`}>
               <dt className="text-xs text-ink-soft">{o.label}</dt>
-              <dd className="num text-left text-base font-semibold" data-testid={`lcc-${o.optionId}`}>
-                {money(o.lcc, currency)}
+              {o.firstCostMissing ? (
+                <>
+                  <dd className="text-left text-base font-semibold text-caution-800" data-testid={`lcc-${o.optionId}`}>
+                    first costs missing
+                  </dd>
+                  <dd className="text-2xs text-ink-faint">life-cycle cost waits for the first cost</dd>
+                </>
+              ) : (
+                <>
+                  <dd className="num text-left text-base font-semibold" data-testid={`lcc-${o.optionId}`}>
+                    {money(o.lcc, currency)}
+                  </dd>
+                  <dd className="text-2xs text-ink-faint">life-cycle cost, present value</dd>
+                </>
+              )}
+              <dd className="text-2xs text-ink-faint" data-testid={`operating-${o.optionId}`}>
+                {money(o.firstYearOperatingCost, currency)} operating cost in year 1
               </dd>
-              <dd className="text-2xs text-ink-faint">life-cycle cost, present value</dd>
             </div>
           ))}
         </dl>
@@ -113,7 +128,11 @@ export function ComparisonView(props: ComparisonViewProps) {
         {props.actions ? <div className="mt-4 flex flex-wrap gap-2">{props.actions}</div> : null}
       </section>
 
-      {props.whatIfEndpoint ? (
+      {props.whatIfEndpoint && headline.firstCostsMissing.length > 0 ? (
+        <p className="rounded-md border border-caution-600 bg-caution-50 px-3 py-2 text-sm text-caution-800" data-testid="first-costs-missing">
+          {firstCostsMissingText(headline.firstCostsMissing)} The what-if panel, the tornado and the Monte Carlo open once they are entered.
+        </p>
+      ) : props.whatIfEndpoint ? (
         <WhatIfPanel
           endpoint={props.whatIfEndpoint}
           baseline={whatIfBaseline(input, result)}
@@ -131,7 +150,11 @@ export function ComparisonView(props: ComparisonViewProps) {
       {props.canSeeCashFlows ? (
         <Panel title="Cost over the study period">
           <div className="space-y-6">
-            <CumulativeCostChart series={cumulativeSeries(e)} currency={currency} />
+            {headline.firstCostsMissing.length > 0 ? (
+              <p className="text-sm text-ink-soft">The cumulative discounted cost waits for the first costs; the yearly costs below are operating costs and component replacements.</p>
+            ) : (
+              <CumulativeCostChart series={cumulativeSeries(e)} currency={currency} />
+            )}
             <CostStackChart series={costStackSeries(e)} categories={STACK_CATEGORIES} currency={currency} />
           </div>
         </Panel>
@@ -169,7 +192,9 @@ export function ComparisonView(props: ComparisonViewProps) {
               ))}
             </div>
           ) : (
-            <p className="text-sm text-ink-soft">The tornado is switched off for this scenario.</p>
+            <p className="text-sm text-ink-soft">
+              {headline.firstCostsMissing.length > 0 ? "The tornado and break-evens wait for the first costs." : "The tornado is switched off for this scenario."}
+            </p>
           )}
           {e.sensitivity && e.sensitivity.breakEven.length > 0 ? (
             <div>
@@ -185,7 +210,11 @@ export function ComparisonView(props: ComparisonViewProps) {
           ) : null}
           <div>
             <h3 className="mb-2 text-sm font-semibold">Monte Carlo</h3>
-            <MonteCarloPanel initial={mcSlot} pollUrl={props.monteCarloPollUrl ?? null} labels={labels} currency={currency} />
+            {headline.firstCostsMissing.length > 0 ? (
+              <p className="text-sm text-ink-soft">The Monte Carlo waits for the first costs.</p>
+            ) : (
+              <MonteCarloPanel initial={mcSlot} pollUrl={props.monteCarloPollUrl ?? null} labels={labels} currency={currency} />
+            )}
           </div>
         </div>
       </Panel>

@@ -5,6 +5,7 @@
  */
 import type { BreakEvenResult, EconomicsResult, OptionComparison, OptionEconomics } from "@/lib/engine/economics/types";
 import { formatNumber, formatQuantity, type UnitSystem } from "@/lib/units";
+import { firstCostsMissingLabels } from "@/lib/scenarios/first-costs";
 
 export interface Headline {
   winnerOptionId: string;
@@ -21,6 +22,8 @@ export interface Headline {
   /** What would flip the ranking: one phrase per break-even that found a tie, and the sentence joining them. */
   flips: string[];
   flipSummary: string;
+  /** Labels of the options without first costs: while any, there is no life-cycle winner. */
+  firstCostsMissing: string[];
 }
 
 export function money(v: number, currency: string): string {
@@ -47,8 +50,23 @@ function ranked(e: EconomicsResult): OptionEconomics[] {
 export function buildHeadline(e: EconomicsResult, system: UnitSystem, currency: string): Headline {
   const order = ranked(e);
   const winner = order[0];
-  if (!winner) {
-    return { winnerOptionId: "", winnerLabel: "", runnerUpOptionId: null, runnerUpLabel: null, marginLcc: 0, marginPercent: null, lead: "No option to compare.", payback: "", flips: [], flipSummary: "" };
+  const none = { winnerOptionId: "", winnerLabel: "", runnerUpOptionId: null, runnerUpLabel: null, marginLcc: 0, marginPercent: null, flips: [], flipSummary: "" };
+  if (!winner) return { ...none, lead: "No option to compare.", payback: "", firstCostsMissing: [] };
+  const missing = firstCostsMissingLabels(e);
+  if (missing.length > 0) {
+    // No life-cycle ranking without every first cost: say so, and give the yearly operating costs, which stand.
+    const byOperating = [...e.options].sort((x, y) => x.firstYearOperatingCost - y.firstYearOperatingCost);
+    const low = byOperating[0] ?? winner;
+    const next = byOperating[1];
+    return {
+      ...none,
+      lead: `First costs missing for ${missing.join(", ")}: the life-cycle comparison waits for them.`,
+      payback:
+        `Meanwhile the ${low.label.toLowerCase()} has the lowest operating cost in the first year: ${money(low.firstYearOperatingCost, currency)}` +
+        (next ? `, ${money(next.firstYearOperatingCost - low.firstYearOperatingCost, currency)} less than the ${next.label.toLowerCase()}` : "") +
+        ` (energy, water, sewer, chemicals and upkeep). Enter the first costs from the selections to see the life-cycle cost, net savings, SIR, AIRR and payback.`,
+      firstCostsMissing: missing,
+    };
   }
   const runnerUp = order[1] ?? null;
   const margin = runnerUp ? runnerUp.lcc - winner.lcc : 0;
@@ -102,6 +120,7 @@ export function buildHeadline(e: EconomicsResult, system: UnitSystem, currency: 
     payback,
     flips,
     flipSummary,
+    firstCostsMissing: [],
   };
 }
 

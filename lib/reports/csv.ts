@@ -51,9 +51,12 @@ export function cashFlowsCsv(src: ReportSource): string {
     `Present value (${cur} at 1 January ${eco.baseYear})`,
     `Cumulative present value (${cur})`,
     "Discount rate (fraction per year)",
+    "First cost",
   ];
   const rows: Cell[][] = [];
   for (const o of eco.options) {
+    // Without the option's first cost its present values are not a life-cycle cost: every row says so.
+    const status = o.firstCostMissing ? "first costs missing: not a life-cycle cost" : "entered";
     for (const c of o.cashFlows) {
       rows.push([
         o.label,
@@ -64,6 +67,7 @@ export function cashFlowsCsv(src: ReportSource): string {
         round(c.presentValue, 2),
         round(c.cumulativePresentValue, 2),
         eco.discountRate,
+        status,
       ]);
     }
   }

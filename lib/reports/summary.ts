@@ -10,6 +10,7 @@ import type {
   OptionEconomics,
   TornadoBar,
 } from "@/lib/engine/economics/types";
+import { firstCostsMissingLabels } from "@/lib/scenarios/first-costs";
 import { fmtMoney, fmtNumber, fmtPercent, fmtSignificant, fmtYears } from "./format";
 import type { ReportEngineResult } from "./types";
 import { convert, unitOf } from "./units";
@@ -19,6 +20,8 @@ export interface OptionSummaryRow {
   label: string;
   isBase: boolean;
   isLowest: boolean;
+  /** No first cost entered: its first cost, LCC, annualised cost and measures are shown as missing. */
+  firstCostMissing: boolean;
   firstCost: number;
   lcc: number;
   annualisedCost: number;
@@ -40,6 +43,8 @@ export interface ReportSummary {
   paragraphs: string[];
   flips: string[];
   noTies: string[];
+  /** Labels of the options without first costs; while any, the report gives no life-cycle figures. */
+  firstCostsMissing: string[];
 }
 
 function economicsOf(r: ReportEngineResult, id: string): OptionEconomics | undefined {
@@ -102,6 +107,7 @@ export function buildSummary(r: ReportEngineResult, currency: string, system: Un
       label: o.label,
       isBase: o.optionId === baseId,
       isLowest: o.optionId === lowestId,
+      firstCostMissing: o.firstCostMissing === true,
       firstCost: o.firstCost,
       lcc: o.lcc,
       annualisedCost: o.annualisedCost,
@@ -115,6 +121,26 @@ export function buildSummary(r: ReportEngineResult, currency: string, system: Un
     return row;
   });
 
+  const missing = firstCostsMissingLabels(eco);
+  if (missing.length > 0) {
+    const byOperating = [...rows].sort((a, b) => a.firstYearOperatingCost - b.firstYearOperatingCost);
+    const low = byOperating[0];
+    return {
+      rows: rows.map((x) => ({ ...x, isLowest: false })),
+      baseOptionId: baseId,
+      lowestOptionId: "",
+      headline: `First costs missing for ${missing.join(", ")}: the life-cycle comparison waits for them.`,
+      paragraphs: [
+        "This report gives each option's water, energy and yearly operating costs. The life-cycle cost, net savings, savings-to-investment ratio, adjusted internal rate of return and payback need every option's first cost from its selection; they are left out until those are entered.",
+        ...(low
+          ? [`In the first year, ${low.label} has the lowest operating cost (energy, water, sewer, chemicals and upkeep): ${fmtMoney(low.firstYearOperatingCost, currency)}.`]
+          : []),
+      ],
+      flips: [],
+      noTies: [],
+      firstCostsMissing: missing,
+    };
+  }
   const sorted = [...rows].sort((a, b) => a.lcc - b.lcc);
   const lowest = rows.find((x) => x.optionId === lowestId) ?? sorted[0];
   const runnerUp = sorted.find((x) => x.optionId !== lowest?.optionId);
@@ -229,5 +255,6 @@ export function buildSummary(r: ReportEngineResult, currency: string, system: Un
     paragraphs,
     flips,
     noTies,
+    firstCostsMissing: [],
   };
 }

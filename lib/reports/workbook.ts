@@ -7,6 +7,7 @@
  * The yearly amounts are the engine's (priced from the yearly physics and the tariffs); what finance can
  * change live is the discounting: the real discount rate, inflation and the analysis basis.
  */
+import { firstCostsMissingLabels, firstCostsMissingText } from "@/lib/scenarios/first-costs";
 import ExcelJS from "exceljs";
 import {
   COST_CATEGORIES,
@@ -484,7 +485,9 @@ function addCashFlowSheet(
   );
 
   const lccRow = totalRow + 2;
-  ws.getCell(lccRow, 1).value = `Life-cycle cost, present value (${cur})`;
+  ws.getCell(lccRow, 1).value = o.firstCostMissing
+    ? `Present value of the costs entered so far (${cur}): first cost missing, not a life-cycle cost`
+    : `Life-cycle cost, present value (${cur})`;
   ws.getCell(lccRow, 1).font = { bold: true, color: { argb: BASIN } };
   const lccCell = ws.getCell(lccRow, pvTotalCol);
   lccCell.value = { formula: `${col(pvTotalCol)}${totalRow}`, result: o.lcc };
@@ -501,6 +504,9 @@ function addCashFlowSheet(
 }
 
 /** Defined name of option i's LCC cell. */
+/** What a life-cycle cell holds while an option's first cost is not entered. */
+const MISSING = "first costs missing";
+
 export function lccName(i: number): string {
   return `LCC_${i + 1}`;
 }
@@ -516,6 +522,12 @@ function addSummarySheet(wb: ExcelJS.Workbook, src: ReportSource, lccNames: stri
     eco.options.findIndex((o) => o.optionId === eco.baseOptionId),
   );
   const baseName = lccNames[baseIndex] ?? lccName(0);
+  const missingLabels = firstCostsMissingLabels(eco);
+  const anyMissing = missingLabels.length > 0;
+  if (anyMissing) {
+    ws.getCell("A3").value = neutraliseText(firstCostsMissingText(missingLabels));
+    ws.getCell("A3").font = { bold: true, color: { argb: "FF9A4A00" } };
+  }
   const hr = ws.getRow(4);
   hr.values = [
     "Option",
@@ -543,7 +555,10 @@ function addSummarySheet(wb: ExcelJS.Workbook, src: ReportSource, lccNames: stri
     ws.getCell(r, 6).value = o.lcc;
     ws.getCell(r, 7).value = { formula: `C${r}-F${r}`, result: 0 };
     for (let c = 2; c <= 7; c++) ws.getCell(r, c).numFmt = MONEY;
-    if (o.optionId === eco.lowestLccOptionId) ws.getRow(r).font = { bold: true, color: { argb: BASIN } };
+    // No life-cycle figures without the option's first cost, and no net savings while any is missing.
+    if (o.firstCostMissing) for (const c of [2, 3, 4, 6, 7]) ws.getCell(r, c).value = MISSING;
+    if (anyMissing) ws.getCell(r, 5).value = MISSING;
+    if (o.optionId === eco.lowestLccOptionId && !anyMissing) ws.getRow(r).font = { bold: true, color: { argb: BASIN } };
   });
   const noteRow = 6 + eco.options.length;
   ws.getCell(`A${noteRow}`).value =
@@ -580,6 +595,7 @@ function addSummarySheet(wb: ExcelJS.Workbook, src: ReportSource, lccNames: stri
     ws.getCell(r, 5).numFmt = "0.0";
     ws.getCell(r, 6).value = c.discountedPaybackYears ?? "n/a";
     ws.getCell(r, 6).numFmt = "0.0";
+    if (anyMissing) for (let k = 2; k <= 6; k++) ws.getCell(r, k).value = MISSING;
   }
   r += 2;
   ws.getCell(`A${r}`).value = "Yearly electricity by option (first year; each option pays its own compressor energy)";

@@ -27,7 +27,8 @@ export function monteCarloInput(input: ScenarioInput): ScenarioInput {
 }
 
 export function wantsMonteCarlo(input: ScenarioInput): boolean {
-  return Boolean(input.monteCarlo?.enabled) && input.options.length > 1;
+  // Without every option's first cost there is no life-cycle cost to draw a distribution of.
+  return Boolean(input.monteCarlo?.enabled) && input.options.length > 1 && input.options.every((o) => o.costs.firstCost !== undefined);
 }
 
 /** Analyse the deterministic part and time it. */

@@ -5,6 +5,7 @@ import "server-only";
  * writes the audit trail and returns DTOs only. The work itself is in ./store and ./analysis; long
  * analyses run in a worker process (lib/jobs), never here.
  */
+import { firstCostsMissingLabels } from "./first-costs";
 import { forbidden, notFound } from "next/navigation";
 import { z } from "zod";
 import type { Executor } from "@/db/schema";
@@ -89,7 +90,7 @@ export interface ScenarioListItem {
   updatedByName: string | null;
   climateName: string | null;
   /** The newest stored result's winner and margin (null when never analysed). */
-  latest: { lowestLabel: string; marginLcc: number | null; analysedAt: string; studyPeriodYears: number } | null;
+  latest: { lowestLabel: string; marginLcc: number | null; analysedAt: string; studyPeriodYears: number; firstCostsMissing: string[] } | null;
 }
 
 /** Draft scenarios of a project with their latest result's headline (firm members only). */
@@ -116,6 +117,7 @@ export async function listDraftScenarios(access: ProjectAccess): Promise<Scenari
               marginLcc: sorted[1] ? sorted[1].lcc - sorted[0].lcc : null,
               analysedAt: (res?.finishedAt ?? res?.createdAt ?? new Date()).toISOString(),
               studyPeriodYears: e.studyPeriodYears,
+              firstCostsMissing: firstCostsMissingLabels(e),
             }
           : null,
     };

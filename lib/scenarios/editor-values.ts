@@ -76,7 +76,7 @@ export function sectionOfPath(path: string): SectionId {
     return "water";
   if (path.startsWith("fouling") || path.startsWith("upkeep")) return "upkeep";
   if (path.startsWith("tariffs")) return "tariffs";
-  if (path.startsWith("economics") || path.startsWith("sensitivity") || path.startsWith("monteCarlo"))
+  if (path.startsWith("economics") || path.startsWith("sensitivity") || path.startsWith("monteCarlo") || path.startsWith("footprint"))
     return "economics";
   return "general";
 }

@@ -101,6 +101,7 @@ const O = "options[]";
 export const FIELD_INFO: Record<string, FieldInfo> = {
   ...grouped("General", {
     name: ["Scenario name", text],
+    inputVersion: ["Input version"],
     climateDatasetId: ["Climate dataset", text],
     options: ["Options compared"],
   }),
@@ -113,6 +114,7 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
     "duty.condensingSetPointC": ["Condensing set-point", q("temperatureC")],
     "duty.minimumCondensingC": ["Minimum condensing temperature", q("temperatureC")],
     "duty.headPressureControl": ["Head-pressure control"],
+    "duty.refrigerant": ["Refrigerant"],
   }),
   ...grouped("Load profile", {
     "duty.loadProfile": ["Load profile"],
@@ -196,6 +198,18 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
     [`${O}.condenser.cleanUWPerM2K`]: ["Clean U", unit("W/(m²·K)")],
     [`${O}.condenser.designFoulingM2KPerW`]: ["Fouling allowance in the design point", q("foulingM2KPerW")],
     [`${O}.condenser.waterSideResistanceFraction`]: ["Water-side share of the clean condenser's resistance", pct],
+  }),
+  ...grouped("Condenser", {
+    [`${O}.condenser.construction`]: ["Condenser construction"],
+    [`${O}.condenser.material`]: ["Condenser material"],
+    [`${O}.condenser.foulingGrowthMultiplier`]: ["Fouling growth vs shell-and-tube", unit("×")],
+    [`${O}.condenser.specificChargeKgPerKW`]: ["Refrigerant charge per kW", unit("kg/kW")],
+    [`${O}.condenser.upkeep.cleaningMethod`]: ["Condenser cleaning method"],
+    [`${O}.condenser.upkeep.cleaningCostPerEvent`]: ["Condenser cleaning, per cleaning", q("money")],
+    [`${O}.condenser.upkeep.inspectionIntervalYears`]: ["Condenser inspection every", q("years")],
+    [`${O}.condenser.upkeep.inspectionCostPerEvent`]: ["Condenser inspection, per inspection", q("money")],
+    [`${O}.condenser.upkeep.wearPartLifeYears`]: ["Condenser wear-part life", q("years")],
+    [`${O}.condenser.upkeep.wearPartReplacementCost`]: ["Condenser wear-part replacement", q("money")],
   }),
   ...grouped("Pumps, basin and drift", {
     [`${O}.condenserPump.headM`]: ["Condenser-loop pump head", q("headM")],
@@ -310,6 +324,17 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
     "tariffs.electricity.demandChargePerKWMonthByMonth": ["Monthly demand charges"],
     "tariffs.electricity.demandCoincidenceFactor": ["Share of the option's peak in the billed peak", pct],
   }),
+  ...grouped("Carbon price", {
+    "tariffs.carbon.enabled": ["Price carbon emissions"],
+    "tariffs.carbon.pricePerTonneCO2e": ["Carbon price", unit("per t CO₂e")],
+  }),
+  ...grouped("Footprint", {
+    "footprint.gridEmissionFactorKgCO2ePerKWh": ["Grid emission factor", unit("kg CO₂e/kWh")],
+    "footprint.gridEmissionFactorYear": ["Year of the grid factor", unit("year")],
+    "footprint.gridEmissionFactorSource": ["Source of the grid factor", text],
+    "footprint.gwpReport": ["IPCC assessment report for GWP"],
+    "footprint.annualLeakFraction": ["Refrigerant leak rate", pctYr],
+  }),
   ...grouped("Real escalation", {
     "tariffs.escalation.energy": ["Escalation of electric energy", pctYr],
     "tariffs.escalation.demand": ["Escalation of electric demand", pctYr],
@@ -318,6 +343,7 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
     "tariffs.escalation.chemicals": ["Escalation of chemicals", pctYr],
     "tariffs.escalation.labour": ["Escalation of labour", pctYr],
     "tariffs.escalation.replacements": ["Escalation of replacements", pctYr],
+    "tariffs.escalation.carbon": ["Escalation of the carbon price", pctYr],
   }),
   ...grouped("Study", {
     "economics.baseYear": ["Base year", unit("year")],

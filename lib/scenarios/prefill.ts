@@ -3,7 +3,6 @@
  * each field shows a value (and its default's source beside it). First costs stay empty where none was
  * entered — they have no default. Client-safe.
  */
-import { FIRST_COST_ITEMS } from "@/lib/engine/economics/types";
 import { OPTION_KINDS, OPTION_KIND_LABELS, type OptionKind } from "@/lib/engine/types";
 import type { ScenarioDocument } from "./mappers";
 import type { EditorOption } from "./editor-values";
@@ -19,32 +18,19 @@ export function prefillDocument(document: ScenarioDocument): ScenarioDocument {
   // Sensitivity and Monte Carlo are optional in the schema; the editor starts with them on (their defaults).
   if (doc.sensitivity === undefined) doc.sensitivity = {};
   if (doc.monteCarlo === undefined) doc.monteCarlo = {};
-  const options = Array.isArray(doc.options) ? (doc.options as Obj[]) : [];
-  const missingFirstCost = new Map<number, Obj>();
-  options.forEach((o, i) => {
-    const costs = (isObj(o.costs) ? o.costs : (o.costs = {})) as Obj;
-    const given = isObj(costs.firstCost) ? (costs.firstCost as Obj) : {};
-    const complete = FIRST_COST_ITEMS.every((k) => typeof given[k] === "number");
-    if (!complete) {
-      missingFirstCost.set(i, given);
-      costs.firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, typeof given[k] === "number" ? given[k] : 0]));
-    }
-  });
   const parsed = scenarioSchema.safeParse(withPlaceholders(doc));
   if (!parsed.success) {
-    // Keep what is there; still give unentered first costs their empty slots.
+    // Keep what is there.
     return document;
   }
   const out = parsed.data as unknown as Obj;
   delete out.climate;
   delete out.site;
-  for (const [i, given] of missingFirstCost) {
-    const o = (out.options as Obj[])[i];
-    if (o && isObj(o.costs)) {
-      // An option without a plate exchanger has none to buy: that item is structurally 0, not a default price.
-      const fill = (k: string) => (typeof given[k] === "number" ? given[k] : k === "plateExchanger" && o.kind !== "openTowerPlateHx" ? 0 : undefined);
-      (o.costs as Obj).firstCost = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, fill(k)]));
-    }
+  // First costs stay as entered: none (the form shows empty boxes) or every item (parsing filled the
+  // items left empty with 0).
+  for (const o of out.options as Obj[]) {
+    const costs = o.costs as Obj;
+    if (costs.firstCost === undefined) delete costs.firstCost;
   }
   return out as unknown as ScenarioDocument;
 }

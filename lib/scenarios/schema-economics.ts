@@ -239,8 +239,22 @@ const firstCostShape = Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, money]
   typeof money
 >;
 
-/** First cost by item: every item required (enter 0 where it does not apply). */
-export const firstCostSchema = z.object(firstCostShape);
+/** First cost by item, every item entered (0 where it does not apply): the engine's form. */
+export const firstCostItemsSchema = z.object(firstCostShape);
+
+/**
+ * The first cost as entered: any items (an item left empty counts as 0 once one item is entered), or none
+ * at all while the selection's prices are not in yet — then it parses to `undefined` and the scenario still
+ * analyses its physics and operating costs, with its life-cycle figures marked "first costs missing".
+ * First costs have no default: they come from the consultant's selections.
+ */
+export const firstCostSchema = z
+  .object(Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, money.optional()])) as Record<(typeof FIRST_COST_ITEMS)[number], z.ZodOptional<typeof money>>)
+  .optional()
+  .transform((v): z.output<typeof firstCostItemsSchema> | undefined => {
+    if (!v || FIRST_COST_ITEMS.every((k) => v[k] === undefined)) return undefined;
+    return Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, v[k] ?? 0])) as z.output<typeof firstCostItemsSchema>;
+  });
 
 export const componentReplacementSchema = z.object({
   component: z.enum(COMPONENT_KEYS),

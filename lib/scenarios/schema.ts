@@ -695,7 +695,8 @@ type DistributiveOmit<T, K extends PropertyKey> = T extends unknown ? Omit<T, K>
 /**
  * A starting scenario for the forms around a climate: a 1000 kW heat-rejection duty (ammonia-like
  * temperatures), the three option kinds sized for it, defaults everywhere else. First costs have no
- * default: the draft fails validation at `options.N.costs.firstCost` until they are entered.
+ * default: the draft is valid and analyses its physics and operating costs; its life-cycle figures wait
+ * for the first costs (`firstCostsMissing`).
  * The equipment figures are placeholders to overwrite with certified manufacturer selections.
  */
 export function defaultScenario(climate: ClimateInput, site: { elevationM: number; locationLabel: string } = { elevationM: 0, locationLabel: "" }): ScenarioDraft {

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { optionsWithoutFirstCost } from "@/lib/scenarios/first-costs";
 import type { Executor } from "@/db/schema";
 import { inTransaction } from "@/db/transaction";
 import { defineAction } from "@/lib/actions/define";
@@ -60,6 +61,10 @@ export const issueScenario = defineAction<
       const current = await resolveResult(trx, draft);
       if (!current) {
         return fail(409, "There is no finished result for the scenario's current inputs. Run the analysis, then issue.");
+      }
+      const missing = optionsWithoutFirstCost(current.input);
+      if (missing.length > 0) {
+        return fail(409, `Enter the first costs of ${missing.join(", ")} before issuing: an issued version carries a complete life-cycle cost.`);
       }
       const versionNumber = await nextVersionNumber(trx, scenarioId);
       const row = await insertVersionRow(trx, {

@@ -79,6 +79,7 @@ export interface OptionBasis {
   label: string;
   firstCostByItem: FirstCostItems;
   firstCost: number;
+  firstCostMissing: boolean;
   /** Base-date yearly costs of the recurring streams (variable parts before price factors). */
   energyCost: number;
   demandCost: number;
@@ -338,6 +339,11 @@ function periodicEventCounts(everyYears: number, studyPeriodYears: number): Map<
   return counts;
 }
 
+
+/** Every first-cost item at 0: the amounts of an option whose first cost is not entered yet. */
+function noFirstCost(): FirstCostItems {
+  return Object.fromEntries(FIRST_COST_ITEMS.map((k) => [k, 0])) as FirstCostItems;
+}
 function scheduleFirstCostItems(
   option: EconomicsOptionInput,
   economics: EconomicsInput,
@@ -349,7 +355,7 @@ function scheduleFirstCostItems(
   let equipmentTimes: number[] = [];
   let warnedNoReplacement = false;
   for (const item of FIRST_COST_ITEMS) {
-    const cost = costs.firstCost[item];
+    const cost = costs.firstCost?.[item] ?? 0;
     const life = costs.firstCostItemLivesYears?.[item] ?? costs.serviceLifeYears;
     const times = costs.replaceAtEndOfLife ? replacementTimes(life, n) : [];
     if (item === "equipment") equipmentTimes = times;
@@ -475,7 +481,7 @@ export function buildOptionBasis(
   warnings: EngineWarning[],
 ): OptionBasis {
   const costs = option.costs;
-  const firstCostByItem = { ...costs.firstCost };
+  const firstCostByItem = costs.firstCost ? { ...costs.firstCost } : noFirstCost();
   let firstCost = 0;
   for (const k of FIRST_COST_ITEMS) firstCost += firstCostByItem[k];
 
@@ -523,6 +529,7 @@ export function buildOptionBasis(
     label: option.label,
     firstCostByItem,
     firstCost,
+    firstCostMissing: costs.firstCost === undefined,
     energyCost: physics ? energyCostPerYear(physics, tariffs, warnings) : 0,
     demandCost: physics ? demandCostPerYear(physics, tariffs) : 0,
     water,

@@ -55,6 +55,15 @@ export function analyzeEconomics(args: AnalyzeEconomicsArgs): EconomicsResult {
     warnings,
   );
   const result = deterministicResult(model, model.pricing, undefined, warnings);
+  if (result.firstCostsMissing.length > 0) {
+    const names = model.bases.filter((b) => b.firstCostMissing).map((b) => b.label);
+    warnings.push({
+      code: "economics.firstCostsMissing",
+      severity: "info",
+      message: `First costs are missing for ${names.join(", ")}: water, energy and yearly operating costs are computed; the life-cycle cost, net savings, SIR, AIRR and paybacks wait for the first costs, and the tornado and Monte Carlo are not run.`,
+    });
+    return result;
+  }
   const physics = new PhysicsCache(args.rerunPhysics);
   if (args.sensitivity?.enabled && model.bases.length > 1) {
     const baseId = model.bases[model.baseIndex]?.optionId;

@@ -136,6 +136,7 @@ export function deterministicResult(
       label: b.label,
       firstCost: b.firstCost * scale,
       firstCostByItem,
+      firstCostMissing: b.firstCostMissing,
       cashFlows: ev.cashFlows ?? [],
       pvByCategory: ev.pvByCategory,
       lcc: ev.lcc,
@@ -160,6 +161,7 @@ export function deterministicResult(
     options,
     comparisons,
     lowestLccOptionId: lowest?.optionId ?? "",
+    firstCostsMissing: options.filter((o) => o.firstCostMissing).map((o) => o.optionId),
     warnings,
   };
 }

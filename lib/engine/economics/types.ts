@@ -94,7 +94,11 @@ export interface OptionUpkeepInput {
 }
 
 export interface OptionCostsInput {
-  firstCost: FirstCostItems;
+  /**
+   * The quoted first cost by item; absent while the consultant has not entered it (a draft): the option's
+   * physics and operating costs are still priced, its life-cycle figures are withheld (`firstCostsMissing`).
+   */
+  firstCost?: FirstCostItems;
   /**
    * Service life of the installation, years: every first-cost item is replaced at its life (when
    * `replaceAtEndOfLife`) and its last installation earns a linear residual value.
@@ -407,6 +411,8 @@ export interface OptionEconomics {
   label: string;
   firstCost: number;
   firstCostByItem: FirstCostItems;
+  /** True when no first cost was entered: the amounts above are 0 and its LCC is not a life-cycle cost. */
+  firstCostMissing: boolean;
   cashFlows: YearCashFlow[];
   pvByCategory: CategoryAmounts;
   /** Present-value life-cycle cost (sum of pvByCategory). */
@@ -539,6 +545,12 @@ export interface EconomicsResult {
   /** Each alternative against the base option, in option order. */
   comparisons: OptionComparison[];
   lowestLccOptionId: string;
+  /**
+   * Ids of the options without first costs. While it is not empty the LCC, annualised cost, net savings,
+   * SIR, AIRR, IRR and paybacks are not life-cycle figures (first costs count as 0): every screen, report
+   * and export shows "first costs missing" in their place, and the tornado and Monte Carlo are not run.
+   */
+  firstCostsMissing: string[];
   sensitivity?: SensitivityResult;
   monteCarlo?: MonteCarloResult;
   warnings: EngineWarning[];

@@ -222,7 +222,12 @@ function Cover({
   );
 }
 
-function summaryColumns(currency: string): Column<OptionSummaryRow>[] {
+const MISSING = "first costs missing";
+
+function summaryColumns(currency: string, anyMissing: boolean): Column<OptionSummaryRow>[] {
+  // An option without its first cost has no life-cycle figures; no pair has measures while any is missing.
+  const own = (r: OptionSummaryRow, text: string) => (r.firstCostMissing ? MISSING : text);
+  const pair = (r: OptionSummaryRow, text: string) => (anyMissing && r.comparison ? MISSING : text);
   return [
     {
       title: "Option",
@@ -235,14 +240,14 @@ function summaryColumns(currency: string): Column<OptionSummaryRow>[] {
       unit: currency,
       width: 1.2,
       align: "right",
-      cell: (r) => fmtMoney(r.firstCost, currency),
+      cell: (r) => own(r, fmtMoney(r.firstCost, currency)),
     },
     {
       title: "Life-cycle cost",
       unit: `${currency}, present value`,
       width: 1.4,
       align: "right",
-      cell: (r) => fmtMoney(r.lcc, currency),
+      cell: (r) => own(r, fmtMoney(r.lcc, currency)),
       emphasis: (r) => r.isLowest,
     },
     {
@@ -250,27 +255,27 @@ function summaryColumns(currency: string): Column<OptionSummaryRow>[] {
       unit: `${currency}/yr`,
       width: 1.1,
       align: "right",
-      cell: (r) => fmtMoney(r.annualisedCost, currency),
+      cell: (r) => own(r, fmtMoney(r.annualisedCost, currency)),
     },
     {
       title: "Net savings",
       unit: `${currency} vs base`,
       width: 1.2,
       align: "right",
-      cell: (r) => (r.comparison ? fmtMoney(r.comparison.netSavings, currency) : "base"),
+      cell: (r) => pair(r, r.comparison ? fmtMoney(r.comparison.netSavings, currency) : "base"),
     },
     {
       title: "SIR",
       width: 0.6,
       align: "right",
-      cell: (r) => (r.comparison ? fmtRatio(r.comparison.sir) : ""),
+      cell: (r) => pair(r, r.comparison ? fmtRatio(r.comparison.sir) : ""),
     },
     {
       title: "AIRR",
       unit: "%/yr",
       width: 0.7,
       align: "right",
-      cell: (r) => (r.comparison ? fmtPercent(r.comparison.airr) : ""),
+      cell: (r) => pair(r, r.comparison ? fmtPercent(r.comparison.airr) : ""),
     },
     {
       title: "Payback",
@@ -278,9 +283,12 @@ function summaryColumns(currency: string): Column<OptionSummaryRow>[] {
       width: 1.2,
       align: "right",
       cell: (r) =>
-        r.comparison
-          ? `${fmtYears(r.comparison.simplePaybackYears)} / ${fmtYears(r.comparison.discountedPaybackYears)}`
-          : "",
+        pair(
+          r,
+          r.comparison
+            ? `${fmtYears(r.comparison.simplePaybackYears)} / ${fmtYears(r.comparison.discountedPaybackYears)}`
+            : "",
+        ),
     },
   ];
 }
@@ -301,7 +309,7 @@ function SummaryPage({ source, summary }: { source: ReportSource; summary: Repor
       ))}
       {designNote ? <P style={{ color: COLORS.copper500 }}>{designNote}</P> : null}
       <H2>Life-cycle cost per option</H2>
-      <Table columns={summaryColumns(cur)} rows={summary.rows} />
+      <Table columns={summaryColumns(cur, summary.firstCostsMissing.length > 0)} rows={summary.rows} />
       <T style={[S.small, { marginTop: -4, marginBottom: 6 }]}>
         {`Present values at 1 January ${eco.baseYear}, ${eco.analysis === "real" ? "constant" : "then-current"} ${cur}, ${fmtPercent(eco.discountRate)} discount rate, ${eco.studyPeriodYears}-year study period. Net savings = LCC of the base minus LCC of the option; SIR and AIRR after ASTM E964 and E1057; payback of the option with the higher first cost.`}
       </T>
@@ -432,6 +440,10 @@ function ChartsSection({ source, summary }: { source: ReportSource; summary: Rep
     <View>
       <T style={S.kicker}>Charts</T>
       <H1>Where the money goes</H1>
+      {summary.firstCostsMissing.length > 0 ? (
+        <P>{`First costs missing for ${summary.firstCostsMissing.join(", ")}: the life-cycle cost by category and the cumulative discounted cost are left out until they are entered.`}</P>
+      ) : (
+        <>
       <ChartFrame
         title="Life-cycle cost by category"
         subtitle={`Present value, ${cur}; residual value is a credit, drawn left of zero`}
@@ -465,6 +477,8 @@ function ChartsSection({ source, summary }: { source: ReportSource; summary: Rep
         />
         <Legend items={eco.options.map((o, i) => ({ label: o.label, color: optionColor(i) }))} />
       </ChartFrame>
+        </>
+      )}
       <ChartFrame
         title="Monthly makeup water"
         subtitle={`Evaporation + blowdown + drift, ${unitOf("waterVolumeM3", sys)} per month of the typical year`}

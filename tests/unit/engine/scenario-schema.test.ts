@@ -137,17 +137,27 @@ describe("scenario schema", () => {
     expect(s.required).toEqual(expect.arrayContaining(["inputVersion", "site", "climate", "duty", "options", "water"]));
   });
 
-  it("defaultScenario needs only the first costs to become a valid, analysable scenario", () => {
+  it("defaultScenario is valid and analyses at once; its first costs are missing until entered (issue 11)", () => {
     const doc = readFixture("scenario-bins.json");
     const draft = defaultScenario(climateInputSchema.parse(doc.climate), { elevationM: 100, locationLabel: "test" });
-    const paths = errorsOf(draft).map((e) => e.path);
-    expect(paths.length).toBeGreaterThan(0);
-    expect(paths.every((p) => /^options\.\d\.costs\.firstCost/.test(p))).toBe(true);
+    expect(errorsOf(draft)).toEqual([]);
+    const parsed = parseScenario(draft);
+    expect(parsed.ok).toBe(true);
+    if (parsed.ok) {
+      const a = analyzeScenario(parsed.value);
+      expect(a.physics).toHaveLength(3);
+      // Every option is named as missing its first cost, and nothing that needs it (tornado, Monte Carlo) ran.
+      expect(a.economics.firstCostsMissing).toEqual(["tower-direct", "tower-plate", "cooler"]);
+      expect(a.economics.sensitivity).toBeUndefined();
+      expect(a.economics.monteCarlo).toBeUndefined();
+      // Operating costs are priced all the same.
+      for (const o of a.economics.options) expect(o.firstYearOperatingCost).toBeGreaterThan(0);
+    }
     const firstCost = { equipment: 1, installation: 0, structureAndCrane: 0, electrical: 0, controls: 0, plateExchanger: 0, waterTreatmentEquipment: 0, meters: 0, other: 0 };
     const complete = { ...draft, options: draft.options.map((o) => ({ ...o, costs: { ...o.costs, firstCost } })) };
     const r = parseScenario(complete);
     expect(r.ok).toBe(true);
-    if (r.ok) expect(analyzeScenario(r.value).physics).toHaveLength(3);
+    if (r.ok) expect(analyzeScenario(r.value).economics.firstCostsMissing).toEqual([]);
   });
 });
 

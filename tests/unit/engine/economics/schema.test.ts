@@ -11,14 +11,18 @@ import {
 } from "@/lib/scenarios/schema-economics";
 
 describe("economic schemas", () => {
-  it("first costs have no default: an option without them is rejected, every item named", () => {
-    // product.md: "first costs have no default (they must come from the consultant's selections)".
-    const res = optionCostsSchema.safeParse({ firstCost: { equipment: 1000 } });
-    expect(res.success).toBe(false);
-    const paths = res.error?.issues.map((i) => i.path.join(".")) ?? [];
-    expect(paths).toContain("firstCost.installation");
-    expect(paths).toContain("firstCost.meters");
-    expect(optionCostsSchema.safeParse({}).success).toBe(false);
+  it("first costs have no default: absent until entered, then every item (empty ones as 0); negative refused", () => {
+    // product.md: "first costs have no default (they must come from the consultant's selections)"; a draft
+    // without them still analyses (issue 11).
+    expect(optionCostsSchema.parse({}).firstCost).toBeUndefined();
+    expect(optionCostsSchema.parse({ firstCost: {} }).firstCost).toBeUndefined();
+    const one = optionCostsSchema.parse({ firstCost: { equipment: 1000 } }).firstCost;
+    expect(one?.equipment).toBe(1000);
+    expect(one?.installation).toBe(0);
+    expect(one?.meters).toBe(0);
+    const bad = optionCostsSchema.safeParse({ firstCost: { equipment: -5 } });
+    expect(bad.success).toBe(false);
+    expect(bad.error?.issues.map((i) => i.path.join("."))).toEqual(["firstCost.equipment"]);
   });
 
   it("defaults come from economicsFieldDefaults, each with a source", () => {

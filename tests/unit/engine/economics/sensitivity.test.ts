@@ -24,7 +24,7 @@ describe("tornado and break-even", () => {
   });
   // A dearer cooler, so that water and sewer prices within the search range can make it tie.
   const closedCosts = args.options[2]?.costs;
-  if (closedCosts) closedCosts.firstCost.equipment = 800000;
+  if (closedCosts?.firstCost) closedCosts.firstCost.equipment = 800000;
   const r = analyzeEconomics(args);
   const s = r.sensitivity;
   const stored = {

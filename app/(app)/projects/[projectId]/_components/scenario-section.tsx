@@ -40,7 +40,9 @@ export async function ScenarioSection({ access }: { access: ProjectAccess }) {
                   </p>
                 </div>
                 <p className="text-sm text-ink-soft" data-testid="scenario-latest">
-                  {s.latest
+                  {s.latest && s.latest.firstCostsMissing.length > 0
+                    ? `Analysed · first costs missing for ${s.latest.firstCostsMissing.join(", ")}`
+                    : s.latest
                     ? `Lowest ${s.latest.studyPeriodYears}-year cost: ${s.latest.lowestLabel.toLowerCase()}${s.latest.marginLcc !== null ? `, by ${money(s.latest.marginLcc, access.project.currency)}` : ""}`
                     : "not analysed yet"}
                 </p>

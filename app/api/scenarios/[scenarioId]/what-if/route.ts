@@ -2,6 +2,8 @@ import { NextResponse } from "next/server";
 import { authorizeScenarioApi, draftSource, issuedSource, issuedVersionOf } from "@/lib/scenarios/data";
 import { toFieldErrors } from "@/lib/result";
 import { jsonError, readJsonBody, resultResponse } from "@/lib/http";
+import { firstCostsMissingLabels } from "@/lib/scenarios/first-costs";
+import { firstCostsMissingText } from "@/lib/scenarios/first-costs";
 import { needsPhysics } from "@/lib/engine/what-if";
 import {
   computeWhatIf,
@@ -47,6 +49,8 @@ export async function POST(request: Request, { params }: { params: Promise<{ sce
   const prepared = physical ? preparedFor(`${scenarioId}|${src.version ?? "draft"}|${src.inputsHash}`, src.input) : null;
   const fieldErrors = whatIfFieldErrors(parsed.data, src.input, !physical || prepared !== null);
   if (Object.keys(fieldErrors).length > 0) return jsonError(422, "The what-if values are not valid for this scenario.", { fieldErrors });
+  const missing = firstCostsMissingLabels(src.result.economics);
+  if (missing.length > 0) return jsonError(409, firstCostsMissingText(missing));
   const r = computeWhatIf(src.input, src.result, parsed.data, access.project.unitSystem, access.project.currency, prepared);
   return NextResponse.json({ ...r, version: src.version }, { headers: { "cache-control": "no-store" } });
 }
