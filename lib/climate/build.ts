@@ -13,6 +13,7 @@ import {
   type ClimateLocation,
   type DryBulbBinInput,
   type HourlyCsvMapping,
+  type FileDesignConditions,
   type ParsedClimate,
   type WetBulbBinInput,
 } from "@/lib/engine/climate";
@@ -88,6 +89,10 @@ export interface ClimateProvenance {
   pressureSource?: "station" | "site";
   sitePressurePa?: number;
   csvMapping?: HourlyCsvMapping;
+  /** A known file layout read without a mapping (e.g. "TMY3"). */
+  layout?: string;
+  /** The design conditions the file states for itself (an EPW's DESIGN CONDITIONS line). */
+  fileDesignConditions?: FileDesignConditions;
   warnings: ClimateIssue[];
 }
 
@@ -156,6 +161,7 @@ export function datasetFromParsedFile(
     sha256: string;
     siteElevationM: number;
     csvMapping?: HourlyCsvMapping | undefined;
+    layout?: string;
   },
 ): NewDataset {
   const { year, stats, location } = parsed;
@@ -201,6 +207,8 @@ export function datasetFromParsedFile(
     pressureSource: stats.pressureSource,
     sitePressurePa: stats.sitePressurePa,
     ...(meta.csvMapping ? { csvMapping: meta.csvMapping } : {}),
+    ...(meta.layout ? { layout: meta.layout } : {}),
+    ...(parsed.fileDesignConditions ? { fileDesignConditions: parsed.fileDesignConditions } : {}),
     warnings,
   };
   return {

@@ -31,6 +31,13 @@ export const csvMappingSchema = z.object({
         convention: z.enum(["start", "end"]).default("start"),
       }),
       z.object({
+        kind: z.literal("dateAndTime"),
+        date: column,
+        time: column,
+        format: z.enum(["iso", "dmy", "mdy"]).default("mdy"),
+        convention: z.enum(["start", "end"]).default("start"),
+      }),
+      z.object({
         kind: z.literal("monthDayHour"),
         month: column,
         day: column,
@@ -40,7 +47,7 @@ export const csvMappingSchema = z.object({
     ],
     { error: "pick how time is given" },
   ),
-  pressure: z.object({ column, unit: z.enum(["Pa", "hPa", "kPa"]) }).optional(),
+  pressure: z.object({ column, unit: z.enum(["Pa", "hPa", "mbar", "kPa"]) }).optional(),
 }).superRefine((m, ctx) => {
   if (m.delimiter === "," && m.decimalSeparator === ",") {
     ctx.addIssue({ code: "custom", path: ["decimalSeparator"], message: "a decimal comma needs a delimiter other than the comma" });
@@ -66,7 +73,9 @@ export function toHourlyCsvMapping(m: CsvMapping, extra: { elevationM: number; l
     time:
       m.time.kind === "timestamp"
         ? { kind: "timestamp", column: m.time.column, format: m.time.format, convention: m.time.convention }
-        : { kind: "monthDayHour", month: m.time.month, day: m.time.day, hour: m.time.hour, hourConvention: m.time.hourConvention },
+        : m.time.kind === "dateAndTime"
+          ? { kind: "dateAndTime", date: m.time.date, time: m.time.time, format: m.time.format, convention: m.time.convention }
+          : { kind: "monthDayHour", month: m.time.month, day: m.time.day, hour: m.time.hour, hourConvention: m.time.hourConvention },
     ...(m.pressure ? { pressure: m.pressure } : {}),
     elevationM: extra.elevationM,
     ...(extra.label ? { label: extra.label } : {}),
@@ -81,6 +90,8 @@ export interface CsvPreview {
   rows: string[][];
   /** Lines in the file (approximate: line breaks counted). */
   lineCount: number;
+  /** The first raw lines of the file, so the browser can re-read the preview with another header line. */
+  headLines: string[];
   guess: CsvMappingInput;
 }
 
@@ -118,6 +129,9 @@ export function guessCsvMapping(header: string[], rows: string[][], delimiter: "
   const day = findColumn(header, [/^(day|dd|dom)$/]);
   const hour = findColumn(header, [/^(hour|hr|hh|hour[ _-]?of[ _-]?day)$/]);
   const stamp = findColumn(header, [/time ?stamp|date ?time|^date|^time|^timestamp|^ts$/]);
+  // A date column and a separate clock-time column ("Date (MM/DD/YYYY)" and "Time (HH:MM)").
+  const dateOnly = findColumn(header, [/^date(?!\s*[-_ ]?time)/]);
+  const timeOnly = findColumn(header, [/^(time|hh:mm|clock)(?!\s*stamp)/], dateOnly !== undefined ? [dateOnly] : []);
   const dew = findColumn(header, [/dew|tdp|td\b/]);
   const wet = findColumn(header, [/wet|twb|\bwb\b/]);
   const rh = findColumn(header, [/\brh\b|rh_|relative|humid/]);
@@ -138,10 +152,21 @@ export function guessCsvMapping(header: string[], rows: string[][], delimiter: "
   }
   const firstStamp = stamp !== undefined ? (rows[0]?.[stamp] ?? "").trim() : "";
   const format: "iso" | "dmy" | "mdy" = /^\d{4}-/.test(firstStamp) ? "iso" : /^\d{1,2}\/\d{1,2}\//.test(firstStamp) ? "mdy" : "dmy";
+  const firstDate = dateOnly !== undefined ? (rows[0]?.[dateOnly] ?? "").trim() : "";
+  const dateFormat: "iso" | "dmy" | "mdy" = /^\d{4}-/.test(firstDate) ? "iso" : /^\d{1,2}\.\d{1,2}\./.test(firstDate) ? "dmy" : "mdy";
   const time =
     month !== undefined && day !== undefined && hour !== undefined
       ? { kind: "monthDayHour" as const, month, day, hour, hourConvention: "auto" as const }
-      : { kind: "timestamp" as const, column: stamp ?? 0, format, convention: "start" as const };
+      : dateOnly !== undefined && timeOnly !== undefined && dateOnly !== timeOnly
+        ? {
+            kind: "dateAndTime" as const,
+            date: dateOnly,
+            time: timeOnly,
+            format: dateFormat,
+            // Hour-ending files write 01:00 … 24:00; the first rows show 01:00 where hour-starting ones show 00:00.
+            convention: /^0?1:00/.test((rows[0]?.[timeOnly] ?? "").trim()) ? ("end" as const) : ("start" as const),
+          }
+        : { kind: "timestamp" as const, column: stamp ?? 0, format, convention: "start" as const };
   return {
     delimiter,
     decimalSeparator: decimal,
@@ -154,24 +179,48 @@ export function guessCsvMapping(header: string[], rows: string[][], delimiter: "
   };
 }
 
-/** The first rows of a CSV text with a detected delimiter and decimal separator and a mapping guess. */
-export function previewCsv(text: string): CsvPreview {
-  const body = text.replace(/^\uFEFF/, "");
+const HEAD_LINES = 40;
+
+/**
+ * The line the header is on (0-based): the first line with as many fields as the lines after it, so a
+ * preamble (a station line, notes) above the header is skipped.
+ */
+export function detectHeaderLine(lines: string[], delimiter: "," | ";" | "\t"): number {
+  const counts = lines.map((l) => (l.trim() === "" ? 0 : Papa.parse<string[]>(l, { delimiter }).data[0]?.length ?? 0));
+  const tail = counts.slice(Math.min(counts.length - 1, 10)).filter((c) => c > 0);
+  const tally = new Map<number, number>();
+  for (const c of tail) tally.set(c, (tally.get(c) ?? 0) + 1);
+  const usual = [...tally.entries()].sort((a, b) => b[1] - a[1])[0]?.[0];
+  if (usual === undefined) return 0;
+  const i = counts.findIndex((c) => c === usual);
+  return i < 0 ? 0 : Math.min(i, 100);
+}
+
+/**
+ * The first rows of a CSV text with a detected delimiter, decimal separator and header line and a mapping
+ * guess. `skipLines` (lines above the header) is detected when not given.
+ */
+export function previewCsv(text: string, skipLines?: number): CsvPreview {
+  const full = text.replace(/^\uFEFF/, "");
+  const allHead = full.slice(0, 64 * 1024).split(/\r\n|\n|\r/).slice(0, HEAD_LINES);
+  const delimiter = detectDelimiter(allHead.slice(Math.min(allHead.length - 1, 5)).join("\n"));
+  const skip = skipLines ?? detectHeaderLine(allHead, delimiter);
+  const body = full.split(/\r\n|\n|\r/).slice(skip).join("\n");
   const sample = body.slice(0, 64 * 1024);
-  const delimiter = detectDelimiter(sample);
   const parsed = Papa.parse<string[]>(sample, { delimiter, preview: PREVIEW_ROWS + 1, skipEmptyLines: true });
   const [header = [], ...rows] = parsed.data;
   const decimalComma = delimiter !== "," && rows.some((r) => r.some((c) => /^-?\d+,\d+$/.test(c.trim())));
   const decimalSeparator = decimalComma ? "," : ".";
   let lineCount = 0;
-  for (let i = 0; i < body.length; i++) if (body.charCodeAt(i) === 10) lineCount++;
-  if (body.length > 0 && !body.endsWith("\n")) lineCount++;
+  for (let i = 0; i < full.length; i++) if (full.charCodeAt(i) === 10) lineCount++;
+  if (full.length > 0 && !full.endsWith("\n")) lineCount++;
   return {
     delimiter,
     decimalSeparator,
     header,
     rows,
     lineCount,
-    guess: guessCsvMapping(header, rows, delimiter, decimalSeparator),
+    headLines: allHead,
+    guess: { ...guessCsvMapping(header, rows, delimiter, decimalSeparator), skipLines: skip },
   };
 }

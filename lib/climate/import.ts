@@ -4,7 +4,7 @@ import type { Executor } from "@/db/schema";
 import { inTransaction } from "@/db/transaction";
 import { insertClimateDataset } from "@/db/queries/climate";
 import { writeAudit } from "@/db/queries/audit";
-import { parseEpw, parseHourlyCsv, type ClimateIssue } from "@/lib/engine/climate";
+import { looksLikeTmy3, parseEpw, parseHourlyCsv, parseTmy3, parseTmy3StationLine, tmy3Mapping, type ClimateIssue } from "@/lib/engine/climate";
 import { binTableSubmissionSchema } from "./bins-schema";
 import { ok, toFieldErrors, type FieldErrorMap, type Result } from "@/lib/result";
 import { defineAction } from "@/lib/actions/define";
@@ -98,7 +98,7 @@ export async function readClimateUpload(request: Request): Promise<{ ok: true; f
 }
 
 /** What a file is, from its content first and its name second. */
-export function sniffWeatherFile(file: UploadedFile): { kind: "epw" | "csv"; text: string } | { error: ImportOutcome } {
+export function sniffWeatherFile(file: UploadedFile): { kind: "epw" | "tmy3" | "csv"; text: string } | { error: ImportOutcome } {
   const b = file.bytes;
   if (b.byteLength === 0) return { error: fail(422, "The file is empty.", { issues: [{ line: 0, field: "file", message: "the file has no content" }] }) };
   if (b[0] === 0x50 && b[1] === 0x4b && b[2] === 0x03 && b[3] === 0x04) {
@@ -120,6 +120,8 @@ export function sniffWeatherFile(file: UploadedFile): { kind: "epw" | "csv"; tex
   const ext = (file.name.toLowerCase().match(/\.([a-z0-9]+)$/)?.[1] ?? "").trim();
   const looksEpw = /^\s*LOCATION\s*,/i.test(text);
   if (looksEpw || ext === "epw") return { kind: "epw", text };
+  // The TMY3 layout (station line, then its own header) is read without asking for a column mapping.
+  if (looksLikeTmy3(text)) return { kind: "tmy3", text };
   if (["csv", "txt", "tsv", "dat", ""].includes(ext)) return { kind: "csv", text };
   return { error: fail(415, `A .${ext} file is not a weather file LoopLedger reads. Upload an EnergyPlus .epw file or an hourly .csv table.`) };
 }
@@ -175,6 +177,16 @@ export async function importClimateFile(
     const parsed = parseEpw(sniffed.text);
     if (!parsed.ok) return fail(422, "The EPW file could not be read. Nothing was saved.", { issues: parsed.errors });
     const ds = datasetFromParsedFile(parsed.value, parsed.warnings, { ...meta, sourceKind: "epw" });
+    const datasetId = await store(db, target, ds);
+    return { status: 201, body: { ok: true, datasetId, name: ds.name, warnings: ds.provenance.warnings } };
+  }
+
+  if (sniffed.kind === "tmy3") {
+    const parsed = parseTmy3(sniffed.text);
+    if (!parsed.ok) return fail(422, "The file has the TMY3 layout but could not be read. Nothing was saved.", { issues: parsed.errors });
+    const station = parseTmy3StationLine(sniffed.text.split(/\r?\n/, 1)[0] ?? "");
+    const csvMapping = station ? (({ notes: _notes, ...m }) => m)(tmy3Mapping(sniffed.text, station)) : undefined;
+    const ds = datasetFromParsedFile(parsed.value, parsed.warnings, { ...meta, sourceKind: "csv", layout: "TMY3", ...(csvMapping ? { csvMapping } : {}) });
     const datasetId = await store(db, target, ds);
     return { status: 201, body: { ok: true, datasetId, name: ds.name, warnings: ds.provenance.warnings } };
   }

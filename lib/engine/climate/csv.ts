@@ -35,6 +35,15 @@ export type CsvTimeMapping =
       convention?: "start" | "end";
     }
   | {
+      /** The date in one column and the clock time in another (e.g. "07/01/1988" and "14:00"). */
+      kind: "dateAndTime";
+      date: ColumnRef;
+      time: ColumnRef;
+      format?: "iso" | "dmy" | "mdy";
+      /** "end" for hour-ending clock times (01:00 … 24:00, as in typical-year files). */
+      convention?: "start" | "end";
+    }
+  | {
       kind: "monthDayHour";
       month: ColumnRef;
       day: ColumnRef;
@@ -56,7 +65,7 @@ export interface HourlyCsvMapping {
   humidity: CsvHumidityMapping;
   time: CsvTimeMapping;
   /** Optional station pressure column; otherwise `sitePressurePa`, or the pressure at `elevationM`. */
-  pressure?: { column: ColumnRef; unit: "Pa" | "hPa" | "kPa" };
+  pressure?: { column: ColumnRef; unit: "Pa" | "hPa" | "mbar" | "kPa" };
   sitePressurePa?: number;
   elevationM?: number;
   /** Cell texts meaning "missing", compared after trimming (case-insensitive). */
@@ -67,7 +76,8 @@ export interface HourlyCsvMapping {
 
 const DEFAULT_MISSING = ["", "na", "n/a", "nan", "null", "none", "-", "--", "m"];
 const MAX_ERRORS = 50;
-const PRESSURE_FACTOR = { Pa: 1, hPa: 100, kPa: 1000 } as const;
+/** Pa per unit; 1 mbar = 1 hPa = 100 Pa (NIST SP 811 App. B.8). */
+const PRESSURE_FACTOR = { Pa: 1, hPa: 100, mbar: 100, kPa: 1000 } as const;
 
 interface ResolvedColumn {
   index: number;
@@ -212,7 +222,9 @@ function parseHourlyCsvUnsafe(text: string, mapping: HourlyCsvMapping): ParseRes
   const timeCols =
     time.kind === "timestamp"
       ? { stamp: col(time.column, "timestamp") }
-      : { month: col(time.month, "month"), day: col(time.day, "day"), hour: col(time.hour, "hour") };
+      : time.kind === "dateAndTime"
+        ? { date: col(time.date, "date"), clock: col(time.time, "time") }
+        : { month: col(time.month, "month"), day: col(time.day, "day"), hour: col(time.hour, "hour") };
   if (errors.length > 0) return { ok: false, errors };
 
   const toC = mapping.temperatureUnit === "F" ? (f: number) => ((f - 32) * 5) / 9 : (c: number) => c;
@@ -278,6 +290,20 @@ function parseHourlyCsvUnsafe(text: string, mapping: HourlyCsvMapping): ParseRes
           line,
           field: c.label,
           message: `"${row[c.index]}" is not a ${time.format ?? "iso"} timestamp of a real date and time`,
+        });
+        continue;
+      }
+      ({ month, day, hour } = ts);
+    } else if (time.kind === "dateAndTime") {
+      const dc = timeCols.date!;
+      const tc = timeCols.clock!;
+      const text = `${row[dc.index]!.trim()} ${row[tc.index]!.trim()}`;
+      const ts = readTimestamp(text, time.format ?? "mdy", time.convention ?? "start");
+      if (!ts) {
+        errors.push({
+          line,
+          field: `${dc.label} + ${tc.label}`,
+          message: `"${row[dc.index]}" and "${row[tc.index]}" are not a ${time.format ?? "mdy"} date and a clock time of a real date`,
         });
         continue;
       }

@@ -21,6 +21,7 @@ import {
   ClimateParseError,
   type ClimateIssue,
   type ClimateLocation,
+  type FileDesignConditions,
   type ParsedClimate,
   type ParseResult,
 } from "./types";
@@ -167,6 +168,36 @@ function readValue(raw: string | undefined, spec: FieldSpec, outOfRange: { n: nu
  * where the dew point is missing) by ASHRAE 2017 ch.1 eqs. 33/35 at the station or site pressure.
  * Never throws: malformed input gives `{ ok: false, errors }` with line numbers and field names.
  */
+/**
+ * The file's own DESIGN CONDITIONS line: undefined when it states none ("DESIGN CONDITIONS,0"), null when
+ * it cannot be read. EnergyPlus weather files carry the ASHRAE Handbook—Fundamentals climatic design table of
+ * their station; after the "Cooling" keyword come the hottest month, its mean daily range, then the 0.4, 1
+ * and 2 % dry-bulb each with its mean coincident wet-bulb, then the 0.4, 1 and 2 % evaporation wet-bulb each
+ * with its mean coincident dry-bulb [memory: the 2009 table's column order as written into EPW files].
+ */
+export function parseDesignConditions(line: string): FileDesignConditions | undefined | null {
+  const f = line.split(",").map((s) => s.trim());
+  const count = Number(f[1]);
+  if (!Number.isFinite(count) || count < 1) return undefined;
+  const source = f[2] ?? "";
+  const c = f.findIndex((x) => x.toLowerCase() === "cooling");
+  if (c < 0) return null;
+  const n = (k: number) => {
+    const raw = f[c + k];
+    const v = raw === undefined || raw === "" ? NaN : Number(raw);
+    return Number.isFinite(v) ? v : NaN;
+  };
+  const pcts = [0.4, 1, 2];
+  const dry = pcts.map((p, i) => ({ exceedancePercent: p, dryBulbC: n(3 + 2 * i), meanCoincidentWetBulbC: n(4 + 2 * i) }));
+  const wet = pcts.map((p, i) => ({ exceedancePercent: p, wetBulbC: n(9 + 2 * i), meanCoincidentDryBulbC: n(10 + 2 * i) }));
+  const plausible = (t: number) => Number.isFinite(t) && t > -60 && t < 60;
+  const ok =
+    wet.every((w) => plausible(w.wetBulbC) && plausible(w.meanCoincidentDryBulbC) && w.wetBulbC <= w.meanCoincidentDryBulbC + 0.05) &&
+    dry.every((d) => plausible(d.dryBulbC) && plausible(d.meanCoincidentWetBulbC));
+  if (!ok) return null;
+  return { source, coolingWetBulbC: wet, coolingDryBulbC: dry };
+}
+
 export function parseEpw(text: string, options: EpwOptions = {}): ParseResult<ParsedClimate> {
   return catchParseErrors(() => parseEpwUnsafe(text, options));
 }
@@ -197,6 +228,10 @@ function parseEpwUnsafe(text: string, options: EpwOptions): ParseResult<ParsedCl
 
   const location = parseLocation(lines[0]!, errors);
   if (!location) return { ok: false, errors };
+  const designConditions = parseDesignConditions(lines[1]!);
+  if (designConditions === null) {
+    warnings.push({ line: 2, field: "DESIGN CONDITIONS", message: "the file's design conditions could not be read; only the computed percentiles are shown" });
+  }
 
   const periods = lines[7]!.split(",").map((s) => s.trim());
   const declared = Number(periods[2]);
@@ -337,7 +372,12 @@ function parseEpwUnsafe(text: string, options: EpwOptions): ParseResult<ParsedCl
   if (!assembled.ok) return assembled;
   return {
     ok: true,
-    value: { location, year: assembled.value.year, stats: assembled.value.stats },
+    value: {
+      location,
+      ...(designConditions ? { fileDesignConditions: designConditions } : {}),
+      year: assembled.value.year,
+      stats: assembled.value.stats,
+    },
     warnings: [...warnings, ...assembled.warnings],
   };
 }

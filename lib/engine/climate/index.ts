@@ -7,7 +7,8 @@ export {
   HOURS_PER_YEAR,
   HOURS_PER_LEAP_YEAR,
 } from "./input";
-export { parseEpw, EPW_FIELDS_PER_ROW, EPW_HEADER_LINES, type EpwOptions } from "./epw";
+export { parseEpw, parseDesignConditions, EPW_FIELDS_PER_ROW, EPW_HEADER_LINES, type EpwOptions } from "./epw";
+export { parseTmy3, looksLikeTmy3, parseTmy3StationLine, tmy3Mapping, type Tmy3Station } from "./tmy3";
 export {
   parseHourlyCsv,
   type HourlyCsvMapping,

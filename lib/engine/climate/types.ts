@@ -81,8 +81,23 @@ export interface ClimateParseStats {
   sitePressurePa: number;
 }
 
+/**
+ * The design conditions a weather file states for itself (an EPW's DESIGN CONDITIONS line), shown beside
+ * the percentiles LoopLedger computes from the hours. Annual cooling values at 0.4, 1 and 2 % exceedance.
+ */
+export interface FileDesignConditions {
+  /** Where the file says they come from, e.g. "Climate Design Data 2009 ASHRAE Handbook". */
+  source: string;
+  /** Evaporation design wet-bulb with its mean coincident dry-bulb, °C. */
+  coolingWetBulbC: { exceedancePercent: number; wetBulbC: number; meanCoincidentDryBulbC: number }[];
+  /** Cooling design dry-bulb with its mean coincident wet-bulb, °C. */
+  coolingDryBulbC: { exceedancePercent: number; dryBulbC: number; meanCoincidentWetBulbC: number }[];
+}
+
 export interface ParsedClimate {
   location?: ClimateLocation;
+  /** Design conditions stated in the file itself (EPW), when present and readable. */
+  fileDesignConditions?: FileDesignConditions;
   year: HourlyClimateYear;
   stats: ClimateParseStats;
 }

@@ -50,6 +50,7 @@ export default async function ClimateSummaryPage({ params }: { params: Promise<{
   const missingEntries = Object.entries(p.missingValues ?? {}).filter(([k, n]) => n > 0 && !(k === "pressurePa" && p.pressureSource === "site"));
   const interpolatedEntries = Object.entries(p.interpolatedHours ?? {}).filter(([, n]) => n > 0);
   const freezing = s.dryBulb.minC !== null && s.dryBulb.minC < 0;
+  const fileDesign = p.fileDesignConditions;
 
   return (
     <>
@@ -156,6 +157,7 @@ export default async function ClimateSummaryPage({ params }: { params: Promise<{
                   <th className="py-1 pr-4 font-medium">Exceeded for</th>
                   <th className="py-1 pr-4 text-right font-medium">Hours a year</th>
                   <th className="py-1 text-right font-medium">Wet-bulb</th>
+                  {fileDesign ? <th className="py-1 pl-4 text-right font-medium">Stated in the file</th> : null}
                 </tr>
               </thead>
               <tbody>
@@ -164,6 +166,14 @@ export default async function ClimateSummaryPage({ params }: { params: Promise<{
                     <td className="py-1 pr-4">{d.exceedancePercent} % of the hours</td>
                     <td className="num py-1 pr-4">{formatNumber((d.exceedancePercent / 100) * s.hours, { decimals: 0 })} h</td>
                     <td className="num py-1 font-semibold">{t(d.wetBulbC, u)}</td>
+                    {fileDesign ? (
+                      <td className="num py-1 pl-4 text-ink-soft" data-testid={`file-design-${d.exceedancePercent}`}>
+                        {(() => {
+                          const f = fileDesign.coolingWetBulbC.find((x) => x.exceedancePercent === d.exceedancePercent);
+                          return f ? `${t(f.wetBulbC, u)} (MCDB ${t(f.meanCoincidentDryBulbC, u)})` : "—";
+                        })()}
+                      </td>
+                    ) : null}
                   </tr>
                 ))}
               </tbody>
@@ -172,6 +182,11 @@ export default async function ClimateSummaryPage({ params }: { params: Promise<{
               Annual exceedance percentiles as in ASHRAE Handbook—Fundamentals (2017) ch.14{isHourly ? "" : "; from bins, the value of the bin in which the hours are reached"}.
               Select equipment at the design wet-bulb your client and the authority accept; this is the typical year, not an extreme.
             </p>
+            {fileDesign ? (
+              <p className="mt-2 text-xs text-ink-faint" data-testid="file-design-source">
+                “Stated in the file”: the file&apos;s own DESIGN CONDITIONS line ({fileDesign.source || "source not named"}), evaporation wet-bulb with its mean coincident dry-bulb. It comes from the station&apos;s long-term record, so it may differ from the percentiles of this one typical year.
+              </p>
+            ) : null}
           </Panel>
         </div>
 

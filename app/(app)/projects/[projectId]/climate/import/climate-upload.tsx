@@ -4,7 +4,7 @@ import { useId, useState, type FormEvent, type ReactNode } from "react";
 import { useRouter } from "next/navigation";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/forms/field-shell";
-import type { CsvMappingInput, CsvPreview } from "@/lib/climate/csv-mapping";
+import { previewCsv, type CsvMappingInput, type CsvPreview } from "@/lib/climate/csv-mapping";
 import { formatNumber } from "@/lib/units";
 
 interface Issue {
@@ -59,6 +59,19 @@ function Fieldset({ legend, children }: { legend: string; children: ReactNode })
   );
 }
 
+/** The mapping's parts by name, for messages about them (never a schema path). */
+const MAPPING_FIELD_NAMES: Record<string, string> = {
+  delimiter: "Delimiter",
+  decimalSeparator: "Decimal separator",
+  skipLines: "Header on line",
+  hasHeader: "Header line",
+  temperatureUnit: "Temperatures in",
+  dryBulb: "Dry-bulb column",
+  humidity: "Humidity",
+  time: "Time",
+  pressure: "Station pressure",
+};
+
 /** Humidity choice as one select: RH in % or as a fraction, dew point, or wet-bulb. */
 type HumidityChoice = "rhPercent" | "rhFraction" | "dewPoint" | "wetBulb";
 function humidityChoice(m: CsvMappingInput): HumidityChoice {
@@ -66,7 +79,18 @@ function humidityChoice(m: CsvMappingInput): HumidityChoice {
   return m.humidity.kind;
 }
 
-function MappingEditor({ preview, mapping, onChange }: { preview: CsvPreview; mapping: CsvMappingInput; onChange: (m: CsvMappingInput) => void }) {
+function MappingEditor({
+  preview,
+  mapping,
+  onChange,
+  onHeaderLine,
+}: {
+  preview: CsvPreview;
+  mapping: CsvMappingInput;
+  onChange: (m: CsvMappingInput) => void;
+  /** Re-read the preview with the header on another line (lines above it are skipped). */
+  onHeaderLine: (skipLines: number) => void;
+}) {
   const columns = preview.header.map((h, i) => ({ value: String(i), label: `${i + 1}: ${mapping.hasHeader === false ? `column ${i + 1}` : h || `column ${i + 1}`}` }));
   const set = (patch: Partial<CsvMappingInput>) => onChange({ ...mapping, ...patch });
   const time = mapping.time;
@@ -103,6 +127,28 @@ function MappingEditor({ preview, mapping, onChange }: { preview: CsvPreview; ma
       </div>
 
       <Fieldset legend="How the file is written">
+        <div>
+          <label htmlFor="csv-header-line" className="block text-sm font-medium">
+            Header on line
+          </label>
+          <input
+            id="csv-header-line"
+            data-testid="csv-header-line"
+            type="number"
+            min={1}
+            max={40}
+            value={(mapping.skipLines ?? 0) + 1}
+            onChange={(e) => {
+              const n = Math.round(Number(e.target.value));
+              if (Number.isFinite(n) && n >= 1 && n <= 40) onHeaderLine(n - 1);
+            }}
+            className="mt-1 w-full rounded-md border border-line-strong bg-paper-raised px-3 py-2 text-sm"
+            aria-describedby="csv-header-line-hint"
+          />
+          <p id="csv-header-line-hint" className="mt-1 text-xs text-ink-faint">
+            {(mapping.skipLines ?? 0) === 0 ? "No lines above the header." : `The ${mapping.skipLines} line${mapping.skipLines === 1 ? "" : "s"} above it are skipped (station data, notes).`}
+          </p>
+        </div>
         <Select
           label="Delimiter"
           value={mapping.delimiter}
@@ -143,13 +189,17 @@ function MappingEditor({ preview, mapping, onChange }: { preview: CsvPreview; ma
               time:
                 v === "timestamp"
                   ? { kind: "timestamp", column: 0, format: "iso", convention: "start" }
-                  : { kind: "monthDayHour", ...mdhDefaults, hourConvention: "auto" },
+                  : v === "dateAndTime"
+                    ? { kind: "dateAndTime", date: 0, time: 1, format: "mdy", convention: "start" }
+                    : { kind: "monthDayHour", ...mdhDefaults, hourConvention: "auto" },
             })
           }
           options={[
             { value: "timestamp", label: "One date-and-time column" },
+            { value: "dateAndTime", label: "A date column and a time column" },
             { value: "monthDayHour", label: "Month, day and hour columns" },
           ]}
+          testId="csv-time-kind"
         />
         {time.kind === "timestamp" ? (
           <>
@@ -171,6 +221,30 @@ function MappingEditor({ preview, mapping, onChange }: { preview: CsvPreview; ma
               options={[
                 { value: "start", label: "the start of its hour" },
                 { value: "end", label: "the end of its hour" },
+              ]}
+            />
+          </>
+        ) : time.kind === "dateAndTime" ? (
+          <>
+            <Select label="Date column" value={String(time.date)} onChange={(v) => set({ time: { ...time, date: Number(v) } })} options={columns} testId="csv-date-column" />
+            <Select label="Time column" value={String(time.time)} onChange={(v) => set({ time: { ...time, time: Number(v) } })} options={columns} testId="csv-time-column" />
+            <Select
+              label="Date format"
+              value={time.format ?? "mdy"}
+              onChange={(v) => set({ time: { ...time, format: v as "iso" | "dmy" | "mdy" } })}
+              options={[
+                { value: "iso", label: "2023-07-31" },
+                { value: "dmy", label: "31.07.2023 (day first)" },
+                { value: "mdy", label: "07/31/2023 (month first)" },
+              ]}
+            />
+            <Select
+              label="A time marks"
+              value={time.convention ?? "start"}
+              onChange={(v) => set({ time: { ...time, convention: v as "start" | "end" } })}
+              options={[
+                { value: "start", label: "the start of its hour (00:00 … 23:00)" },
+                { value: "end", label: "the end of its hour (01:00 … 24:00)" },
               ]}
             />
           </>
@@ -233,9 +307,10 @@ function MappingEditor({ preview, mapping, onChange }: { preview: CsvPreview; ma
           <Select
             label="Pressure unit"
             value={mapping.pressure.unit}
-            onChange={(v) => set({ pressure: { column: mapping.pressure!.column, unit: v as "Pa" | "hPa" | "kPa" } })}
+            onChange={(v) => set({ pressure: { column: mapping.pressure!.column, unit: v as "Pa" | "hPa" | "mbar" | "kPa" } })}
             options={[
-              { value: "hPa", label: "hPa (mbar)" },
+              { value: "hPa", label: "hPa" },
+              { value: "mbar", label: "mbar" },
               { value: "kPa", label: "kPa" },
               { value: "Pa", label: "Pa" },
             ]}
@@ -294,7 +369,7 @@ export function ClimateUpload({ projectId, maxBytes }: { projectId: string; maxB
       }
       setError(data.error ?? `The upload failed (${res.status}).`);
       setIssues(data.issues ?? []);
-      setMappingErrors(Object.entries(data.fieldErrors ?? {}).map(([k, v]) => `${k}: ${v.join(" ")}`));
+      setMappingErrors(Object.entries(data.fieldErrors ?? {}).map(([k, v]) => `${MAPPING_FIELD_NAMES[k.split(".")[0] ?? ""] ?? "Column mapping"}: ${v.join(" ")}`));
     } catch {
       setError("The upload did not reach the server. Check the connection and try again; nothing was saved.");
     } finally {
@@ -343,7 +418,19 @@ export function ClimateUpload({ projectId, maxBytes }: { projectId: string; maxB
         </div>
       </div>
 
-      {preview && mapping ? <MappingEditor preview={preview} mapping={mapping} onChange={setMapping} /> : null}
+      {preview && mapping ? (
+        <MappingEditor
+          preview={preview}
+          mapping={mapping}
+          onChange={setMapping}
+          onHeaderLine={(skip) => {
+            // The first lines came with the preview: read them again with the header lower down.
+            const again = previewCsv(preview.headLines.join("\n"), skip);
+            setPreview({ ...again, lineCount: preview.lineCount, headLines: preview.headLines });
+            setMapping(again.guess);
+          }}
+        />
+      ) : null}
 
       <div aria-live="polite">
         {error ? (
