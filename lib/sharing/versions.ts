@@ -3,6 +3,7 @@ import { optionsWithoutFirstCost } from "@/lib/scenarios/first-costs";
 import type { Executor } from "@/db/schema";
 import { inTransaction } from "@/db/transaction";
 import { defineAction } from "@/lib/actions/define";
+import { findScenario } from "@/db/queries/scenarios";
 import { authorizeProject, isUuid, type ProjectAccess, type Viewer } from "@/lib/auth/access";
 import { writeAudit } from "@/db/queries/audit";
 import {
@@ -115,7 +116,13 @@ export async function scenarioVersions(
   viewer: Viewer | null,
   projectId: string,
   scenarioId: string,
-): Promise<Result<{ access: ProjectAccess; draft: { id: string; name: string; revision: number; archived: boolean } | null; versions: IssuedVersionSummary[] }>> {
+): Promise<
+  Result<{
+    access: ProjectAccess;
+    draft: { id: string; name: string; revision: number; archived: boolean; firstCostsMissing: string[] } | null;
+    versions: IssuedVersionSummary[];
+  }>
+> {
   const auth = await authorizeProject(db, viewer, projectId, "scenario.viewIssued");
   if (!auth.ok) return auth;
   if (!isUuid(scenarioId)) return REFUSALS.notFound;
@@ -126,7 +133,16 @@ export async function scenarioVersions(
   if (!seesDraft && versions.length === 0) return REFUSALS.notFound;
   return ok({
     access: auth.access,
-    draft: seesDraft ? { id: header.id, name: header.name, revision: header.revision, archived: Boolean(header.archivedAt) } : null,
+    draft: seesDraft
+      ? {
+          id: header.id,
+          name: header.name,
+          revision: header.revision,
+          archived: Boolean(header.archivedAt),
+          // Issuing needs every option's first cost: the page says so before the person tries.
+          firstCostsMissing: optionsWithoutFirstCost((await findScenario(db, scenarioId))?.input),
+        }
+      : null,
     versions,
   });
 }

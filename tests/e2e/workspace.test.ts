@@ -92,11 +92,9 @@ async function buildAndCompare(system: "IP" | "SI"): Promise<Observed> {
   // Each default carries its source beside the field.
   expect(await page.locator("[data-field='f-options-0-fan-minSpeedFraction'] [data-testid=field-default]").innerText()).toMatch(/Default.*25.*%.*practice/);
 
-  // An empty first cost is refused on the client, at the field.
-  await page.click("[data-testid=save-scenario]");
-  await page.locator("[data-testid=form-error-summary]").waitFor();
-  expect(await page.getAttribute("#f-options-0-costs-firstCost-equipment", "aria-invalid")).toBe("true");
-  if (system === "IP") await screenshot(page, "workspace-editor-errors");
+  // First costs have no default, yet the starter saves as it is (issue 11): the nav says which options wait for them.
+  expect(await page.locator("[data-testid=nav-option-1]").innerText()).toMatch(/first cost/);
+  if (system === "IP") await screenshot(page, "workspace-editor-first-cost-due");
 
   step("client validation seen");
   for (const [i, items] of Object.entries(FIRST_COSTS)) {

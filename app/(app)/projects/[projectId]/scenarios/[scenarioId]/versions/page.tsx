@@ -40,6 +40,13 @@ export default async function VersionsPage({ params }: { params: Promise<{ proje
             </p>
             {draft.archived ? (
               <p className="text-sm text-caution-800">This scenario is archived; restore it before issuing.</p>
+            ) : draft.firstCostsMissing.length > 0 ? (
+              <p className="text-sm text-caution-800" data-testid="issue-needs-first-costs">
+                Enter the first costs of {draft.firstCostsMissing.join(", ")} before issuing: an issued version carries a complete life-cycle cost.{" "}
+                <Link href={`/projects/${projectId}/scenarios/${scenarioId}/edit?section=option-1`} className="text-basin-700 underline">
+                  Enter them in the editor
+                </Link>
+              </p>
             ) : (
               <IssueForm projectId={projectId} scenarioId={scenarioId} nextNumber={nextNumber} />
             )}

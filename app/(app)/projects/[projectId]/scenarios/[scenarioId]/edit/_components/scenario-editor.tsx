@@ -521,6 +521,13 @@ function SectionNav({
 }) {
   const problems = useProblems(store);
   const status = statusBySection(problems);
+  const options = useWatch({ control, name: "options" });
+  // An option without any first-cost item saves and analyses, but its life-cycle cost waits: say so here.
+  const noFirstCost = (id: SectionId) => {
+    const i = optionIndexOfSection(id);
+    const fc = i === null ? undefined : options?.[i]?.costs?.firstCost;
+    return i !== null && !(fc && Object.values(fc).some((v) => typeof v === "number" && Number.isFinite(v)));
+  };
   return (
     <nav
       aria-label="Sections of the scenario"
@@ -531,15 +538,18 @@ function SectionNav({
         {order.map((id, n) => {
           const s = status.get(id);
           const isActive = id === active;
-          const state = !s ? "complete" : s.invalid > 0 ? "errors" : "incomplete";
-          const badge = !s
-            ? "✓"
-            : [
-                s.invalid > 0 ? `${s.invalid} ${s.invalid === 1 ? "error" : "errors"}` : null,
-                s.missing > 0 ? `${s.missing} to fill` : null,
-              ]
-                .filter(Boolean)
-                .join(" · ");
+          const firstCostDue = noFirstCost(id);
+          const state = s && s.invalid > 0 ? "errors" : s || firstCostDue ? "incomplete" : "complete";
+          const badge =
+            state === "complete"
+              ? "✓"
+              : [
+                  s && s.invalid > 0 ? `${s.invalid} ${s.invalid === 1 ? "error" : "errors"}` : null,
+                  s && s.missing > 0 ? `${s.missing} to fill` : null,
+                  firstCostDue ? "first cost" : null,
+                ]
+                  .filter(Boolean)
+                  .join(" · ");
           return (
             <li key={id}>
               <a
@@ -570,7 +580,7 @@ function SectionNav({
         })}
       </ol>
       <p className="mt-4 hidden text-xs text-ink-faint lg:block">
-        ✓ complete · “to fill”: empty fields without a default · errors: values to correct. Values are saved
+        ✓ complete · “to fill”: empty fields without a default · “first cost”: the option analyses, its life-cycle cost waits for it · errors: values to correct. Values are saved
         in SI whatever the units shown.
       </p>
     </nav>

@@ -309,7 +309,7 @@ function FirstCostGroup({ i, kind }: { i: number; kind: OptionKind }) {
   return (
     <Group
       title="First cost"
-      note={`No defaults: enter the quoted amounts from the selection (${currency}, 0 where an item does not apply).`}
+      note={`No defaults: enter the quoted amounts from the selection (${currency}). Until one is entered the scenario still analyses and its life-cycle cost says “first costs missing”; once one item is entered, the items left empty count as 0.`}
     >
       {FIRST_COST_ITEMS.filter((k) => k !== "plateExchanger" || kind === "openTowerPlateHx").map((k) => (
         <Num key={k} name={`options.${i}.costs.firstCost.${k}`} label={FIRST_COST_LABELS[k]} kind="money" />
