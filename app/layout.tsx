@@ -6,6 +6,15 @@ import "./globals.css";
 export const metadata: Metadata = {
   title: { default: "LoopLedger", template: "%s · LoopLedger" },
   description: "Open cooling tower or closed-circuit cooler: water, energy and life-cycle cost, compared.",
+  // Files in public/ (scripts/make-icons.ts renders them from public/icon.svg).
+  icons: {
+    icon: [
+      { url: "/favicon.ico", sizes: "16x16 32x32 48x48" },
+      { url: "/icon.svg", type: "image/svg+xml" },
+    ],
+    apple: { url: "/apple-touch-icon.png", sizes: "180x180" },
+  },
+  manifest: "/site.webmanifest",
 };
 
 export default function RootLayout({ children }: { children: ReactNode }) {

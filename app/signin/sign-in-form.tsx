@@ -2,14 +2,30 @@
 
 import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
-import { useState, type FormEvent } from "react";
+import { useState, useSyncExternalStore, type FormEvent } from "react";
 
 export const GENERIC_SIGN_IN_ERROR = "That e-mail and password did not match an account, or sign-in is paused for a while. Try again.";
+
+const noSubscription = () => () => undefined;
+
+/**
+ * False on the server and while the page hydrates, true once this component's script runs: until then the
+ * form cannot be submitted (a click would otherwise post the password as a plain form before the script
+ * that signs in is ready).
+ */
+function useHydrated(): boolean {
+  return useSyncExternalStore(
+    noSubscription,
+    () => true,
+    () => false,
+  );
+}
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(initialError ? GENERIC_SIGN_IN_ERROR : null);
   const [pending, setPending] = useState(false);
+  const ready = useHydrated();
 
   async function onSubmit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -31,7 +47,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
   }
 
   return (
-    <form onSubmit={onSubmit} className="space-y-4" noValidate>
+    <form onSubmit={onSubmit} method="post" className="space-y-4" noValidate data-ready={ready ? "true" : "false"}>
       <div>
         <label htmlFor="email" className="block text-sm font-medium">E-mail</label>
         <input id="email" name="email" type="email" autoComplete="username" required
@@ -45,9 +61,9 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
       <div aria-live="polite" role="status">
         {error && <p data-testid="signin-error" className="rounded-md bg-danger-50 px-3 py-2 text-sm text-danger-700">{error}</p>}
       </div>
-      <button type="submit" disabled={pending}
+      <button type="submit" disabled={pending || !ready} aria-disabled={pending || !ready}
         className="w-full rounded-md bg-basin-600 px-3 py-2 font-medium text-white hover:bg-basin-700 disabled:bg-basin-300">
-        {pending ? "Signing in…" : "Sign in"}
+        {pending ? "Signing in…" : ready ? "Sign in" : "Loading…"}
       </button>
     </form>
   );
