@@ -90,7 +90,8 @@ export function scenarioWhatIf(
   const sizes = physics.sizeFactorByOptionId ?? {};
   const options = stored.options.map((o) => {
     const s = sizes[o.optionId] ?? 1;
-    if (s === 1) return o;
+    // Without a first cost there is no equipment price to scale.
+    if (s === 1 || !o.costs.firstCost) return o;
     const firstCost = { ...o.costs.firstCost, equipment: o.costs.firstCost.equipment * Math.pow(s, SIZE_COST_EXPONENT) };
     return { ...o, costs: { ...o.costs, firstCost } };
   });
