@@ -153,7 +153,8 @@ describe("optimistic concurrency", () => {
   it("an invalid save returns every field error by path and stores nothing", async () => {
     const c = await newScenario();
     const bad = testDocument() as unknown as { options: Record<string, unknown>[]; economics: Record<string, unknown> };
-    delete (bad.options[0]!.costs as Record<string, unknown>).firstCost;
+    // A missing first cost is not an error (issue 11: the draft analyses without it); a negative one is.
+    (bad.options[0]!.costs as Record<string, unknown>).firstCost = { equipment: -1 };
     (bad.options[2]!.cooler as Record<string, unknown>).leavingFluidC = 50;
     bad.economics.realDiscountRate = 2;
     const r = await saveScenario(db, { scenarioId: c.id, expectedRevision: c.revision, name: "", climateDatasetId: datasetId, document: bad, userId });
@@ -161,7 +162,9 @@ describe("optimistic concurrency", () => {
     if (r.ok || r.kind !== "invalid") throw new Error("expected invalid");
     const paths = Object.keys(r.fieldErrors);
     expect(paths).toContain("name");
-    expect(paths).toContain("options.0.costs.firstCost");
+    expect(paths).toContain("options.0.costs.firstCost.equipment");
+    // Messages a person can act on: no schema library wording.
+    for (const m of Object.values(r.fieldErrors).flat()) expect(m).not.toMatch(/invalid input|expected number|received/i);
     expect(paths).toContain("options.2.cooler.leavingFluidC");
     expect(paths).toContain("economics.realDiscountRate");
     const row = await db.selectFrom("scenarios").select(["revision", "name"]).where("id", "=", c.id).executeTakeFirstOrThrow();
