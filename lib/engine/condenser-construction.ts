@@ -24,6 +24,7 @@ export const CONDENSER_CONSTRUCTION_LABELS: Record<CondenserConstruction, string
 
 export const CONDENSER_MATERIALS = [
   "carbonSteel",
+  "galvanizedSteel",
   "stainlessSteel",
   "copperAlloy",
   "titanium",
@@ -34,6 +35,7 @@ export type CondenserMaterial = (typeof CONDENSER_MATERIALS)[number];
 
 export const CONDENSER_MATERIAL_LABELS: Record<CondenserMaterial, string> = {
   carbonSteel: "Carbon steel tubes",
+  galvanizedSteel: "Hot-dip galvanized steel coil",
   stainlessSteel: "Stainless steel",
   copperAlloy: "Copper alloy (copper, copper-nickel, admiralty brass)",
   titanium: "Titanium",
@@ -41,13 +43,14 @@ export const CONDENSER_MATERIAL_LABELS: Record<CondenserMaterial, string> = {
   stainlessNickelBrazed: "Stainless plates, nickel-brazed",
 };
 
-export const CLEANING_METHODS = ["mechanicalTubeBrushing", "openPlatePack", "chemicalCleanInPlace"] as const;
+export const CLEANING_METHODS = ["mechanicalTubeBrushing", "openPlatePack", "chemicalCleanInPlace", "coilExteriorDescaling"] as const;
 export type CleaningMethod = (typeof CLEANING_METHODS)[number];
 
 export const CLEANING_METHOD_LABELS: Record<CleaningMethod, string> = {
   mechanicalTubeBrushing: "Mechanical tube brushing (water heads off)",
   openPlatePack: "Opening the plate pack and cleaning the plates (or cleaning in place)",
   chemicalCleanInPlace: "Chemical cleaning in place (cannot be opened)",
+  coilExteriorDescaling: "Descaling and cleaning the coil exterior (spray side)",
 };
 
 export const INSPECTION_METHODS = ["eddyCurrentTesting", "visualAtOpening", "none"] as const;

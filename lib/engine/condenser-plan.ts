@@ -23,24 +23,32 @@ import {
   defaultCondenserMaterial,
 } from "./condenser-construction";
 import { designHeatRejectionKW } from "./duty";
+import {
+  EVAPORATIVE_CONDENSER_AMMONIA_CHARGE_KG_PER_KW,
+  EVAPORATIVE_CONDENSER_COIL_CLEANING_COST,
+  EVAPORATIVE_CONDENSER_COIL_LIFE_YEARS,
+} from "./evaporative-condenser";
 import type { EconomicsOptionInput, OptionCostsInput, PeriodicUpkeepItemInput } from "./economics/types";
-import type { DutyInput, FootprintInput, OptionInput, ScenarioInput } from "./input";
+import type { DutyInput, EvaporativeCondenserOptionInput, FootprintInput, OptionInput, ScenarioInput } from "./input";
 import { condenserInventoryKg, inventoryCautions } from "./refrigerant-inventory";
-import { globalWarmingPotential100 } from "./refrigerants";
+import { LIQUID_DENSITY_35C_KG_PER_M3, globalWarmingPotential100, isAmmonia } from "./refrigerants";
 import type { EngineWarning } from "./types";
 
 /** What the option's scheduled cleanings (`OptionAnnualPhysics.cleaningsPerYear`) clean. */
-export type CleanedSurface = "condenser" | "plateExchanger" | "none";
+export type CleanedSurface = "condenser" | "plateExchanger" | "coil" | "none";
 
 export interface CondenserPlan {
   optionId: string;
-  construction: CondenserConstruction;
+  /** The water-cooled condenser's construction, or the evaporative condenser's own coil. */
+  construction: CondenserConstruction | "evaporativeCondenserCoil";
   constructionLabel: string;
   description: string;
-  waterSide: CondenserWaterSide;
+  /** What wets the condensing surface's outside: open-tower water, a closed loop, or recirculating spray water. */
+  waterSide: CondenserWaterSide | "sprayWater";
   material: CondenserMaterial;
   materialLabel: string;
-  cleanUWPerM2K: number;
+  /** Clean overall coefficient of a water-cooled condenser, W/(m²·K); null for the evaporative condenser. */
+  cleanUWPerM2K: number | null;
   /** Multiplier on the tube-fouling growth law; applied only where the condenser sees open-tower water. */
   foulingGrowthMultiplier: number;
   specificChargeKgPerKW: number;
@@ -61,8 +69,66 @@ export interface CondenserPlan {
 }
 
 /** What the water side of an option's condenser sees. */
-export function condenserWaterSide(o: OptionInput): CondenserWaterSide {
-  return o.kind === "openTowerDirect" ? "openTower" : "closedLoop";
+export function condenserWaterSide(o: OptionInput): CondenserWaterSide | "sprayWater" {
+  return o.kind === "openTowerDirect" ? "openTower" : o.kind === "evaporativeCondenser" ? "sprayWater" : "closedLoop";
+}
+
+/**
+ * The evaporative condenser's coil as its condenser: galvanized steel unless entered (copper with ammonia
+ * warns), charge per kW of rated heat rejection (ammonia figure × liquid-density ratio), coil-exterior
+ * cleaning on the scaling interval at the entered or default cost (0 when the option lists its own
+ * descaling item), the coil as the wear part.
+ */
+function evaporativeCoilPlan(o: EvaporativeCondenserOptionInput, index: number, duty: DutyInput): CondenserPlan {
+  const e = o.evaporativeCondenser;
+  const material = e.coilMaterial ?? "galvanizedSteel";
+  const charge =
+    e.specificChargeKgPerKW ??
+    (EVAPORATIVE_CONDENSER_AMMONIA_CHARGE_KG_PER_KW.value * LIQUID_DENSITY_35C_KG_PER_M3[duty.refrigerant]) / LIQUID_DENSITY_35C_KG_PER_M3.R717;
+  const entered = o.costs.upkeep.cleaningCostPerEvent;
+  const ownDescaling = o.costs.upkeep.periodicItems.some((p) => p.kind === "coilExteriorDescaling");
+  const costPerEvent = entered > 0 ? entered : ownDescaling ? 0 : EVAPORATIVE_CONDENSER_COIL_CLEANING_COST.value;
+  const warnings: EngineWarning[] = [];
+  if (isAmmonia(duty.refrigerant) && (material === "copperAlloy" || material === "stainlessCopperBrazed")) {
+    warnings.push({
+      code: "condenser.copperWithAmmonia",
+      severity: "warning",
+      message: "Copper and copper alloys are attacked by ammonia: an ammonia evaporative condenser's coil is galvanized or stainless steel.",
+      path: `options.${index}.evaporativeCondenser.coilMaterial`,
+      optionId: o.id,
+    });
+  }
+  return {
+    optionId: o.id,
+    construction: "evaporativeCondenserCoil",
+    constructionLabel: "Evaporative condenser coil",
+    description:
+      "Refrigerant condenses inside the coil; recirculating spray water wets its outside and air is drawn across it. Scale on the coil exterior cuts capacity until the coil is cleaned and descaled.",
+    waterSide: "sprayWater",
+    material,
+    materialLabel: CONDENSER_MATERIAL_LABELS[material],
+    cleanUWPerM2K: null,
+    foulingGrowthMultiplier: 1,
+    specificChargeKgPerKW: charge,
+    specificChargeSource: e.specificChargeKgPerKW !== undefined ? "entered" : EVAPORATIVE_CONDENSER_AMMONIA_CHARGE_KG_PER_KW.source,
+    inventoryKg: condenserInventoryKg(e.ratedHeatRejectionKW, charge),
+    cleaning: {
+      method: "coilExteriorDescaling",
+      methodLabel: CLEANING_METHOD_LABELS.coilExteriorDescaling,
+      costPerEvent,
+      costSource:
+        entered > 0 ? "entered with the option's upkeep" : ownDescaling ? "in the option's own descaling item" : EVAPORATIVE_CONDENSER_COIL_CLEANING_COST.source,
+      surface: "coil",
+    },
+    inspection: { method: "none", methodLabel: INSPECTION_METHOD_LABELS.none, intervalYears: 0, costPerEvent: 0, source: "[practice] coil and basin are inspected at each cleaning" },
+    wearPart: {
+      name: "coil",
+      lifeYears: e.coilLifeYears ?? EVAPORATIVE_CONDENSER_COIL_LIFE_YEARS.value,
+      replacementCost: e.coilReplacementCost ?? null,
+    },
+    firstCostItems: ["evaporative condenser (coil, fans, spray pump, basin)", "structure and crane", "hot-gas, liquid-drain and purge piping to the unit", "water-treatment equipment"],
+    warnings,
+  };
 }
 
 /**
@@ -70,9 +136,10 @@ export function condenserWaterSide(o: OptionInput): CondenserWaterSide {
  * design heat rejection; the construction warnings (plate on open-tower water, copper with ammonia).
  */
 export function condenserPlan(o: OptionInput, index: number, duty: DutyInput): CondenserPlan {
+  if (o.kind === "evaporativeCondenser") return evaporativeCoilPlan(o, index, duty);
   const c = o.condenser;
   const d = CONDENSER_CONSTRUCTION_DEFAULTS[c.construction];
-  const waterSide = condenserWaterSide(o);
+  const waterSide: CondenserWaterSide = o.kind === "openTowerDirect" ? "openTower" : "closedLoop";
   const material = c.material ?? defaultCondenserMaterial(c.construction, duty.refrigerant);
   const path = `options.${index}.condenser`;
   const heatKW = designHeatRejectionKW(duty);
@@ -161,7 +228,11 @@ export function costsWithCondenserPlan(costs: OptionCostsInput, plan: CondenserP
   const components = [...costs.components];
   const w = plan.wearPart;
   if (w && w.replacementCost !== null && w.replacementCost > 0) {
-    components.push({ component: "condenserWearPart", label: `Condenser ${w.name}`, lifeYears: w.lifeYears, replacementCost: w.replacementCost });
+    components.push(
+      plan.construction === "evaporativeCondenserCoil"
+        ? { component: "coil", label: "Evaporative condenser coil", lifeYears: w.lifeYears, replacementCost: w.replacementCost }
+        : { component: "condenserWearPart", label: `Condenser ${w.name}`, lifeYears: w.lifeYears, replacementCost: w.replacementCost },
+    );
   }
   return {
     ...costs,
@@ -185,11 +256,9 @@ export function optionsWithCondenserPlans(input: ScenarioInput, plans: Condenser
   return input.options.map((o, i) => {
     const plan = plans[i];
     if (!plan) return o;
-    return {
-      ...o,
-      condenser: { ...o.condenser, foulingGrowthMultiplier: plan.foulingGrowthMultiplier },
-      costs: costsWithCondenserPlan(o.costs, plan),
-    };
+    const costs = costsWithCondenserPlan(o.costs, plan);
+    if (o.kind === "evaporativeCondenser") return { ...o, costs };
+    return { ...o, condenser: { ...o.condenser, foulingGrowthMultiplier: plan.foulingGrowthMultiplier }, costs };
   });
 }
 
@@ -217,7 +286,8 @@ export function inventoryWarnings(input: ScenarioInput, plans: CondenserPlan[]):
   let ammoniaShown = false;
   plans.forEach((p, i) => {
     const gwp = globalWarmingPotential100(input.duty.refrigerant, input.footprint.gwpReport);
-    for (const w of inventoryCautions({ refrigerant: input.duty.refrigerant, inventoryKg: p.inventoryKg, gwp, optionId: p.optionId, path: `options.${i}.condenser.specificChargeKgPerKW` })) {
+    const path = p.construction === "evaporativeCondenserCoil" ? `options.${i}.evaporativeCondenser.specificChargeKgPerKW` : `options.${i}.condenser.specificChargeKgPerKW`;
+    for (const w of inventoryCautions({ refrigerant: input.duty.refrigerant, inventoryKg: p.inventoryKg, gwp, optionId: p.optionId, path })) {
       if (w.code === "caution.ammonia") {
         if (ammoniaShown) continue;
         ammoniaShown = true;

@@ -41,10 +41,18 @@ export interface EvaporativeCondenserSelection {
   dryRating?: { heatRejectionKW: number; condensingC: number; dryBulbC: number };
   /** Dry external conductance / Lewis-analogy value hD·A·cp when no dry rating is given. */
   dryExternalConductanceFactor: number;
-  /** Run dry (spray pump off) when dry operation holds the condensing target. */
+  /** The unit may run dry (spray pump off) where it is rated for it. */
   allowDryMode: boolean;
   /** Dry mode only at or below this dry-bulb; undefined = no limit. */
   dryModeMaxDryBulbC?: number;
+  /**
+   * Wet or dry in each hour (as the closed-circuit cooler): "lowestTotalPower" — the mode with the lower
+   * fan + spray pump + compressor power; "switchOverDryBulb" — dry at or below `switchOverDryBulbC`.
+   */
+  modeSelection: "lowestTotalPower" | "switchOverDryBulb";
+  switchOverDryBulbC?: number;
+  /** Spray locked out (dry operation forced) below this dry-bulb: freeze protection of the spray water. */
+  sprayLockoutDryBulbC: number;
 }
 
 /** Rated airflow per kW of rated heat rejection when the airflow is not entered, kg/s per kW. */
@@ -57,6 +65,18 @@ export const DEFAULT_AIRFLOW_KG_PER_S_PER_KW: Sourced<number> = {
 export const EVAPORATIVE_CONDENSER_AMMONIA_CHARGE_KG_PER_KW: Sourced<number> = {
   value: 0.1,
   source: "[memory] screening figure 0.05–0.15 kg of ammonia per kW in the condensing coil; use the manufacturer's stated charge",
+};
+
+/** Cost of one coil-exterior cleaning and descaling. */
+export const EVAPORATIVE_CONDENSER_COIL_CLEANING_COST: Sourced<number> = {
+  value: 2500,
+  source: "[practice] order of magnitude for a ~1 MW unit (spray side cleaned and descaled), currency units of the project; get a contractor's price",
+};
+
+/** Life of a galvanized coil. */
+export const EVAPORATIVE_CONDENSER_COIL_LIFE_YEARS: Sourced<number> = {
+  value: 20,
+  source: "[practice] hot-dip galvanized coil about the unit's life with good water treatment; stainless longer",
 };
 
 /** Typical rating for ammonia: 35 °C (95 °F) condensing at 25.6 °C (78 °F) wet-bulb. */
@@ -77,6 +97,9 @@ export interface EvaporativeCondenserModel {
   dryFactor: number;
   allowDryMode: boolean;
   dryModeMaxDryBulbC: number;
+  modeSelection: "lowestTotalPower" | "switchOverDryBulb";
+  switchOverDryBulbC: number;
+  sprayLockoutDryBulbC: number;
   ratedHeatRejectionKW: number;
   ratedCondensingC: number;
   ratedWetBulbC: number;
@@ -146,6 +169,9 @@ export function calibrateEvaporativeCondenser(
       dryFactor,
       allowDryMode: sel.allowDryMode,
       dryModeMaxDryBulbC: sel.dryModeMaxDryBulbC ?? Number.POSITIVE_INFINITY,
+      modeSelection: sel.modeSelection,
+      switchOverDryBulbC: sel.switchOverDryBulbC ?? Number.NEGATIVE_INFINITY,
+      sprayLockoutDryBulbC: sel.sprayLockoutDryBulbC,
       ratedHeatRejectionKW: sel.ratedHeatRejectionKW,
       ratedCondensingC: sel.ratedCondensingC,
       ratedWetBulbC: sel.ratedWetBulbC,
@@ -288,11 +314,78 @@ export interface EvaporativeCondenserHourResult {
 }
 
 /**
- * Operate the condenser for one hour: dry where allowed and dry operation holds the target at full
- * airflow or less, else wet; the fan control holds the target (variable speed, or a time mix of two
- * states weighted on their condensing temperatures) or the condensing temperature floats at full speed.
- * Evaporation from the air-side balance in wet hours only. One saturated-enthalpy evaluation for the
- * target plus one per floating state (table inverses otherwise).
+ * Modes the hour allows (as the closed-circuit cooler): spray locked out below its dry-bulb → dry only;
+ * a switch-over dry-bulb fixes the mode; otherwise wet, and dry too where the unit is rated for it.
+ */
+export function allowedEvaporativeCondenserModes(model: EvaporativeCondenserModel, dryBulbC: number): { wet: boolean; dry: boolean } {
+  if (dryBulbC < model.sprayLockoutDryBulbC) return { wet: false, dry: true };
+  const dryAllowed = model.allowDryMode && dryBulbC <= model.dryModeMaxDryBulbC;
+  if (model.modeSelection === "switchOverDryBulb") {
+    const dry = dryAllowed && dryBulbC <= model.switchOverDryBulbC;
+    return { wet: !dry, dry };
+  }
+  return { wet: true, dry: dryAllowed };
+}
+
+/**
+ * Airflow fraction that holds a condensing temperature in one mode, and its slope d f/d Tc (1/K) by a
+ * forward difference of 0.05 K — what the floating-head optimum (head-pressure.ts) searches on.
+ * One saturated-enthalpy evaluation per temperature (wet).
+ */
+export function evaporativeCondenserAirflowForCondensing(
+  model: EvaporativeCondenserModel,
+  air: EnteringAir,
+  heatKW: number,
+  condensingC: number,
+  wet: boolean,
+  pPa: number,
+  scaleDerate = 0,
+): { fraction: number; slopePerK: number } {
+  const keep = 1 - scaleDerate;
+  const at = (tc: number): number => {
+    if (!wet) return requiredAirflowFraction(model, air, heatKW, false, tc - air.dryBulbC, 0, keep);
+    const hs = saturatedAirEnthalpyKJPerKg(tc, pPa);
+    return requiredAirflowFraction(model, air, heatKW, true, hs - air.enthalpyKJPerKg, chordSlope(air, tc, hs), keep);
+  };
+  const f0 = at(condensingC);
+  if (!Number.isFinite(f0)) return { fraction: f0, slopePerK: 0 };
+  const f1 = at(condensingC + 0.05);
+  return { fraction: f0, slopePerK: Number.isFinite(f1) ? (f1 - f0) / 0.05 : 0 };
+}
+
+/**
+ * One hour in a given mode: the fan control holds the condensing target (variable speed, or a time mix of
+ * two states weighted on their condensing temperatures) or the condensing temperature floats at full
+ * speed. Evaporation (wet only) from the air-side balance.
+ */
+export function solveEvaporativeCondenserModeHour(
+  model: EvaporativeCondenserModel,
+  fan: FanModel,
+  air: EnteringAir,
+  heatKW: number,
+  targetCondensingC: number,
+  wet: boolean,
+  pPa: number,
+  scaleDerate = 0,
+): EvaporativeCondenserHourResult {
+  if (!(heatKW > 0)) {
+    return { mode: wet ? "wet" : "dry", held: true, condensingC: targetCondensingC, airflowFraction: 0, fanPowerKW: 0, evaporationKgPerS: 0, sprayOn: false };
+  }
+  const keep = 1 - scaleDerate;
+  if (!wet) {
+    const fDry = requiredAirflowFraction(model, air, heatKW, false, targetCondensingC - air.dryBulbC, 0, keep);
+    return finish(model, fan, fDry, air, heatKW, targetCondensingC, false, pPa, scaleDerate);
+  }
+  const hsTarget = saturatedAirEnthalpyKJPerKg(targetCondensingC, pPa);
+  const cs = chordSlope(air, targetCondensingC, hsTarget);
+  const fWet = requiredAirflowFraction(model, air, heatKW, true, hsTarget - air.enthalpyKJPerKg, cs, keep);
+  return finish(model, fan, fWet, air, heatKW, targetCondensingC, true, pPa, scaleDerate);
+}
+
+/**
+ * The simplest mode rule (for checks of the model on its own; the annual pipeline chooses modes by
+ * lowest total power): dry where allowed and dry operation holds the target at full airflow or less,
+ * else wet.
  */
 export function solveEvaporativeCondenserHour(
   model: EvaporativeCondenserModel,
@@ -303,18 +396,12 @@ export function solveEvaporativeCondenserHour(
   pPa: number,
   scaleDerate = 0,
 ): EvaporativeCondenserHourResult {
-  if (!(heatKW > 0)) {
-    return { mode: "dry", held: true, condensingC: targetCondensingC, airflowFraction: 0, fanPowerKW: 0, evaporationKgPerS: 0, sprayOn: false };
+  const modes = allowedEvaporativeCondenserModes(model, air.dryBulbC);
+  if (modes.dry) {
+    const dry = solveEvaporativeCondenserModeHour(model, fan, air, heatKW, targetCondensingC, false, pPa, scaleDerate);
+    if (dry.held || !modes.wet) return dry;
   }
-  const keep = 1 - scaleDerate;
-  if (model.allowDryMode && air.dryBulbC <= model.dryModeMaxDryBulbC) {
-    const fDry = requiredAirflowFraction(model, air, heatKW, false, targetCondensingC - air.dryBulbC, 0, keep);
-    if (fDry <= 1 + 1e-6) return finish(model, fan, fDry, air, heatKW, targetCondensingC, false, pPa, scaleDerate);
-  }
-  const hsTarget = saturatedAirEnthalpyKJPerKg(targetCondensingC, pPa);
-  const cs = chordSlope(air, targetCondensingC, hsTarget);
-  const fWet = requiredAirflowFraction(model, air, heatKW, true, hsTarget - air.enthalpyKJPerKg, cs, keep);
-  return finish(model, fan, fWet, air, heatKW, targetCondensingC, true, pPa, scaleDerate);
+  return solveEvaporativeCondenserModeHour(model, fan, air, heatKW, targetCondensingC, true, pPa, scaleDerate);
 }
 
 function finish(

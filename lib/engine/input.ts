@@ -14,6 +14,7 @@ import type {
 } from "./economics/types";
 import type { CycleRefrigerant } from "./compressor";
 import type { CleaningMethod, CondenserConstruction, CondenserMaterial } from "./condenser-construction";
+import type { EvaporativeCondenserSelection } from "./evaporative-condenser";
 import type { CoolerSelection } from "./fluid-cooler";
 import type { GwpReport, Refrigerant } from "./refrigerants";
 import type { TowerSelection } from "./tower";
@@ -175,14 +176,12 @@ export interface SprayPumpInput {
   powerKW?: number;
 }
 
-interface OptionBaseInput {
+/** What every option has: its costs, fans, basin and wet loop. */
+interface OptionCommonInput {
   id: string;
   label: string;
   costs: OptionCostsInput;
   fan: FanInput;
-  condenser: CondenserInput;
-  /** Pump through the condenser (tower water, clean loop or process fluid). */
-  condenserPump: PumpInput;
   basinHeater: BasinHeaterInput;
   /** Drift as a fraction of the circulating (tower or spray) water flow. */
   driftFractionOfFlow: number;
@@ -194,6 +193,26 @@ interface OptionBaseInput {
    * by the same factor as the scenario's.
    */
   cyclesOfConcentration?: number;
+}
+
+/** The options with a water-cooled refrigerant condenser and a condenser water loop. */
+interface OptionBaseInput extends OptionCommonInput {
+  condenser: CondenserInput;
+  /** Pump through the condenser (tower water, clean loop or process fluid). */
+  condenserPump: PumpInput;
+}
+
+/** The evaporative condenser's selection and what it holds and needs (evaporative-condenser.ts). */
+export interface EvaporativeCondenserInput extends EvaporativeCondenserSelection {
+  /** Coil material; default galvanized steel (stainless on request). */
+  coilMaterial?: CondenserMaterial;
+  /** Refrigerant held in the coil per kW of rated heat rejection, kg/kW; default by refrigerant. */
+  specificChargeKgPerKW?: number;
+  /** Coil-exterior scale: capacity lost just before each cleaning, and the cleaning interval. */
+  coilScaling: { derateBeforeCleaning: number; cleaningIntervalMonths: number };
+  /** Life of the coil, years (a replacement is costed only when its cost is entered). */
+  coilLifeYears?: number;
+  coilReplacementCost?: number;
 }
 
 export interface OpenTowerDirectOptionInput extends OptionBaseInput {
@@ -215,7 +234,20 @@ export interface ClosedCircuitCoolerOptionInput extends OptionBaseInput {
   sprayPump: SprayPumpInput;
 }
 
-export type OptionInput = OpenTowerDirectOptionInput | OpenTowerPlateHxOptionInput | ClosedCircuitCoolerOptionInput;
+/** Refrigerant condensed in the unit's coil: no condenser water loop, condenser pump or water-cooled condenser. */
+export interface EvaporativeCondenserOptionInput extends OptionCommonInput {
+  kind: "evaporativeCondenser";
+  evaporativeCondenser: EvaporativeCondenserInput;
+  sprayPump: SprayPumpInput;
+}
+
+export type WaterCooledOptionInput = OpenTowerDirectOptionInput | OpenTowerPlateHxOptionInput | ClosedCircuitCoolerOptionInput;
+export type OptionInput = WaterCooledOptionInput | EvaporativeCondenserOptionInput;
+
+/** True for the options with a water-cooled condenser (every kind but the evaporative condenser). */
+export function hasWaterCooledCondenser(o: OptionInput): o is WaterCooledOptionInput {
+  return o.kind !== "evaporativeCondenser";
+}
 
 export interface MakeupAnalysisInput {
   conductivityUSPerCm?: number;

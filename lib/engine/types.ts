@@ -7,13 +7,14 @@
  */
 
 /** The loop types a scenario compares. */
-export const OPTION_KINDS = ["openTowerDirect", "openTowerPlateHx", "closedCircuitCooler"] as const;
+export const OPTION_KINDS = ["openTowerDirect", "openTowerPlateHx", "closedCircuitCooler", "evaporativeCondenser"] as const;
 export type OptionKind = (typeof OPTION_KINDS)[number];
 
 export const OPTION_KIND_LABELS: Record<OptionKind, string> = {
   openTowerDirect: "Open tower, direct",
   openTowerPlateHx: "Open tower + plate exchanger",
   closedCircuitCooler: "Closed-circuit cooler",
+  evaporativeCondenser: "Evaporative condenser",
 };
 
 /**

@@ -278,6 +278,19 @@ function optionGroup(
     r.text("Dry operation", c.allowDryMode ? "allowed (spray pump off)" : "not allowed", ENTERED);
     if (c.allowDryMode) r.q("Dry operation up to dry-bulb", "temperatureC", c.dryModeMaxDryBulbC, 1, ENTERED);
   }
+  if ("evaporativeCondenser" in o && o.evaporativeCondenser) {
+    const e = o.evaporativeCondenser;
+    r.q("Rated heat rejection", "heatDutyKW", e.ratedHeatRejectionKW, 0, SELECTION);
+    r.q("Rated condensing temperature", "temperatureC", e.ratedCondensingC, 1, SELECTION);
+    r.q("Rated wet-bulb", "temperatureC", e.ratedWetBulbC, 1, SELECTION);
+    if (e.airFlowKgPerS !== undefined) r.q("Rated airflow", "massFlowKgPerS", e.airFlowKgPerS, 1, SELECTION);
+    else r.text("Rated airflow", "not entered: 0.03 kg/s of air per kW rejected assumed", "[practice] default");
+    r.text("Dry operation", e.allowDryMode ? (e.dryRating ? "allowed, calibrated on the dry rating" : "allowed, dry capacity from the Lewis analogy") : "not allowed", ENTERED);
+    if (e.coilScaling) {
+      r.pct("Coil scale: capacity lost before each cleaning", e.coilScaling.derateBeforeCleaning, sourceOf("options[].evaporativeCondenser.coilScaling", e.coilScaling), "%", 0);
+      r.n("Coil cleaning interval", e.coilScaling.cleaningIntervalMonths, 0, "months", sourceOf("options[].evaporativeCondenser.coilScaling", e.coilScaling));
+    }
+  }
   if ("plateExchanger" in o && o.plateExchanger) {
     r.q("Plate exchanger approach", "temperatureDifferenceK", o.plateExchanger.designApproachK, 1, SELECTION);
   }
@@ -289,7 +302,7 @@ function optionGroup(
       ENTERED,
     );
   }
-  if (o.condenserPump) {
+  if ("condenserPump" in o && o.condenserPump) {
     r.q("Condenser pump head", "headM", o.condenserPump.headM, 1, ENTERED);
     r.pct("Condenser pump wire-to-water efficiency", o.condenserPump.efficiency, ENTERED, "%", 0);
   }
@@ -299,7 +312,7 @@ function optionGroup(
       r.q("Spray pump power", "powerKW", o.sprayPump.powerKW, 2, SELECTION);
     else r.q("Spray pump head", "headM", o.sprayPump.headM, 1, ENTERED);
   }
-  if (o.condenser)
+  if ("condenser" in o && o.condenser)
     r.q("Design condensing temperature", "temperatureC", o.condenser.designCondensingC, 1, SELECTION);
   r.pct("Drift, share of circulating flow", o.driftFractionOfFlow, ENTERED, "%", 3);
   if (o.basinHeater && o.basinHeater.powerKW > 0) {

@@ -190,6 +190,43 @@ export const physicsFieldDefaults = {
     default: "water",
     source: "ratings taken as on water; the engine derates capacity and pump power for the loop's glycol",
   },
+  "options[].evaporativeCondenser.airFlowKgPerS": {
+    default: "0.03 kg/s per kW of rated heat rejection",
+    source: "[practice] the usual airflow of an ammonia evaporative condenser at its rating; enter the rated airflow",
+  },
+  "options[].evaporativeCondenser.internalResistanceFraction": {
+    default: 0.15,
+    source: "[practice] condensing ammonia films are thin: the inside (film + wall) share of the overall resistance is small, 10–25 %",
+  },
+  "options[].evaporativeCondenser.dryExternalConductanceFactor": {
+    default: 0.7,
+    source: "[practice] dry external conductance 0.5–0.8 of the Lewis-analogy value hD·A·cp; calibrated on the dry rating when given",
+  },
+  "options[].evaporativeCondenser.allowDryMode": {
+    default: false,
+    source: "dry operation only where the manufacturer rates the unit for it (enter its dry rating)",
+  },
+  "options[].evaporativeCondenser.modeSelection": {
+    default: "lowestTotalPower",
+    source: "each hour wet or dry, whichever needs less fan + spray pump + compressor power [practice: the usual energy optimum]",
+  },
+  "options[].evaporativeCondenser.sprayLockoutDryBulbC": {
+    default: -30,
+    source: "[practice] evaporative condensers commonly run wet in winter with basin heat and an indoor sump; raise it to force dry operation in frost",
+  },
+  "options[].evaporativeCondenser.coilMaterial": { default: "galvanizedSteel", source: "[practice] hot-dip galvanized steel coils; stainless steel on request" },
+  "options[].evaporativeCondenser.specificChargeKgPerKW": {
+    default: "ammonia 0.1 kg/kW of rated heat rejection; × liquid-density ratio for other refrigerants",
+    source: "[memory] screening figure 0.05–0.15 kg/kW; use the manufacturer's stated charge",
+  },
+  "options[].evaporativeCondenser.coilScaling": {
+    default: { derateBeforeCleaning: 0.05, cleaningIntervalMonths: 12 },
+    source: "[practice] scale on the coil exterior costs a few per cent of capacity by the yearly cleaning and descaling",
+  },
+  "options[].evaporativeCondenser.coilLifeYears": {
+    default: 20,
+    source: "[practice] hot-dip galvanized coil about the unit's life with good water treatment; stainless longer",
+  },
   "options[].sprayPump.headM": { default: 6, source: "[practice] spray pumps work against a low head, 5–8 m" },
   "options[].sprayPump.efficiency": { default: 0.6, source: "[practice] small close-coupled pump sets" },
   "water.limits.silicaMgPerL": { default: 150, source: "[memory] typical guideline 150 mg/L SiO2 in recirculating water" },
@@ -501,18 +538,56 @@ const sprayPumpSchema = z.object({
   powerKW: nonNegative.max(1000).optional(),
 });
 
-const optionBase = {
+const optionCommon = {
   id: z.string().min(1).max(64),
   label: z.string().min(1).max(120),
   costs: optionCostsSchema,
   fan: fanSchema,
-  condenser: condenserSchema,
-  condenserPump: pumpSchema(d("options[].condenserPump.headM"), d("options[].condenserPump.efficiency")).prefault({}),
   basinHeater: basinHeaterSchema.prefault({}),
   driftFractionOfFlow: num.min(0).max(0.01).default(d("options[].driftFractionOfFlow")),
   wetLoopVolumeM3: positive.max(1e5).optional(),
   cyclesOfConcentration: num.gt(1).max(50).optional(),
 };
+
+const optionBase = {
+  ...optionCommon,
+  condenser: condenserSchema,
+  condenserPump: pumpSchema(d("options[].condenserPump.headM"), d("options[].condenserPump.efficiency")).prefault({}),
+};
+
+const evaporativeCondenserSchema = z
+  .object({
+    ratedHeatRejectionKW: positive.max(1e6),
+    ratedCondensingC: num.min(15).max(70),
+    ratedWetBulbC: num.min(-10).max(40),
+    airFlowKgPerS: positive.max(1e5).optional(),
+    internalResistanceFraction: num.min(0).max(0.9).default(d("options[].evaporativeCondenser.internalResistanceFraction")),
+    dryRating: z.object({ heatRejectionKW: positive.max(1e6), condensingC: num.min(10).max(70), dryBulbC: airC }).optional(),
+    dryExternalConductanceFactor: num.gt(0).max(2).default(d("options[].evaporativeCondenser.dryExternalConductanceFactor")),
+    allowDryMode: z.boolean().default(d("options[].evaporativeCondenser.allowDryMode")),
+    dryModeMaxDryBulbC: airC.optional(),
+    modeSelection: z.enum(["lowestTotalPower", "switchOverDryBulb"]).default(d("options[].evaporativeCondenser.modeSelection")),
+    switchOverDryBulbC: airC.optional(),
+    sprayLockoutDryBulbC: airC.default(d("options[].evaporativeCondenser.sprayLockoutDryBulbC")),
+    coilMaterial: z.enum(CONDENSER_MATERIALS).optional(),
+    specificChargeKgPerKW: nonNegative.max(5).optional(),
+    coilScaling: z
+      .object({
+        derateBeforeCleaning: num.min(0).max(0.5),
+        cleaningIntervalMonths: num.int().min(1).max(120),
+      })
+      .default(() => ({ ...d("options[].evaporativeCondenser.coilScaling") })),
+    coilLifeYears: positive.max(100).optional(),
+    coilReplacementCost: nonNegative.max(1e8).optional(),
+  })
+  .superRefine((e, ctx) => {
+    if (e.ratedCondensingC <= e.ratedWetBulbC + 1)
+      ctx.addIssue({ code: "custom", path: ["ratedCondensingC"], message: "the rated condensing temperature must be more than 1 K above the rated wet-bulb" });
+    if (e.dryRating && e.dryRating.condensingC <= e.dryRating.dryBulbC)
+      ctx.addIssue({ code: "custom", path: ["dryRating", "condensingC"], message: "dry, the condensing temperature must be above the dry-bulb" });
+    if (e.modeSelection === "switchOverDryBulb" && e.switchOverDryBulbC === undefined)
+      ctx.addIssue({ code: "custom", path: ["switchOverDryBulbC"], message: "enter the dry-bulb at or below which the unit runs dry" });
+  });
 
 export const openTowerDirectOptionSchema = z.object({ ...optionBase, kind: z.literal("openTowerDirect"), tower: towerSchema });
 export const openTowerPlateHxOptionSchema = z.object({
@@ -529,7 +604,14 @@ export const closedCircuitCoolerOptionSchema = z.object({
   sprayPump: sprayPumpSchema,
 });
 
-export const optionSchema = z.discriminatedUnion("kind", [openTowerDirectOptionSchema, openTowerPlateHxOptionSchema, closedCircuitCoolerOptionSchema], {
+export const evaporativeCondenserOptionSchema = z.object({
+  ...optionCommon,
+  kind: z.literal("evaporativeCondenser"),
+  evaporativeCondenser: evaporativeCondenserSchema,
+  sprayPump: sprayPumpSchema,
+});
+
+export const optionSchema = z.discriminatedUnion("kind", [openTowerDirectOptionSchema, openTowerPlateHxOptionSchema, closedCircuitCoolerOptionSchema, evaporativeCondenserOptionSchema], {
   error: `an option's kind must be one of ${OPTION_KINDS.join(", ")}`,
 });
 
@@ -649,6 +731,9 @@ export const scenarioSchema = scenarioObject.superRefine((s, ctx) => {
       });
   }
   s.options.forEach((o, i) => {
+    if (o.fan.control === "twoSpeed" && o.fan.lowSpeedFraction <= o.fan.naturalDraftAirflowFraction)
+      ctx.addIssue({ code: "custom", path: ["options", i, "fan", "lowSpeedFraction"], message: "the low speed must be above the fan-off airflow" });
+    if (o.kind === "evaporativeCondenser") return;
     const supplyC =
       o.kind === "closedCircuitCooler" ? o.cooler.leavingFluidC : o.kind === "openTowerPlateHx" ? o.tower.leavingWaterC + o.plateExchanger.designApproachK : o.tower.leavingWaterC;
     const entering = o.condenser.designEnteringWaterC ?? supplyC;
@@ -660,8 +745,6 @@ export const scenarioSchema = scenarioObject.superRefine((s, ctx) => {
         // The editor words it in the project's units from these.
         params: { what: "the design condensing temperature must be above the condenser's design entering water", aboveC: entering },
       });
-    if (o.fan.control === "twoSpeed" && o.fan.lowSpeedFraction <= o.fan.naturalDraftAirflowFraction)
-      ctx.addIssue({ code: "custom", path: ["options", i, "fan", "lowSpeedFraction"], message: "the low speed must be above the fan-off airflow" });
   });
 });
 

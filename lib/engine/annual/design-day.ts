@@ -10,6 +10,7 @@
  */
 import { enteringAir } from "../air-side";
 import { fouledUaKWPerK } from "../condenser";
+import { condensingTemperatureAtAirflowC } from "../evaporative-condenser";
 import { coolerLeavingFluidAtAirflowC } from "../fluid-cooler";
 import { isothermalStreamEffectiveness } from "../heat-exchanger";
 import { plateExchangerApproachK } from "../plate-exchanger";
@@ -37,6 +38,8 @@ export function designDayCheck(po: PreparedOption, ctx: YearContext): { check: O
   const eps = isothermalStreamEffectiveness(ua, cw);
   const dev = po.device;
   const condensingAtFullSpeed = (q: number): number => {
+    // The evaporative condenser (clean coil, wet) condenses in the unit itself: no lift.
+    if (dev.kind === "evaporativeCondenser") return condensingTemperatureAtAirflowC(dev.model, air, q, 1, true, ctx.pPa);
     const lift = q / (eps * cw);
     if (dev.kind === "tower") {
       const approach = po.plate ? plateExchangerApproachK(q, po.plate.cleanUaKWPerK, po.plate.hotCapacityKWPerK, po.plate.coldCapacityKWPerK) : 0;
@@ -58,13 +61,17 @@ export function designDayCheck(po: PreparedOption, ctx: YearContext): { check: O
     else hi = mid;
   }
   const capacity = 0.5 * (lo + hi);
-  const selectionWetBulbC = dev.kind === "tower" ? (o.kind !== "closedCircuitCooler" ? o.tower.designWetBulbC : Number.NaN) : o.kind === "closedCircuitCooler" ? o.cooler.designWetBulbC : Number.NaN;
-  const what = dev.kind === "tower" ? "tower" : "cooler";
+  const selectionWetBulbC =
+    o.kind === "evaporativeCondenser" ? o.evaporativeCondenser.ratedWetBulbC : o.kind === "closedCircuitCooler" ? o.cooler.designWetBulbC : o.tower.designWetBulbC;
+  const what = dev.kind === "tower" ? "tower" : dev.kind === "cooler" ? "cooler" : "evaporative condenser";
+  const selectionPath = o.kind === "evaporativeCondenser" ? "evaporativeCondenser.ratedWetBulbC" : `${what}.designWetBulbC`;
+  const designCondensingC = o.kind === "evaporativeCondenser" ? o.evaporativeCondenser.ratedCondensingC : o.condenser.designCondensingC;
+  const designCondensingPath = o.kind === "evaporativeCondenser" ? "evaporativeCondenser.ratedCondensingC" : "condenser.designCondensingC";
   const check: OptionDesignDay = {
     siteWetBulbC: d.wetBulbC,
     siteDryBulbC: d.dryBulbC,
     selectionWetBulbC,
-    condenserDesignCondensingC: o.condenser.designCondensingC,
+    condenserDesignCondensingC: designCondensingC,
     setPointC: setC,
     dutyKW: duty,
     capacityAtSetPointKW: capacity,
@@ -78,19 +85,22 @@ export function designDayCheck(po: PreparedOption, ctx: YearContext): { check: O
         severity: "warning",
         template: `The ${what} was selected for a {sel} wet-bulb, below the site's 0.4 % design wet-bulb of {site}: its capacity in the design hour is checked below; ask the manufacturer for a selection at the site's wet-bulb.`,
         values: { sel: wv.tempC(selectionWetBulbC), site: wv.tempC(d.wetBulbC) },
-        path: `${po.path}.${what}.designWetBulbC`,
+        path: `${po.path}.${selectionPath}`,
         optionId: o.id,
       }),
     );
   }
-  if (o.condenser.designCondensingC > setC + 0.05) {
+  if (designCondensingC > setC + 0.05) {
     warnings.push(
       numericWarning({
         code: "designDay.condenserAboveSetPoint",
         severity: "warning",
-        template: "The condenser's design condensing temperature {tc} is above the set-point {set}: at the design duty and design water it cannot hold the set-point.",
-        values: { tc: wv.tempC(o.condenser.designCondensingC), set: wv.tempC(setC) },
-        path: `${po.path}.condenser.designCondensingC`,
+        template:
+          o.kind === "evaporativeCondenser"
+            ? "The evaporative condenser's rated condensing temperature {tc} is above the set-point {set}: at its rating it cannot hold the set-point."
+            : "The condenser's design condensing temperature {tc} is above the set-point {set}: at the design duty and design water it cannot hold the set-point.",
+        values: { tc: wv.tempC(designCondensingC), set: wv.tempC(setC) },
+        path: `${po.path}.${designCondensingPath}`,
         optionId: o.id,
       }),
     );

@@ -17,7 +17,7 @@
  */
 import type { FoulingInput, DutyInput, WaterInput } from "../input";
 import { designHeatRejectionKW, designRefrigerationLoadKW } from "../duty";
-import { optimalCleaningIntervalMonths, monthlyFoulingM2KPerW, peakFoulingM2KPerW, scaleGrowth } from "../fouling";
+import { type FoulingGrowth, optimalCleaningIntervalMonths, monthlyFoulingM2KPerW, peakFoulingM2KPerW, scaleGrowth } from "../fouling";
 import type { EngineWarning, OptionAnnualPhysics } from "../types";
 import { simulateOptionYear } from "./accumulate";
 import { foulingCostPerMonthPerUnit } from "./cleaning";
@@ -82,25 +82,33 @@ export function computeOptionsPhysics(
     const warnings: EngineWarning[] = [...po.warnings];
     const isDirect = o.kind === "openTowerDirect";
     const isPlate = o.kind === "openTowerPlateHx";
+    const scaling = o.kind === "evaporativeCondenser" ? o.evaporativeCondenser.coilScaling : null;
     // The plate option's exchanger fouls at its own factor; the direct option's condenser at its
-    // construction's multiplier on open-tower water (condenser-plan.ts).
-    const growth = isPlate
-      ? scaleGrowth(baseGrowth, o.plateExchanger.foulingGrowthFactor)
-      : isDirect
-        ? scaleGrowth(baseGrowth, o.condenser.foulingGrowthMultiplier ?? 1)
-        : baseGrowth;
+    // construction's multiplier on open-tower water (condenser-plan.ts). An evaporative condenser's coil
+    // scales linearly to its derate before each cleaning (evaporative-condenser.ts), at the what-if
+    // fouling-rate factor too; its monthly "fouling" is that capacity derate.
+    const growth: FoulingGrowth = scaling
+      ? { model: "linear", rateM2KPerWPerMonth: (Math.min(0.9, scaling.derateBeforeCleaning * (opts.foulingRateFactor ?? 1)) / Math.max(1, Math.round(scaling.cleaningIntervalMonths))) }
+      : isPlate
+        ? scaleGrowth(baseGrowth, o.plateExchanger.foulingGrowthFactor)
+        : isDirect
+          ? scaleGrowth(baseGrowth, o.condenser.foulingGrowthMultiplier ?? 1)
+          : baseGrowth;
     const intervalMonths = isDirect
       ? fouling.condenserCleaningIntervalMonths
       : isPlate
         ? fouling.plateExchangerCleaningIntervalMonths
-        : 0;
-    const monthlyRf = isDirect || isPlate ? monthlyFoulingM2KPerW(growth, intervalMonths) : new Array<number>(12).fill(0);
+        : scaling
+          ? Math.max(1, Math.round(scaling.cleaningIntervalMonths))
+          : 0;
+    const cleaned = isDirect || isPlate || scaling !== null;
+    const monthlyRf = cleaned ? monthlyFoulingM2KPerW(growth, intervalMonths) : new Array<number>(12).fill(0);
     const optionCycles = loopCycles(o, baseCycles, override);
     const optionCtx: YearContext = { ...ctx, cycles: optionCycles };
     const totals = simulateOptionYear(po, optionCtx, monthlyRf);
 
     let optimal: number | null = null;
-    if ((isDirect || isPlate) && (opts.electricityPricePerKWh ?? 0) > 0) {
+    if (cleaned && (opts.electricityPricePerKWh ?? 0) > 0) {
       const s = foulingCostPerMonthPerUnit(po, optionCtx, growth, intervalMonths, fouling, opts);
       optimal = optimalCleaningIntervalMonths(growth, o.costs.upkeep.cleaningCostPerEvent, s);
       if (optimal === null && o.costs.upkeep.cleaningCostPerEvent > 0 && s > 0) {

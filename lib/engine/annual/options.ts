@@ -8,7 +8,8 @@ import { designHeatRejectionKW } from "../duty";
 import type { FanModel } from "../fans";
 import { type CoolerModel, calibrateCooler } from "../fluid-cooler";
 import { fluidProperties, tubeSideCoefficientRatio } from "../glycol";
-import type { DutyInput, FoulingInput, OptionInput } from "../input";
+import { type EvaporativeCondenserModel, DEFAULT_AIRFLOW_KG_PER_S_PER_KW, calibrateEvaporativeCondenser } from "../evaporative-condenser";
+import type { DutyInput, FoulingInput, OptionInput, WaterCooledOptionInput } from "../input";
 import { calibratePlateExchangerUaKWPerK } from "../plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
 import { glycolPumpPowerKW, pumpPowerKW, waterHeadFromPressureDropM } from "../pumps";
@@ -19,7 +20,10 @@ import { WATER_DENSITY_KG_PER_M3 } from "./shared";
 
 const CPW = waterSpecificHeatKJPerKgK;
 
-export type Device = { kind: "tower"; model: TowerModel } | { kind: "cooler"; model: CoolerModel };
+export type Device =
+  | { kind: "tower"; model: TowerModel }
+  | { kind: "cooler"; model: CoolerModel }
+  | { kind: "evaporativeCondenser"; model: EvaporativeCondenserModel };
 
 /** An option with every model calibrated once. */
 export interface PreparedOption {
@@ -27,6 +31,7 @@ export interface PreparedOption {
   path: string;
   fan: FanModel;
   device: Device;
+  /** Water-cooled condenser (0 for the evaporative condenser, which has none). */
   condenserCleanUaKWPerK: number;
   condenserCleanUWPerM2K: number;
   /** ṁ·cp through the condenser, kW/K. */
@@ -40,7 +45,7 @@ export interface PreparedOption {
   /** Circulating water whose drift counts: tower flow, or the cooler's spray flow, kg/s. */
   driftFlowKgPerS: number;
   wetLoopVolumeM3: number;
-  /** Hot-water (tower) or entering-fluid (cooler) temperature at design, °C. */
+  /** Hot-water (tower), entering-fluid (cooler) or condensing (evaporative condenser) temperature at design, °C. */
   designHottestSurfaceC: number;
   warnings: EngineWarning[];
 }
@@ -57,7 +62,7 @@ function fanModel(o: OptionInput): FanModel {
 }
 
 function calibrateCondenser(
-  o: OptionInput,
+  o: WaterCooledOptionInput,
   path: string,
   designHeatKW: number,
   defaultEnteringC: number,
@@ -100,6 +105,46 @@ export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fo
   const qDesign = designHeatRejectionKW(duty);
   const fan = fanModel(o);
   const volumeFromFlow = (kgPerS: number): number => (kgPerS * 180) / WATER_DENSITY_KG_PER_M3;
+  if (o.kind === "evaporativeCondenser") {
+    const e = o.evaporativeCondenser;
+    const { model, warnings: w } = calibrateEvaporativeCondenser(e, pPa, `${path}.evaporativeCondenser`);
+    warnings.push(...w.map((x) => ({ ...x, optionId: o.id })));
+    if (qDesign > 0 && Math.abs(e.ratedHeatRejectionKW / qDesign - 1) > 0.1) {
+      warnings.push({
+        code: "evaporativeCondenser.selectionDutyMismatch",
+        severity: "info",
+        message: `The evaporative condenser is rated for ${Math.round(e.ratedHeatRejectionKW)} kW of heat rejection, the duty is ${Math.round(qDesign)} kW; the model uses the rating as the unit's characteristic and the duty as the load.`,
+        path: `${path}.evaporativeCondenser.ratedHeatRejectionKW`,
+        optionId: o.id,
+      });
+    }
+    if (e.airFlowKgPerS === undefined) {
+      warnings.push({
+        code: "evaporativeCondenser.airflowDefaulted",
+        severity: "info",
+        message: `No rated airflow entered: ${DEFAULT_AIRFLOW_KG_PER_S_PER_KW.value} kg/s per kW of rated heat rejection was assumed (${DEFAULT_AIRFLOW_KG_PER_S_PER_KW.source}).`,
+        path: `${path}.evaporativeCondenser.airFlowKgPerS`,
+        optionId: o.id,
+      });
+    }
+    return {
+      input: o,
+      path,
+      fan,
+      device: { kind: "evaporativeCondenser", model },
+      condenserCleanUaKWPerK: 0,
+      condenserCleanUWPerM2K: 0,
+      condenserCapacityKWPerK: 0,
+      condenserFixedFoulingM2KPerW: 0,
+      condenserPumpKW: 0,
+      secondaryPumpKW: 0,
+      sprayPumpKW: o.sprayPump.powerKW ?? pumpPowerKW(o.sprayPump.flowKgPerS, o.sprayPump.headM, o.sprayPump.efficiency),
+      driftFlowKgPerS: o.sprayPump.flowKgPerS,
+      wetLoopVolumeM3: o.wetLoopVolumeM3 ?? volumeFromFlow(o.sprayPump.flowKgPerS),
+      designHottestSurfaceC: e.ratedCondensingC,
+      warnings,
+    };
+  }
   if (o.kind === "closedCircuitCooler") {
     const { model, warnings: w } = calibrateCooler(o.cooler, pPa, `${path}.cooler`);
     warnings.push(...w.map((x) => ({ ...x, optionId: o.id })));
@@ -204,7 +249,7 @@ export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fo
 
 function designChecks(
   warnings: EngineWarning[],
-  o: OptionInput,
+  o: WaterCooledOptionInput,
   path: string,
   dutyKW: number,
   selectionKW: number,

@@ -22,6 +22,7 @@ import { basinHeaterPowerKW } from "../basin-heater";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { coolerRecord } from "./record-cooler";
+import { evaporativeCondenserRecord } from "./record-evaporative-condenser";
 import { towerRecord } from "./record-tower";
 import type { DeviceRecord, HourCondenser, RecordRates } from "./record-types";
 import { SET_POINT_TOLERANCE_K } from "./record-types";
@@ -57,6 +58,14 @@ export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: Enteri
     return rates;
   }
   rates.running = true;
+  const target = ctx.duty.headPressureControl === "floating" ? ctx.duty.minimumCondensingC : ctx.duty.condensingSetPointC;
+  if (po.device.kind === "evaporativeCondenser") {
+    // No condenser water: the coil is the condenser. `towerSideRf` carries the month's coil-scale derate.
+    const hourEc: HourCondenser = { heatKW, refrigerationKW: heatKW * ctx.refrigerationPerRejection, condenserLiftK: 0, approachK: 0 };
+    const dev = evaporativeCondenserRecord(po, po.device.model, ctx, air, hourEc, towerSideRf, stillBasinHeaterKW, rates);
+    finishRates(rates, ctx, hourEc.refrigerationKW, dev.condensingC, Math.max(target, Math.min(dev.cleanCondensingC, dev.condensingC)), dev.held);
+    return rates;
+  }
   const cw = po.condenserCapacityKWPerK;
   const condRf = o.kind === "openTowerDirect" ? towerSideRf : po.condenserFixedFoulingM2KPerW;
   const uaCond = fouledUaKWPerK(po.condenserCleanUaKWPerK, po.condenserCleanUWPerM2K, condRf);
@@ -76,13 +85,16 @@ export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: Enteri
   const cleanRef = condensingTemperatureC(dev.leavingC, heatKW, po.condenserCleanUaKWPerK, cw);
   // A clean condenser on the same water would have let the control hold its target with less fan, not
   // condense below it: the reference never goes below the target.
-  const target = ctx.duty.headPressureControl === "floating" ? ctx.duty.minimumCondensingC : ctx.duty.condensingSetPointC;
-  const reference = Math.max(target, Math.min(cleanRef, condensing));
+  finishRates(rates, ctx, hour.refrigerationKW, condensing, Math.max(target, Math.min(cleanRef, condensing)), dev.held);
+  return rates;
+}
+
+/** Condensing temperature, its clean reference, the compressor power the option pays, and whether the control held. */
+function finishRates(rates: RecordRates, ctx: YearContext, refrigerationKW: number, condensing: number, reference: number, held: boolean): void {
   rates.condensingC = condensing;
   rates.referenceC = reference;
-  rates.compressorKW = compressorPowerKW(ctx.compressor, hour.refrigerationKW, condensing);
-  rates.aboveCleanKW = Math.max(0, rates.compressorKW - compressorPowerKW(ctx.compressor, hour.refrigerationKW, reference));
+  rates.compressorKW = compressorPowerKW(ctx.compressor, refrigerationKW, condensing);
+  rates.aboveCleanKW = Math.max(0, rates.compressorKW - compressorPowerKW(ctx.compressor, refrigerationKW, reference));
   rates.compressorExtrapolated = compressorExtrapolates(ctx.compressor, condensing);
-  rates.unmet = ctx.duty.headPressureControl === "fixedSetPoint" ? !dev.held : condensing > ctx.duty.condensingSetPointC + SET_POINT_TOLERANCE_K;
-  return rates;
+  rates.unmet = ctx.duty.headPressureControl === "fixedSetPoint" ? !held : condensing > ctx.duty.condensingSetPointC + SET_POINT_TOLERANCE_K;
 }

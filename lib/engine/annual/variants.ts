@@ -7,7 +7,9 @@
  * speed. For a closed-circuit cooler the external (air-side) conductance, the spray pump and its flow scale
  * with s; the internal conductance follows the fluid velocity in s times as many tubes: UAint ∝ s·s^−0.8 =
  * s^0.2 (Dittus–Boelter h ∝ velocity^0.8 [pub: Incropera & DeWitt, Fundamentals of Heat and Mass Transfer,
- * eq. 8.60]). Pumps through the condenser keep their flow and head. A screening approximation: a real
+ * eq. 8.60]). For an evaporative condenser the air-side conductance, airflow, spray pump and its flow and the
+ * condensing-side conductance (s times the coil area; a condensing film coefficient depends little on the
+ * refrigerant's flow [practice]) all scale with s. Pumps through the condenser keep their flow and head. A screening approximation: a real
  * reselection comes from the manufacturer [practice].
  */
 import type { FanControlKind } from "../fans";
@@ -38,6 +40,24 @@ export function optionVariant(po: PreparedOption, v: OptionVariant): PreparedOpt
       device: {
         kind: "tower",
         model: { ...m, designAirFlowKgPerS: m.designAirFlowKgPerS * s, designLiquidToGasRatio: m.designLiquidToGasRatio / s },
+      },
+    };
+  }
+  if (po.device.kind === "evaporativeCondenser") {
+    const m = po.device.model;
+    return {
+      ...base,
+      sprayPumpKW: po.sprayPumpKW * s,
+      driftFlowKgPerS: po.driftFlowKgPerS * s,
+      device: {
+        kind: "evaporativeCondenser",
+        model: {
+          ...m,
+          designAirFlowKgPerS: m.designAirFlowKgPerS * s,
+          externalMassTransferKgPerS: m.externalMassTransferKgPerS * s,
+          internalUaKWPerK: m.internalUaKWPerK * s,
+          ratedHeatRejectionKW: m.ratedHeatRejectionKW * s,
+        },
       },
     };
   }

@@ -1,12 +1,17 @@
 import { describe, expect, it, vi } from "vitest";
 import { analyzeScenario } from "@/lib/engine";
 import { condenserPlan, costsWithCondenserPlan, economicsOptionsOf } from "@/lib/engine/condenser-plan";
-import type { ScenarioInput } from "@/lib/engine/input";
+import { type OptionInput, type ScenarioInput, type WaterCooledOptionInput, hasWaterCooledCondenser } from "@/lib/engine/input";
 import { fixtureInput } from "./helpers";
 
 vi.setConfig({ testTimeout: 60_000 });
 
 const base = fixtureInput("scenario-bins.json");
+
+function wc(o: OptionInput | undefined): WaterCooledOptionInput {
+  if (!o || !hasWaterCooledCondenser(o)) throw new Error("expected a water-cooled option");
+  return o;
+}
 
 function variant(edit: (s: ScenarioInput) => void): ScenarioInput {
   const s = structuredClone(base);
@@ -49,7 +54,7 @@ describe("condenser plan per option", () => {
 
   it("a welded plate condenser on the direct option warns, fouls at half the tube rate, and has no eddy-current testing", () => {
     const s = variant((x) => {
-      x.options[0]!.condenser.construction = "plateAndShell";
+      wc(x.options[0]).condenser.construction = "plateAndShell";
       x.options[0]!.costs.upkeep.periodicItems = [];
     });
     const plan = condenserPlan(s.options[0]!, 0, s.duty);
@@ -64,7 +69,7 @@ describe("condenser plan per option", () => {
   it("carries the leakage basis to the economics: R-134a at AR5 = 0.05 × inventory × 1300", () => {
     const s = variant((x) => {
       x.duty.refrigerant = "R134a";
-      x.options[0]!.condenser.material = "copperAlloy";
+      wc(x.options[0]).condenser.material = "copperAlloy";
     });
     // Shell-and-tube R-134a charge = 0.08 × 1168/588 kg/kW (stated densities) × 1500 kW = 238.367 kg;
     // leakage = 0.05 × 238.367 × 1300 = 15,493.9 kg CO2e per year.

@@ -27,6 +27,8 @@ const sel: EvaporativeCondenserSelection = {
   dryRating: { heatRejectionKW: 300, condensingC: 30, dryBulbC: 0 },
   dryExternalConductanceFactor: 0.7,
   allowDryMode: true,
+  modeSelection: "lowestTotalPower",
+  sprayLockoutDryBulbC: -30,
 };
 const { model, warnings } = calibrateEvaporativeCondenser(sel, P, "options.3.evaporativeCondenser");
 const fan: FanModel = {

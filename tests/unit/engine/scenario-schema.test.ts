@@ -78,7 +78,7 @@ describe("scenario schema", () => {
     if (!r.ok) return;
     const direct = r.value.options[0];
     expect(direct?.fan.minSpeedFraction).toBe(fieldDefaults["options[].fan.minSpeedFraction"]?.default);
-    expect(direct?.condenserPump.headM).toBe(22);
+    expect(direct && "condenserPump" in direct ? direct.condenserPump.headM : undefined).toBe(22);
     expect(r.value.fouling.asymptoticM2KPerW).toBe(physicsFieldDefaults["fouling.asymptoticM2KPerW"].default);
     expect(r.value.water.limits.silicaMgPerL).toBe(150);
     expect(r.value.tariffs.escalation.water).toBe(fieldDefaults["tariffs.escalation.water"]?.default);

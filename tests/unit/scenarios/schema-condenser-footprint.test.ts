@@ -1,5 +1,11 @@
 import { describe, expect, it } from "vitest";
+import { type OptionInput, hasWaterCooledCondenser } from "@/lib/engine/input";
 import { parseScenario } from "@/lib/scenarios/schema";
+
+function condenserOf(o: OptionInput | undefined) {
+  if (!o || !hasWaterCooledCondenser(o)) throw new Error("expected a water-cooled option");
+  return o.condenser;
+}
 import { readFixture } from "../engine/helpers";
 
 describe("schema: condenser construction, refrigerant and footprint fields", () => {
@@ -8,7 +14,7 @@ describe("schema: condenser construction, refrigerant and footprint fields", () 
     const r = parseScenario(doc);
     expect(r.ok).toBe(true);
     if (!r.ok) return;
-    const c = r.value.options[0]?.condenser;
+    const c = condenserOf(r.value.options[0]);
     expect(c?.construction).toBe("shellAndTube");
     // The clean U the engine used before construction existed: 1000 W/(m²·K) unless entered.
     const entered = ((doc.options as Record<string, unknown>[])[0]?.condenser as { cleanUWPerM2K?: number }).cleanUWPerM2K;
@@ -38,8 +44,8 @@ describe("schema: condenser construction, refrigerant and footprint fields", () 
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     // Stated construction defaults: plate-and-shell 2500 W/(m²·K) [practice]; an entered value wins.
-    expect(r.value.options[0]?.condenser.cleanUWPerM2K).toBe(2500);
-    expect(r.value.options[1]?.condenser.cleanUWPerM2K).toBe(4200);
+    expect(condenserOf(r.value.options[0]).cleanUWPerM2K).toBe(2500);
+    expect(condenserOf(r.value.options[1]).cleanUWPerM2K).toBe(4200);
   });
 
   it("rejects out-of-range values with field-level errors and changes nothing else", () => {
