@@ -18,7 +18,9 @@ const AMMONIA_WORDS = /\b(ammonia|nh3|nh₃|r-?717)\b/i;
 export function cautionsFor(input: ScenarioInput, result: ScenarioResult, system: UnitSystem, context: string): Caution[] {
   const out: Caution[] = [];
   const wet = input.options.map((o) =>
-    o.kind === "closedCircuitCooler" ? `${o.label} (its spray-water loop)` : `${o.label} (${OPTION_KIND_LABELS[o.kind].toLowerCase()} basin and fill)`,
+    o.kind === "closedCircuitCooler" || o.kind === "evaporativeCondenser"
+      ? `${o.label} (its spray-water loop)`
+      : `${o.label} (${OPTION_KIND_LABELS[o.kind].toLowerCase()} basin and fill)`,
   );
   out.push({
     id: "legionella",
@@ -52,15 +54,21 @@ export function cautionsFor(input: ScenarioInput, result: ScenarioResult, system
         "Follow the manufacturer's winter operating instructions.",
     });
   }
-  const ammoniaHint = AMMONIA_WORDS.test(`${context} ${input.name} ${input.options.map((o) => o.label).join(" ")}`) || input.duty.evaporatingC <= -15;
+  const ammoniaHint =
+    input.duty.refrigerant === "R717" || AMMONIA_WORDS.test(`${context} ${input.name} ${input.options.map((o) => o.label).join(" ")}`) || input.duty.evaporatingC <= -15;
   if (ammoniaHint) {
+    const evap = input.options.some((o) => o.kind === "evaporativeCondenser");
+    const inventory = (result.condensers ?? []).map((c) => `${input.options.find((o) => o.id === c.optionId)?.label ?? c.optionId} ≈ ${formatQuantity("massKg", c.inventoryKg, system, { sig: 2 })}`);
     out.push({
       id: "ammonia",
       title: "Ammonia refrigeration",
       body:
         "If the condensers serve an ammonia (R-717) plant, condenser changes, tube cleaning and eddy-current testing are work on a pressure system with a toxic refrigerant: " +
         "follow the plant's process-safety and mechanical-integrity procedures (e.g. IIAR 2, IIAR 6 and the local pressure-equipment rules), isolate and pump down before opening, " +
-        "and note that a tube leak in a direct tower loop carries ammonia into open tower water and the air; an isolated loop (plate exchanger or closed-circuit cooler) keeps it out of the open water.",
+        "and note that a tube leak in a direct tower loop carries ammonia into open tower water and the air; an isolated loop (plate exchanger or closed-circuit cooler) keeps it out of the open water. " +
+        (evap ? "An evaporative condenser puts the ammonia coil outdoors under the spray: a coil leak goes to the air and the spray water, so detection, relief and emergency procedures must cover the roof. " : "") +
+        (inventory.length > 0 ? `Estimated ammonia held in each option's condenser (screening figures by construction): ${inventory.join("; ")}. ` : "") +
+        "Process-safety and risk-management rules apply above threshold quantities set by regulation — e.g. the US OSHA Process Safety Management standard (29 CFR 1910.119) and the EPA Risk Management Program (40 CFR Part 68), 10,000 lb of anhydrous ammonia in a process [recalled from memory: verify] — counted over the whole system, not one condenser. Defer to the plant's process-safety management, local codes and a licensed engineer.",
     });
   }
   out.push({

@@ -1,7 +1,8 @@
 /**
  * The demo's invented scenario: a ~1,500 kW heat-rejection ammonia cold store at the invented Harrowgate
- * Flats site, comparing an open tower on the condenser, an open tower isolated by a plate exchanger and a
- * closed-circuit cooler on glycol. Every figure is invented (realistic orders of magnitude for such a plant,
+ * Flats site, comparing four ways to reject the heat: an open tower on a shell-and-tube condenser, an open
+ * tower isolated by a plate exchanger (welded plate-and-shell condenser on the clean loop), a closed-circuit
+ * cooler on glycol, and an evaporative condenser. Every figure is invented (realistic orders of magnitude for such a plant,
  * not any manufacturer's selection or any real utility's tariff).
  * Weather: lib/engine/climate/synthetic.ts (seeded model documented there), never station data.
  */
@@ -11,7 +12,7 @@ import { datasetFromParsedFile, type NewDataset } from "@/lib/climate/build";
 import type { ScenarioDocument } from "./mappers";
 
 export const DEMO_WEATHER_SEED = 20240611;
-export const DEMO_SCENARIO_NAME = "Condenser heat rejection: tower, isolated tower or closed-circuit cooler";
+export const DEMO_SCENARIO_NAME = "Condenser heat rejection: tower, isolated tower, closed-circuit cooler or evaporative condenser";
 
 /** The invented typical year as a stored climate dataset (generated, written as EPW, parsed like an upload). */
 export function demoClimateDataset(siteElevationM: number): NewDataset {
@@ -47,6 +48,7 @@ export function demoScenarioDocument(): ScenarioDocument {
       headPressureControl: "fixedSetPoint",
       loadProfile: { kind: "linearInDryBulb", lowDryBulbC: 0, fractionAtLowDryBulb: 0.65, highDryBulbC: 32, fractionAtHighDryBulb: 1 },
       compressorModel: { kind: "refrigerantCycle" },
+      refrigerant: "R717",
     },
     options: [
       {
@@ -85,7 +87,7 @@ export function demoScenarioDocument(): ScenarioDocument {
         plateExchanger: { designApproachK: 1.5, towerSidePressureDropKPa: 45, cleanSidePressureDropKPa: 45 },
         towerPump: { headM: 14, efficiency: 0.68 },
         fan: { designPowerKW: 30, control: "variableSpeed" },
-        condenser: { designCondensingC: 35.5 },
+        condenser: { designCondensingC: 35.5, construction: "plateAndShell" },
         condenserPump: { headM: 16, efficiency: 0.68 },
         basinHeater: { powerKW: 9, setPointC: 4.4 },
         costs: {
@@ -137,6 +139,38 @@ export function demoScenarioDocument(): ScenarioDocument {
               { kind: "coilExteriorDescaling", everyYears: 3, costPerEvent: 6_500, labourHoursPerEvent: 12 },
               { kind: "basinDisinfection", everyYears: 0.5, costPerEvent: 900, labourHoursPerEvent: 6 },
             ],
+          },
+        },
+      },
+      {
+        id: "evap",
+        kind: "evaporativeCondenser",
+        label: "Evaporative condenser",
+        evaporativeCondenser: {
+          ratedHeatRejectionKW: 1600,
+          ratedCondensingC: 35,
+          ratedWetBulbC: 24,
+          airFlowKgPerS: 46,
+          coilMaterial: "galvanizedSteel",
+          coilScaling: { derateBeforeCleaning: 0.05, cleaningIntervalMonths: 12 },
+          coilLifeYears: 20,
+          coilReplacementCost: 95_000,
+        },
+        sprayPump: { flowKgPerS: 30, headM: 6, efficiency: 0.6, powerKW: 5.5 },
+        fan: { designPowerKW: 30, control: "variableSpeed" },
+        basinHeater: { powerKW: 6, belowDryBulbC: 4.4 },
+        costs: {
+          firstCost: { equipment: 285_000, installation: 70_000, structureAndCrane: 40_000, electrical: 24_000, controls: 14_000, plateExchanger: 0, waterTreatmentEquipment: 12_000, meters: 3_500, other: 18_000 },
+          serviceLifeYears: 20,
+          components: [
+            { component: "sprayPump", lifeYears: 10, replacementCost: 5_500 },
+            { component: "fanMotor", lifeYears: 18, replacementCost: 9_000 },
+          ],
+          upkeep: {
+            annualLabourHours: 55,
+            annualServiceCost: 3_500,
+            cleaningCostPerEvent: 3_200,
+            periodicItems: [{ kind: "basinDisinfection", everyYears: 0.5, costPerEvent: 900, labourHoursPerEvent: 6 }],
           },
         },
       },

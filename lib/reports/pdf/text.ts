@@ -14,7 +14,7 @@ export interface Caution {
   text: string;
 }
 
-const WET: readonly OptionKind[] = ["openTowerDirect", "openTowerPlateHx", "closedCircuitCooler"];
+const WET: readonly OptionKind[] = ["openTowerDirect", "openTowerPlateHx", "closedCircuitCooler", "evaporativeCondenser"];
 
 /** Cautions for the options compared; every wet option carries the water-management duty. */
 export function cautionsFor(kinds: OptionKind[], hasBasinHeater: boolean): Caution[] {
@@ -22,7 +22,7 @@ export function cautionsFor(kinds: OptionKind[], hasBasinHeater: boolean): Cauti
   if (kinds.some((k) => WET.includes(k))) {
     out.push({
       title: "Legionella and the water-management programme",
-      text: "Every option here has water that evaporates and can spread aerosols: the open tower's basin and fill, and the closed-circuit cooler's spray loop alike. Each needs a written water-management programme (ANSI/ASHRAE Standard 188, ASHRAE Guideline 12 and the local public-health rules) with a responsible person, monitoring, disinfection, start-up and shut-down procedures and records, and may need registration with the authorities. Its cost is in this report; its duty does not go away with a closed circuit or in dry-mode hours.",
+      text: "Every option here has water that evaporates and can spread aerosols: the open tower's basin and fill, the closed-circuit cooler's and the evaporative condenser's spray loops alike. Each needs a written water-management programme (ANSI/ASHRAE Standard 188, ASHRAE Guideline 12 and the local public-health rules) with a responsible person, monitoring, disinfection, start-up and shut-down procedures and records, and may need registration with the authorities. Its cost is in this report; its duty does not go away with a closed circuit or in dry-mode hours.",
     });
     out.push({
       title: "Treatment chemicals",
