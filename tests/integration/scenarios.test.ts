@@ -82,7 +82,7 @@ describe("save → analyse → stored result keyed by engine version and inputs 
     expect(await runScenarioResultJob(db, a1.full!.id)).toBe("stored");
     const row = await findResult(db, c.id, ENGINE_VERSION, a1.inputsHash, "full");
     expect(row?.status).toBe("done");
-    expect((row?.result as ScenarioResult).economics.options).toHaveLength(3);
+    expect((row?.result as ScenarioResult).economics.options).toHaveLength(4);
     // The Monte Carlo is queued for the same key, not run during the save.
     expect(a1.monteCarlo?.status).toBe("queued");
 
@@ -253,14 +253,14 @@ describe("API round trip on the stored data", () => {
 });
 
 describe("the demo seed", () => {
-  it("holds the three-option scenario, analysed under the current engine and issued as version 1", async () => {
+  it("holds the four-option scenario, analysed under the current engine and issued as version 1", async () => {
     const project = await db.selectFrom("projects").select(["id"]).where("name", "=", DEMO_PROJECT.name).executeTakeFirstOrThrow();
     const scenario = await db.selectFrom("scenarios").select(["id"]).where("project_id", "=", project.id).where("name", "=", DEMO_SCENARIO_NAME).executeTakeFirstOrThrow();
     const ctx = await loadScenarioContext(db, scenario.id);
     const built = buildEngineInput(ctx!.dto.document, ctx!.dataset, ctx!.project);
     expect(built.ok).toBe(true);
     if (!built.ok) return;
-    expect(built.input.options.map((o) => o.kind).sort()).toEqual(["closedCircuitCooler", "openTowerDirect", "openTowerPlateHx"]);
+    expect(built.input.options.map((o) => o.kind).sort()).toEqual(["closedCircuitCooler", "evaporativeCondenser", "openTowerDirect", "openTowerPlateHx"]);
     // The page computes the same key the seed stored under, so it opens without recomputing.
     const st = await storedFor(db, scenario.id, built.input);
     expect(st.result).not.toBeNull();
@@ -271,7 +271,7 @@ describe("the demo seed", () => {
     expect(v[0]!.inputs_hash).toBe(st.inputsHash);
     expect((v[0]!.result as ScenarioResult).economics.monteCarlo?.draws).toBe(10_000);
     // Heat rejected by every option over the year equals the duty served (Methods §4 balance):
-    // the same for all three options, since they serve the same load.
+    // the same for all four options, since they serve the same load.
     const q = (st.result as ScenarioResult).physics.map((p) => p.heatRejectedKWh);
     expect(Math.max(...q) / Math.min(...q)).toBeCloseTo(1, 3);
   });
