@@ -19,29 +19,6 @@ export async function findReportScenario(db: Executor, scenarioId: string) {
     .executeTakeFirst();
 }
 
-/** An issued version: the given number, or the latest when `versionNumber` is null. */
-export async function findIssuedVersion(db: Executor, scenarioId: string, versionNumber: number | null) {
-  let q = db
-    .selectFrom("scenario_versions")
-    .select([
-      "scenario_versions.id",
-      "scenario_versions.version_number as versionNumber",
-      "scenario_versions.name",
-      "scenario_versions.input",
-      "scenario_versions.result",
-      "scenario_versions.engine_version as engineVersion",
-      "scenario_versions.inputs_hash as inputsHash",
-      "scenario_versions.issued_at as issuedAt",
-      "scenario_versions.issued_by as issuedBy",
-    ])
-    .where("scenario_versions.scenario_id", "=", scenarioId);
-  q =
-    versionNumber === null
-      ? q.orderBy("scenario_versions.version_number", "desc")
-      : q.where("scenario_versions.version_number", "=", versionNumber);
-  return q.limit(1).executeTakeFirst();
-}
-
 /** The latest finished full analysis of the scenario, preferring the current engine version. */
 export async function findLatestDoneResult(db: Executor, scenarioId: string, engineVersion: string) {
   return db

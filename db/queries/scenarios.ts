@@ -101,26 +101,3 @@ export async function setScenarioArchived(db: Executor, scenarioId: string, arch
     .executeTakeFirst();
 }
 
-/** The issued version a client viewer may see: a given number, or the latest. */
-export async function findIssuedVersion(db: Executor, scenarioId: string, versionNumber?: number) {
-  let q = db
-    .selectFrom("scenario_versions")
-    .select([
-      "id",
-      "scenario_id as scenarioId",
-      "project_id as projectId",
-      "version_number as versionNumber",
-      "name",
-      "note",
-      "input",
-      "input_version as inputVersion",
-      "result",
-      "engine_version as engineVersion",
-      "inputs_hash as inputsHash",
-      "scenario_revision as scenarioRevision",
-      "issued_at as issuedAt",
-    ])
-    .where("scenario_id", "=", scenarioId);
-  if (versionNumber !== undefined) q = q.where("version_number", "=", versionNumber);
-  return q.orderBy("version_number", "desc").limit(1).executeTakeFirst();
-}

@@ -146,3 +146,28 @@ export async function findVersionHeader(db: Executor, projectId: string, version
     .where("project_id", "=", projectId)
     .executeTakeFirst();
 }
+
+/** An issued version with its frozen input and result: the given number, or the latest when `versionNumber` is null. */
+export async function findIssuedVersion(db: Executor, scenarioId: string, versionNumber: number | null) {
+  let q = db
+    .selectFrom("scenario_versions")
+    .select([
+      "id",
+      "scenario_id as scenarioId",
+      "project_id as projectId",
+      "version_number as versionNumber",
+      "name",
+      "note",
+      "input",
+      "input_version as inputVersion",
+      "result",
+      "engine_version as engineVersion",
+      "inputs_hash as inputsHash",
+      "scenario_revision as scenarioRevision",
+      "issued_at as issuedAt",
+      "issued_by as issuedBy",
+    ])
+    .where("scenario_id", "=", scenarioId);
+  q = versionNumber === null ? q.orderBy("version_number", "desc") : q.where("version_number", "=", versionNumber);
+  return q.limit(1).executeTakeFirst();
+}

@@ -1,13 +1,13 @@
 import "server-only";
-import type { NextResponse } from "next/server";
-import { jsonError } from "@/lib/http";
 import { db } from "@/db";
 import { writeAudit } from "@/db/queries/audit";
 import type { Action } from "@/lib/auth/permissions";
 import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/auth/roles";
-import { authorizeProjectApi, isUuid } from "@/lib/auth/session";
+import { currentViewer } from "@/lib/auth/session";
+import { failureResponse } from "@/lib/http";
+import { parseVersionParam, resolveScenarioResult } from "@/lib/scenarios/resolve";
 import { isoDate } from "./format";
-import { reportScenario, resolveReportSource } from "./source";
+import { reportSourceOf } from "./source";
 import type { ReportSource } from "./types";
 
 /** ASCII file-name part: letters, digits, dot, dash; everything else collapsed to one dash. */
@@ -36,56 +36,34 @@ export function reportFileName(
 }
 
 export type ReportRequest =
-  | { ok: false; response: NextResponse }
+  | { ok: false; response: Response }
   | {
       ok: true;
       source: ReportSource;
       audit: (format: string, extra?: Record<string, unknown>) => Promise<void>;
     };
 
-function parseVersion(v: string | null): number | null | "bad" {
-  if (v === null || v === "") return null;
-  return /^[1-9][0-9]{0,5}$/.test(v) ? Number(v) : "bad";
-}
-
 /**
- * Resolve and authorize one report download: the scenario's project first (404 for an id the viewer
- * cannot see, with no hint it exists), then the action (401 anonymous, 403 lacking it), then what the
- * viewer may download (the issued version for client viewers, the draft or a version for the firm).
+ * Resolve and authorize one report download through the one draft-or-issued resolver
+ * (lib/scenarios/resolve.ts): 401 anonymous, 404 an id the viewer cannot see (no hint it exists),
+ * 403 lacking the action, 400 a malformed `?version=`; then the report source, shaped by the viewer's
+ * rights (no yearly cash flows for the owner).
  */
-export async function prepareReportRequest(
-  req: Request,
-  scenarioId: string,
-  action: Action,
-): Promise<ReportRequest> {
-  if (!isUuid(scenarioId)) {
-    // Same answer as an unknown id, but an anonymous caller still learns only that they must sign in.
-    const auth = await authorizeProjectApi("not-a-project", action);
-    return {
-      ok: false,
-      response: jsonError(auth.ok ? 404 : auth.status, auth.ok ? "Not found." : auth.body.error),
-    };
-  }
+export async function prepareReportRequest(req: Request, scenarioId: string, action: Action): Promise<ReportRequest> {
   const url = new URL(req.url);
-  const version = parseVersion(url.searchParams.get("version"));
+  const viewer = await currentViewer();
+  const version = parseVersionParam(url.searchParams.get("version"));
   const unitsParam = url.searchParams.get("units");
-  const units =
-    unitsParam && (UNIT_SYSTEMS as readonly string[]).includes(unitsParam)
-      ? (unitsParam as UnitSystem)
-      : null;
-  const scenario = await reportScenario(scenarioId);
-  const auth = await authorizeProjectApi(
-    scenario?.projectId ?? "00000000-0000-4000-8000-000000000000",
-    action,
-  );
-  if (!auth.ok) return { ok: false, response: jsonError(auth.status, auth.body.error) };
-  if (!scenario || version === "bad") return { ok: false, response: jsonError(404, "Not found.") };
-  const outcome = await resolveReportSource(auth.access, scenario, { version, units });
-  if (!outcome.ok) return { ok: false, response: jsonError(outcome.status, outcome.error) };
-  const access = auth.access;
+  const units = unitsParam && (UNIT_SYSTEMS as readonly string[]).includes(unitsParam) ? (unitsParam as UnitSystem) : null;
+  const resolved = await resolveScenarioResult(db, viewer, scenarioId, { action, version: version.ok ? version.value : null });
+  if (!resolved.ok) return { ok: false, response: failureResponse(resolved) };
+  if (!version.ok) return { ok: false, response: failureResponse(version) };
+  const source = await reportSourceOf(db, resolved.value, units);
+  if (!source.ok) return { ok: false, response: failureResponse(source) };
+  const { access } = resolved.value;
   return {
     ok: true,
-    source: outcome.source,
+    source: source.value,
     audit: (format, extra = {}) =>
       writeAudit(db, {
         actorId: access.viewer.id,
@@ -93,8 +71,8 @@ export async function prepareReportRequest(
         projectId: access.project.id,
         action: "report.download",
         targetType: "scenario",
-        targetId: scenarioId,
-        detail: { format, version: outcome.source.versionNumber, units: outcome.source.unitSystem, ...extra },
+        targetId: resolved.value.scenario.row.id,
+        detail: { format, version: source.value.versionNumber, units: source.value.unitSystem, ...extra },
       }),
   };
 }

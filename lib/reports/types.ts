@@ -45,6 +45,8 @@ export interface ReportSource {
   /** When the underlying analysis finished (draft) or the version was issued. */
   resultAt: Date | null;
   engineVersion: string;
+  /** The viewer may not see yearly cash flows (the owner): the result carries none, the report leaves them out. */
+  cashFlowsWithheld?: boolean;
 }
 
 export class ReportDataError extends Error {

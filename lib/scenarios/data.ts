@@ -15,7 +15,8 @@ import { sectionOfPath } from "./editor-values";
 import { fail, invalid, ok, REFUSALS, type Refusal, type Result } from "@/lib/result";
 import { db } from "@/db";
 import { writeAudit } from "@/db/queries/audit";
-import { findIssuedVersion, listScenarioSummaries } from "@/db/queries/scenarios";
+import { listScenarioSummaries } from "@/db/queries/scenarios";
+import { inputsHash } from "./hash";
 import { latestResultsOfKind } from "@/db/queries/results";
 import { authorizeProject, loadProjectAccess, type ProjectAccess, type Viewer } from "@/lib/auth/access";
 import type { Action } from "@/lib/auth/permissions";
@@ -29,7 +30,8 @@ import { upgradeStoredResult } from "@/lib/engine/legacy";
 import { inTransaction } from "@/db/transaction";
 import { buildEngineInput, withClimateData, cloneScenario, createScenario, loadScenarioContext, saveScenario, archiveScenario, type ScenarioContext } from "./store";
 import type { ScenarioDocument } from "./mappers";
-import { Lru } from "./cache";
+import { draftResult } from "./resolve";
+import { shapeResultFor } from "./result-view";
 
 const saveSchema = z.object({
   scenarioId: z.string(),
@@ -340,21 +342,25 @@ export interface DraftView {
  * run here when quick) and the page shows it as pending.
  */
 export async function draftView(sa: ScenarioAccess): Promise<DraftView> {
-  const cached = await draftSource(sa);
+  const withheld = !sa.access.can("scenario.viewCashFlows");
+  const cached = await draftResult(db, sa.ctx);
   if (cached) {
-    const mc = monteCarloStatusOf(await findResult(db, sa.ctx.row.id, ENGINE_VERSION, cached.inputsHash, "monteCarlo"));
-    return { input: cached.input, inputErrors: null, result: cached.result, full: null, inputsHash: cached.inputsHash, monteCarlo: mc };
+    return { input: cached.input, inputErrors: null, result: shapeResultFor(cached.result, withheld), full: null, inputsHash: cached.inputsHash, monteCarlo: cached.monteCarlo };
   }
   const full = await withClimateData(db, sa.ctx);
   const built = buildEngineInput(full.dto.document as ScenarioDocument, full.dataset, full.project);
   if (!built.ok) return { input: null, inputErrors: built.fieldErrors, result: null, full: null, inputsHash: null, monteCarlo: null };
   const a = await analyzeAndStore(db, sa.ctx.row.id, built.input, { requestedBy: sa.access.viewer.id });
-  return { input: built.input, inputErrors: null, result: a.result, full: a.full, inputsHash: a.inputsHash, monteCarlo: a.monteCarlo };
+  return { input: built.input, inputErrors: null, result: a.result ? shapeResultFor(a.result, withheld) : null, full: a.full, inputsHash: a.inputsHash, monteCarlo: a.monteCarlo };
 }
 
-/** The issued version a viewer may see (a number, or the latest), with its frozen input and result. */
-export async function issuedVersionOf(scenarioId: string, versionNumber?: number) {
-  return findIssuedVersion(db, scenarioId, versionNumber);
+/** The deterministic result's state of the draft's current inputs while a worker computes it (the page polls it). */
+export async function draftAnalysisState(ctx: ScenarioContext) {
+  const full = await withClimateData(db, ctx);
+  const built = buildEngineInput(full.dto.document, full.dataset, full.project);
+  if (!built.ok) return null;
+  const row = await findResult(db, ctx.row.id, ENGINE_VERSION, inputsHash(built.input), "full");
+  return row ? { status: row.status, progress: row.progress, error: row.error } : null;
 }
 
 /** Write an audit event for a scenario (views, downloads). */
@@ -370,33 +376,13 @@ export async function auditScenario(sa: ScenarioAccess, action: string, detail: 
   });
 }
 
-// --- what-if and results sources ------------------------------------------------------------------
-
-type Source = { input: ScenarioInput; result: ScenarioResult; inputsHash: string; version: number | null };
-const g = globalThis as unknown as { loopledgerWhatIfCache?: Lru<Source> };
-const draftCache = (g.loopledgerWhatIfCache ??= new Lru<Source>(32));
-
-/** The draft's input and its stored result (null when the current inputs have none yet). */
-export async function draftSource(sa: ScenarioAccess): Promise<Source | null> {
-  const { ctx } = sa;
-  const key = [ctx.row.id, ctx.row.revision, ctx.row.climateDatasetId, ctx.project.elevationM, ctx.project.locationLabel].join("|");
-  const hit = draftCache.get(key);
-  if (hit) return hit;
-  const full = await withClimateData(db, ctx);
-  const built = buildEngineInput(full.dto.document, full.dataset, full.project);
-  if (!built.ok) return null;
-  const stored = await storedFor(db, ctx.row.id, built.input);
-  if (!stored.result) return null;
-  const src = { input: built.input, result: stored.result, inputsHash: stored.inputsHash, version: null };
-  draftCache.set(key, src);
-  return src;
+/** Write an audit event about a resolved result (views, downloads). */
+export async function auditResolved(r: { access: ProjectAccess; scenario: ScenarioContext }, action: string, detail: Record<string, unknown> = {}) {
+  await auditOn(db, r.access, action, r.scenario.row.id, detail);
 }
 
-/**
- * An issued version's frozen input and result, in the engine's shape. Versions freeze either the full
- * engine input or the stored document (climate as a dataset reference); the economics need neither the
- * climate nor the site, so both work for the what-if and the results API.
- */
-export function issuedSource(v: NonNullable<Awaited<ReturnType<typeof findIssuedVersion>>>): Source {
-  return { input: v.input as ScenarioInput, result: upgradeStoredResult(v.result as ScenarioResult), inputsHash: v.inputsHash, version: v.versionNumber };
+
+/** The draft's document with its climate arrays, for the JSON export. */
+export async function exportableDraft(ctx: ScenarioContext) {
+  return withClimateData(db, ctx);
 }

@@ -4,6 +4,8 @@ import type { Executor } from "@/db/schema";
 import { inTransaction } from "@/db/transaction";
 import { defineAction } from "@/lib/actions/define";
 import { findScenario } from "@/db/queries/scenarios";
+import type { EconomicsResult } from "@/lib/engine/economics/types";
+import { shapeResultFor } from "@/lib/scenarios/result-view";
 import { authorizeProject, isUuid, type ProjectAccess, type Viewer } from "@/lib/auth/access";
 import { writeAudit } from "@/db/queries/audit";
 import {
@@ -177,7 +179,8 @@ export async function openIssuedVersion(
       detail: { versionNumber, scenarioName: version.name, role: access.relation },
     });
   }
-  return ok({ access, version });
+  // The owner never receives yearly cash flows, whichever page renders this version.
+  return ok({ access, version: { ...version, result: shapeResultFor(version.result as { economics: EconomicsResult }, !access.can("scenario.viewCashFlows")) } });
 }
 
 /** Parse the [version] route segment: a positive integer, nothing else ("1", not "01" or "1.0"). */

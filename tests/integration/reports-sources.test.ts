@@ -5,11 +5,11 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   findFirmMemberName,
-  findIssuedVersion,
   findLatestDoneResult,
   findMonteCarloResult,
   findReportScenario,
 } from "@/db/queries/report-sources";
+import { findIssuedVersion } from "@/db/queries/versions";
 import { testDb, uniq } from "../support/db";
 
 const db = testDb();

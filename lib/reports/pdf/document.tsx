@@ -462,6 +462,7 @@ function ChartsSection({ source, summary }: { source: ReportSource; summary: Rep
           items={usedCategories.map((c) => ({ label: COST_CATEGORY_LABELS[c], color: CATEGORY_COLORS[c] }))}
         />
       </ChartFrame>
+      {source.cashFlowsWithheld ? null : (
       <ChartFrame
         title="Cumulative discounted cost"
         subtitle={`Present value of all costs to the end of each study year, ${cur}`}
@@ -477,6 +478,7 @@ function ChartsSection({ source, summary }: { source: ReportSource; summary: Rep
         />
         <Legend items={eco.options.map((o, i) => ({ label: o.label, color: optionColor(i) }))} />
       </ChartFrame>
+      )}
         </>
       )}
       <ChartFrame
@@ -851,8 +853,17 @@ function CautionsSection({ source }: { source: ReportSource }) {
 }
 
 /** The whole report as a react-pdf document. */
+/** The report's parts in order; "cash" (the yearly cash-flow pages) only for viewers who may see cash flows. */
+export const REPORT_PARTS = ["cover", "summary", "charts", "assumptions", "water", "cash", "methods", "cautions"] as const;
+
+/** The parts a report for this source has: the viewer's access decides (no yearly cash flows for the owner). */
+export function reportPartsFor(source: Pick<ReportSource, "cashFlowsWithheld">): string[] {
+  return REPORT_PARTS.filter((p) => p !== "cash" || !source.cashFlowsWithheld);
+}
+
 export function ReportDocument({ source, parts }: { source: ReportSource; parts?: string[] }) {
-  const on = (k: string) => !parts || parts.includes(k);
+  const allowed = reportPartsFor(source);
+  const on = (k: string) => allowed.includes(k) && (!parts || parts.includes(k));
   const size = source.unitSystem === "IP" ? "LETTER" : "A4";
   const summary = buildSummary(source.result, source.project.currency, source.unitSystem);
   return (

@@ -12,6 +12,7 @@ export async function GET(req: Request, ctx: { params: Promise<{ scenarioId: str
   const { scenarioId } = await ctx.params;
   const prep = await prepareReportRequest(req, scenarioId, "report.downloadWorkbook");
   if (!prep.ok) return prep.response;
+  if (prep.source.cashFlowsWithheld) return jsonError(403, "You do not have access to this.");
   let xlsx: Buffer;
   try {
     xlsx = await buildWorkbook(prep.source);

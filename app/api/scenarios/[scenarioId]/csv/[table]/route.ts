@@ -11,6 +11,8 @@ export async function GET(req: Request, ctx: { params: Promise<{ scenarioId: str
   const prep = await prepareReportRequest(req, scenarioId, "report.downloadWorkbook");
   if (!prep.ok) return prep.response;
   if (!isCsvTable(table)) return jsonError(404, "Not found.");
+  // The data-access layer already withheld the yearly flows; a table of them would be empty, so refuse it.
+  if (table === "cashflows" && prep.source.cashFlowsWithheld) return jsonError(403, "You do not have access to this.");
   // A byte-order mark so spreadsheet programs read the UTF-8 unit symbols (°F, m³) correctly.
   const body = Buffer.from("\ufeff" + buildCsv(prep.source, table), "utf8");
   await prep.audit("csv", { table, bytes: body.length });
