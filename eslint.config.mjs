@@ -11,6 +11,35 @@ const config = [
       "@typescript-eslint/no-unused-vars": ["warn", { argsIgnorePattern: "^_", varsIgnorePattern: "^_", caughtErrorsIgnorePattern: "^_" }],
     },
   },
+  // Layering: lib never imports components; lib/engine stays pure (no framework, validation, database or auth).
+  {
+    files: ["lib/**/*.{ts,tsx,mjs}"],
+    ignores: ["lib/engine/**"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        { patterns: [{ group: ["@/components", "@/components/*", "**/components/**"], message: "lib must not import components (move the shared piece into lib)." }] },
+      ],
+    },
+  },
+  {
+    files: ["lib/engine/**/*.{ts,tsx,mjs}"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        {
+          patterns: [
+            { group: ["@/components", "@/components/*", "**/components/**"], message: "lib must not import components." },
+            { group: ["next", "next/*", "next-auth", "next-auth/*"], message: "lib/engine is pure: no Next.js." },
+            { group: ["react", "react/*", "react-dom", "react-dom/*"], message: "lib/engine is pure: no React." },
+            { group: ["zod", "zod/*"], message: "lib/engine is pure: validation belongs to lib/scenarios." },
+            { group: ["@/db", "@/db/*", "kysely", "pg"], message: "lib/engine is pure: no database." },
+            { group: ["@/lib/auth", "@/lib/auth/*"], message: "lib/engine is pure: no auth." },
+          ],
+        },
+      ],
+    },
+  },
   // Migrations are frozen in time and typed against Kysely<any> on purpose.
   { files: ["migrations/**/*.ts", "db/migrate.ts"], rules: { "@typescript-eslint/no-explicit-any": "off" } },
   { ignores: [".next/**", ".next-*/**", "node_modules/**", ".data/**", "test-results/**", "next-env.d.ts"] },

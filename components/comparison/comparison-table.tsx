@@ -4,7 +4,7 @@ import { COST_CATEGORIES, COST_CATEGORY_LABELS, type EconomicsResult, type Optio
 import type { EngineWarning, OptionAnnualPhysics } from "@/lib/engine/types";
 import { formatNumber, formatQuantity, unitLabel, type QuantityKind, type UnitSystem } from "@/lib/units";
 import { warningText } from "@/lib/units/warnings";
-import { findComparison } from "./headline";
+import { findComparison } from "@/lib/comparison/headline";
 
 /** What a life-cycle cell shows while an option's first cost is not entered. */
 export const FIRST_COSTS_MISSING = "first costs missing";

@@ -12,7 +12,7 @@ import { TornadoChart } from "@/components/charts/tornado-chart";
 import { WetBulbBinsChart } from "@/components/charts/wet-bulb-bins-chart";
 import { CautionList, ScreeningNote, cautionsFor } from "./cautions";
 import { ComparisonTable, WarningList, sectionOfWarning } from "./comparison-table";
-import { buildHeadline, designDaySentence, money } from "./headline";
+import { buildHeadline, designDaySentence, money } from "@/lib/comparison/headline";
 import { MonteCarloPanel, type MonteCarloSlot } from "./monte-carlo-panel";
 import { STACK_CATEGORIES, costStackSeries, cumulativeSeries, monthlyWaterSeries, tornadoRows, wetBulbBinRows } from "./series";
 import { WhatIfPanel } from "./what-if-panel";

@@ -5,7 +5,7 @@ import type { MonteCarloInputKey, MonteCarloResult } from "@/lib/engine/economic
 import { MC_LABELS } from "@/lib/scenarios/field-labels";
 import { formatNumber } from "@/lib/units";
 import { MonteCarloChart } from "@/components/charts/monte-carlo-chart";
-import { money } from "./headline";
+import { money } from "@/lib/comparison/headline";
 
 export interface MonteCarloSlot {
   status: "queued" | "running" | "done" | "failed" | "off";

@@ -4,7 +4,7 @@ import { useEffect, useId, useMemo, useState } from "react";
 import useSWR from "swr";
 import { formatNumber, formatQuantity, type UnitSystem } from "@/lib/units";
 import type { WhatIfBaseline, WhatIfBody, WhatIfResponse } from "@/lib/scenarios/what-if";
-import { money, type Headline } from "./headline";
+import { money, type Headline } from "@/lib/comparison/headline";
 
 type Key = "water" | "electricity" | "cycles" | "discount" | "premium" | "load" | "shift" | "fouling" | "minCond";
 type FanChoice = "asSelected" | "variableSpeed" | "twoSpeed" | "cycling";

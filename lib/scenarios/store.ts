@@ -5,7 +5,7 @@
  */
 import type { Executor } from "@/db/schema";
 import { findScenario, insertScenario, setScenarioArchived, updateScenarioAtRevision, type ScenarioRow } from "@/db/queries/scenarios";
-import type { FieldErrorMap } from "@/components/forms/errors";
+import type { FieldErrorMap } from "@/lib/result";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { climateInputFromDataset, documentFromStored, toEngineInputDraft, toScenarioDTO, toStoredInput, type ClimateDatasetLike, type ProjectSiteLike, type ScenarioDocument, type ScenarioDTO } from "./mappers";
 import { defaultScenario } from "./schema";

@@ -13,7 +13,7 @@ import type { ScenarioInput } from "@/lib/engine/input";
 import { needsPhysics, scenarioWhatIf } from "@/lib/engine/what-if";
 import { Lru } from "./cache";
 import type { UnitSystem } from "@/lib/units";
-import { buildHeadline, type Headline } from "@/components/comparison/headline";
+import { buildHeadline, type Headline } from "@/lib/comparison/headline";
 import { waterObjectSchema } from "./schema";
 import { economicsSchema } from "./schema-economics";
 

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { ProjectAccess } from "@/lib/auth/session";
 import { listArchivedScenarios, listDraftScenarios, listProjectDatasets } from "@/lib/scenarios/data";
-import { money } from "@/components/comparison/headline";
+import { money } from "@/lib/comparison/headline";
 import { EmptyState, Panel } from "@/components/ui/panel";
 import { formatNumber } from "@/lib/units";
 import { NewScenarioForm } from "../scenarios/_components/new-scenario-form";

@@ -2,7 +2,7 @@ import type { ScenarioResult } from "@/lib/engine";
 import { upgradeStoredResult } from "@/lib/engine/legacy";
 import type { ScenarioInput } from "@/lib/engine/input";
 import type { UnitSystem } from "@/lib/units";
-import { buildHeadline, money } from "@/components/comparison/headline";
+import { buildHeadline, money } from "@/lib/comparison/headline";
 
 /** Enough of a stored result to show; an older or foreign shape is reported rather than rendered wrongly. */
 export function isDisplayableResult(r: unknown): r is ScenarioResult {
