@@ -2,7 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { createDb } from "@/db/client";
-import { allows, type Action, type ProjectRelation } from "@/lib/auth/permissions";
+import type { Action, ProjectRelation } from "@/lib/auth/permissions";
+import { expectedAllowed } from "../support/authz-table";
 import { BASE_URL } from "./support";
 import { buildMatrixWorld, ROLES, sacrificialInvitation, sacrificialViewer, type MatrixWorld, type Role } from "./authz-fixtures";
 
@@ -14,7 +15,7 @@ import { buildMatrixWorld, ROLES, sacrificialInvitation, sacrificialViewer, type
  * status. A refused response must carry nothing of the object; no response may carry a password hash, an
  * invitation token hash, or an invitation token (except the invitation page of that very token).
  *
- * Expectations follow lib/auth/permissions.ts: anonymous → sign-in (pages) or 401 (APIs); no relation
+ * Expectations come from the literal table tests/support/authz-table.ts (never from lib/auth): anonymous → sign-in (pages) or 401 (APIs); no relation
  * to the project → 404; a relation without the action → 403 (404 where client viewers must not learn
  * that a draft exists); otherwise the route's own success status.
  */
@@ -123,7 +124,7 @@ function projectRule(action: Action, o: ProjectRuleOptions = {}): Omit<Rule, "va
       if (!rel) return { status: 404 };
       const client = CLIENTS.includes(rel);
       if (o.clientRedirect && client) return { status: 307, location: o.clientRedirect };
-      if (!allows(rel, action)) return { status: o.hideFromClients && client ? 404 : 403 };
+      if (!expectedAllowed(rel, action)) return { status: o.hideFromClients && client ? 404 : 403 };
       if (variant === "mixed") return { status: 404 };
       return { status: o.authorizedButInvalid ?? o.ok ?? 200 };
     },

@@ -1,27 +1,14 @@
 import { describe, expect, it } from "vitest";
-import { ACTIONS, allows, can, canInFirm, navigationFor, relationTo, type Action, type ProjectRelation } from "@/lib/auth/permissions";
+import { ACTIONS, allows, can, canInFirm, navigationFor, relationTo } from "@/lib/auth/permissions";
+import { AUTHZ_TABLE, expectedAllowed } from "../../support/authz-table";
 
-// The expected table is the product brief's (shared/product.md "Who uses it") and issue 6's role list,
-// written out independently here so that a change to the rules must be made in two places on purpose.
-const EXPECTED: Record<ProjectRelation, Action[]> = {
-  admin: [...ACTIONS],
-  consultant: ACTIONS.filter((a) => a !== "firm.manageMembers" && a !== "project.delete"),
-  owner: ["project.view", "scenario.viewIssued", "scenario.whatIf", "scenario.comment", "report.downloadPdf"],
-  finance: [
-    "project.view",
-    "scenario.viewIssued",
-    "scenario.whatIf",
-    "scenario.comment",
-    "scenario.viewCashFlows",
-    "report.downloadPdf",
-    "report.downloadWorkbook",
-  ],
-};
-
-describe("permission table: every role × action", () => {
-  for (const relation of Object.keys(EXPECTED) as ProjectRelation[]) {
+describe("permission table: every role × action against the literal table (tests/support/authz-table.ts)", () => {
+  it("every action of the code has a row in the table, and the table names no action the code lacks", () => {
+    expect(Object.keys(AUTHZ_TABLE).sort()).toEqual([...ACTIONS].sort());
+  });
+  for (const relation of ["admin", "consultant", "owner", "finance"] as const) {
     for (const action of ACTIONS) {
-      const expected = EXPECTED[relation].includes(action);
+      const expected = expectedAllowed(relation, action);
       it(`${relation} ${expected ? "may" : "may not"} ${action}`, () => {
         expect(allows(relation, action)).toBe(expected);
       });
