@@ -2,6 +2,7 @@
  * Pump power: P = ρ·g·V̇·H/η = ṁ·g·H/η (H in metres of the pumped fluid), wire-to-water efficiency η.
  * Source: hydraulics (pump power equation); head and efficiency from the selection.
  */
+import { WATER_DENSITY_KG_PER_M3 } from "@/lib/units/factors";
 import type { FluidProperties } from "./glycol";
 import { pressureDropRatioAtSameVolumeFlow } from "./glycol";
 
@@ -13,9 +14,9 @@ export function pumpPowerKW(massFlowKgPerS: number, headM: number, efficiency: n
   return (massFlowKgPerS * G * headM) / efficiency / 1000;
 }
 
-/** Head in metres of water for a pressure drop in kPa (ρw = 998 kg/m³). */
+/** Head in metres of water for a pressure drop in kPa (ρw of the water-density convention, Methods §8). */
 export function waterHeadFromPressureDropM(pressureDropKPa: number): number {
-  return (pressureDropKPa * 1000) / (998 * G);
+  return (pressureDropKPa * 1000) / (WATER_DENSITY_KG_PER_M3 * G);
 }
 
 /**

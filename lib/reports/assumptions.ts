@@ -13,6 +13,7 @@ import { economicsFieldDefaults } from "@/lib/scenarios/schema-economics";
 import { fmtMoney, fmtNumber, fmtPercent } from "./format";
 import type { ReportEngineResult } from "./types";
 import { convert, unitOf, type QuantityKind } from "./units";
+import { waterLPerSFromKgPerS } from "@/lib/units";
 
 export interface AssumptionRow {
   label: string;
@@ -30,7 +31,6 @@ export interface AssumptionGroup {
 
 const ENTERED = "entered by the consultant";
 const SELECTION = "manufacturer's selection, entered by the consultant";
-const WATER_KG_PER_L = 1;
 
 type Defaults = Record<string, { default: unknown; source: string }>;
 const DEFAULTS: Defaults = economicsFieldDefaults as unknown as Defaults;
@@ -247,7 +247,7 @@ function optionGroup(
   const kindLabel = o.kind ? OPTION_KIND_LABELS[o.kind] : "";
   if ("tower" in o && o.tower) {
     const t = o.tower;
-    r.q("Tower water flow (at 1 kg/L)", "waterFlowLPerS", t.waterFlowKgPerS / WATER_KG_PER_L, 1, SELECTION);
+    r.q("Tower water flow (at 998.2 kg/m³, Methods §8)", "waterFlowLPerS", waterLPerSFromKgPerS(t.waterFlowKgPerS), 1, SELECTION);
     r.q("Entering / leaving water", "temperatureC", t.enteringWaterC, 1, SELECTION);
     r.rows[r.rows.length - 1]!.value +=
       ` / ${fmtNumber(convert("temperatureC", t.leavingWaterC, system), 1)}`;
@@ -263,7 +263,7 @@ function optionGroup(
   }
   if ("cooler" in o && o.cooler) {
     const c = o.cooler;
-    r.q("Process fluid flow (at 1 kg/L)", "waterFlowLPerS", c.fluidFlowKgPerS / WATER_KG_PER_L, 1, SELECTION);
+    r.q("Process fluid flow (at 998.2 kg/m³, Methods §8)", "waterFlowLPerS", waterLPerSFromKgPerS(c.fluidFlowKgPerS), 1, SELECTION);
     r.q("Entering / leaving fluid", "temperatureC", c.enteringFluidC, 1, SELECTION);
     r.rows[r.rows.length - 1]!.value +=
       ` / ${fmtNumber(convert("temperatureC", c.leavingFluidC, system), 1)}`;

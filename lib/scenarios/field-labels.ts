@@ -30,8 +30,8 @@ export interface FieldInfo {
   display?: FieldDisplay;
 }
 
-/** Density of water at 20 °C in kg/L [memory: 998.2 kg/m³, IAPWS], the same the engine uses for volumes. */
-export const WATER_KG_PER_L = 0.9982;
+/** The one water-density convention (Methods §8), kg/L: lib/units. */
+export { WATER_KG_PER_L } from "@/lib/units/factors";
 
 export const FIRST_COST_LABELS: Record<(typeof FIRST_COST_ITEMS)[number], string> = {
   equipment: "Equipment",

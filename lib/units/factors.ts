@@ -71,3 +71,22 @@ export const M_PER_S_PER_FPM = M_PER_FT / 60;
 export const KG_PER_S_PER_LB_PER_H = KG_PER_LB / 3600;
 /** Square foot, m² (exact). */
 export const M2_PER_FT2 = M_PER_FT * M_PER_FT;
+
+/**
+ * The one water-density convention of LoopLedger (Methods §8): water at 20 °C, 998.2 kg/m³ [pub: IAPWS-95
+ * saturated-liquid density at 20 °C, 998.21 kg/m³]. Every conversion between a volume of water (a flow in
+ * L/s or gpm, makeup or blowdown in m³ or gallons) and its mass uses it: engine, editor, reports, exports.
+ */
+export const WATER_DENSITY_KG_PER_M3 = 998.2;
+/** The same density per litre, kg/L. */
+export const WATER_KG_PER_L = WATER_DENSITY_KG_PER_M3 / 1000;
+
+/** Mass flow of water, kg/s, from its volume flow in L/s. */
+export function waterKgPerSFromLPerS(lPerS: number): number {
+  return lPerS * WATER_KG_PER_L;
+}
+
+/** Volume flow of water, L/s, from its mass flow in kg/s. */
+export function waterLPerSFromKgPerS(kgPerS: number): number {
+  return kgPerS / WATER_KG_PER_L;
+}

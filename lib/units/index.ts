@@ -7,6 +7,7 @@ import { QUANTITIES, type DisplayUnit, type QuantityDef, type QuantityKind, type
 
 export { QUANTITIES, QUANTITY_KINDS, isQuantityKind, type DisplayUnit, type QuantityDef, type QuantityKind, type UnitSystem } from "./quantities";
 export * from "./format";
+export { WATER_DENSITY_KG_PER_M3, WATER_KG_PER_L, waterKgPerSFromLPerS, waterLPerSFromKgPerS } from "./factors";
 
 export function quantity(kind: QuantityKind): QuantityDef {
   return QUANTITIES[kind];

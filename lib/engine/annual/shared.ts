@@ -1,7 +1,7 @@
 /** Shared constants and small formatting helpers of the annual pipeline. */
 
-/** Density of the metered water, kg/m³ (≈ 20 °C). */
-export const WATER_DENSITY_KG_PER_M3 = 998.2;
+/** The one water-density convention (Methods §8), from lib/units: metered volumes ⇄ mass. */
+export { WATER_DENSITY_KG_PER_M3 } from "@/lib/units/factors";
 export const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
 export function round1(x: number): number {

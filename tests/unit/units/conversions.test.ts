@@ -153,3 +153,14 @@ describe("lib/units: offsets, differences and labels", () => {
     close(fromSI("heatDutyKW", toSI("coolingTowerTonsKW", 1, "IP"), "IP"), 15_000, 1e-12);
   });
 });
+
+describe("the water-density convention (Methods §8)", () => {
+  it("1 L/s of water is 0.9982 kg/s: IAPWS-95 density of liquid water at 20 °C, 998.21 kg/m³ [pub], rounded to 998.2", async () => {
+    const { waterKgPerSFromLPerS, waterLPerSFromKgPerS, WATER_DENSITY_KG_PER_M3 } = await import("@/lib/units");
+    expect(WATER_DENSITY_KG_PER_M3).toBeCloseTo(998.21, 1);
+    expect(waterKgPerSFromLPerS(1)).toBeCloseTo(0.9982, 4);
+    // 100 gpm = 6.30901964 L/s (exact) → 6.2976 kg/s at 998.2 kg/m³ (hand calculation: 6.30901964 × 0.9982).
+    expect(waterKgPerSFromLPerS(6.30901964)).toBeCloseTo(6.30901964 * 0.9982, 6);
+    expect(waterLPerSFromKgPerS(0.9982)).toBeCloseTo(1, 9);
+  });
+});

@@ -13,6 +13,8 @@ import {
   toSI,
   unitLabel,
   unitName,
+  waterKgPerSFromLPerS,
+  waterLPerSFromKgPerS,
   type QuantityKind,
 } from "@/lib/units";
 import { defaultFor } from "@/lib/scenarios/prefill";
@@ -217,8 +219,7 @@ export function Pct(props: {
   );
 }
 
-/** Density of water at 20 °C, kg/m³ [memory: 998.2 kg/m³, IAPWS], the same the engine uses for volumes. */
-const WATER_KG_PER_L = 0.9982;
+
 
 /** A loop's mass flow entered as the volume flow selection sheets give (gpm or L/s of water). */
 export function FlowField({
@@ -237,8 +238,8 @@ export function FlowField({
       label={label}
       unit={unitLabel("waterFlowLPerS", system)}
       unitTitle={`${unitName("waterFlowLPerS", system)} of water at 20 °C (stored as mass flow, kg/s)`}
-      show={(kgPerS) => fromSI("waterFlowLPerS", kgPerS / WATER_KG_PER_L, system)}
-      store={(shown) => toSI("waterFlowLPerS", shown, system) * WATER_KG_PER_L}
+      show={(kgPerS) => fromSI("waterFlowLPerS", waterLPerSFromKgPerS(kgPerS), system)}
+      store={(shown) => waterKgPerSFromLPerS(toSI("waterFlowLPerS", shown, system))}
       description={description ?? "Volume of water at 20 °C (998.2 kg/m³); stored as mass flow."}
     />
   );
