@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
 import { connection } from "next/server";
 import type { ReactNode } from "react";
-import { ZodJitless } from "@/components/system/zod-jitless";
 import { plexMono, plexSans } from "./fonts";
 import "./globals.css";
 
@@ -24,10 +23,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
   await connection();
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
-      <body>
-        <ZodJitless />
-        {children}
-      </body>
+      <body>{children}</body>
     </html>
   );
 }
