@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { connection } from "next/server";
 import type { ReactNode } from "react";
 import { plexMono, plexSans } from "./fonts";
 import "./globals.css";
@@ -17,7 +18,9 @@ export const metadata: Metadata = {
   manifest: "/site.webmanifest",
 };
 
-export default function RootLayout({ children }: { children: ReactNode }) {
+/** Rendered per request (never prerendered): Next.js puts each request's CSP nonce on its scripts (proxy.ts). */
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  await connection();
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
       <body>{children}</body>

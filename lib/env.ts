@@ -10,6 +10,8 @@ const envSchema = z.object({
   SMTP_PORT: z.coerce.number().int().positive().default(2525),
   MAIL_FROM: z.string().default("LoopLedger <no-reply@loopledger.local>"),
   SESSION_MAX_AGE_S: z.coerce.number().int().positive().default(8 * 60 * 60),
+  /** Addresses of the reverse proxies whose X-Forwarded-For is believed (comma-separated; none by default). */
+  TRUSTED_PROXIES: z.string().default(""),
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
 });
 

@@ -13,6 +13,8 @@ export NEXTAUTH_SECRET="test-secret-for-loopledger-test-runs-only"
 export NEXTAUTH_URL="http://127.0.0.1:${TEST_PORT}" APP_URL="http://127.0.0.1:${TEST_PORT}"
 export SMTP_HOST=127.0.0.1 SMTP_PORT="${TEST_SMTP_PORT:-2626}" MAIL_FROM="LoopLedger <no-reply@loopledger.test>"
 export NEXT_DIST_DIR="${NEXT_DIST_DIR:-.next-test}"
+# The browser tests give each scenario its own client address in X-Forwarded-For: loopback is their proxy.
+export TRUSTED_PROXIES=127.0.0.1
 results=test-results
 rm -rf "$results"; mkdir -p "$results"
 server_pid=""

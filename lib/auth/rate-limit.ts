@@ -1,5 +1,6 @@
 import { sql, type Kysely } from "kysely";
 import type { Database } from "@/db/schema";
+import { clientAddress as addressOf } from "@/lib/http/client-address";
 
 /** Sign-in throttling, stored in PostgreSQL so every app server sees the same counts. */
 export const SIGN_IN_LIMITS = {
@@ -8,15 +9,15 @@ export const SIGN_IN_LIMITS = {
 } as const;
 
 /**
- * The address a sign-in attempt came from. The right-most X-Forwarded-For entry is the one the nearest
- * proxy appended (Next.js itself only fills the header when it is absent); the left-most entries are
- * whatever the client chose to send, so keying the limit on them would let anyone step around it.
+ * The address a sign-in attempt came from: the connection's peer, or the forwarded client when the peer is
+ * a proxy named in TRUSTED_PROXIES (lib/http/client-address.ts). A client's own X-Forwarded-For counts
+ * for nothing otherwise, so inventing header values does not step around the limit.
  */
 export function clientAddress(headers: Record<string, unknown> | undefined): string {
-  const fwd = headers?.["x-forwarded-for"];
-  const last = typeof fwd === "string" ? fwd.split(",").at(-1)?.trim() : undefined;
-  const real = headers?.["x-real-ip"];
-  return last || (typeof real === "string" ? real : "") || "local";
+  return addressOf((name) => {
+    const v = headers?.[name];
+    return typeof v === "string" ? v : Array.isArray(v) ? v.join(",") : undefined;
+  });
 }
 
 export function signInKeys(email: string, address: string): { account: string; address: string } {

@@ -2,6 +2,9 @@ import "server-only";
 import { NextResponse } from "next/server";
 import { env } from "@/lib/env";
 import { fail, type Failure, type Result } from "@/lib/result";
+import { readBodyLimited } from "./body";
+
+export { readBodyLimited };
 
 /**
  * The one HTTP helper module of the route handlers: JSON answers (errors always `{ error, fieldErrors? }`),
@@ -32,39 +35,6 @@ export function failureResponse(f: Failure<unknown>): NextResponse {
 /** A result as JSON: `okStatus` with the value, or the failure's status with its error and field errors. */
 export function resultResponse<T>(r: Result<T, unknown>, okStatus = 200): NextResponse {
   return r.ok ? jsonOk(r.value, okStatus) : failureResponse(r);
-}
-
-/**
- * Read a request body, refusing it as soon as it passes `limitBytes` (a Content-Length above the limit is
- * refused before anything is read; a chunked or mis-declared body is counted in bytes as it streams).
- */
-export async function readBodyLimited(
-  request: Request,
-  limitBytes: number,
-): Promise<{ ok: true; bytes: Uint8Array } | { ok: false; reason: "tooLarge" | "empty" }> {
-  const declared = Number(request.headers.get("content-length") ?? NaN);
-  if (Number.isFinite(declared) && declared > limitBytes) return { ok: false, reason: "tooLarge" };
-  if (!request.body) return { ok: false, reason: "empty" };
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limitBytes) {
-      await reader.cancel().catch(() => undefined);
-      return { ok: false, reason: "tooLarge" };
-    }
-    chunks.push(value);
-  }
-  const bytes = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    bytes.set(c, at);
-    at += c.byteLength;
-  }
-  return { ok: true, bytes };
 }
 
 /** "16 kB", "5 MB": a limit in words for an error message. */

@@ -215,6 +215,8 @@ export const EXPECTATIONS: Record<string, Rule> = {
     // Any signed-in person may analyse a document of their own; nothing is read or stored.
     expect: ({ role }) => ({ status: role === "anonymous" ? 401 : 422 }),
   },
+  "GET /api/health/live": { variants: ["own"], expect: () => ({ status: 200 }) },
+  "GET /api/health/ready": { variants: ["own"], expect: () => ({ status: 200 }) },
   "GET /api/v1/analyses/[analysisId]": {
     variants: ["own"],
     // A queued analysis is its requester's alone; an id that is not yours is answered like an unknown one.

@@ -26,11 +26,20 @@ describe("session rules", () => {
 });
 
 describe("the address a sign-in is counted against", () => {
-  it("is the entry the nearest proxy appended, not what the client wrote first", () => {
-    // RFC 7239 §5.2 / de-facto X-Forwarded-For: each proxy appends the address it saw on the right.
-    expect(clientAddress({ "x-forwarded-for": "1.2.3.4, 10.0.0.7" })).toBe("10.0.0.7");
-    expect(clientAddress({ "x-forwarded-for": "127.0.0.1" })).toBe("127.0.0.1");
-    expect(clientAddress({ "x-real-ip": "10.1.1.1" })).toBe("10.1.1.1");
-    expect(clientAddress({})).toBe("local");
+  it("is the connection's peer unless the peer is a named proxy; then the right-most forwarded client", () => {
+    // What the credentials endpoint sees: X-Forwarded-For written by Next.js from the socket (proxy.ts set the
+    // client's own header aside under x-loopledger-forwarded-for). RFC 7239 §5.2 / de-facto X-Forwarded-For:
+    // each proxy appends the address it saw on the right.
+    const before = process.env.TRUSTED_PROXIES;
+    try {
+      delete process.env.TRUSTED_PROXIES;
+      expect(clientAddress({ "x-forwarded-for": "127.0.0.1", "x-loopledger-forwarded-for": "1.2.3.4, 10.0.0.7" })).toBe("127.0.0.1");
+      expect(clientAddress({})).toBe("unknown");
+      process.env.TRUSTED_PROXIES = "127.0.0.1";
+      expect(clientAddress({ "x-forwarded-for": "127.0.0.1", "x-loopledger-forwarded-for": "1.2.3.4, 10.0.0.7" })).toBe("10.0.0.7");
+    } finally {
+      if (before === undefined) delete process.env.TRUSTED_PROXIES;
+      else process.env.TRUSTED_PROXIES = before;
+    }
   });
 });

@@ -16,10 +16,12 @@ function parse(csv: string): string[][] {
 }
 
 describe("formula-injection neutralising", () => {
-  it("prefixes text that starts with = + - @ tab or CR, and nothing else", () => {
-    for (const s of ["=1+1", "+1+1", "-2", "@SUM(A1)", "\tx", "\rx", '=HYPERLINK("http://x","y")'])
+  it("prefixes text that starts with = + - @ tab or CR (also after spaces, also full-width ＝ ＋ － ＠), and nothing else", () => {
+    // OWASP "CSV Injection": = + - @ tab CR; some programs skip leading blanks and read the full-width forms
+    // U+FF1D ＝, U+FF0B ＋, U+FF0D －, U+FF20 ＠ as formula starters too.
+    for (const s of ["=1+1", "+1+1", "-2", "@SUM(A1)", "\tx", "\rx", '=HYPERLINK("http://x","y")', " =x", "   +1", "\u00a0=x", "＝1+1", " ＝SUM(A1)", "＋1", "－2", "＠SUM(A1)"])
       expect(neutraliseText(s)).toBe(`'${s}`);
-    for (const s of ["Open tower", "1+1", " =x", "", "'already"]) expect(neutraliseText(s)).toBe(s);
+    for (const s of ["Open tower", "1+1", "x =y", "", "'already", "  text", "Ｘ＝1"]) expect(neutraliseText(s)).toBe(s);
     expect(csvField('=HYPERLINK("http://x","y")')).toBe(`"'=HYPERLINK(""http://x"",""y"")"`);
     expect(csvField(-1234.5)).toBe("-1234.5");
   });

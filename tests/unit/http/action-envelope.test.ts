@@ -1,0 +1,57 @@
+import { describe, expect, it } from "vitest";
+import { ACTION_MAX_DEPTH, checkMultipartReply, checkTextReply, sameOriginAction } from "@/lib/http/action-envelope";
+
+// What React's client encoder (encodeReply) sends for plain arguments, written out by hand: a JSON list of
+// arguments; "$" strings are escapes ("$$"), inline values ("$undefined", "$NaN", "$D<date>", "$n<digits>")
+// or references to other numbered parts of a multipart body ("$K1" a FormData, "$@2" a promise, "$3" a value).
+describe("server-action envelopes", () => {
+  it("lets through what the client encoder produces", () => {
+    expect(checkTextReply(JSON.stringify(["p", "s", { revision: 3, name: "$$dollar", note: "$undefined", x: "$NaN", d: "$D2026-12-02T00:00:00.000Z", n: "$n12" }]))).toEqual({ ok: true });
+    expect(checkTextReply("[]")).toEqual({ ok: true });
+    const form = new FormData();
+    form.append("0", JSON.stringify(["project-id", { ok: true }, "$K1"]));
+    form.append("1_email", "someone@example.test");
+    form.append("1_role", "owner");
+    expect(checkMultipartReply(form)).toEqual({ ok: true });
+  });
+
+  it("refuses broken JSON, a root that is not a list, too many arguments", () => {
+    expect(checkTextReply('["a", {"b": ')).toMatchObject({ ok: false, status: 400 });
+    expect(checkTextReply('{"a": 1}')).toMatchObject({ ok: false, status: 400 });
+    expect(checkTextReply(JSON.stringify(new Array(1001).fill(1)))).toMatchObject({ ok: false, status: 400 });
+  });
+
+  it(`refuses nesting deeper than ${ACTION_MAX_DEPTH} levels (without overflowing its own stack)`, () => {
+    expect(checkTextReply("[".repeat(ACTION_MAX_DEPTH) + "]".repeat(ACTION_MAX_DEPTH))).toEqual({ ok: true });
+    expect(checkTextReply("[".repeat(ACTION_MAX_DEPTH + 2) + "]".repeat(ACTION_MAX_DEPTH + 2))).toMatchObject({ ok: false, status: 400 });
+    const deep = '{"a":'.repeat(100_000) + "1" + "}".repeat(100_000);
+    expect(checkTextReply(deep)).toMatchObject({ ok: false, status: 400 });
+  });
+
+  it("refuses references to parts that were not sent, unknown $ forms and bigints that are not numbers", () => {
+    for (const s of ["$@1", "$1", "$Q2", "$K5", "$h3", "$Zzz", "$n12abc", "$", "$?"]) {
+      expect(checkTextReply(JSON.stringify([s])), s).toMatchObject({ ok: false, status: 400 });
+    }
+    const form = new FormData();
+    form.append("0", JSON.stringify(["$@7"]));
+    expect(checkMultipartReply(form)).toMatchObject({ ok: false, status: 400 });
+    const noRoot = new FormData();
+    noRoot.append("1_email", "x");
+    expect(checkMultipartReply(noRoot)).toMatchObject({ ok: false, status: 400 });
+  });
+
+  it("refuses __proto__ keys (React's reviver would make them the object's prototype)", () => {
+    expect(checkTextReply('[{"__proto__": {"admin": true}}]')).toMatchObject({ ok: false, status: 400 });
+    expect(checkTextReply('[{"constructor": 1, "prototype": 2}]')).toEqual({ ok: true });
+  });
+
+  it("compares the Origin's host with X-Forwarded-Host, else Host, as Next.js does", () => {
+    const h = (o: Record<string, string>) => new Headers(o);
+    expect(sameOriginAction(h({ host: "127.0.0.1:3000" }))).toBe(true);
+    expect(sameOriginAction(h({ host: "127.0.0.1:3000", origin: "http://127.0.0.1:3000" }))).toBe(true);
+    expect(sameOriginAction(h({ host: "127.0.0.1:3000", origin: "http://evil.example" }))).toBe(false);
+    expect(sameOriginAction(h({ host: "10.0.0.5:3000", "x-forwarded-host": "ledger.example", origin: "https://ledger.example" }))).toBe(true);
+    expect(sameOriginAction(h({ host: "127.0.0.1:3000", origin: "null" }))).toBe(false);
+    expect(sameOriginAction(h({ host: "127.0.0.1:3000", origin: "not a url" }))).toBe(false);
+  });
+});
