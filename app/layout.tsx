@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { connection } from "next/server";
 import type { ReactNode } from "react";
+import { ZodJitless } from "@/components/system/zod-jitless";
 import { plexMono, plexSans } from "./fonts";
 import "./globals.css";
 
@@ -23,7 +24,10 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
   await connection();
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
-      <body>{children}</body>
+      <body>
+        <ZodJitless />
+        {children}
+      </body>
     </html>
   );
 }
