@@ -1,5 +1,4 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { sql } from "kysely";
 import { testDb, uniq } from "../support/db";
 import { insertClimateDataset } from "@/db/queries/climate";
 import { insertProject } from "@/db/queries/projects";
