@@ -1,5 +1,5 @@
 import { sql } from "kysely";
-import type { ResultStatus, Executor } from "../schema";
+import type { Executor } from "../schema";
 
 export type ResultKind = "full" | "monteCarlo";
 
