@@ -230,7 +230,8 @@ function dflt<P extends DefaultPath>(path: P): (typeof economicsFieldDefaults)[P
 
 const money = z.number().finite().nonnegative();
 const rate = z.number().finite().gt(-0.99).lt(1);
-const yearsPositive = z.number().finite().positive().max(200);
+/** Lives: at least a quarter of a year, so that no entered life can make the replacement loop run away. */
+const yearsPositive = z.number().finite().min(0.25).max(200);
 
 // --- option costs --------------------------------------------------------------------------------
 
@@ -287,7 +288,8 @@ export const componentLifeDefaultsYears: Record<ComponentKey, FieldDefault> = {
 export const periodicUpkeepItemSchema = z.object({
   kind: z.enum(PERIODIC_ITEM_KINDS),
   label: z.string().max(120).optional(),
-  everyYears: z.number().finite().positive().max(100),
+  /** At least weekly (1/52 year): an interval bounds the events the cash-flow loop walks. */
+  everyYears: z.number().finite().min(1 / 52).max(100),
   costPerEvent: money,
   labourHoursPerEvent: z.number().finite().nonnegative().default(0),
 });

@@ -441,10 +441,10 @@ const condenserUpkeepSchema = z.object({
   cleaningMethod: z.enum(CLEANING_METHODS).optional(),
   cleaningCostPerEvent: nonNegative.max(1e7).optional(),
   /** Years between inspections (eddy-current testing for tubes); 0 = none. */
-  inspectionIntervalYears: nonNegative.max(50).optional(),
+  inspectionIntervalYears: z.number().finite().nonnegative().max(50).refine((v) => v === 0 || v >= 0.25, "Enter 0 (no separate inspection) or at least 0.25 yr.").optional(),
   inspectionCostPerEvent: nonNegative.max(1e7).optional(),
   /** Life of the wear part (tube bundle or gasket set), years. */
-  wearPartLifeYears: positive.max(100).optional(),
+  wearPartLifeYears: z.number().finite().min(0.25).max(100).optional(),
   /** Cost of replacing the wear part; not counted until entered. */
   wearPartReplacementCost: nonNegative.max(1e8).optional(),
 });
@@ -577,7 +577,7 @@ const evaporativeCondenserSchema = z
         cleaningIntervalMonths: num.int().min(1).max(120),
       })
       .default(() => ({ ...d("options[].evaporativeCondenser.coilScaling") })),
-    coilLifeYears: positive.max(100).optional(),
+    coilLifeYears: z.number().finite().min(0.25).max(100).optional(),
     coilReplacementCost: nonNegative.max(1e8).optional(),
   })
   .superRefine((e, ctx) => {

@@ -91,6 +91,22 @@ describe("scenario schema", () => {
     expect(again).toEqual(first);
   });
 
+  it("refuses upkeep intervals shorter than a week and lives shorter than a quarter-year (no runaway cash-flow loop)", () => {
+    // A probe found everyYears = 5e-324 (positive, so once accepted) made the cash-flow loop run practically
+    // forever. Bounds [practice]: weekly is the shortest scheduled upkeep interval, 0.25 year the shortest life.
+    const doc = readFixture("scenario-bins.json");
+    const items = at(doc, "options.0.costs.upkeep.periodicItems") as unknown as Record<string, unknown>[];
+    items[0]!.everyYears = 5e-324;
+    const lives = at(doc, "options.0.costs.components") as unknown as Record<string, unknown>[];
+    lives[0]!.lifeYears = 0.01;
+    const paths = errorsOf(doc).map((e) => e.path);
+    expect(paths).toContain("options.0.costs.upkeep.periodicItems.0.everyYears");
+    expect(paths).toContain("options.0.costs.components.0.lifeYears");
+    const ok = readFixture("scenario-bins.json");
+    (at(ok, "options.0.costs.upkeep.periodicItems") as unknown as Record<string, unknown>[])[0]!.everyYears = 1 / 52;
+    expect(errorsOf(ok)).toEqual([]);
+  });
+
   it("reports cross-field problems at the field to fix", () => {
     const doc = readFixture("scenario-bins.json");
     at(doc, "options.0.tower").leavingWaterC = 34;
