@@ -43,12 +43,43 @@ export function defaultEditorDocument(): ScenarioDocument {
   return prefillDocument(rest as unknown as ScenarioDocument);
 }
 
+/**
+ * The starter's evaporative condenser (the new-scenario document compares three water-loop options): rated
+ * for the starter's 1000 kW at 35 °C condensing and 23 °C wet-bulb, spray flow and fan power of the same
+ * order as the starter's closed-circuit cooler; the user replaces them with the manufacturer's selection.
+ */
+const EVAPORATIVE_CONDENSER_STARTER = {
+  id: "evap-condenser",
+  kind: "evaporativeCondenser",
+  label: "Evaporative condenser",
+  costs: {},
+  fan: { designPowerKW: 22 },
+  evaporativeCondenser: { ratedHeatRejectionKW: 1000, ratedCondensingC: 35, ratedWetBulbC: 23 },
+  sprayPump: { flowKgPerS: 18 },
+};
+
+/** The option of a kind with every default filled (a parse of the starter with that option in it). */
+function templateOfKind(kind: OptionKind): Obj {
+  const base = defaultEditorDocument() as unknown as { options: Obj[] };
+  const own = base.options.find((o) => o.kind === kind);
+  if (own) return structuredClone(own);
+  const doc = { ...base, options: [base.options[0]!, structuredClone(EVAPORATIVE_CONDENSER_STARTER)] };
+  const filled = prefillDocument(doc as unknown as ScenarioDocument) as unknown as { options: Obj[] };
+  return structuredClone(filled.options.find((o) => o.kind === kind) ?? base.options[0]!);
+}
+
+const ID_STEMS: Record<OptionKind, string> = {
+  openTowerDirect: "tower-direct",
+  openTowerPlateHx: "tower-plate",
+  closedCircuitCooler: "cooler",
+  evaporativeCondenser: "evap-condenser",
+};
+
 /** A new option of a kind with every default filled and no first cost, with an id not yet used. */
 export function newOptionOfKind(kind: OptionKind, usedIds: string[]): EditorOption {
-  const base = defaultEditorDocument() as unknown as { options: Obj[] };
-  const template = structuredClone(base.options.find((o) => o.kind === kind) ?? base.options[0]!) as Obj;
+  const template = templateOfKind(kind);
   let n = 1;
-  const stem = kind === "openTowerDirect" ? "tower-direct" : kind === "openTowerPlateHx" ? "tower-plate" : "cooler";
+  const stem = ID_STEMS[kind];
   let id = stem;
   while (usedIds.includes(id)) id = `${stem}-${++n}`;
   template.id = id;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { defaultEditorDocument } from "@/lib/scenarios/prefill";
+import { defaultEditorDocument, newOptionOfKind } from "@/lib/scenarios/prefill";
 import { FIELD_INFO, pathPattern } from "@/lib/scenarios/field-labels";
 import { placeOf, placeText } from "@/lib/scenarios/field-messages";
 import { validateEditorValues } from "@/lib/scenarios/editor-validation";
@@ -30,6 +30,14 @@ describe("messages a person can act on", () => {
   it("every field of the starter has a label in the table (none falls back to its key)", () => {
     const missing = [...new Set(leaves(starter()).map(pathPattern))].filter((p) => !FIELD_INFO[p]);
     expect(missing).toEqual([]);
+  });
+
+  it("every field of each kind of option has a label, the evaporative condenser included", () => {
+    const v = starter();
+    v.options = [...v.options, newOptionOfKind("evaporativeCondenser", v.options.map((o) => o.id))];
+    const missing = [...new Set(leaves(v).map(pathPattern))].filter((p) => !FIELD_INFO[p]);
+    expect(missing).toEqual([]);
+    expect(validateEditorValues(v, { system: "SI", currency: "USD" })).toEqual([]);
   });
 
   it("a nonsense form: every message is a sentence without a path or library wording, in the project's units", () => {

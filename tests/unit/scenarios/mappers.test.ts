@@ -156,6 +156,17 @@ describe("the editor's starting values", () => {
     expect(o.kind === "closedCircuitCooler" && o.cooler.allowDryMode).toBe(true);
   });
 
+  it("a new evaporative condenser is an evaporative condenser (not a copy of the first option), defaults filled", () => {
+    const o = newOptionOfKind("evaporativeCondenser", ["tower-direct"]);
+    expect(o.kind).toBe("evaporativeCondenser");
+    expect(o.id).toBe("evap-condenser");
+    if (o.kind !== "evaporativeCondenser") return;
+    // Schema defaults written out (the coil-scaling default object and the spray pump's efficiency).
+    expect(o.evaporativeCondenser.coilScaling).toEqual(defaultFor("options.0.evaporativeCondenser.coilScaling")?.default);
+    expect(o.sprayPump.efficiency).toBe(defaultFor("options.0.sprayPump.efficiency")?.default);
+    expect("condenser" in o).toBe(false);
+  });
+
   it("defaults are found for option paths and for members of defaulted objects", () => {
     expect(defaultFor("options.2.fan.minSpeedFraction")?.default).toBe(0.25);
     expect(defaultFor("sensitivity.tornado.electricityPrice.high")?.default).toBe(1.25);

@@ -15,6 +15,8 @@ import {
 import { OPTION_KIND_LABELS, OPTION_KINDS, type OptionKind } from "@/lib/engine/types";
 import { componentLifeDefaultsYears } from "@/lib/scenarios/schema-economics";
 import { newOptionOfKind } from "@/lib/scenarios/prefill";
+import { CondenserConstructionGroup, EvaporativeCondenserGroups, SprayPumpFields } from "./condenser-fields";
+import { CarbonPriceGroup, FootprintGroup, RefrigerantField } from "./footprint-fields";
 import { unitLabel } from "@/lib/units";
 import type { EditorOption, EditorPath, EditorValues } from "@/lib/scenarios/editor-values";
 import { MC_LABELS } from "@/lib/scenarios/field-labels";
@@ -135,6 +137,7 @@ export function DutySection() {
             { value: "floating", label: "Floating head pressure (down to the minimum)" },
           ]}
         />
+        <RefrigerantField />
       </Group>
       <Group title="Load profile" note="Fraction of the design heat rejection in each hour.">
         <div>
@@ -228,7 +231,9 @@ export function DutySection() {
             }}
           >
             <option value="refrigerantCycle">Refrigerant cycle of the plant, scaled to the design COP</option>
-            <option value="manufacturer">The manufacturer&apos;s data (COP at three or more condensing temperatures)</option>
+            <option value="manufacturer">
+              The manufacturer&apos;s data (COP at three or more condensing temperatures)
+            </option>
             <option value="percentPerK">Entered percent per degree (compounding, with a floor)</option>
             <option value="carnotFraction">Carnot fraction (the simplest model)</option>
           </select>
@@ -272,10 +277,18 @@ function CompressorDataTable() {
   });
   return (
     <div className="space-y-2 sm:col-span-2 xl:col-span-3" data-testid="compressor-data">
-      <Num name="duty.compressorModel.curves.0.evaporatingC" label="Suction (evaporating) temperature" kind="temperatureC" />
+      <Num
+        name="duty.compressorModel.curves.0.evaporatingC"
+        label="Suction (evaporating) temperature"
+        kind="temperatureC"
+      />
       {fields.map((f, j) => (
         <div key={f.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-          <Num name={`duty.compressorModel.curves.0.points.${j}.condensingC`} label={`Point ${j + 1}: condensing`} kind="temperatureC" />
+          <Num
+            name={`duty.compressorModel.curves.0.points.${j}.condensingC`}
+            label={`Point ${j + 1}: condensing`}
+            kind="temperatureC"
+          />
           <Plain name={`duty.compressorModel.curves.0.points.${j}.cop`} label="COP" unit="kW/kW" />
           <button
             type="button"
@@ -492,7 +505,9 @@ export function OptionSection({
           maxLength={64}
         />
       </Group>
-      {isTower ? (
+      {kind === "evaporativeCondenser" ? (
+        <EvaporativeCondenserGroups i={i} />
+      ) : isTower ? (
         <Group title="Tower selection at design" note="From the manufacturer's certified selection.">
           <FlowField name={`${p}.tower.waterFlowKgPerS`} label="Tower water flow" />
           <Num name={`${p}.tower.enteringWaterC`} label="Entering (hot) water" kind="temperatureC" />
@@ -654,59 +669,61 @@ export function OptionSection({
         {fanControl === "twoSpeed" ? <Pct name={`${p}.fan.lowSpeedFraction`} label="Low speed" /> : null}
         <Pct name={`${p}.fan.naturalDraftAirflowFraction`} label="Airflow with the fan off" />
       </Group>
-      <Group title="Condenser">
-        <Num
-          name={`${p}.condenser.designCondensingC`}
-          label="Design condensing temperature"
-          kind="temperatureC"
-        />
-        <Num
-          name={`${p}.condenser.designEnteringWaterC`}
-          label="Design entering water"
-          kind="temperatureC"
-          optional
-        />
-        <Plain name={`${p}.condenser.cleanUWPerM2K`} label="Clean U" unit="W/(m²·K)" />
-        <Num
-          name={`${p}.condenser.designFoulingM2KPerW`}
-          label="Fouling allowance in the design point"
-          kind="foulingM2KPerW"
-        />
-        {kind === "closedCircuitCooler" ? (
-          <Pct
-            name={`${p}.condenser.waterSideResistanceFraction`}
-            label="Water-side share of the clean condenser's resistance"
-            description="With glycol in the loop and ratings on water, glycol derates this share."
-          />
-        ) : null}
-      </Group>
+      {kind !== "evaporativeCondenser" ? (
+        <>
+          <Group title="Condenser">
+            <Num
+              name={`${p}.condenser.designCondensingC`}
+              label="Design condensing temperature"
+              kind="temperatureC"
+            />
+            <Num
+              name={`${p}.condenser.designEnteringWaterC`}
+              label="Design entering water"
+              kind="temperatureC"
+              optional
+            />
+            <Plain name={`${p}.condenser.cleanUWPerM2K`} label="Clean U" unit="W/(m²·K)" />
+            <Num
+              name={`${p}.condenser.designFoulingM2KPerW`}
+              label="Fouling allowance in the design point"
+              kind="foulingM2KPerW"
+            />
+            {kind === "closedCircuitCooler" ? (
+              <Pct
+                name={`${p}.condenser.waterSideResistanceFraction`}
+                label="Water-side share of the clean condenser's resistance"
+                description="With glycol in the loop and ratings on water, glycol derates this share."
+              />
+            ) : null}
+          </Group>
+          <CondenserConstructionGroup i={i} kind={kind} />
+        </>
+      ) : null}
       <Group title="Pumps, basin and drift">
-        <Num
-          name={`${p}.condenserPump.headM`}
-          label={
-            kind === "closedCircuitCooler"
-              ? "Process-loop pump head"
-              : kind === "openTowerPlateHx"
-                ? "Clean-loop pump head"
-                : "Condenser-water pump head"
-          }
-          kind="headM"
-        />
-        <Pct name={`${p}.condenserPump.efficiency`} label="Pump wire-to-water efficiency" />
+        {kind !== "evaporativeCondenser" ? (
+          <>
+            <Num
+              name={`${p}.condenserPump.headM`}
+              label={
+                kind === "closedCircuitCooler"
+                  ? "Process-loop pump head"
+                  : kind === "openTowerPlateHx"
+                    ? "Clean-loop pump head"
+                    : "Condenser-water pump head"
+              }
+              kind="headM"
+            />
+            <Pct name={`${p}.condenserPump.efficiency`} label="Pump wire-to-water efficiency" />
+          </>
+        ) : null}
         {kind === "openTowerPlateHx" ? (
           <>
             <Num name={`${p}.towerPump.headM`} label="Tower-side pump head" kind="headM" />
             <Pct name={`${p}.towerPump.efficiency`} label="Tower-side pump efficiency" />
           </>
         ) : null}
-        {kind === "closedCircuitCooler" ? (
-          <>
-            <FlowField name={`${p}.sprayPump.flowKgPerS`} label="Spray-water flow" />
-            <Num name={`${p}.sprayPump.headM`} label="Spray pump head" kind="headM" />
-            <Pct name={`${p}.sprayPump.efficiency`} label="Spray pump efficiency" />
-            <Num name={`${p}.sprayPump.powerKW`} label="Spray pump motor input" kind="powerKW" optional />
-          </>
-        ) : null}
+        {kind === "closedCircuitCooler" || kind === "evaporativeCondenser" ? <SprayPumpFields i={i} /> : null}
         <Num name={`${p}.basinHeater.powerKW`} label="Basin heater rating" kind="powerKW" />
         <Num
           name={`${p}.basinHeater.setPointC`}
@@ -766,7 +783,9 @@ export function OptionSection({
               ? "Condenser tube cleaning, per cleaning"
               : kind === "openTowerPlateHx"
                 ? "Plate-exchanger cleaning, per cleaning"
-                : "Cleaning cost per event"
+                : kind === "evaporativeCondenser"
+                  ? "Coil cleaning, per cleaning"
+                  : "Cleaning cost per event"
           }
           kind="money"
         />
@@ -900,7 +919,11 @@ export function WaterSection() {
         title="Scale control"
         note="Langelier index at the hottest wetted surface and the cycles each loop achieves."
       >
-        <Plain name="water.scaleControl.maximumLangelierIndex" label="Highest Langelier index accepted" unit="LSI" />
+        <Plain
+          name="water.scaleControl.maximumLangelierIndex"
+          label="Highest Langelier index accepted"
+          unit="LSI"
+        />
         <Check
           name="water.scaleControl.acidFeed"
           label="Feed sulfuric acid to hold it"
@@ -1090,6 +1113,7 @@ export function TariffsSection() {
         <Pct name="tariffs.escalation.labour" label="Labour" perYear />
         <Pct name="tariffs.escalation.replacements" label="Replacements" perYear />
       </Group>
+      <CarbonPriceGroup />
     </Section>
   );
 }
@@ -1115,7 +1139,6 @@ const BREAK_EVEN_LABELS: Record<(typeof BREAK_EVEN_INPUTS)[number], string> = {
   cyclesOfConcentration: "Cycles of concentration",
   firstCostPremium: "Extra first cost (factor)",
 };
-
 
 function DistField({
   pct,
@@ -1175,11 +1198,33 @@ function DistributionRow({ k }: { k: MonteCarloInputKey }) {
           <option value="uniform">Uniform</option>
         </select>
       </div>
-      {d?.type ? <DistField pct={m.pct} unit={unit} name={`${name}.min`} label="Min" {...(m.kind ? { kind: m.kind } : {})} /> : null}
-      {d?.type === "triangular" ? (
-        <DistField pct={m.pct} unit={unit} name={`${name}.mode`} label="Most likely" {...(m.kind ? { kind: m.kind } : {})} />
+      {d?.type ? (
+        <DistField
+          pct={m.pct}
+          unit={unit}
+          name={`${name}.min`}
+          label="Min"
+          {...(m.kind ? { kind: m.kind } : {})}
+        />
       ) : null}
-      {d?.type ? <DistField pct={m.pct} unit={unit} name={`${name}.max`} label="Max" {...(m.kind ? { kind: m.kind } : {})} /> : null}
+      {d?.type === "triangular" ? (
+        <DistField
+          pct={m.pct}
+          unit={unit}
+          name={`${name}.mode`}
+          label="Most likely"
+          {...(m.kind ? { kind: m.kind } : {})}
+        />
+      ) : null}
+      {d?.type ? (
+        <DistField
+          pct={m.pct}
+          unit={unit}
+          name={`${name}.max`}
+          label="Max"
+          {...(m.kind ? { kind: m.kind } : {})}
+        />
+      ) : null}
     </div>
   );
 }
@@ -1302,6 +1347,7 @@ export function EconomicsSection() {
           </div>
         ) : null}
       </fieldset>
+      <FootprintGroup />
     </Section>
   );
 }
