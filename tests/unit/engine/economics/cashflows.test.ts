@@ -32,16 +32,28 @@ describe("cash flows", () => {
   it("replacements, unit renewal and residual of the direct option over 25 years", () => {
     // Unit life 20: whole first cost reinvested at year 20, residual 15/20 of it at year 25 [Handbook 135 linear].
     // Fill life 15: bought at 15; the unit renewal at 20 renews it, so no separate fill residual.
-    const fc = direct?.firstCost ?? 0;
+    // First cost of the fixture (helpers.ts), added by hand: equipment 200,000 + installation 30 % 60,000
+    // + structure 20,000 + electrical 25,000 + controls 10,000 + water treatment 15,000 + meters 2,000
+    // = 332,000; residual 0.75·332,000 = 249,000.
+    const fc = 332_000;
+    expect(direct?.firstCost).toBeCloseTo(fc, 6);
     expect(direct?.cashFlows[20]?.byCategory.replacements).toBeCloseTo(fc, 6);
     expect(direct?.cashFlows[15]?.byCategory.replacements).toBeCloseTo(35000, 6);
     expect(direct?.cashFlows[25]?.byCategory.residual).toBeCloseTo(-0.75 * fc, 6);
   });
 
   it("a recurring stream's PV is its base-date amount × UPV*(d, e, N)", () => {
-    // NIST Handbook 135: PV of a cost escalating at e = A0 · UPV*(d, e, N).
+    // NIST Handbook 135: PV of a cost escalating at e = A0 · UPV*(d, e, N), end-of-year amounts
+    // A0·(1 + e)^t discounted by (1 + d)^t. Written out here as the sum over the 25 years (not the
+    // closed form the engine uses): 400,000 kWh × 0.12 per kWh = 48,000 a year at the base date.
     const kwhCost = 400000 * 0.12;
-    expect(direct?.pvByCategory.energy).toBeCloseTo(kwhCost * upvStar(0.03, 0.005, 25), 4);
+    let upvStarBySum = 0;
+    for (let t = 1; t <= 25; t++) upvStarBySum += Math.pow(1.005, t) / Math.pow(1.03, t);
+    // Closed form (Handbook 135): (1.005/0.025)·[1 − (1.005/1.03)^25] = 40.2·(1 − 0.975728^25)
+    // = 40.2·(1 − 0.541029) = 18.4506 (hand, 4 decimals).
+    expect(upvStarBySum).toBeCloseTo(18.4506, 3);
+    expect(upvStar(0.03, 0.005, 25)).toBeCloseTo(upvStarBySum, 9);
+    expect(direct?.pvByCategory.energy).toBeCloseTo(kwhCost * upvStarBySum, 4);
     expect(direct?.cashFlows[1]?.byCategory.energy).toBeCloseTo(kwhCost * 1.005, 6);
   });
 
@@ -114,9 +126,12 @@ describe("water balance at other cycles (Methods §4: B = E/(C − 1) − D, M =
     const p = physicsFor({}, true)[0];
     if (!p) throw new Error("fixture");
     const q = waterQuantitiesFromPhysics(p);
+    // Hand numbers at the fixture's own 4 cycles: E = 20000, D = 15 m³: B = 20000/3 − 15 = 6651.667,
+    // M = 20000·4/3 = 26666.667 m³; with the evaporation credit the sewer bills M − E = 6666.667 m³.
     const same = waterAtCycles(q, 4);
-    expect(same.makeupM3).toBeCloseTo(p.waterM3.makeup, 9);
-    expect(same.sewerBilledM3).toBeCloseTo(p.waterM3.sewerBilled, 9);
+    expect(same.makeupM3).toBeCloseTo(80000 / 3, 9);
+    expect(same.sewerBilledM3).toBeCloseTo(20000 / 3, 6);
+    expect(p.waterM3.makeup).toBeCloseTo(80000 / 3, 9);
     const six = waterAtCycles(q, 6);
     expect(six.blowdownM3).toBeCloseTo(20000 / 5 - 15, 9);
     expect(six.makeupM3).toBeCloseTo((20000 * 6) / 5, 9);
