@@ -3,7 +3,9 @@ import type { Executor } from "@/db/schema";
 import { authorizeProject, isUuid, type ProjectAccess, type Viewer } from "@/lib/auth/access";
 import { canInFirm, type Action } from "@/lib/auth/permissions";
 import { env } from "@/lib/env";
-import { fail, invalid, REFUSALS, type Result } from "@/lib/result";
+import { fail, invalid, REFUSALS, type IssueLike, type Result } from "@/lib/result";
+import { unsafeTextIssues } from "@/lib/validation/text";
+import { humaneIssues } from "@/lib/scenarios/field-messages";
 
 /**
  * The one wrapper of every state-changing entry point (server actions, and the route handlers that do the
@@ -13,7 +15,8 @@ import { fail, invalid, REFUSALS, type Result } from "@/lib/result";
  *   1. anonymous → 401 (unless the gate is "public" or its own);
  *   2. authorize: the project named by the input's `projectId` with the gate's action (404 no relation,
  *      403 no right), the firm named by `firmId` (403), or the gate's own check (an invitation token…);
- *   3. parse the input with the zod schema → 422 with every field's messages, nothing changed;
+ *   3. parse the input with the zod schema → 422 with every field's messages, nothing changed; any text
+ *      (value or key) holding NUL or a lone surrogate is refused there too, even where a schema forgot it;
  *   4. run.
  * Authorization comes before parsing so that a refused viewer learns nothing from the field messages.
  * A FormData input is read as a plain object of its string fields.
@@ -70,6 +73,11 @@ export interface ActionSpec<G extends Gate, S extends z.ZodType, T, D, O extends
   schema: S | ((ctx: GateContext<G>) => S);
   /** The message over the field errors (default "Nothing was saved: N problems to fix."). */
   invalidMessage?: string;
+  /**
+   * "schema": the schema checks every text itself and places the messages (the scenario document, whose
+   * paths the editor maps to its fields); default "input": the wrapper also walks the whole raw input.
+   */
+  textCheck?: "input" | "schema";
   /** `opts`: what the caller passed beyond the clock and the address (a test's stand-in for a lookup, …). */
   run: (db: Executor, ctx: GateContext<G>, input: z.output<S>, opts: Partial<O>) => Promise<Result<T, D>>;
 }
@@ -128,7 +136,9 @@ export function defineAction<G extends Gate, S extends z.ZodType, T, D = never, 
     const schema =
       typeof spec.schema === "function" ? (spec.schema as (c: GateContext<G>) => S)(ctx) : spec.schema;
     const parsed = schema.safeParse(raw ?? {});
-    if (!parsed.success) return invalid(parsed.error.issues, spec.invalidMessage);
+    const unsafe: IssueLike[] = spec.textCheck === "schema" ? [] : unsafeTextIssues(raw);
+    if (!parsed.success) return invalid([...humaneIssues(parsed.error.issues), ...unsafe], spec.invalidMessage);
+    if (unsafe.length > 0) return invalid(unsafe, spec.invalidMessage);
     return spec.run(db, ctx, parsed.data as z.output<S>, opts as Partial<O>);
   };
 }

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { inTransaction } from "@/db/transaction";
 import { defineAction } from "@/lib/actions/define";
 import { hashPassword, passwordProblems, verifyPassword } from "./password";
@@ -11,9 +12,9 @@ import { fail, invalid, ok, type Result } from "@/lib/result";
 export function passwordChangeSchema(email: string) {
   return z
     .object({
-      currentPassword: z.string().min(1, "Enter your current password.").max(200),
-      newPassword: z.string().max(200, "Use at most 200 characters."),
-      confirmPassword: z.string(),
+      currentPassword: text().min(1, "Enter your current password.").max(200),
+      newPassword: text().max(200, "Use at most 200 characters."),
+      confirmPassword: text().max(200),
     })
     .superRefine((v, ctx) => {
       for (const message of passwordProblems(v.newPassword, email)) ctx.addIssue({ code: "custom", path: ["newPassword"], message });

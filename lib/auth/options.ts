@@ -1,6 +1,7 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { db } from "@/db";
 import { findUserByEmail, firmRolesOf, clientRolesOf } from "@/db/queries/users";
 import { writeAudit } from "@/db/queries/audit";
@@ -16,8 +17,8 @@ import {
 } from "./rate-limit";
 
 const credentialsSchema = z.object({
-  email: z.string().trim().email().max(320),
-  password: z.string().min(1).max(200),
+  email: text().trim().email().max(320),
+  password: text().min(1).max(200),
 });
 
 declare module "next-auth" {

@@ -3,9 +3,10 @@
  * name. Client-safe, so the editor validates as the person types with the very schema the server applies.
  */
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { dryBulbBinsClimateInputSchema, wetBulbBinsClimateInputSchema } from "@/lib/scenarios/schema-climate";
 
-const name = z.string().trim().min(1, "Name the bin table.").max(200, "Keep the name under 200 characters.");
+const name = text().trim().min(1, "Name the bin table.").max(200, "Keep the name under 200 characters.");
 
 export const binTableSubmissionSchema = z.discriminatedUnion("source", [
   wetBulbBinsClimateInputSchema.extend({ name }),

@@ -11,7 +11,8 @@ import { defineAction } from "@/lib/actions/define";
 import { climateDatasetRow, datasetFromBins, datasetFromParsedFile, type NewDataset } from "./build";
 import { csvMappingSchema, previewCsv, toHourlyCsvMapping, type CsvPreview } from "./csv-mapping";
 import { readBodyLimited } from "@/lib/http";
-import { z } from "zod";
+import { text } from "@/lib/validation/text";
+import { humaneIssues } from "@/lib/scenarios/field-messages";
 
 import { MAX_CLIMATE_UPLOAD_BYTES } from "./limits";
 
@@ -126,7 +127,7 @@ export function sniffWeatherFile(file: UploadedFile): { kind: "epw" | "tmy3" | "
   return { error: fail(415, `A .${ext} file is not a weather file LoopLedger reads. Upload an EnergyPlus .epw file or an hourly .csv table.`) };
 }
 
-const datasetName = z.string().trim().max(200).optional();
+const datasetName = text().trim().max(200).optional();
 
 async function store(db: Executor, target: ImportTarget, ds: NewDataset): Promise<string> {
   return inTransaction(db, async (trx) => {
@@ -196,7 +197,7 @@ export async function importClimateFile(
   }
   const mapping = csvMappingSchema.safeParse(form.mapping);
   if (!mapping.success) {
-    return fail(400, "The column mapping is incomplete.", { fieldErrors: toFieldErrors(mapping.error.issues) });
+    return fail(400, "The column mapping is incomplete.", { fieldErrors: toFieldErrors(humaneIssues(mapping.error.issues)) });
   }
   const engineMapping = toHourlyCsvMapping(mapping.data, { elevationM: target.siteElevationM, ...(label ? { label } : {}) });
   const parsed = parseHourlyCsv(sniffed.text, engineMapping);

@@ -19,6 +19,38 @@ export class AnalysisBudgetExceeded extends Error {
   }
 }
 
+/**
+ * A schedule or loop of the economics that would need more steps than any valid input can ask for (an
+ * interval or life far below the schema's minimum, a study period beyond its maximum). The schema refuses
+ * such input first; this stops the engine with a clear message if one ever slips past, instead of looping.
+ */
+export class AnalysisLimitExceeded extends Error {
+  readonly code = "analysis.limitExceeded";
+  constructor(
+    readonly what: string,
+    readonly steps: number,
+    readonly limit: number,
+  ) {
+    super(
+      `The analysis stopped: ${what} would need ${Number.isFinite(steps) ? Math.round(steps).toLocaleString("en-US") : "endless"} steps ` +
+        `(at most ${limit.toLocaleString("en-US")}). Check that intervals and lives are at least a week and the study period at most 60 years.`,
+    );
+    this.name = "AnalysisLimitExceeded";
+  }
+}
+
+/** Most dated events one schedule (a periodic item, a component's or a first-cost item's replacements) may hold. */
+export const MAX_SCHEDULE_EVENTS = 10_000;
+/** Most Monte Carlo draws the engine runs (the schema allows 200,000). */
+export const MAX_MONTE_CARLO_DRAWS = 1_000_000;
+/** Longest study period the engine walks, years (the schema allows 60). */
+export const MAX_STUDY_YEARS = 200;
+
+/** Throws AnalysisLimitExceeded when `steps` (NaN and ∞ included) exceeds `limit`. */
+export function checkSteps(what: string, steps: number, limit: number): void {
+  if (!(steps <= limit)) throw new AnalysisLimitExceeded(what, steps, limit);
+}
+
 export interface AnalysisBudget {
   /** Throws AnalysisBudgetExceeded once the budget is spent; `stage` names the step for the message. */
   check(stage: string): void;
@@ -36,6 +68,9 @@ export function timeBudget(budgetMs: number, now: () => number): AnalysisBudget 
   };
 }
 
-export function isBudgetExceeded(err: unknown): err is AnalysisBudgetExceeded {
-  return err instanceof AnalysisBudgetExceeded || (typeof err === "object" && err !== null && (err as { code?: unknown }).code === "analysis.budgetExceeded");
+/** The analysis stopped by its time budget or by a step limit (its message says which and what to change). */
+export function isBudgetExceeded(err: unknown): err is AnalysisBudgetExceeded | AnalysisLimitExceeded {
+  if (err instanceof AnalysisBudgetExceeded || err instanceof AnalysisLimitExceeded) return true;
+  const code = typeof err === "object" && err !== null ? (err as { code?: unknown }).code : undefined;
+  return code === "analysis.budgetExceeded" || code === "analysis.limitExceeded";
 }

@@ -28,7 +28,7 @@ import { ENGINE_VERSION } from "./version";
 import { UNLIMITED_BUDGET, type AnalysisBudget } from "./budget";
 
 export { ENGINE_VERSION } from "./version";
-export { AnalysisBudgetExceeded, isBudgetExceeded, timeBudget, UNLIMITED_BUDGET, type AnalysisBudget } from "./budget";
+export { AnalysisBudgetExceeded, AnalysisLimitExceeded, isBudgetExceeded, timeBudget, UNLIMITED_BUDGET, type AnalysisBudget } from "./budget";
 export type { ScenarioInput } from "./input";
 export type { PhysicsOverrides } from "./economics/types";
 export type { CondenserPlan } from "./condenser-plan";

@@ -4,6 +4,7 @@
  * Elevation is stored in metres (SI); the form shows it in the project's unit system through lib/units.
  */
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { UNIT_SYSTEMS } from "@/lib/auth/roles";
 
 /** Lowest and highest site elevations accepted, m. Below the Dead Sea shore (≈ −430 m) or above 5,000 m
@@ -25,8 +26,7 @@ function knownCurrencies(): Set<string> | null {
 const CURRENCIES = knownCurrencies();
 
 const requiredText = (what: string, max = 200) =>
-  z
-    .string({ error: `Enter the ${what}.` })
+  text({ error: `Enter the ${what}.` })
     .trim()
     .min(1, `Enter the ${what}.`)
     .max(max, `Keep the ${what} under ${max} characters.`);
@@ -35,15 +35,14 @@ export const projectSchema = z.object({
   clientName: requiredText("client's name"),
   name: requiredText("project name"),
   siteName: requiredText("site name"),
-  locationLabel: z.string().trim().max(200, "Keep the location under 200 characters.").default(""),
+  locationLabel: text().trim().max(200, "Keep the location under 200 characters.").default(""),
   elevationM: z
     .number({ error: "Enter the site elevation as a number." })
     .refine(Number.isFinite, "Enter the site elevation as a number.")
     .min(MIN_ELEVATION_M, "The elevation must be at least −500 m (−1,640 ft).")
     .max(MAX_ELEVATION_M, "The elevation must be at most 5,000 m (16,404 ft)."),
   unitSystem: z.enum(UNIT_SYSTEMS, { error: "Choose SI or IP units." }),
-  currency: z
-    .string({ error: "Enter a currency code." })
+  currency: text({ error: "Enter a currency code." })
     .trim()
     .toUpperCase()
     .regex(ISO_CURRENCY, "Use a three-letter ISO 4217 code such as USD, EUR or CAD.")

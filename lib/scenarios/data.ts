@@ -10,6 +10,8 @@ import { forbidden, notFound } from "next/navigation";
 import { z } from "zod";
 import type { Executor } from "@/db/schema";
 import { defineAction } from "@/lib/actions/define";
+import { text } from "@/lib/validation/text";
+import { MAX_REVISION } from "@/lib/validation/limits";
 import type { EditorProblem } from "./editor-validation";
 import { sectionOfPath } from "./editor-values";
 import { fail, invalid, ok, REFUSALS, type Refusal, type Result } from "@/lib/result";
@@ -33,11 +35,11 @@ import { draftResult } from "./resolve";
 import { shapeResultFor } from "./result-view";
 
 const saveSchema = z.object({
-  scenarioId: z.string(),
-  revision: z.number().int(),
-  name: z.string(),
-  climateDatasetId: z
-    .string()
+  scenarioId: text().max(64),
+  revision: z.number().int().min(0).max(MAX_REVISION),
+  name: text().max(1000),
+  climateDatasetId: text()
+    .max(64)
     .nullish()
     .transform((v) => v || null),
   document: z.unknown(),
@@ -166,9 +168,9 @@ async function auditOn(db: Executor, access: ProjectAccess, action: string, targ
 export const createScenarioIn = defineAction({
   gate: { project: "scenario.edit" },
   schema: z.object({
-    name: z.string().trim().min(1, "Give the scenario a name.").max(200, "Keep the name under 200 characters."),
-    climateDatasetId: z
-      .string()
+    name: text().trim().min(1, "Give the scenario a name.").max(200, "Keep the name under 200 characters."),
+    climateDatasetId: text()
+      .max(64)
       .nullish()
       .transform((v) => v || null),
   }),
@@ -238,6 +240,8 @@ export const saveScenarioIn = defineAction<
   gate: { project: "scenario.edit" },
   schema: saveSchema,
   invalidMessage: "The save was malformed; reload the page.",
+  // The scenario schema checks the document's text and places each message at its field.
+  textCheck: "schema",
   run: async (db, { access }, a, opts) => {
     const out = await inTransaction(db, async (trx): Promise<Result<{ saved: { revision: number; input: ScenarioInput }; analysis: StoredAnalysis }, SaveDetail>> => {
       const sa = await scenarioIn(trx, access, a.scenarioId);
@@ -301,7 +305,7 @@ export const saveScenarioIn = defineAction<
 /** Copy a scenario (its document and dataset, not its results). Input: `{ projectId, scenarioId, name? }`. */
 export const cloneScenarioIn = defineAction({
   gate: { project: "scenario.edit" },
-  schema: z.object({ scenarioId: z.string(), name: z.string().trim().max(200).optional() }),
+  schema: z.object({ scenarioId: text().max(64), name: text().trim().max(200).optional() }),
   run: async (db, { access }, a): Promise<Result<{ id: string; name: string }>> => {
     const sa = await scenarioIn(db, access, a.scenarioId);
     if (!sa.ok) return sa;
@@ -315,7 +319,7 @@ export const cloneScenarioIn = defineAction({
 /** Archive or restore a scenario. Input: `{ projectId, scenarioId, archived }`. */
 export const archiveScenarioIn = defineAction({
   gate: { project: "scenario.edit" },
-  schema: z.object({ scenarioId: z.string(), archived: z.boolean() }),
+  schema: z.object({ scenarioId: text().max(64), archived: z.boolean() }),
   run: async (db, { access }, a): Promise<Result<{ archived: boolean }>> => {
     const sa = await scenarioIn(db, access, a.scenarioId);
     if (!sa.ok) return sa;

@@ -54,6 +54,23 @@ const sentence = (s: string) => {
 const LIBRARY_WORDING =
   /invalid input|expected |received |too (small|big)|invalid (option|discriminator|union|type)|nonoptional|NaN/i;
 
+/** True when a message is the schema library's own wording (to be replaced by `humanIssue`'s). */
+export function isLibraryWording(message: string): boolean {
+  return LIBRARY_WORDING.test(message);
+}
+
+/**
+ * Issues of any schema (project, comment, what-if…) with the library's wording replaced by `humanIssue`'s
+ * sentence (SI units, the project's currency unknown); messages the schema wrote itself stay as they are.
+ */
+export function humaneIssues<I extends IssueParts & { path: readonly PropertyKey[] }>(issues: readonly I[]): I[] {
+  return issues.map((issue) => {
+    if (!isLibraryWording(issue.message)) return issue;
+    const path = issue.path.map(String).join(".");
+    return { ...issue, message: humanIssue(issue, path, { system: "SI", currency: "USD" }).message };
+  });
+}
+
 /**
  * The message shown under a field for one schema issue (the label is beside the field, so the message does
  * not repeat it), and whether the field is simply empty.
@@ -110,7 +127,7 @@ export function humanIssue(
       if (issue.origin === "string") return { message: `Use at most ${max} characters.`, missing: false };
       if (issue.origin === "array")
         return {
-          message: path === "options" ? "Compare at most four options." : `Enter at most ${max}.`,
+          message: path === "options" ? "Compare at most four options." : `Use at most ${max.toLocaleString("en-US")} entries.`,
           missing: false,
         };
       return {

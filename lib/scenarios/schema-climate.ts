@@ -6,6 +6,8 @@
  * `toClimateYear` in lib/engine/climate turns it into the engine's ClimateYear.
  */
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
+import { MAX_BINS } from "@/lib/validation/limits";
 import type { ClimateInput } from "@/lib/engine/climate/types";
 
 /** Bounds of plausible outdoor air temperatures, °C (the EPW format's own limits: −70…70 °C). */
@@ -33,13 +35,14 @@ const binMonth = z
   .max(12, "month must be 1…12")
   .optional();
 
-const numberArray = z.array(z.number({ error: "each entry must be a number" }));
+/** An hourly column: a number per hour of a (leap) year; longer arrays are refused before any entry is read. */
+const numberArray = z.array(z.number({ error: "each entry must be a number" })).max(8784, "an hourly year has at most 8784 entries");
 
 export const hourlyClimateInputSchema = z
   .object({
     source: z.literal("hourly"),
-    datasetId: z.string().min(1).optional(),
-    label: z.string().min(1, "give the climate a label (e.g. the station or file name)").max(200),
+    datasetId: text().min(1).max(64).optional(),
+    label: text().min(1, "give the climate a label (e.g. the station or file name)").max(200),
     month: numberArray,
     day: numberArray,
     hour: numberArray.describe("0…23, the hour starting at that time"),
@@ -150,21 +153,23 @@ const binsHaveHours = (bins: { hours: number }[]) => bins.reduce((s, b) => s + b
 
 export const wetBulbBinsClimateInputSchema = z.object({
   source: z.literal("wetBulbBins"),
-  datasetId: z.string().min(1).optional(),
-  label: z.string().max(200).optional(),
+  datasetId: text().min(1).max(64).optional(),
+  label: text().max(200).optional(),
   bins: z
     .array(wetBulbBinSchema)
     .min(1, "enter at least one wet-bulb bin")
+    .max(MAX_BINS, `a bin table holds at most ${MAX_BINS} bins`)
     .refine(binsHaveHours, "the bins hold no hours"),
 });
 
 export const dryBulbBinsClimateInputSchema = z.object({
   source: z.literal("dryBulbBins"),
-  datasetId: z.string().min(1).optional(),
-  label: z.string().max(200).optional(),
+  datasetId: text().min(1).max(64).optional(),
+  label: text().max(200).optional(),
   bins: z
     .array(dryBulbBinSchema)
     .min(1, "enter at least one dry-bulb bin")
+    .max(MAX_BINS, `a bin table holds at most ${MAX_BINS} bins`)
     .refine(binsHaveHours, "the bins hold no hours"),
 });
 

@@ -9,6 +9,8 @@
  * local utility's tariff.
  */
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
+import { MAX_MONEY } from "@/lib/validation/limits";
 import {
   BREAK_EVEN_INPUTS,
   COMPONENT_KEYS,
@@ -20,6 +22,7 @@ import {
   type ComponentKey,
   type EconomicsInput,
   type MonteCarloInput,
+  type MonteCarloInputKey,
   type OptionCostsInput,
   type SensitivityInput,
   type SensitivityInputKey,
@@ -228,7 +231,10 @@ function dflt<P extends DefaultPath>(path: P): (typeof economicsFieldDefaults)[P
   return economicsFieldDefaults[path].default;
 }
 
-const money = z.number().finite().nonnegative();
+/** Money: zero or more, at most MAX_MONEY in the project's currency. */
+const money = z.number().finite().nonnegative().max(MAX_MONEY);
+/** Hours of work: a periodic event's, or a year's routine upkeep (at most ten people all year round). */
+const labourHours = z.number().finite().nonnegative().max(100_000);
 const rate = z.number().finite().gt(-0.99).lt(1);
 /** Lives: at least a quarter of a year, so that no entered life can make the replacement loop run away. */
 const yearsPositive = z.number().finite().min(0.25).max(200);
@@ -259,7 +265,7 @@ export const firstCostSchema = z
 
 export const componentReplacementSchema = z.object({
   component: z.enum(COMPONENT_KEYS),
-  label: z.string().max(120).optional(),
+  label: text().max(120).optional(),
   lifeYears: yearsPositive,
   replacementCost: money,
 });
@@ -287,19 +293,15 @@ export const componentLifeDefaultsYears: Record<ComponentKey, FieldDefault> = {
 
 export const periodicUpkeepItemSchema = z.object({
   kind: z.enum(PERIODIC_ITEM_KINDS),
-  label: z.string().max(120).optional(),
+  label: text().max(120).optional(),
   /** At least weekly (1/52 year): an interval bounds the events the cash-flow loop walks. */
   everyYears: z.number().finite().min(1 / 52).max(100),
   costPerEvent: money,
-  labourHoursPerEvent: z.number().finite().nonnegative().default(0),
+  labourHoursPerEvent: labourHours.default(0),
 });
 
 export const optionUpkeepSchema = z.object({
-  annualLabourHours: z
-    .number()
-    .finite()
-    .nonnegative()
-    .default(dflt("options[].costs.upkeep.annualLabourHours")),
+  annualLabourHours: labourHours.default(dflt("options[].costs.upkeep.annualLabourHours")),
   annualServiceCost: money.default(dflt("options[].costs.upkeep.annualServiceCost")),
   cleaningCostPerEvent: money.default(dflt("options[].costs.upkeep.cleaningCostPerEvent")),
   periodicItems: z.array(periodicUpkeepItemSchema).max(50).default([]),
@@ -327,6 +329,7 @@ export const electricityTariffSchema = z
     demandChargePerKWMonthByMonth: z.array(money).length(12).optional(),
     demandCoincidenceFactor: z
       .number()
+      .finite()
       .min(0)
       .max(1)
       .default(dflt("tariffs.electricity.demandCoincidenceFactor")),
@@ -395,16 +398,22 @@ export const economicsSchema = z.object({
   realDiscountRate: rate.default(dflt("economics.realDiscountRate")),
   inflationRate: rate.default(dflt("economics.inflationRate")),
   residualValueMethod: z.enum(["linear", "none"]).default(dflt("economics.residualValueMethod")),
-  baseOptionId: z.string().min(1).optional(),
+  baseOptionId: text().min(1).max(64).optional(),
 });
 
 // --- sensitivity and Monte Carlo ---------------------------------------------------------------
 
+/**
+ * A tornado or break-even bound: a factor (×0 … ×100), a change of a rate (−1 … +1 per year) or a number of
+ * cycles (up to 50); −1 … 100 holds them all and keeps every re-priced case finite.
+ */
+const sensitivityBound = z.number().finite().min(-1).max(100);
+
 const sensitivityRangeSchema = z
   .object({
     enabled: z.boolean().default(true),
-    low: z.number().finite().optional(),
-    high: z.number().finite().optional(),
+    low: sensitivityBound.optional(),
+    high: sensitivityBound.optional(),
   })
   .refine((r) => r.low === undefined || r.high === undefined || r.low <= r.high, {
     message: "low must not exceed high",
@@ -421,7 +430,7 @@ const tornadoShape = Object.fromEntries(
 ) as Record<SensitivityInputKey, ReturnType<typeof sensitivityRangeSchema.prefault>>;
 
 const breakEvenRangeSchema = z
-  .object({ enabled: z.boolean().default(true), min: z.number().finite(), max: z.number().finite() })
+  .object({ enabled: z.boolean().default(true), min: sensitivityBound, max: sensitivityBound })
   .refine((r) => r.min < r.max, { message: "min must be below max", path: ["min"] });
 
 const breakEvenShape = Object.fromEntries(
@@ -439,25 +448,46 @@ export const sensitivitySchema = z.object({
   breakEven: z.object(breakEvenShape).prefault({}),
 });
 
+/** Any distribution's value before its own input's range (below) applies: finite and bounded. */
+const distributionValue = z.number().finite().min(-100).max(100);
+
 export const distributionSchema = z
   .discriminatedUnion("type", [
     z.object({
       type: z.literal("triangular"),
-      min: z.number().finite(),
-      mode: z.number().finite(),
-      max: z.number().finite(),
+      min: distributionValue,
+      mode: distributionValue,
+      max: distributionValue,
     }),
-    z.object({ type: z.literal("uniform"), min: z.number().finite(), max: z.number().finite() }),
+    z.object({ type: z.literal("uniform"), min: distributionValue, max: distributionValue }),
   ])
   .refine((d) => d.min <= d.max && (d.type === "uniform" || (d.min <= d.mode && d.mode <= d.max)), {
     message: "a distribution needs min ≤ mode ≤ max",
   });
 
-/** Physical ranges of the Monte Carlo's load and climate inputs: [lowest, highest, name]. */
-const DISTRIBUTION_RANGES = {
+/**
+ * The range of every Monte Carlo input: [lowest, highest, name]. Factors multiply a price, a cost or a rate
+ * (×0 … ×10; a negative price means nothing); deltas change a yearly rate (±0.5 per year is far beyond any
+ * tariff history); cycles of concentration as the scenario's (above 1, at most 50); load and climate shift
+ * stay within what the physics model covers.
+ */
+const DISTRIBUTION_RANGES: Record<MonteCarloInputKey, readonly [number, number, string]> = {
+  waterPriceFactor: [0, 10, "a price factor"],
+  sewerPriceFactor: [0, 10, "a price factor"],
+  electricityPriceFactor: [0, 10, "a price factor"],
+  demandChargeFactor: [0, 10, "a price factor"],
+  chemicalsPriceFactor: [0, 10, "a price factor"],
+  energyEscalationDelta: [-0.5, 0.5, "an escalation change"],
+  waterEscalationDelta: [-0.5, 0.5, "an escalation change"],
+  sewerEscalationDelta: [-0.5, 0.5, "an escalation change"],
+  waterAndSewerEscalationDelta: [-0.5, 0.5, "an escalation change"],
+  discountRateDelta: [-0.5, 0.5, "a discount-rate change"],
+  firstCostFactor: [0, 10, "a first-cost factor"],
+  cyclesOfConcentration: [1.1, 50, "the cycles of concentration"],
+  foulingRateFactor: [0, 20, "a fouling-rate factor"],
   loadFactor: [0.2, 2, "a load factor"],
   climateShiftK: [-5, 5, "a climate shift (K)"],
-} as const;
+};
 
 export const monteCarloSchema = z.object({
   enabled: z.boolean().default(dflt("monteCarlo.enabled")),

@@ -9,6 +9,8 @@
  * editor shows beside the field. `options[]` in a path stands for every option.
  */
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
+import { MAX_BINS } from "@/lib/validation/limits";
 import { OPTION_KINDS } from "@/lib/engine/types";
 import {
   CLEANING_METHODS,
@@ -304,13 +306,13 @@ const efficiency = num.gt(0).max(1);
 
 export const siteSchema = z.object({
   elevationM: num.min(-430).max(5000),
-  locationLabel: z.string().min(1).max(200),
+  locationLabel: text().min(1).max(200),
 });
 
 export const loadProfileSchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("constant"), fraction: num.min(0).max(1.5) }),
   z.object({ kind: z.literal("monthHour"), fractions: z.array(num.min(0).max(1.5)).length(288, "a month × hour profile has 288 values") }),
-  z.object({ kind: z.literal("perBin"), fractions: z.array(num.min(0).max(1.5)).min(1) }),
+  z.object({ kind: z.literal("perBin"), fractions: z.array(num.min(0).max(1.5)).min(1).max(MAX_BINS) }),
   z
     .object({
       kind: z.literal("linearInDryBulb"),
@@ -539,8 +541,8 @@ const sprayPumpSchema = z.object({
 });
 
 const optionCommon = {
-  id: z.string().min(1).max(64),
-  label: z.string().min(1).max(120),
+  id: text().min(1).max(64),
+  label: text().min(1).max(120),
   costs: optionCostsSchema,
   fan: fanSchema,
   basinHeater: basinHeaterSchema.prefault({}),
@@ -684,7 +686,7 @@ export const foulingSchema = z.object({
 export const footprintSchema = z.object({
   gridEmissionFactorKgCO2ePerKWh: nonNegative.max(2).default(d("footprint.gridEmissionFactorKgCO2ePerKWh")),
   gridEmissionFactorYear: num.int().min(1990).max(2100).default(d("footprint.gridEmissionFactorYear")),
-  gridEmissionFactorSource: z.string().max(300).default(d("footprint.gridEmissionFactorSource")),
+  gridEmissionFactorSource: text().max(300).default(d("footprint.gridEmissionFactorSource")),
   gwpReport: z.enum(GWP_REPORTS).default(d("footprint.gwpReport")),
   annualLeakFraction: num.min(0).max(1).default(d("footprint.annualLeakFraction")),
 });
@@ -693,7 +695,7 @@ export const footprintSchema = z.object({
 
 const scenarioObject = z.object({
   inputVersion: z.literal(1),
-  name: z.string().min(1).max(200),
+  name: text().min(1).max(200),
   site: siteSchema,
   climate: climateInputSchema,
   duty: dutySchema,

@@ -6,6 +6,7 @@
 import type { Executor } from "@/db/schema";
 import { findScenario, insertScenario, setScenarioArchived, updateScenarioAtRevision, type ScenarioRow } from "@/db/queries/scenarios";
 import type { FieldErrorMap } from "@/lib/result";
+import { isUuid } from "@/lib/auth/access";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { climateInputFromDataset, documentFromStored, toEngineInputDraft, toScenarioDTO, toStoredInput, type ClimateDatasetLike, type ProjectSiteLike, type ScenarioDocument, type ScenarioDTO } from "./mappers";
 import { defaultScenario } from "./schema";
@@ -34,7 +35,8 @@ async function loadProjectSite(db: Executor, projectId: string) {
  * (`data: null`) where only its name is needed: the hourly arrays are the bulk of a scenario's reads.
  */
 export async function loadDataset(db: Executor, projectId: string, datasetId: string | null, withData = true) {
-  if (!datasetId) return null;
+  // A malformed id names no dataset (PostgreSQL would refuse it as a uuid).
+  if (!datasetId || !isUuid(datasetId)) return null;
   const ds = await db
     .selectFrom("climate_datasets")
     .select(["id", "name", "source_kind", "project_id as projectId"])

@@ -6,6 +6,7 @@
  * hourly result (lib/engine/what-if.ts). The body is validated with pieces of the scenario schema.
  */
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { prepareScenario, type PhysicsOverrides, type PreparedScenario, type ScenarioResult } from "@/lib/engine";
 import { economicsOptionsOf } from "@/lib/engine/condenser-plan";
 import type { StoredEconomicsInputs, WhatIfOverrides } from "@/lib/engine/economics";
@@ -44,7 +45,7 @@ export const whatIfBodySchema = z
     minimumCondensingC: ranged(WHAT_IF_PHYSICAL_RANGES.minimumCondensingC, "a minimum condensing temperature (°C)").optional(),
     fanControl: z.enum(["variableSpeed", "twoSpeed", "cycling"]).optional(),
     sizeFactorByOptionId: z
-      .record(z.string().min(1).max(100), ranged(WHAT_IF_PHYSICAL_RANGES.sizeFactor, "a selection size factor"))
+      .record(text().min(1).max(100), ranged(WHAT_IF_PHYSICAL_RANGES.sizeFactor, "a selection size factor"))
       .refine((r) => Object.keys(r).length <= 8, "at most eight options")
       .optional(),
   })

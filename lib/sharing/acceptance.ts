@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import type { Transaction } from "kysely";
 import type { Database, Executor } from "@/db/schema";
 import { inTransaction } from "@/db/transaction";
@@ -74,9 +75,9 @@ function linkFailure(link: InvitationLink): Failure {
 export function newAccountSchema(email: string) {
   return z
     .object({
-      name: z.string().trim().min(1, "Enter your name.").max(120, "Use at most 120 characters."),
-      password: z.string().max(200, "Use at most 200 characters."),
-      confirmPassword: z.string(),
+      name: text().trim().min(1, "Enter your name.").max(120, "Use at most 120 characters."),
+      password: text().max(200, "Use at most 200 characters."),
+      confirmPassword: text().max(200),
     })
     .superRefine((v, ctx) => {
       for (const message of passwordProblems(v.password, email)) ctx.addIssue({ code: "custom", path: ["password"], message });

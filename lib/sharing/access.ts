@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { inTransaction } from "@/db/transaction";
 import { writeAudit } from "@/db/queries/audit";
 import { deleteProjectAccess } from "@/db/queries/sharing";
@@ -14,7 +15,7 @@ import { fail, ok, REFUSALS, type Result } from "@/lib/result";
  */
 export const revokeViewerAccess = defineAction({
   gate: { project: "access.revoke" },
-  schema: z.object({ userId: z.string() }),
+  schema: z.object({ userId: text().max(64) }),
   run: async (db, { access }, { userId }): Promise<Result<{ userId: string; role: ProjectRole }>> => {
     if (!isUuid(userId)) return REFUSALS.notFound;
     const { project, viewer: actor } = access;

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import type { Executor } from "@/db/schema";
 import { inTransaction } from "@/db/transaction";
 import { defineAction } from "@/lib/actions/define";
@@ -15,7 +16,7 @@ import { ok, REFUSALS, type Result } from "@/lib/result";
 export const COMMENT_MAIL_KIND = "comment";
 
 export const commentInputSchema = z.object({
-  body: z.string().trim().min(1, "Write a comment first.").max(4000, "Use at most 4000 characters."),
+  body: text().trim().min(1, "Write a comment first.").max(4000, "Use at most 4000 characters."),
 });
 
 export interface CommentDTO {
@@ -57,7 +58,7 @@ export function commentRecipients(
  */
 export const addComment = defineAction({
   gate: { project: "scenario.comment" },
-  schema: commentInputSchema.extend({ versionId: z.string() }),
+  schema: commentInputSchema.extend({ versionId: text().max(64) }),
   invalidMessage: "Check the comment.",
   run: async (db, { access, appUrl }, { versionId, body }): Promise<Result<{ commentId: string; notified: number }>> => {
     const { project, viewer: author, relation } = access;

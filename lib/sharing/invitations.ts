@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import type { Executor } from "@/db/schema";
 import { inTransaction } from "@/db/transaction";
 import { defineAction } from "@/lib/actions/define";
@@ -18,7 +19,7 @@ export const INVITATION_MAIL_KIND = "invitation";
 
 /** The invite form and the invitations API share this payload. */
 export const invitationInputSchema = z.object({
-  email: z.string().trim().toLowerCase().max(320, "Use at most 320 characters.").email("Enter an e-mail address."),
+  email: text().trim().toLowerCase().max(320, "Use at most 320 characters.").email("Enter an e-mail address."),
   role: z.enum(PROJECT_ROLES, { error: "Choose owner or finance." }),
 });
 export type InvitationInput = z.infer<typeof invitationInputSchema>;
@@ -105,7 +106,7 @@ export const createInvitation = defineAction({
 /** Withdraw an invitation that has not been accepted; its unsent e-mail is cancelled with it. Input: `{ projectId, invitationId }`. */
 export const revokeInvitation = defineAction({
   gate: { project: "access.revoke" },
-  schema: z.object({ invitationId: z.string() }),
+  schema: z.object({ invitationId: text().max(64) }),
   run: async (db, { access }, { invitationId }): Promise<Result<{ invitationId: string; email: string }>> => {
     if (!isUuid(invitationId)) return REFUSALS.notFound;
     const { project, viewer: actor } = access;

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { optionsWithoutFirstCost } from "@/lib/scenarios/first-costs";
 import type { Executor } from "@/db/schema";
 import { inTransaction } from "@/db/transaction";
@@ -21,9 +22,9 @@ import { fail, ok, REFUSALS, type Result } from "@/lib/result";
 import { currentStoredResult, type CurrentResultResolver } from "./current-result";
 
 export const issueInputSchema = z.object({
-  note: z.string().trim().max(2000, "Use at most 2000 characters.").default(""),
+  note: text().trim().max(2000, "Use at most 2000 characters.").default(""),
 });
-const issueSchema = issueInputSchema.extend({ scenarioId: z.string() });
+const issueSchema = issueInputSchema.extend({ scenarioId: text().max(64) });
 
 export interface IssuedVersionSummary {
   id: string;

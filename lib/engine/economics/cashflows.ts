@@ -17,6 +17,7 @@
 import type { AcidBasis, EngineWarning, OptionAnnualPhysics } from "../types";
 import { loopChemistryAtCycles, type SewerBasis, sewerBilled } from "../water";
 import { nominalFromReal, upvStar, upvStarMidYear } from "./factors";
+import { checkSteps, MAX_SCHEDULE_EVENTS, MAX_STUDY_YEARS } from "../budget";
 import {
   COST_CATEGORIES,
   FIRST_COST_ITEMS,
@@ -306,6 +307,7 @@ export function basisAtCycles(b: OptionBasis, cycles: number): OptionBasis {
 export function replacementTimes(lifeYears: number, studyPeriodYears: number): number[] {
   const out: number[] = [];
   if (!(lifeYears > 0)) return out;
+  checkSteps(`replacements every ${lifeYears} years over ${studyPeriodYears} years`, studyPeriodYears / lifeYears, MAX_SCHEDULE_EVENTS);
   for (let k = 1; k * lifeYears < studyPeriodYears - TIME_EPS; k++) out.push(k * lifeYears);
   return out;
 }
@@ -332,6 +334,7 @@ export function linearResidualFraction(
 function periodicEventCounts(everyYears: number, studyPeriodYears: number): Map<number, number> {
   const counts = new Map<number, number>();
   if (!(everyYears > 0)) return counts;
+  checkSteps(`an upkeep item every ${everyYears} years over ${studyPeriodYears} years`, studyPeriodYears / everyYears, MAX_SCHEDULE_EVENTS);
   for (let k = 1; k * everyYears <= studyPeriodYears + TIME_EPS; k++) {
     const y = billingYear(k * everyYears);
     counts.set(y, (counts.get(y) ?? 0) + 1);
@@ -411,6 +414,7 @@ function scheduleComponents(
   for (const comp of option.costs.components) {
     const life = comp.lifeYears;
     if (!(life > 0)) continue;
+    checkSteps(`a component replaced every ${life} years over ${n} years`, n / life, MAX_SCHEDULE_EVENTS);
     let last = 0;
     let lastWasSeparate = false;
     for (let guard = 0; guard < 10_000; guard++) {
@@ -480,6 +484,8 @@ export function buildOptionBasis(
   economics: EconomicsInput,
   warnings: EngineWarning[],
 ): OptionBasis {
+  // The yearly cash-flow loops walk the study period year by year.
+  checkSteps(`a study period of ${economics.studyPeriodYears} years`, economics.studyPeriodYears, MAX_STUDY_YEARS);
   const costs = option.costs;
   const firstCostByItem = costs.firstCost ? { ...costs.firstCost } : noFirstCost();
   let firstCost = 0;

@@ -18,6 +18,7 @@
  * each alternative's net savings.
  */
 import { mulberry32 } from "../random";
+import { checkSteps, MAX_MONTE_CARLO_DRAWS } from "../budget";
 import { basisAtCycles, evaluateOptionBasis, type OptionBasis, type Pricing } from "./cashflows";
 import { withPhysics, type EconomicsModel } from "./model";
 import type { PhysicsCache } from "./sensitivity";
@@ -212,6 +213,8 @@ export function runMonteCarlo(
 ): MonteCarloResult {
   const before = physics.reruns;
   const draws = Math.max(1, Math.floor(input.draws));
+  checkSteps(`a Monte Carlo of ${input.draws} draws`, draws, MAX_MONTE_CARLO_DRAWS);
+  checkSteps(`a histogram of ${input.histogramBins} bins`, input.histogramBins, 10_000);
   const rand = mulberry32(input.seed);
   const nOpt = model.bases.length;
   const dist = input.distributions;

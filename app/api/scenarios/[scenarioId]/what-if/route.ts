@@ -3,6 +3,7 @@ import { failureResponse, jsonError, jsonOk, readJsonBody, resultResponse } from
 import { firstCostsMissingLabels, firstCostsMissingText } from "@/lib/scenarios/first-costs";
 import { needsPhysics } from "@/lib/engine/what-if";
 import { invalid } from "@/lib/result";
+import { humaneIssues } from "@/lib/scenarios/field-messages";
 import { parseVersionParam, resolveScenarioResult } from "@/lib/scenarios/resolve";
 import {
   computeWhatIf,
@@ -31,7 +32,7 @@ export async function POST(request: Request, { params }: { params: Promise<{ sce
   const body = await readJsonBody(request, WHAT_IF_MAX_BYTES);
   if (!body.ok) return resultResponse(body);
   const parsed = whatIfBodySchema.safeParse(body.value);
-  if (!parsed.success) return failureResponse(invalid(parsed.error.issues, "The what-if values are not valid."));
+  if (!parsed.success) return failureResponse(invalid(humaneIssues(parsed.error.issues), "The what-if values are not valid."));
   const { input, result, access, versionNumber, inputsHash } = r.value;
   const physical = needsPhysics(physicalOverrides(parsed.data));
   const prepared = physical ? preparedFor(`${scenarioId}|${versionNumber ?? "draft"}|${inputsHash}`, input) : null;
