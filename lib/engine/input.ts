@@ -18,6 +18,8 @@ import type { EvaporativeCondenserSelection } from "./evaporative-condenser";
 import type { CoolerSelection } from "./fluid-cooler";
 import type { GwpReport, Refrigerant } from "./refrigerants";
 import type { TowerSelection } from "./tower";
+import type { TowerRatingPointInput } from "./tower-fit";
+import type { CoolerWetRatingInput } from "./cooler-fit";
 import type { ScaleControl, SewerBasis } from "./water";
 
 export interface SiteInput {
@@ -151,8 +153,11 @@ export interface CondenserInput {
   waterSideResistanceFraction: number;
 }
 
-/** The tower's design point as entered: the same fields calibrateTower reads (documented there). */
-export type TowerSelectionInput = TowerSelection;
+/**
+ * The tower's design point as entered: the same fields calibrateTower reads (documented there), and 1–5
+ * rating points of the selection that fit C and n (tower-fit.ts calibrateTowerOnRatings).
+ */
+export type TowerSelectionInput = TowerSelection & { ratingPoints?: TowerRatingPointInput[] | undefined };
 
 export interface PlateExchangerInput {
   designApproachK: number;
@@ -165,8 +170,11 @@ export interface PlateExchangerInput {
   foulingGrowthFactor: number;
 }
 
-/** The cooler's rating as entered: the same fields calibrateCooler reads (documented there). */
-export type CoolerSelectionInput = CoolerSelection;
+/**
+ * The cooler's rating as entered: the same fields calibrateCooler reads (documented there), and extra wet
+ * ratings that fit the internal/external resistance split (cooler-fit.ts).
+ */
+export type CoolerSelectionInput = CoolerSelection & { wetRatings?: CoolerWetRatingInput[] | undefined };
 
 export interface SprayPumpInput {
   flowKgPerS: number;

@@ -187,7 +187,50 @@ export interface OptionAnnualPhysics {
     /** What the economics need to recompute the acid at other cycles without the physics. */
     acidBasis?: AcidBasis;
   };
+  /** How the tower or cooler was calibrated on the selection's rating points, with each point's residual. */
+  ratingFit?: RatingFitSummary;
   warnings: EngineWarning[];
+}
+
+/** One rating point of a selection against the calibrated model (shown in the editor and the report). */
+export interface RatingPointCheck {
+  /** "rating 1" … for entered rating points, "design" for the selection's design point, "dry" for a dry rating. */
+  label: string;
+  /** Whether this point took part in the fit (the design point of a fitted tower only checks it). */
+  usedInFit: boolean;
+  /** Water-to-air (tower) or fluid-to-air (cooler) mass ratio at the point. */
+  liquidToGasRatio?: number;
+  /** Tower: KaV/L the point needs (Chebyshev demand) and the fitted C·(L/G)^−n there. */
+  demandKaVL?: number;
+  fittedKaVL?: number;
+  /** Rated and predicted leaving water (fluid) temperature, °C; residual = predicted − rated, K. */
+  ratedLeavingC: number;
+  predictedLeavingC?: number;
+  residualK?: number;
+  /** Why a point was left out of the fit. */
+  rejected?: string;
+}
+
+/**
+ * How an option's tower characteristic or cooler conductances were calibrated on the selection's rating
+ * points (absent in results stored before rating points existed, and for the evaporative condenser).
+ */
+export interface RatingFitSummary {
+  device: "tower" | "cooler";
+  /**
+   * tower — "fitted": C and n by least squares on ln KaV/L vs ln L/G; "defaultExponent": n is the default
+   * (one point, points at nearly one L/G, or a fitted n out of range) and C is fitted; "designPoint": no rating
+   * points, C from the design point. cooler — "fitted": the tube-side share from the wet ratings;
+   * "defaultSplit": the entered (or default) share, with or without extra ratings.
+   */
+  method: "fitted" | "defaultExponent" | "designPoint" | "defaultSplit";
+  /** Plain statement of what was fitted and what was taken as a default, e.g. "n = 0.6 default, one rating point". */
+  note: string;
+  coefficientC?: number;
+  exponentN?: number;
+  internalResistanceFraction?: number;
+  dryExternalConductanceFactor?: number;
+  points: RatingPointCheck[];
 }
 
 /**

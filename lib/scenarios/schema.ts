@@ -471,6 +471,28 @@ const condenserSchema = z
   // The clean coefficient the engine needs: entered, or the construction's default.
   .transform((c) => ({ ...c, cleanUWPerM2K: c.cleanUWPerM2K ?? CONDENSER_CONSTRUCTION_DEFAULTS[c.construction].cleanUWPerM2K.value }));
 
+/**
+ * One rating point of a tower selection (certified data at another flow, wet-bulb or fan speed): its L/G
+ * comes from the airflow, else the fan power (fan laws), else the design airflow (fan at full speed).
+ */
+const towerRatingPointSchema = z
+  .object({
+    waterFlowKgPerS: positive.max(50000),
+    enteringWaterC: waterC,
+    leavingWaterC: waterC,
+    wetBulbC: airC,
+    airFlowKgPerS: positive.max(1e5).optional(),
+    fanPowerKW: positive.max(5000).optional(),
+  })
+  .superRefine((r, ctx) => {
+    if (r.leavingWaterC >= r.enteringWaterC)
+      ctx.addIssue({ code: "custom", path: ["leavingWaterC"], message: "the leaving (cold) water must be colder than the entering (hot) water" });
+    else if (r.leavingWaterC <= r.wetBulbC)
+      ctx.addIssue({ code: "custom", path: ["leavingWaterC"], message: "a tower cannot cool water to or below the entering wet-bulb" });
+    if (r.airFlowKgPerS !== undefined && r.fanPowerKW !== undefined)
+      ctx.addIssue({ code: "custom", path: ["fanPowerKW"], message: "enter the airflow or the fan power, not both" });
+  });
+
 const towerSchema = z
   .object({
     waterFlowKgPerS: positive.max(50000),
@@ -479,12 +501,29 @@ const towerSchema = z
     designWetBulbC: airC,
     designLiquidToGasRatio: num.gt(0.1).max(5).default(d("options[].tower.designLiquidToGasRatio")),
     characteristicExponent: num.min(0.2).max(1.2).default(d("options[].tower.characteristicExponent")),
+    ratingPoints: z.array(towerRatingPointSchema).min(1, "enter at least one rating point, or none").max(5, "enter at most five rating points").optional(),
   })
   .superRefine((t, ctx) => {
     if (t.leavingWaterC >= t.enteringWaterC)
       ctx.addIssue({ code: "custom", path: ["leavingWaterC"], message: "the leaving (cold) water must be colder than the entering (hot) water" });
     if (t.leavingWaterC <= t.designWetBulbC)
       ctx.addIssue({ code: "custom", path: ["leavingWaterC"], message: "a tower cannot cool water to or below the entering wet-bulb" });
+  });
+
+/** An extra wet rating of a cooler (another flow, airflow or wet-bulb); without an airflow, the fan at full speed. */
+const coolerWetRatingSchema = z
+  .object({
+    fluidFlowKgPerS: positive.max(50000),
+    enteringFluidC: waterC,
+    leavingFluidC: waterC,
+    wetBulbC: airC,
+    airFlowKgPerS: positive.max(1e5).optional(),
+  })
+  .superRefine((r, ctx) => {
+    if (r.leavingFluidC >= r.enteringFluidC)
+      ctx.addIssue({ code: "custom", path: ["leavingFluidC"], message: "the leaving fluid must be colder than the entering fluid" });
+    else if (r.leavingFluidC <= r.wetBulbC)
+      ctx.addIssue({ code: "custom", path: ["leavingFluidC"], message: "a cooler cannot cool the fluid to or below the entering wet-bulb" });
   });
 
 const plateExchangerSchema = z.object({
@@ -505,6 +544,7 @@ const coolerSchema = z
     designFluidToAirRatio: num.gt(0.1).max(5).default(d("options[].cooler.designFluidToAirRatio")),
     internalResistanceFraction: num.gt(0).lt(1).default(d("options[].cooler.internalResistanceFraction")),
     dryRating: z.object({ enteringFluidC: waterC, leavingFluidC: waterC, dryBulbC: airC }).optional(),
+    wetRatings: z.array(coolerWetRatingSchema).max(4, "enter at most four extra wet ratings").optional(),
     dryExternalConductanceFactor: num.gt(0).max(2).default(d("options[].cooler.dryExternalConductanceFactor")),
     allowDryMode: z.boolean().default(d("options[].cooler.allowDryMode")),
     dryModeMaxDryBulbC: airC.optional(),

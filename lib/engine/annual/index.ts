@@ -154,6 +154,7 @@ export function computeOptionsPhysics(
       );
     }
     const physics = finishOption(po, totals, cycles, optionCycles, limit, water, intervalMonths, optimal, warnings, opts.cyclesOverride !== undefined);
+    if (po.ratingFit) physics.ratingFit = po.ratingFit;
     if (!opts.skipDesignDay) {
       const dd = designDayCheck(po, ctx);
       if (dd) {

@@ -14,7 +14,9 @@ import { calibratePlateExchangerUaKWPerK } from "../plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
 import { glycolPumpPowerKW, pumpPowerKW, waterHeadFromPressureDropM } from "../pumps";
 import { type TowerModel, calibrateTower } from "../tower";
-import type { EngineWarning } from "../types";
+import { calibrateTowerOnRatings } from "../tower-fit";
+import { coolerRatingChecks, fitCoolerResistanceSplit } from "../cooler-fit";
+import type { EngineWarning, RatingFitSummary } from "../types";
 import { numericWarning, wv } from "../warnings";
 import { WATER_DENSITY_KG_PER_M3 } from "./shared";
 
@@ -47,6 +49,8 @@ export interface PreparedOption {
   wetLoopVolumeM3: number;
   /** Hot-water (tower), entering-fluid (cooler) or condensing (evaporative condenser) temperature at design, °C. */
   designHottestSurfaceC: number;
+  /** How the tower or cooler was calibrated on the selection's rating points (absent for the evaporative condenser). */
+  ratingFit?: RatingFitSummary;
   warnings: EngineWarning[];
 }
 
@@ -146,8 +150,14 @@ export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fo
     };
   }
   if (o.kind === "closedCircuitCooler") {
-    const { model, warnings: w } = calibrateCooler(o.cooler, pPa, `${path}.cooler`);
-    warnings.push(...w.map((x) => ({ ...x, optionId: o.id })));
+    const split = fitCoolerResistanceSplit(o.cooler, pPa, `${path}.cooler`);
+    const { model, warnings: w } = calibrateCooler({ ...o.cooler, internalResistanceFraction: split.internalResistanceFraction }, pPa, `${path}.cooler`);
+    warnings.push(...[...split.warnings, ...w].map((x) => ({ ...x, optionId: o.id })));
+    const ratingFit: RatingFitSummary = {
+      ...split.summary,
+      dryExternalConductanceFactor: model.dryFactor,
+      points: coolerRatingChecks(o.cooler, split.internalResistanceFraction, model.dryFactor, split.method === "fitted", pPa),
+    };
     const c = o.cooler;
     const meanC = 0.5 * (c.enteringFluidC + c.leavingFluidC);
     const loop = fluidProperties(c.glycol.kind, c.glycol.massFraction, meanC);
@@ -182,11 +192,15 @@ export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fo
       driftFlowKgPerS: o.sprayPump.flowKgPerS,
       wetLoopVolumeM3: o.wetLoopVolumeM3 ?? volumeFromFlow(o.sprayPump.flowKgPerS),
       designHottestSurfaceC: c.enteringFluidC,
+      ratingFit,
       warnings,
     };
   }
-  const { model, warnings: w } = calibrateTower(o.tower, pPa, `${path}.tower`);
-  warnings.push(...w.map((x) => ({ ...x, optionId: o.id })));
+  const designCalibrated = calibrateTower(o.tower, pPa, `${path}.tower`);
+  const fitted = calibrateTowerOnRatings(designCalibrated.model, o.tower, o.fan.designPowerKW, pPa, `${path}.tower`);
+  const model = fitted.model;
+  const ratingFit = fitted.summary;
+  warnings.push(...[...designCalibrated.warnings, ...fitted.warnings].map((x) => ({ ...x, optionId: o.id })));
   const t = o.tower;
   const towerC = t.waterFlowKgPerS * CPW;
   designChecks(warnings, o, path, qDesign, towerC * (t.enteringWaterC - t.leavingWaterC), t.leavingWaterC - t.designWetBulbC, 2, "tower");
@@ -207,6 +221,7 @@ export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fo
       driftFlowKgPerS: t.waterFlowKgPerS,
       wetLoopVolumeM3: o.wetLoopVolumeM3 ?? volumeFromFlow(t.waterFlowKgPerS),
       designHottestSurfaceC: t.enteringWaterC,
+      ratingFit,
       warnings,
     };
   }
@@ -243,6 +258,7 @@ export function prepareOption(o: OptionInput, index: number, duty: DutyInput, fo
     driftFlowKgPerS: t.waterFlowKgPerS,
     wetLoopVolumeM3: o.wetLoopVolumeM3 ?? volumeFromFlow(t.waterFlowKgPerS),
     designHottestSurfaceC: t.enteringWaterC,
+    ratingFit,
     warnings,
   };
 }
