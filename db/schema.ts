@@ -37,6 +37,8 @@ export interface ProjectsTable {
   elevation_m: Generated<number>;
   unit_system: Generated<UnitSystem>;
   currency: Generated<string>;
+  /** Optimistic concurrency: +1 on every edit of the project's fields. */
+  revision: Generated<number>;
   created_by: string | null;
   created_at: Timestamp;
   updated_at: Timestamp;

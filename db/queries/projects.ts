@@ -15,6 +15,7 @@ const projectColumns = [
   "projects.currency",
   "projects.created_at as createdAt",
   "projects.updated_at as updatedAt",
+  "projects.revision",
 ] as const;
 
 /** The project with the viewer's client role on it (null when none), or undefined when it does not exist. */
@@ -72,6 +73,43 @@ export async function updateProject(db: Executor, projectId: string, p: ProjectU
     .set({ ...p, updated_at: sql`now()` })
     .where("id", "=", projectId)
     .execute();
+}
+
+/**
+ * Update a project's fields only while its revision is still `expectedRevision` (and step it by one):
+ * the new revision, or null when someone else's edit came first (nothing written).
+ */
+export async function updateProjectAtRevision(db: Executor, projectId: string, expectedRevision: number, p: ProjectUpdate): Promise<number | null> {
+  const row = await db
+    .updateTable("projects")
+    .set({ ...p, revision: sql<number>`revision + 1`, updated_at: sql`now()` })
+    .where("id", "=", projectId)
+    .where("revision", "=", expectedRevision)
+    .returning("revision")
+    .executeTakeFirst();
+  return row?.revision ?? null;
+}
+
+/** Who last edited a project's fields and when (from the audit trail), for a refused stale edit. */
+export async function lastProjectEdit(db: Executor, projectId: string) {
+  return db
+    .selectFrom("projects")
+    .leftJoin(
+      (eb) =>
+        eb
+          .selectFrom("audit_events")
+          .leftJoin("users", "users.id", "audit_events.actor_id")
+          .select(["audit_events.project_id", "users.name as actorName"])
+          .where("audit_events.project_id", "=", projectId)
+          .where("audit_events.action", "=", "project.edit")
+          .orderBy("audit_events.id", "desc")
+          .limit(1)
+          .as("last"),
+      (j) => j.onRef("last.project_id", "=", "projects.id"),
+    )
+    .select(["projects.revision", "projects.updated_at as updatedAt", "last.actorName"])
+    .where("projects.id", "=", projectId)
+    .executeTakeFirst();
 }
 
 export async function grantProjectAccess(

@@ -1,12 +1,12 @@
 import "server-only";
 import { inTransaction } from "@/db/transaction";
 import type { Executor } from "@/db/schema";
-import { insertProject, listProjectsForUser, updateProject as updateProjectRow } from "@/db/queries/projects";
+import { insertProject, lastProjectEdit, listProjectsForUser, updateProjectAtRevision } from "@/db/queries/projects";
 import type { Viewer } from "@/lib/auth/access";
 import { writeAudit } from "@/db/queries/audit";
 import { defineAction } from "@/lib/actions/define";
-import { ok, type Result } from "@/lib/result";
-import { projectCreateSchema, projectSchema, type ProjectFields } from "./schema";
+import { fail, ok, REFUSALS, type Result } from "@/lib/result";
+import { projectCreateSchema, projectUpdateSchema, type ProjectFields } from "./schema";
 
 /**
  * Create a project in one of the viewer's firms (project.create there). Input: the project's fields and
@@ -54,15 +54,36 @@ const FIELD_COLUMNS = {
   currency: "currency",
 } as const satisfies Record<keyof ProjectFields, string>;
 
+/** What a refused stale edit tells the form: the revision someone else saved first. */
+export interface ProjectConflict {
+  currentRevision: number;
+  savedBy: string | null;
+  savedAt: string;
+}
+
 /**
- * Edit a project's fields (project.edit). Input: `{ projectId, …fields }`. Validation errors for every
- * field; on success the audit event lists each changed field with its old and new value.
+ * Edit a project's fields (project.edit). Input: `{ projectId, revision, …fields }`, `revision` being the
+ * one the form was opened at. Validation errors for every field; an edit that started from an older
+ * revision than the stored one is refused (409, nothing written) — as a scenario save is; on success the
+ * revision steps by one and the audit event lists each changed field with its old and new value.
  */
 export const updateProject = defineAction({
   gate: { project: "project.edit" },
-  schema: projectSchema,
-  run: async (db, { access }, v): Promise<Result<{ changed: string[] }>> => {
+  schema: projectUpdateSchema,
+  run: async (db, { access }, v): Promise<Result<{ changed: string[]; revision: number }, ProjectConflict>> => {
     const before = access.project;
+    const stale = async (): Promise<Result<never, ProjectConflict>> => {
+      const now = await lastProjectEdit(db, before.id);
+      if (!now) return REFUSALS.notFound;
+      return fail(
+        409,
+        `Not saved: ${now.actorName ?? "someone"} changed this project (revision ${now.revision}) after you opened it. ` +
+          "Nothing was overwritten and your edits are still in the form — copy them, then reload to see the newer version.",
+        undefined,
+        { currentRevision: now.revision, savedBy: now.actorName ?? null, savedAt: now.updatedAt.toISOString() },
+      );
+    };
+    if (before.revision !== v.revision) return stale();
     const changes: Record<string, { from: unknown; to: unknown }> = {};
     const update: Record<string, unknown> = {};
     for (const key of Object.keys(FIELD_COLUMNS) as (keyof ProjectFields)[]) {
@@ -72,9 +93,10 @@ export const updateProject = defineAction({
       }
     }
     const changed = Object.keys(changes);
-    if (changed.length === 0) return ok({ changed });
-    await inTransaction(db, async (trx) => {
-      await updateProjectRow(trx, before.id, update);
+    if (changed.length === 0) return ok({ changed, revision: before.revision });
+    const revision = await inTransaction(db, async (trx) => {
+      const next = await updateProjectAtRevision(trx, before.id, v.revision, update);
+      if (next === null) return null;
       await writeAudit(trx, {
         actorId: access.viewer.id,
         firmId: before.firmId,
@@ -82,10 +104,12 @@ export const updateProject = defineAction({
         action: "project.edit",
         targetType: "project",
         targetId: before.id,
-        detail: { changes },
+        detail: { changes, revision: next },
       });
+      return next;
     });
-    return ok({ changed });
+    if (revision === null) return stale();
+    return ok({ changed, revision });
   },
 });
 

@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import { text } from "@/lib/validation/text";
+import { MAX_REVISION } from "@/lib/validation/limits";
 import { UNIT_SYSTEMS } from "@/lib/auth/roles";
 
 /** Lowest and highest site elevations accepted, m. Below the Dead Sea shore (≈ −430 m) or above 5,000 m
@@ -47,6 +48,15 @@ export const projectSchema = z.object({
     .toUpperCase()
     .regex(ISO_CURRENCY, "Use a three-letter ISO 4217 code such as USD, EUR or CAD.")
     .refine((c) => !CURRENCIES || CURRENCIES.has(c), "That is not an ISO 4217 currency code."),
+});
+
+/** Editing also names the revision the form was opened at (a stale edit is refused). */
+export const projectUpdateSchema = projectSchema.extend({
+  revision: z
+    .number({ error: "The form is out of date; reload the page." })
+    .int("The form is out of date; reload the page.")
+    .min(1, "The form is out of date; reload the page.")
+    .max(MAX_REVISION, "The form is out of date; reload the page."),
 });
 
 /** Creating also names the consulting firm the project belongs to (a member may belong to several). */

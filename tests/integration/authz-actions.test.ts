@@ -193,8 +193,10 @@ export const SPECS: Record<string, Spec> = {
     run: async (v, _r, variant) => {
       if (!v) return 401;
       const p = variant === "own" ? w.P : w.C;
+      const { revision } = await db.selectFrom("projects").select("revision").where("id", "=", p.id).executeTakeFirstOrThrow();
       const r = await updateProject(db, v, {
         projectId: p.id,
+        revision,
         clientName: `Client of ${p.name}`,
         name: p.name,
         siteName: `Site of ${p.name}`,

@@ -115,6 +115,7 @@ describe("edit a project", () => {
     const before = await current();
     const r = await updateProject(db, consultant, {
       projectId,
+      revision: before.revision,
       clientName: "",
       name: "x".repeat(201),
       siteName: "Still fine",
@@ -135,6 +136,7 @@ describe("edit a project", () => {
     const before = await current();
     const r = await updateProject(db, consultant, {
       projectId,
+      revision: before.revision,
       clientName: before.client_name,
       name: before.name,
       siteName: before.site_name,
@@ -155,17 +157,72 @@ describe("edit a project", () => {
       .where("project_id", "=", projectId)
       .where("action", "=", "project.edit")
       .executeTakeFirstOrThrow();
-    expect(audit.detail).toEqual({ changes: { elevationM: { from: 412, to: 250 }, unitSystem: { from: "IP", to: "SI" } } });
+    expect(audit.detail).toEqual({ changes: { elevationM: { from: 412, to: 250 }, unitSystem: { from: "IP", to: "SI" } }, revision: before.revision + 1 });
+    expect(after.revision).toBe(before.revision + 1);
   });
 
   it("a client viewer of the project and an outsider cannot edit it", async () => {
     const before = await current();
-    const input = { ...valid(), name: "Hijacked" };
+    const input = { ...valid(), name: "Hijacked", revision: before.revision };
     const byOwner = await updateProject(db, owner, { ...input, projectId });
     const byOutsider = await updateProject(db, outsider, { ...input, projectId });
     expect(byOwner).toMatchObject({ ok: false, status: 403 });
     // No relation: answered as "not found", never hinting that the project exists.
     expect(byOutsider).toMatchObject({ ok: false, status: 404 });
     expect(await current()).toEqual(before);
+  });
+});
+
+describe("two people edit the same project at once", () => {
+  it("both opened revision N: the first edit is stored, the stale one is refused with a clear 409 and changes nothing", async () => {
+    const r0 = await createProject(db, consultant, valid());
+    if (!r0.ok) throw new Error("setup failed");
+    const projectId = r0.value.projectId;
+    const opened = await db.selectFrom("projects").selectAll().where("id", "=", projectId).executeTakeFirstOrThrow();
+    const form = {
+      projectId,
+      revision: opened.revision,
+      clientName: opened.client_name,
+      name: opened.name,
+      siteName: opened.site_name,
+      locationLabel: opened.location_label,
+      elevationM: opened.elevation_m,
+      unitSystem: opened.unit_system,
+      currency: opened.currency,
+    };
+    // Sent together: the row's revision check lets exactly one of them write.
+    const [a, b] = await Promise.all([
+      updateProject(db, consultant, { ...form, siteName: "South plant" }),
+      updateProject(db, consultant, { ...form, siteName: "East plant" }),
+    ]);
+    const results = [a, b];
+    const stored = results.filter((r) => r.ok);
+    const refused = results.filter((r) => !r.ok);
+    expect(stored).toHaveLength(1);
+    expect(refused).toHaveLength(1);
+    const loser = refused[0]!;
+    if (loser.ok) return;
+    expect(loser.status).toBe(409);
+    expect(loser.error).toMatch(/^Not saved: .+ changed this project \(revision \d+\) after you opened it\. Nothing was overwritten/);
+    const after = await db.selectFrom("projects").selectAll().where("id", "=", projectId).executeTakeFirstOrThrow();
+    expect(after.revision).toBe(opened.revision + 1);
+    const winner = a.ok ? "South plant" : "East plant";
+    expect(after.site_name).toBe(winner);
+    const edits = await db.selectFrom("audit_events").select("detail").where("project_id", "=", projectId).where("action", "=", "project.edit").execute();
+    expect(edits).toHaveLength(1);
+
+    // The stale form sent again (still at the old revision) is refused as well; one at the new revision is stored.
+    const again = await updateProject(db, consultant, { ...form, siteName: "West plant" });
+    expect(again).toMatchObject({ ok: false, status: 409, detail: { currentRevision: opened.revision + 1 } });
+    const fresh = await updateProject(db, consultant, { ...form, revision: after.revision, siteName: "West plant" });
+    expect(fresh).toMatchObject({ ok: true, value: { changed: ["siteName"], revision: opened.revision + 2 } });
+  });
+
+  it("an edit without a revision is a field error, not a silent overwrite", async () => {
+    const r0 = await createProject(db, consultant, valid());
+    if (!r0.ok) throw new Error("setup failed");
+    const { revision: _r, ...noRevision } = { ...valid(), revision: 1 };
+    const r = await updateProject(db, consultant, { ...noRevision, projectId: r0.value.projectId, name: "Changed" });
+    expect(r).toMatchObject({ ok: false, status: 422, fieldErrors: { revision: ["The form is out of date; reload the page."] } });
   });
 });

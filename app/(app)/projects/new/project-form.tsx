@@ -30,13 +30,15 @@ const COMMON_CURRENCIES = ["USD", "CAD", "EUR", "GBP", "AUD", "NZD", "MXN", "BRL
 export interface ProjectFormProps {
   mode: "create" | "edit";
   projectId?: string;
+  /** The project's revision when the edit form was opened: a stale edit is refused, not applied. */
+  revision?: number;
   firms: { firmId: string; firmName: string }[];
   initial: FormValues;
   cancelHref: string;
 }
 
 /** Create or edit a project: the same fields, the same schema as the server, every error at its field. */
-export function ProjectForm({ mode, projectId, firms, initial, cancelHref }: ProjectFormProps) {
+export function ProjectForm({ mode, projectId, revision, firms, initial, cancelHref }: ProjectFormProps) {
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState<string | null>(null);
@@ -54,7 +56,7 @@ export function ProjectForm({ mode, projectId, firms, initial, cancelHref }: Pro
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
     setSaved(null);
-    const result = mode === "create" ? await createProjectAction(values) : await updateProjectAction(projectId ?? "", values);
+    const result = mode === "create" ? await createProjectAction(values) : await updateProjectAction(projectId ?? "", { ...values, revision });
     if (!result.ok) {
       const formLevel = applyFieldErrors(setError, result.fieldErrors ?? {});
       setFormError(formLevel[0] ?? (result.status === 422 ? null : result.error));

@@ -15,6 +15,7 @@ export default async function EditProjectPage({ params }: { params: Promise<{ pr
         <ProjectForm
           mode="edit"
           projectId={project.id}
+          revision={project.revision}
           firms={[]}
           initial={{
             firmId: project.firmId,
