@@ -16,6 +16,7 @@ import { buildHeadline, designDaySentence, money } from "@/lib/comparison/headli
 import { MonteCarloPanel, type MonteCarloSlot } from "./monte-carlo-panel";
 import { STACK_CATEGORIES, costStackSeries, cumulativeSeries, monthlyWaterSeries, tornadoRows, wetBulbBinRows } from "./series";
 import { WhatIfPanel } from "./what-if-panel";
+import { CondenserFootprintPanel } from "./condenser-footprint-panel";
 
 export interface ComparisonProject {
   name: string;
@@ -146,6 +147,12 @@ export function ComparisonView(props: ComparisonViewProps) {
       <Panel title="Side by side">
         <ComparisonTable result={result} system={system} currency={currency} />
       </Panel>
+
+      {result.condensers || result.footprint ? (
+        <Panel title="Condensers and footprint">
+          <CondenserFootprintPanel result={result} system={system} currency={currency} />
+        </Panel>
+      ) : null}
 
       {props.canSeeCashFlows ? (
         <Panel title="Cost over the study period">

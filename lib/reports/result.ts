@@ -28,5 +28,7 @@ export function readEngineResult(raw: unknown): ReportEngineResult {
   };
   if (climate) out.climate = climate as unknown as NonNullable<ReportEngineResult["climate"]>;
   if (typeof raw.engineVersion === "string") out.engineVersion = raw.engineVersion;
+  if (Array.isArray(raw.condensers)) out.condensers = raw.condensers as NonNullable<ReportEngineResult["condensers"]>;
+  if (isObject(raw.footprint) && Array.isArray(raw.footprint.options)) out.footprint = raw.footprint as unknown as NonNullable<ReportEngineResult["footprint"]>;
   return out;
 }

@@ -6,6 +6,8 @@ import type { UnitSystem } from "@/lib/auth/roles";
 import type { ClimateSummary } from "@/lib/engine/climate/summary";
 import type { EconomicsResult } from "@/lib/engine/economics/types";
 import type { EngineWarning, OptionAnnualPhysics } from "@/lib/engine/types";
+import type { CondenserPlan } from "@/lib/engine/condenser-plan";
+import type { ScenarioFootprint } from "@/lib/engine/footprint";
 
 /** The parts of the engine's stored result a report reads (a subset of lib/engine's ScenarioResult). */
 export interface ReportEngineResult {
@@ -14,6 +16,10 @@ export interface ReportEngineResult {
   economics: EconomicsResult;
   climate?: ClimateSummary;
   warnings: EngineWarning[];
+  /** Each option's condenser plan (absent from results stored before engine 2.1). */
+  condensers?: CondenserPlan[];
+  /** Each option's water and carbon footprint (absent from results stored before engine 2.1). */
+  footprint?: ScenarioFootprint;
 }
 
 export interface ReportProject {

@@ -7,6 +7,7 @@
  * The yearly amounts are the engine's (priced from the yearly physics and the tariffs); what finance can
  * change live is the discounting: the real discount rate, inflation and the analysis basis.
  */
+import { condenserPlanTable, footprintTable, inventoryCautionTexts, type OptionRowsTable } from "./condenser-footprint";
 import { firstCostsMissingLabels, firstCostsMissingText } from "@/lib/scenarios/first-costs";
 import ExcelJS from "exceljs";
 import {
@@ -635,6 +636,50 @@ function addSummarySheet(wb: ExcelJS.Workbook, src: ReportSource, lccNames: stri
   ws.columns.forEach((c, i) => (c.width = i === 0 ? 40 : 20));
 }
 
+/**
+ * Each option's condenser and upkeep plan (refrigerant in kg and lb) and its water and carbon footprint,
+ * the same rows as the comparison and the PDF; numbers as numbers with the row's unit. No cash flows.
+ */
+function addCondenserSheet(wb: ExcelJS.Workbook, src: ReportSource): void {
+  const plans = condenserPlanTable(src.result, src.project.currency);
+  const footprint = footprintTable(src.result, src.unitSystem, src.project.currency);
+  if (!plans && !footprint) return;
+  const ws = wb.addWorksheet("Condensers", { properties: { tabColor: { argb: "FF5B6B3A" } } });
+  titleCell(ws, "A1", "Condensers, refrigerant and footprint");
+  let r = 3;
+  const block = (title: string, t: OptionRowsTable) => {
+    titleCell(ws, `A${r}`, title, 12);
+    r += 1;
+    const head = ws.getRow(r);
+    head.values = ["", "Unit", ...t.columns.map((c) => neutraliseText(c.label))];
+    headerStyle(head);
+    r += 1;
+    for (const row of t.rows) {
+      const x = ws.getRow(r);
+      x.values = [row.label, row.unit, ...row.cells.map((c) => (c.value !== null ? c.value : neutraliseText(c.text)))];
+      x.alignment = { vertical: "top", wrapText: true };
+      r += 1;
+    }
+    for (const n of t.notes) {
+      ws.getCell(`A${r}`).value = neutraliseText(n);
+      ws.getCell(`A${r}`).font = { italic: true, size: 9 };
+      r += 1;
+    }
+    r += 1;
+  };
+  if (plans) block("Condenser construction and upkeep plan", plans);
+  for (const c of inventoryCautionTexts(src.result)) {
+    ws.getCell(`A${r}`).value = neutraliseText(c);
+    ws.getCell(`A${r}`).font = { size: 9, color: { argb: "FF8A4B1F" } };
+    r += 1;
+  }
+  r += 1;
+  if (footprint) block("Water and carbon footprint", footprint);
+  ws.getColumn(1).width = 44;
+  ws.getColumn(2).width = 12;
+  for (let i = 0; i < (plans ?? footprint)!.columns.length; i++) ws.getColumn(3 + i).width = 30;
+}
+
 /** The workbook as .xlsx bytes. */
 export async function buildWorkbook(src: ReportSource): Promise<Buffer> {
   const wb = new ExcelJS.Workbook();
@@ -651,6 +696,7 @@ export async function buildWorkbook(src: ReportSource): Promise<Buffer> {
     src,
     src.result.economics.options.map((_, i) => lccName(i)),
   );
+  addCondenserSheet(wb, src);
   src.result.economics.options.forEach((o, i) => addCashFlowSheet(wb, src, o, i));
   const out = await wb.xlsx.writeBuffer();
   return Buffer.from(out as ArrayBuffer);

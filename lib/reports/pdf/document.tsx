@@ -37,6 +37,7 @@ import {
 import { cautionsFor, SCREENING_NOTE } from "./text";
 import { methodsDocument, type Inline } from "@/lib/methods";
 import { Facts, H1, H2, H3, Note, P, T, Table, type Column } from "./primitives";
+import { CondenserFootprintSection } from "./condenser-footprint";
 import { COLORS, OPTION_COLORS, S } from "./theme";
 
 const SUMMARY_FLIPS_SHOWN = 6;
@@ -854,7 +855,7 @@ function CautionsSection({ source }: { source: ReportSource }) {
 
 /** The whole report as a react-pdf document. */
 /** The report's parts in order; "cash" (the yearly cash-flow pages) only for viewers who may see cash flows. */
-export const REPORT_PARTS = ["cover", "summary", "charts", "assumptions", "water", "cash", "methods", "cautions"] as const;
+export const REPORT_PARTS = ["cover", "summary", "charts", "assumptions", "water", "condensers", "cash", "methods", "cautions"] as const;
 
 /** The parts a report for this source has: the viewer's access decides (no yearly cash flows for the owner). */
 export function reportPartsFor(source: Pick<ReportSource, "cashFlowsWithheld">): string[] {
@@ -894,6 +895,11 @@ export function ReportDocument({ source, parts }: { source: ReportSource; parts?
       {on("water") ? (
         <Sheet source={source} size={size}>
           <WaterEnergySection source={source} />
+        </Sheet>
+      ) : null}
+      {on("condensers") && (source.result.condensers || source.result.footprint) ? (
+        <Sheet source={source} size={size}>
+          <CondenserFootprintSection source={source} />
         </Sheet>
       ) : null}
       {on("cash") ? <CashFlowPages source={source} size={size} /> : null}

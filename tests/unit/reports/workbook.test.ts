@@ -69,10 +69,11 @@ describe("cash-flow workbook (end-of-year, real)", () => {
     console.log(`[report] workbook built and re-read in ${(performance.now() - t0).toFixed(0)} ms`);
   });
 
-  it("has an Inputs sheet of named cells, a summary and one cash-flow sheet per option", () => {
+  it("has an Inputs sheet of named cells, a summary, the condensers and footprint, and one cash-flow sheet per option", () => {
     expect(wb.worksheets.map((w) => w.name)).toEqual([
       "Inputs",
       "Summary",
+      "Condensers",
       ...src.result.economics.options.map((_, i) => cashFlowSheetName(i)),
     ]);
     const ev = new WorkbookEvaluator(wb);
