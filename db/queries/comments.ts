@@ -1,4 +1,21 @@
+import { sql } from "kysely";
 import type { Executor } from "../schema";
+
+/** Serialise one author's comment writes for the rest of the transaction (the rate limit counts, then inserts). */
+export async function lockCommentAuthor(db: Executor, authorId: string): Promise<void> {
+  await sql`select pg_advisory_xact_lock(hashtext(${"comment:" + authorId}))`.execute(db);
+}
+
+/** How many comments an author posted in the last `windowS` seconds (every project). */
+export async function countRecentCommentsBy(db: Executor, authorId: string, windowS: number): Promise<number> {
+  const row = await db
+    .selectFrom("comments")
+    .select((eb) => eb.fn.countAll<string>().as("n"))
+    .where("author_id", "=", authorId)
+    .where("created_at", ">", sql<Date>`now() - make_interval(secs => ${windowS})`)
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
+}
 
 
 export async function insertComment(db: Executor, c: { versionId: string; projectId: string; authorId: string; body: string }) {

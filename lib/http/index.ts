@@ -24,12 +24,17 @@ export function jsonOk(value: unknown, status = 200): NextResponse {
   return NextResponse.json(value, { status, headers: NO_STORE });
 }
 
-/** A failure as JSON: its status with `{ error, fieldErrors?, detail? }`. */
+/** A failure as JSON: its status with `{ error, fieldErrors?, detail? }`; a 429 says when to try again (Retry-After). */
 export function failureResponse(f: Failure<unknown>): NextResponse {
-  return jsonError(f.status, f.error, {
+  const res = jsonError(f.status, f.error, {
     ...(f.fieldErrors ? { fieldErrors: f.fieldErrors } : {}),
     ...(f.detail !== undefined ? { detail: f.detail } : {}),
   });
+  if (f.status === 429) {
+    const s = (f.detail as { retryAfterS?: unknown } | undefined)?.retryAfterS;
+    res.headers.set("retry-after", String(typeof s === "number" && s > 0 ? Math.ceil(s) : 60));
+  }
+  return res;
 }
 
 /** A result as JSON: `okStatus` with the value, or the failure's status with its error and field errors. */
@@ -60,8 +65,9 @@ export async function readJsonBody(request: Request, maxBytes: number): Promise<
   }
   try {
     return { ok: true, value: JSON.parse(new TextDecoder().decode(body.bytes)) as unknown };
-  } catch (err) {
-    return fail(400, `The body is not valid JSON: ${(err as Error).message}`);
+  } catch {
+    // The parser's own message (a position in a token stream) helps no one; a deep nesting lands here too.
+    return fail(400, "The body is not valid JSON.");
   }
 }
 

@@ -6,14 +6,20 @@ import { defineAction } from "@/lib/actions/define";
 import { authorizeProject, isUuid, type Viewer } from "@/lib/auth/access";
 import { ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
 import { writeAudit } from "@/db/queries/audit";
-import { insertComment, listVersionComments } from "@/db/queries/comments";
+import { countRecentCommentsBy, insertComment, listVersionComments, lockCommentAuthor } from "@/db/queries/comments";
 import { listFirmMembersWithRole } from "@/db/queries/sharing";
 import { findVersionHeader } from "@/db/queries/versions";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { commentMail } from "@/lib/mail/templates";
-import { ok, REFUSALS, type Result } from "@/lib/result";
+import { fail, ok, REFUSALS, type Result } from "@/lib/result";
 
 export const COMMENT_MAIL_KIND = "comment";
+
+/**
+ * How many comments one person may post per window (on all projects together). A person types far fewer;
+ * a script posting hundreds would flood every firm member's inbox with e-mails.
+ */
+export const COMMENT_RATE_LIMIT = { max: 10, windowS: 60 } as const;
 
 export const commentInputSchema = z.object({
   body: text().trim().min(1, "Write a comment first.").max(4000, "Use at most 4000 characters."),
@@ -60,7 +66,7 @@ export const addComment = defineAction({
   gate: { project: "scenario.comment" },
   schema: commentInputSchema.extend({ versionId: text().max(64) }),
   invalidMessage: "Check the comment.",
-  run: async (db, { access, appUrl }, { versionId, body }): Promise<Result<{ commentId: string; notified: number }>> => {
+  run: async (db, { access, appUrl }, { versionId, body }): Promise<Result<{ commentId: string; notified: number }, { retryAfterS: number }>> => {
     const { project, viewer: author, relation } = access;
     const version = isUuid(versionId) ? await findVersionHeader(db, project.id, versionId) : undefined;
     if (!version) return REFUSALS.notFound;
@@ -76,6 +82,10 @@ export const addComment = defineAction({
       url,
     });
     const created = await inTransaction(db, async (trx) => {
+      // One author's comments are counted and written one at a time (a transaction-scoped lock per author).
+      await lockCommentAuthor(trx, author.id);
+      const recent = await countRecentCommentsBy(trx, author.id, COMMENT_RATE_LIMIT.windowS);
+      if (recent >= COMMENT_RATE_LIMIT.max) return null;
       const c = await insertComment(trx, { versionId, projectId: project.id, authorId: author.id, body });
       for (const to of recipients) await enqueueMail(trx, { kind: COMMENT_MAIL_KIND, refId: c.id, to, ...mail });
       await writeAudit(trx, {
@@ -89,6 +99,14 @@ export const addComment = defineAction({
       });
       return c;
     });
+    if (!created) {
+      return fail(
+        429,
+        `You have posted ${COMMENT_RATE_LIMIT.max} comments in the last minute; wait a minute before posting more. Your text is still in the box.`,
+        { body: [`At most ${COMMENT_RATE_LIMIT.max} comments a minute; wait a minute and post it again.`] },
+        { retryAfterS: COMMENT_RATE_LIMIT.windowS },
+      );
+    }
     return ok({ commentId: created.id, notified: recipients.length });
   },
 });
