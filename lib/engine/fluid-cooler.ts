@@ -218,7 +218,12 @@ export interface CoolerHourResult {
 
 /**
  * Leaving-fluid temperature at a given airflow, floating, °C. Dry: closed form
- * Tin = Tdb + Q/(εCmin). Wet: fixed-point on cs (1 saturated-enthalpy evaluation per pass, 2–4 passes).
+ * Tin = Tdb + Q/(εCmin). Wet: the entering-fluid temperature is the fixed point of
+ * G(Tin) = Twb + Q/(εCmin(cs(Tin))), cs the chord slope at the mean fluid temperature (1 saturated-enthalpy
+ * evaluation per pass). G falls as Tin rises (warmer fluid, steeper hs, larger cs), so the plain
+ * substitution oscillates and crawls where |G′| nears 1; the root of r(T) = G(T) − T (strictly falling)
+ * is found instead by secant steps kept inside the bracket the passes build (bisection if a step leaves it),
+ * to the same tolerance: |G(T) − T| < 2e−4 K, returning G(T).
  */
 export function coolerLeavingFluidAtAirflowC(
   model: CoolerModel,
@@ -234,18 +239,29 @@ export function coolerLeavingFluidAtAirflowC(
     const k = coolerConductanceKWPerK(model, airflowFraction, air, undefined);
     return air.dryBulbC + heatKW / k - heatKW / cf;
   }
-  let cs = csGuess ?? model.designCsKJPerKgK;
-  let tin = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, cs);
-  for (let i = 0; i < 8; i++) {
-    cs = enthalpyBasedAirSpecificHeat(tin - (0.5 * heatKW) / cf, air, pPa);
-    const next = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, cs);
-    if (Math.abs(next - tin) < 2e-4) {
-      tin = next;
-      break;
-    }
-    tin = next;
+  const halfRange = (0.5 * heatKW) / cf;
+  let t = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, csGuess ?? model.designCsKJPerKgK);
+  // r(T) = G(T) − T: r > 0 below the root, r < 0 above it.
+  let lo = Number.NEGATIVE_INFINITY;
+  let hi = Number.POSITIVE_INFINITY;
+  let tPrev = Number.NaN;
+  let rPrev = Number.NaN;
+  let g = t;
+  for (let i = 0; i < 16; i++) {
+    const cs = enthalpyBasedAirSpecificHeat(t - halfRange, air, pPa);
+    g = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, cs);
+    const r = g - t;
+    if (Math.abs(r) < 2e-4) break;
+    if (r > 0) lo = t;
+    else hi = t;
+    // First pass: the substitution step (G(T) lies on the other side of the root). Then secant steps.
+    let next = i === 0 ? g : t - (r * (t - tPrev)) / (r - rPrev);
+    if (!(next > lo && next < hi)) next = Number.isFinite(lo) && Number.isFinite(hi) ? 0.5 * (lo + hi) : g;
+    tPrev = t;
+    rPrev = r;
+    t = next;
   }
-  return tin - heatKW / cf;
+  return g - heatKW / cf;
 }
 
 /**

@@ -1,11 +1,13 @@
 import { describe, expect, it, vi } from "vitest";
 import fc from "fast-check";
+import psychrolib from "psychrolib";
 import { enteringAir } from "@/lib/engine/air-side";
 import type { FanModel } from "@/lib/engine/fans";
 import {
   type CoolerSelection,
   calibrateCooler,
   coolerCapacityKW,
+  coolerConductanceKWPerK,
   coolerLeavingFluidAtAirflowC,
   solveCoolerHour,
 } from "@/lib/engine/fluid-cooler";
@@ -145,5 +147,31 @@ describe("a selection exactly at its rating point holds it", () => {
               if (!r.held) notHeld++;
             }
     expect(notHeld).toBe(0);
+  });
+});
+
+describe("cooler leaving-fluid temperature at a given airflow (wet, floating)", () => {
+  // The answer must satisfy the model's own energy balance, rebuilt here by hand with psychrolib's
+  // saturated-air enthalpy (ASHRAE Fundamentals 2017 ch.1, the reference library): Tin = T + Q/Cf,
+  // Tm = Tin − Q/(2·Cf), cs = (hs(Tm) − hs(Twb))/(Tm − Twb), Q = εCmin(cs)·(Tin − Twb).
+  // At low airflow (the fan-off and low-speed states of a mix) plain substitution on cs oscillates with
+  // a growing amplitude (|G′| > 1); the solver must still land on the balance.
+  psychrolib.SetUnitSystem(psychrolib.SI);
+  const hsKJ = (tC: number) => psychrolib.GetSatAirEnthalpy(tC, P) / 1000;
+  it("closes Q = εCmin·(Tin − Twb) within 0.05 % from natural draft to full speed", () => {
+    const cf = model.fluidCapacityKWPerK;
+    for (const [db, wb] of [[5, 3], [10, 8], [20, 15], [25, 20], [32, 24]] as const) {
+      const air = enteringAir(db, wb, P);
+      for (const q of [0.3 * qWet, 0.7 * qWet, qWet]) {
+        for (const f of [0.1, 0.25, 0.5, 1]) {
+          const t = coolerLeavingFluidAtAirflowC(model, air, q, f, true, P);
+          const tin = t + q / cf;
+          const tm = tin - q / (2 * cf);
+          const cs = (hsKJ(tm) - hsKJ(air.wetBulbC)) / (tm - air.wetBulbC);
+          const back = coolerConductanceKWPerK(model, f, air, cs) * (tin - air.wetBulbC);
+          expect(Math.abs(back - q) / q, `db ${db} wb ${wb} Q ${q.toFixed(0)} f ${f}: T ${t}`).toBeLessThan(5e-4);
+        }
+      }
+    }
   });
 });
