@@ -28,6 +28,12 @@ export interface SaturationTable {
   startC: number;
   stepK: number;
   enthalpyKJPerKg: Float64Array;
+  /**
+   * Index of the inverse: enthalpy buckets of equal width from hs(startC); `bucketLowIndex[b]` is the last
+   * table point at or below the bucket's start, so a lookup searches only the few points of its bucket.
+   */
+  bucketWidthKJPerKg: number;
+  bucketLowIndex: Int32Array;
 }
 
 const TABLE_START_C = -40;
@@ -41,22 +47,44 @@ export function saturationTable(pPa: number): SaturationTable {
   if (cached) return cached;
   const h = new Float64Array(TABLE_POINTS);
   for (let i = 0; i < TABLE_POINTS; i++) h[i] = saturatedAirEnthalpyKJPerKg(TABLE_START_C + i * TABLE_STEP_K, pPa);
-  const t: SaturationTable = { pressurePa: pPa, startC: TABLE_START_C, stepK: TABLE_STEP_K, enthalpyKJPerKg: h };
+  const t: SaturationTable = { pressurePa: pPa, startC: TABLE_START_C, stepK: TABLE_STEP_K, enthalpyKJPerKg: h, ...inverseIndex(h) };
   if (tableCache.size > 16) tableCache.clear();
   tableCache.set(pPa, t);
   return t;
 }
 
+/** Buckets as wide as the table's narrowest step (at most 16,384 of them), each with its first point. */
+function inverseIndex(h: Float64Array): { bucketWidthKJPerKg: number; bucketLowIndex: Int32Array } {
+  const n = h.length;
+  const h0 = h[0] ?? 0;
+  let minStep = Number.POSITIVE_INFINITY;
+  for (let i = 1; i < n; i++) minStep = Math.min(minStep, (h[i] ?? 0) - (h[i - 1] ?? 0));
+  const width = Math.max(minStep, ((h[n - 1] ?? 0) - h0) / 16384);
+  const buckets = Math.ceil(((h[n - 1] ?? 0) - h0) / width) + 1;
+  const low = new Int32Array(buckets);
+  let i = 0;
+  for (let b = 0; b < buckets; b++) {
+    const start = h0 + b * width;
+    while (i < n - 2 && (h[i + 1] ?? 0) <= start) i++;
+    low[b] = i;
+  }
+  return { bucketWidthKJPerKg: width, bucketLowIndex: low };
+}
+
 /**
- * Temperature of saturated air with enthalpy h from the table, °C: bisection for the interval, linear
+ * Temperature of saturated air with enthalpy h from the table, °C: the enthalpy's bucket, then bisection
+ * among the bucket's points for the interval, linear
  * inverse of the three-point quadratic through the interval (curvature from the neighbours). Falls back to the exact Newton iteration outside the table.
  */
 export function tableSaturatedTemperatureC(table: SaturationTable, hKJPerKg: number): number {
   const hs = table.enthalpyKJPerKg;
   const n = hs.length;
   if (!(hKJPerKg > (hs[0] ?? 0)) || !(hKJPerKg < (hs[n - 1] ?? 0))) return Number.NaN;
-  let lo = 0;
-  let hi = n - 1;
+  const idx = table.bucketLowIndex;
+  const b = Math.floor((hKJPerKg - (hs[0] ?? 0)) / table.bucketWidthKJPerKg);
+  let lo = idx[b] ?? 0;
+  let hi = b + 1 < idx.length ? (idx[b + 1] ?? n - 2) + 1 : n - 1;
+  // hs[lo] ≤ h (the bucket's start is at or above hs[lo]) and h < hs[hi]: the interval lies between.
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
     if ((hs[mid] ?? 0) <= hKJPerKg) lo = mid;

@@ -289,37 +289,97 @@ export function coolerCapacityKW(
 }
 
 /**
+ * εCmin (kW/K) at an airflow fraction and its derivative d(εCmin)/df, written to `out` (no allocation):
+ * the same quantity as `coolerConductanceKWPerK`, with the slope by the chain rule —
+ * dCa/df = Ca/f, dUAext/df = 0.8·UAext/f, dUA/df = (UA/UAext)²·dUAext/df; air the smaller stream:
+ * Cmin = Ca, Cr = Ca/Cf; fluid the smaller: Cmin = Cf, Cr = Cf/Ca; NTU = UA/Cmin;
+ * ε = (1 − e)/(1 − Cr·e), e = exp(−NTU(1 − Cr)): ∂ε/∂NTU = (1 − Cr)²·e/D², ∂ε/∂Cr = e·[(1 − e) − NTU(1 − Cr)]/D²,
+ * D = 1 − Cr·e (Cr → 1: ε = NTU/(1 + NTU), ∂ε/∂NTU = 1/(1 + NTU)², ∂ε/∂Cr = −NTU²/(2(1 + NTU)²)).
+ * Source: the counterflow ε-NTU relation (heat-exchanger.ts); calculus.
+ */
+export function coolerConductanceWithSlope(model: CoolerModel, airflowFraction: number, air: EnteringAir, csKJPerKgK: number | undefined, out: { k: number; dk: number }): void {
+  const f = Math.max(airflowFraction, 1e-4);
+  const ma = model.designAirFlowKgPerS * f;
+  const f08 = Math.pow(f, 0.8);
+  let ca: number;
+  let uaExt: number;
+  if (csKJPerKgK === undefined) {
+    const cp = air.moistSpecificHeatKJPerKgK;
+    ca = ma * cp;
+    uaExt = model.dryFactor * model.externalMassTransferKgPerS * f08 * cp;
+  } else {
+    ca = ma * csKJPerKgK;
+    uaExt = model.externalWetUaKWPerK * f08 * (csKJPerKgK / model.designCsKJPerKgK);
+  }
+  const cf = model.fluidCapacityKWPerK;
+  const airMin = ca < cf;
+  const cmin = airMin ? ca : cf;
+  const cr = airMin ? ca / cf : cf / ca;
+  const ua = 1 / (1 / model.internalUaKWPerK + 1 / uaExt);
+  const ntu = ua / cmin;
+  const dUa = (ua / uaExt) * (ua / uaExt) * ((0.8 * uaExt) / f);
+  const dCmin = airMin ? ca / f : 0;
+  const dCr = airMin ? cr / f : -cr / f;
+  const dNtu = dUa / cmin - (ntu * dCmin) / cmin;
+  let eps: number;
+  let epsN: number;
+  let epsCr: number;
+  if (Math.abs(1 - cr) < 1e-6) {
+    eps = ntu / (1 + ntu);
+    epsN = 1 / ((1 + ntu) * (1 + ntu));
+    epsCr = (-ntu * ntu) / (2 * (1 + ntu) * (1 + ntu));
+  } else {
+    const e = Math.exp(-ntu * (1 - cr));
+    const d = 1 - cr * e;
+    eps = (1 - e) / d;
+    epsN = ((1 - cr) * (1 - cr) * e) / (d * d);
+    epsCr = (e * (1 - e - ntu * (1 - cr))) / (d * d);
+  }
+  out.k = f > 0 && ntu > 0 ? eps * cmin : 0;
+  out.dk = airflowFraction > 1e-4 ? (epsN * dNtu + epsCr * dCr) * cmin + eps * dCmin : 0;
+}
+
+const KS = { k: 0, dk: 0 };
+
+/**
  * Airflow fraction at which the cooler holds the required leaving-fluid temperature (cs fixed by the
  * required temperatures), from εCmin(f) = Q/(Tin,req − Tair): a 1-D root in f with no
  * saturated-enthalpy evaluation. +∞ if not even full speed (or a driving difference ≤ 0) suffices.
+ * εCmin rises with f and is concave, so Newton from full speed (analytic slope,
+ * `coolerConductanceWithSlope`) approaches the root from below in a few steps; kept inside the bracket
+ * (bisection otherwise), to |εCmin − need| < 1e−9·need.
  */
 export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, needKWPerK: number, cs: number | undefined): number {
   if (!(needKWPerK > 0)) return Number.POSITIVE_INFINITY;
-  let hi = 1;
-  let gHi = coolerConductanceKWPerK(model, hi, air, cs) - needKWPerK;
+  const ks = KS;
+  coolerConductanceWithSlope(model, 1, air, cs, ks);
+  const gHi = ks.k - needKWPerK;
   // The rating point itself counts as held: a relative 1e−6 of the conductance (rounding of the
   // calibration round trip), as the tower's L/G root and the fan map allow.
   if (gHi < 0) return gHi >= -1e-6 * needKWPerK ? 1 : Number.POSITIVE_INFINITY;
   let lo = 1e-3;
-  let gLo = coolerConductanceKWPerK(model, lo, air, cs) - needKWPerK;
-  if (gLo >= 0) return lo;
-  // Illinois (modified regula falsi) on a monotone, smooth function: no closure in the hot path.
-  let side = 0;
+  let hi = 1;
+  let f = 1;
+  let g = gHi;
+  let dg = ks.dk;
+  let checkedLo = false;
   for (let i = 0; i < 60; i++) {
-    const f = (lo * gHi - hi * gLo) / (gHi - gLo);
-    const g = coolerConductanceKWPerK(model, f, air, cs) - needKWPerK;
-    if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) return f;
-    if (g > 0) {
-      hi = f;
-      gHi = g;
-      if (side === 1) gLo *= 0.5;
-      side = 1;
-    } else {
-      lo = f;
-      gLo = g;
-      if (side === -1) gHi *= 0.5;
-      side = -1;
+    let next = dg > 0 ? f - g / dg : Number.NaN;
+    if (!(next > lo && next < hi)) {
+      if (!checkedLo) {
+        checkedLo = true;
+        coolerConductanceWithSlope(model, lo, air, cs, ks);
+        if (ks.k - needKWPerK >= 0) return lo;
+      }
+      next = 0.5 * (lo + hi);
     }
+    f = next;
+    coolerConductanceWithSlope(model, f, air, cs, ks);
+    g = ks.k - needKWPerK;
+    dg = ks.dk;
+    if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) return f;
+    if (g > 0) hi = f;
+    else lo = f;
   }
   return 0.5 * (lo + hi);
 }

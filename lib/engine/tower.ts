@@ -193,7 +193,7 @@ export function requiredLiquidToGasRatio(
   const k4 = 4 / c;
   let psiLo = k4 / (1 / d0 + 1 / d1 + 1 / d2 + 1 / d3);
   let psiHi = -Math.pow(lgMax, exponentN) / coefficientC;
-  let lg = Math.min(guessLiquidToGasRatio, 0.5 * lgMax);
+  let lg = guessLiquidToGasRatio > 0 && guessLiquidToGasRatio < lgMax ? guessLiquidToGasRatio : 0.5 * lgMax;
   for (let iter = 0; iter < 60; iter++) {
     const r0 = d0 - lg * s0;
     const r1 = d1 - lg * s1;
@@ -357,6 +357,10 @@ export interface TowerHourResult {
   evaporationKgPerS: number;
 }
 
+/** The last L/G `solveTowerHour` found, and for which tower (a starting point, never a result). */
+let lastLgModel: TowerModel | null = null;
+let lastLg = 1;
+
 /**
  * Operate the tower for one hour: hold the required cold-water temperature with the installed fan
  * control, or float at full speed when it cannot.
@@ -386,8 +390,14 @@ export function solveTowerHour(
     for (let i = 0; i < 4; i++) {
       hs[i] = saturatedAirEnthalpyKJPerKg(requiredColdWaterC + (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK, pPa);
     }
-    const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN, model.designLiquidToGasRatio);
-    if (lg > 0) requiredFraction = model.waterFlowKgPerS / lg / model.designAirFlowKgPerS;
+    // Warm start: the previous hour's L/G of the same tower (the year runs one option at a time).
+    const guess = lastLgModel === model ? lastLg : model.designLiquidToGasRatio;
+    const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN, guess);
+    if (lg > 0) {
+      requiredFraction = model.waterFlowKgPerS / lg / model.designAirFlowKgPerS;
+      lastLgModel = model;
+      lastLg = lg;
+    }
   }
   const op = fanOperationForRequiredAirflow(fan, requiredFraction);
   const gd = model.designAirFlowKgPerS;

@@ -8,6 +8,8 @@ import {
   calibrateCooler,
   coolerCapacityKW,
   coolerConductanceKWPerK,
+  coolerConductanceWithSlope,
+  requiredAirflowFraction,
   coolerLeavingFluidAtAirflowC,
   solveCoolerHour,
 } from "@/lib/engine/fluid-cooler";
@@ -171,6 +173,23 @@ describe("cooler leaving-fluid temperature at a given airflow (wet, floating)", 
           const back = coolerConductanceKWPerK(model, f, air, cs) * (tin - air.wetBulbC);
           expect(Math.abs(back - q) / q, `db ${db} wb ${wb} Q ${q.toFixed(0)} f ${f}: T ${t}`).toBeLessThan(5e-4);
         }
+      }
+    }
+  });
+});
+
+describe("cooler conductance slope (the Newton step of the airflow root)", () => {
+  it("equals a central difference of εCmin and the root reproduces the airflow it was built from", () => {
+    const air = enteringAir(20, 15, P);
+    const out = { k: 0, dk: 0 };
+    for (const cs of [undefined, 2, 3.5, 6]) {
+      for (const f of [0.02, 0.1, 0.3, 0.6, 0.95, 1]) {
+        const h = 1e-6;
+        const central = (coolerConductanceKWPerK(model, f + h, air, cs) - coolerConductanceKWPerK(model, f - h, air, cs)) / (2 * h);
+        coolerConductanceWithSlope(model, f, air, cs, out);
+        expect(out.k).toBeCloseTo(coolerConductanceKWPerK(model, f, air, cs), 10);
+        expect(Math.abs(out.dk - central) / central).toBeLessThan(1e-6);
+        expect(requiredAirflowFraction(model, air, out.k, cs)).toBeCloseTo(f, 7);
       }
     }
   });
