@@ -18,7 +18,7 @@ import { issueScenario, openIssuedVersion } from "@/lib/sharing/versions";
  */
 const db = testDb();
 let w: World;
-let scenarioId: string;
+let datasetId: string;
 const FIXTURE = path.resolve(__dirname, "../fixtures/scenario-hourly.json");
 const EPW = path.resolve(__dirname, "../fixtures/weather/harrowgate-flats.epw");
 
@@ -38,24 +38,32 @@ beforeAll(async () => {
     { file: { name: "harrowgate-flats.epw", bytes: readFileSync(EPW) } },
   );
   if (imported.status !== 201) throw new Error(JSON.stringify(imported.body));
+  // The climate dataset is shared and never changed; every test makes its own draft scenario.
+  datasetId = imported.body.datasetId;
+});
+
+/** A draft scenario of this test's own, from the hourly fixture, with no result yet. */
+async function newDraft(): Promise<string> {
   const doc = JSON.parse(readFileSync(FIXTURE, "utf8")) as Record<string, unknown>;
   const s = await db
     .insertInto("scenarios")
-    .values({ project_id: w.P.id, name: "Issue check", climate_dataset_id: imported.body.datasetId, input: JSON.stringify(toStoredInput(doc, imported.body.datasetId)) })
+    .values({ project_id: w.P.id, name: "Issue check", climate_dataset_id: datasetId, input: JSON.stringify(toStoredInput(doc, datasetId)) })
     .returning("id")
     .executeTakeFirstOrThrow();
-  scenarioId = s.id;
-});
+  return s.id;
+}
 afterAll(() => db.destroy());
 
 describe("issuing freezes exactly what was analysed", () => {
   it("is refused while the draft's current inputs have no stored result", async () => {
+    const scenarioId = await newDraft();
     const r = await issueScenario(db, await w.viewer("consultant"), { projectId: w.P.id, scenarioId: scenarioId });
     expect(r).toMatchObject({ ok: false, status: 409 });
     if (!r.ok) expect(r.error).toMatch(/no finished result for the scenario's current inputs/);
   });
 
   it("freezes the engine input (climate included) and the stored result under its key", async () => {
+    const scenarioId = await newDraft();
     const { built, stored } = await analyse(scenarioId);
     const r = await issueScenario(db, await w.viewer("consultant"), { projectId: w.P.id, scenarioId: scenarioId, note: "v1" });
     expect(r.ok).toBe(true);
@@ -71,6 +79,9 @@ describe("issuing freezes exactly what was analysed", () => {
   });
 
   it("after an edit the draft needs a new analysis before it can be issued again; version 1 never changes", async () => {
+    const scenarioId = await newDraft();
+    await analyse(scenarioId);
+    expect((await issueScenario(db, await w.viewer("consultant"), { projectId: w.P.id, scenarioId })).ok).toBe(true);
     const v1 = await db.selectFrom("scenario_versions").selectAll().where("scenario_id", "=", scenarioId).executeTakeFirstOrThrow();
     const draft = await db.selectFrom("scenarios").select(["input"]).where("id", "=", scenarioId).executeTakeFirstOrThrow();
     const edited = structuredClone(draft.input) as { economics: { realDiscountRate: number } };
