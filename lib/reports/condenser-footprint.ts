@@ -82,15 +82,15 @@ export function condenserPlanTable(r: CondenserFootprintResult, currency: string
     row("cleanU", "Clean U", "W/(m²·K)", (p) =>
       p.cleanUWPerM2K === null
         ? text("— (rated capacity)")
-        : num(p.cleanUWPerM2K, fmtSignificant(p.cleanUWPerM2K, 3)),
+        : num(p.cleanUWPerM2K, `${fmtSignificant(p.cleanUWPerM2K, 3)} W/(m²·K)`),
     ),
     row("chargePerKW", "Refrigerant charge per kW", "kg/kW", (p) =>
-      num(p.specificChargeKgPerKW, fmtSignificant(p.specificChargeKgPerKW, 2)),
+      num(p.specificChargeKgPerKW, `${fmtSignificant(p.specificChargeKgPerKW, 2)} kg/kW`),
     ),
-    row("inventoryKg", "Refrigerant in the condenser", "kg", (p) =>
+    row("inventoryKg", "Refrigerant in the condenser (kg)", "kg", (p) =>
       num(p.inventoryKg, `${fmtSignificant(p.inventoryKg, 2)} kg`),
     ),
-    row("inventoryLb", "Refrigerant in the condenser", "lb", (p) =>
+    row("inventoryLb", "Refrigerant in the condenser (lb)", "lb", (p) =>
       num(lb(p.inventoryKg), `${fmtSignificant(lb(p.inventoryKg), 2)} lb`),
     ),
     row("cleaning", "Cleaning method", "", (p) =>
@@ -101,7 +101,16 @@ export function condenserPlanTable(r: CondenserFootprintResult, currency: string
       ),
     ),
     row("cleaningCost", "Cleaning, per event", currency, (p) =>
-      num(p.cleaning.costPerEvent, fmtMoney(p.cleaning.costPerEvent, currency)),
+      p.cleaning.surface === "none"
+        ? text("no scheduled cleaning (closed loop)")
+        : p.cleaning.surface === "plateExchanger"
+          ? p.cleaning.costPerEvent > 0
+            ? num(
+                p.cleaning.costPerEvent,
+                `${fmtMoney(p.cleaning.costPerEvent, currency)} (the plate exchanger)`,
+              )
+            : text("the plate exchanger is cleaned instead (no cost entered)")
+          : num(p.cleaning.costPerEvent, fmtMoney(p.cleaning.costPerEvent, currency)),
     ),
     row("inspection", "Inspection", "", (p) => text(p.inspection.methodLabel)),
     row("inspectionEvery", "Inspection every", "yr", (p) =>

@@ -132,10 +132,11 @@ describe("four ways to reject the heat", () => {
     for (const label of LABELS) expect(text).toContain(label);
     expect(text).toContain("Shell-and-tube");
     expect(text).toContain("Evaporative condenser coil");
-    expect(text).toMatch(/Refrigerant in the condenser .*\d+ kg/);
+    expect(text).toMatch(/Refrigerant in the condenser \(kg\) .*\d+ kg/);
     expect(text).toMatch(/\d+ lb/);
     expect(text).toContain("29 CFR 1910.119");
     expect(text).toContain("Water consumed per MWh rejected");
+    expect(text).toContain("CO2e from refrigerant leakage per year");
 
     const xlsx = await context.request.get(`/api/scenarios/${scenarioId}/workbook?version=1`, { timeout: 120_000 });
     expect(xlsx.status()).toBe(200);
@@ -149,8 +150,8 @@ describe("four ways to reject the heat", () => {
     ws!.eachRow((r) => rows.push((r.values as unknown[]).slice(1)));
     const header = rows.find((r) => r[1] === "Unit")!;
     expect(header.slice(2)).toEqual(LABELS);
-    const kg = rows.find((r) => r[0] === "Refrigerant in the condenser" && r[1] === "kg")!;
-    const lb = rows.find((r) => r[0] === "Refrigerant in the condenser" && r[1] === "lb")!;
+    const kg = rows.find((r) => r[0] === "Refrigerant in the condenser (kg)")!;
+    const lb = rows.find((r) => r[0] === "Refrigerant in the condenser (lb)")!;
     // 1 lb = 0.45359237 kg exactly (NIST SP 811).
     for (let i = 0; i < 4; i++) {
       expect(Number(kg[2 + i])).toBeGreaterThan(0);

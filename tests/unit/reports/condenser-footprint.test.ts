@@ -150,8 +150,8 @@ describe("workbook sheet", () => {
     const ws = wb.getWorksheet("Condensers")!;
     const rows: unknown[][] = [];
     ws.eachRow((r) => rows.push((r.values as unknown[]).slice(1)));
-    const lbRow = rows.find((r) => r[0] === "Refrigerant in the condenser" && r[1] === "lb")!;
-    const kgRow = rows.find((r) => r[0] === "Refrigerant in the condenser" && r[1] === "kg")!;
+    const lbRow = rows.find((r) => r[0] === "Refrigerant in the condenser (lb)")!;
+    const kgRow = rows.find((r) => r[0] === "Refrigerant in the condenser (kg)")!;
     const n = src.result.economics.options.length;
     for (let i = 0; i < n; i++) expect(Number(lbRow[2 + i])).toBeCloseTo(Number(kgRow[2 + i]) / 0.45359237, 6);
     const withdrawn = rows.find((r) => r[0] === "Water withdrawn (makeup) per year")!;

@@ -133,6 +133,11 @@ function ConstructionDefaultsTable({
   );
 }
 
+/** "Empty: <value> · <source>": the construction's default for a field left empty, with its source or tag. */
+function tagged(value: string, source: string, lead = "Empty"): string {
+  return `${lead}: ${value} · ${source}`;
+}
+
 /** A water-cooled option's condenser: construction, material, charge and upkeep plan (defaults by construction). */
 export function CondenserConstructionGroup({ i, kind }: { i: number; kind: OptionKind }) {
   const { getValues, setValue } = useFormContext<V>();
@@ -154,7 +159,15 @@ export function CondenserConstructionGroup({ i, kind }: { i: number; kind: Optio
         shouldValidate: true,
       });
   }, [construction, getValues, setValue, p]);
+  const { currency } = useUnits();
   const materialDefault = CONDENSER_MATERIAL_LABELS[defaultCondenserMaterial(construction, refrigerant)];
+  const wearLife = d.tubeBundleLifeYears.value !== undefined ? d.tubeBundleLifeYears : d.gasketLifeYears;
+  const wearLabel =
+    d.tubeBundleLifeYears.value !== undefined
+      ? "Tube bundle life"
+      : d.gasketLifeYears.value !== undefined
+        ? "Gasket set life"
+        : "Wear-part life";
   return (
     <Group
       title="Condenser construction and upkeep plan"
@@ -170,64 +183,94 @@ export function CondenserConstructionGroup({ i, kind }: { i: number; kind: Optio
         name={`${p}.material`}
         label="Tube or plate material"
         options={MATERIAL_OPTIONS}
-        placeholder={`Construction's default: ${materialDefault}`}
+        placeholder={`Default: ${materialDefault}`}
         description="Carbon or stainless steel with ammonia; copper alloys only with halocarbons."
       />
       <Plain
         name={`${p}.cleanUWPerM2K`}
         label="Clean U"
         unit="W/(m²·K)"
-        description={`${d.cleanURangeWPerM2K.value[0]}–${d.cleanURangeWPerM2K.value[1]} W/(m²·K) is usual for this construction.`}
+        noDefault
+        description={tagged(
+          `${d.cleanUWPerM2K.value} W/(m²·K); ${d.cleanURangeWPerM2K.value[0]}–${d.cleanURangeWPerM2K.value[1]} is usual`,
+          d.cleanUWPerM2K.source,
+          "Default",
+        )}
       />
       <Plain
         name={`${p}.foulingGrowthMultiplier`}
         label="Fouling growth vs shell-and-tube"
         unit="×"
-        description={`Empty: × ${d.foulingGrowthMultiplierOpenTower.value} on open-tower water.`}
+        noDefault
+        description={tagged(
+          `× ${d.foulingGrowthMultiplierOpenTower.value} on open-tower water`,
+          d.foulingGrowthMultiplierOpenTower.source,
+        )}
       />
       <Plain
         name={`${p}.specificChargeKgPerKW`}
         label="Refrigerant charge per kW"
         unit="kg/kW"
-        description={`Empty: ${formatNumber(constructionChargeKgPerKW(construction, refrigerant), { sig: 2 })} kg/kW for this construction and refrigerant.`}
+        noDefault
+        description={tagged(
+          `${formatNumber(constructionChargeKgPerKW(construction, refrigerant), { sig: 2 })} kg/kW for this construction and refrigerant`,
+          d.ammoniaChargeKgPerKW.source,
+        )}
       />
       <SelectField<V>
         name={`${p}.upkeep.cleaningMethod`}
         label="Condenser cleaning method"
         options={CLEANING_OPTIONS}
-        placeholder={`Construction's default: ${CLEANING_METHOD_LABELS[d.cleaningMethod.value]}`}
+        placeholder={`Default: ${CLEANING_METHOD_LABELS[d.cleaningMethod.value]}`}
+        description={d.cleaningMethod.source}
       />
       <Num
         name={`${p}.upkeep.cleaningCostPerEvent`}
         label="Condenser cleaning, per cleaning"
         kind="money"
-        optional
+        noDefault
+        description={tagged(
+          `${formatNumber(d.cleaningCostPerEvent.value)} ${currency}`,
+          d.cleaningCostPerEvent.source,
+        )}
       />
       <Num
         name={`${p}.upkeep.inspectionIntervalYears`}
         label="Condenser inspection every"
         kind="years"
-        optional
-        description={`${INSPECTION_METHOD_LABELS[d.inspectionMethod.value]}.`}
+        noDefault
+        description={tagged(
+          `${INSPECTION_METHOD_LABELS[d.inspectionMethod.value]}, every ${d.inspectionIntervalYears.value[kind === "openTowerDirect" ? "openTower" : "closedLoop"]} yr here (0 = none)`,
+          d.inspectionIntervalYears.source,
+        )}
       />
       <Num
         name={`${p}.upkeep.inspectionCostPerEvent`}
         label="Condenser inspection, per inspection"
         kind="money"
-        optional
+        noDefault
+        description={tagged(
+          `${formatNumber(d.inspectionCostPerEvent.value)} ${currency}`,
+          d.inspectionCostPerEvent.source,
+        )}
       />
       <Num
         name={`${p}.upkeep.wearPartLifeYears`}
-        label={d.gasketLifeYears.value !== undefined ? "Gasket set life" : "Tube bundle life"}
+        label={wearLabel}
         kind="years"
-        optional
+        noDefault
+        description={
+          wearLife.value !== undefined
+            ? tagged(`${wearLife.value} yr`, wearLife.source)
+            : "This construction has no wear part."
+        }
       />
       <Num
         name={`${p}.upkeep.wearPartReplacementCost`}
         label="Wear-part replacement cost"
         kind="money"
-        optional
-        description="Not counted until entered."
+        noDefault
+        description={`Not counted until entered; about ${formatNumber(d.wearPartCostFractionOfCondenser.value * 100, { sig: 2 })} % of the condenser's price · ${d.wearPartCostFractionOfCondenser.source}`}
       />
       <ConstructionDefaultsTable construction={construction} refrigerant={refrigerant} kind={kind} />
     </Group>

@@ -35,6 +35,7 @@ export function Num({
   description,
   optional,
   className,
+  noDefault,
 }: {
   name: EditorPath;
   label: string;
@@ -42,8 +43,10 @@ export function Num({
   description?: ReactNode;
   optional?: boolean;
   className?: string;
+  /** The description states the default itself (e.g. one that depends on another field). */
+  noDefault?: boolean;
 }) {
-  const d = sourceOf(name);
+  const d = noDefault ? null : sourceOf(name);
   const desc = optional ? (
     <>
       {description}
@@ -85,6 +88,7 @@ export function ScaledField({
   description,
   sig = 6,
   className,
+  noDefault,
 }: {
   name: EditorPath;
   label: string;
@@ -95,6 +99,8 @@ export function ScaledField({
   description?: ReactNode;
   sig?: number;
   className?: string;
+  /** The description states the default itself (e.g. one that depends on another field). */
+  noDefault?: boolean;
 }) {
   const { control } = useFormContext<V>();
   const {
@@ -117,7 +123,7 @@ export function ScaledField({
     const typedStored = typed === null || Number.isNaN(typed) ? typed : store(typed);
     if (!sameNumber(typedStored, value)) setText(textOf(value));
   }
-  const d = sourceOf(name);
+  const d = noDefault ? null : sourceOf(name);
   const id = fieldId(name);
   const errorId = errorIdOf(id);
   const hintId = hintIdOf(id);
@@ -219,8 +225,6 @@ export function Pct(props: {
   );
 }
 
-
-
 /** A loop's mass flow entered as the volume flow selection sheets give (gpm or L/s of water). */
 export function FlowField({
   name,
@@ -252,12 +256,14 @@ export function Plain({
   unit,
   description,
   className,
+  noDefault,
 }: {
   name: EditorPath;
   label: string;
   unit: string;
   description?: ReactNode;
   className?: string;
+  noDefault?: boolean;
 }) {
   return (
     <ScaledField
@@ -266,6 +272,7 @@ export function Plain({
       unit={unit}
       show={(v) => v}
       store={(v) => v}
+      {...(noDefault ? { noDefault } : {})}
       {...(description ? { description } : {})}
       {...(className ? { className } : {})}
     />
