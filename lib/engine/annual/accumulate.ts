@@ -4,13 +4,22 @@
  * the water balance closed per record: B from the cycles, M = E + B + D, the sewer volume billed.
  */
 import { monthlyPeakFromMonthlessRecordsKW } from "../demand";
-import { binLoadFraction, hourLoadFraction } from "../duty";
+import { binLoadFraction as binLoadFractionBound, hourLoadFraction as hourLoadFractionBound } from "../duty";
 import type { EnergyByComponentKWh, MonthlyPhysics, WaterByComponentM3 } from "../types";
-import { blowdown, sewerBilled } from "../water";
+import { blowdown as blowdownBound, sewerBilled as sewerBilledBound } from "../water";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
-import { evaluateRecord } from "./record";
+import { evaluateRecord as evaluateRecordBound } from "./record";
 import { DAYS_IN_MONTH, WATER_DENSITY_KG_PER_M3 } from "./shared";
+
+// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
+// imported name runs the CommonJS interop's two property getters; a module constant calls the function
+// directly (the same function — no behaviour change).
+const hourLoadFraction = hourLoadFractionBound;
+const binLoadFraction = binLoadFractionBound;
+const blowdown = blowdownBound;
+const sewerBilled = sewerBilledBound;
+const evaluateRecord = evaluateRecordBound;
 
 interface Accumulator {
   monthly: MonthlyPhysics[];
