@@ -88,7 +88,8 @@ describe("sessions", () => {
     await page.fill("#pw-confirm", "a-new-long-passphrase-2026");
     await page.click("[data-testid=password-form] button[type=submit]");
     await page.getByTestId("password-message").filter({ hasText: /Password changed/ }).waitFor({ timeout: 15_000 });
-    await page.waitForTimeout(1500);
+    // The form signs this browser in again with the new password and then says so.
+    await page.getByText("You stay signed in here with the new password.").waitFor({ timeout: 15_000 });
     // This browser signed in again with the new password and stays in.
     expect((await page.goto("/account"))?.status()).toBe(200);
     expect(new URL(page.url()).pathname).toBe("/account");

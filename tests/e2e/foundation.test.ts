@@ -1,3 +1,6 @@
+import { existsSync, readFileSync } from "node:fs";
+import { connect } from "node:net";
+import { networkInterfaces } from "node:os";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "@/db/seed";
@@ -98,15 +101,54 @@ describe("sign-in and roles in a real browser", () => {
     expect(msg).toMatch(/did not match an account/);
     // The same message for an address with no account: nothing reveals which accounts exist.
     await page.fill("#email", "nobody-here@example.test");
+    // Wait for the second attempt's answer, then for the form to be idle again with its message shown
+    // (the form clears the message when it submits, so the one read below is the new one).
+    const answered = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
     await page.click("button[type=submit]");
-    await page.waitForTimeout(300);
+    await answered;
+    await page.locator("button[type=submit]:not([disabled])").waitFor();
+    await page.getByTestId("signin-error").waitFor();
     expect(await page.getByTestId("signin-error").innerText()).toBe(msg);
     expect(new URL(page.url()).pathname).toBe("/signin");
     await screenshot(page, "foundation-signin-error");
     await ctx.close();
   });
 
-  it("the server listens on loopback only", () => {
-    expect(new URL(BASE_URL).hostname).toBe("127.0.0.1");
+  it("the server listens on loopback only (its listening sockets, and a refused connection on a non-loopback address)", async () => {
+    const port = Number(new URL(BASE_URL).port);
+    // /proc/net/tcp{,6}: local_address is hex IP:port; state 0A is LISTEN (Linux proc(5)).
+    const listening: string[] = [];
+    for (const file of ["/proc/net/tcp", "/proc/net/tcp6"]) {
+      if (!existsSync(file)) continue;
+      for (const line of readFileSync(file, "utf8").split("\n").slice(1)) {
+        const cols = line.trim().split(/\s+/);
+        if (cols.length < 4 || cols[3] !== "0A") continue;
+        const [ip, portHex] = cols[1]!.split(":");
+        if (parseInt(portHex!, 16) === port) listening.push(ip!);
+      }
+    }
+    expect(listening.length).toBeGreaterThan(0);
+    // 127.0.0.1 is 0100007F (little-endian); ::1 is 00000000000000000000000001000000.
+    for (const ip of listening) expect(["0100007F", "00000000000000000000000001000000"]).toContain(ip);
+    // And from outside loopback: every non-internal IPv4 address of this machine refuses the port.
+    const outside = Object.values(networkInterfaces())
+      .flat()
+      .filter((a) => a && a.family === "IPv4" && !a.internal)
+      .map((a) => a!.address);
+    for (const address of outside) {
+      const outcome = await new Promise<string>((resolve) => {
+        const sock = connect({ host: address, port, timeout: 3000 });
+        sock.once("connect", () => {
+          sock.destroy();
+          resolve("connected");
+        });
+        sock.once("timeout", () => {
+          sock.destroy();
+          resolve("timeout");
+        });
+        sock.once("error", (e: NodeJS.ErrnoException) => resolve(e.code ?? "error"));
+      });
+      expect(outcome, `${address}:${port}`).not.toBe("connected");
+    }
   });
 });

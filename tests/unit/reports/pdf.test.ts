@@ -13,6 +13,7 @@ import { hasGlyph } from "@/lib/reports/pdf/glyphs";
 import { renderReportPdfOffThread } from "@/lib/reports/pdf/offthread";
 import { renderReportPdf } from "@/lib/reports/pdf/render";
 import type { ReportSource } from "@/lib/reports/types";
+import { fixed, usd } from "@/tests/support/money";
 import { reportSource } from "./fixture";
 
 const PAGES = path.resolve(__dirname, "../../../test-results/report-pages");
@@ -47,21 +48,6 @@ function expectContains(text: string, needle: string) {
 
 let src: ReportSource & { fixture: string };
 let pdf: Buffer;
-
-/** Whole US dollars as a reader writes them: "$1,234,567", "-$12,000" (the test's own rule). */
-function usd(value: number): string {
-  const whole = Math.round(Math.abs(value));
-  const grouped = String(whole).replace(/\B(?=(\d{3})+(?!\d))/g, ",");
-  return `${value < 0 && whole !== 0 ? "-" : ""}$${grouped}`;
-}
-
-/** A number with fixed decimals and comma grouping (the test's own rule). */
-function fixed(value: number, decimals: number): string {
-  const [int, frac] = Math.abs(value).toFixed(decimals).split(".");
-  const grouped = int!.replace(/\B(?=(\d{3})+(?!\d))/g, ",");
-  const sign = value < 0 && Number(Math.abs(value).toFixed(decimals)) !== 0 ? "-" : "";
-  return `${sign}${grouped}${frac ? `.${frac}` : ""}`;
-}
 
 beforeAll(async () => {
   src = await reportSource();
