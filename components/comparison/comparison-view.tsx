@@ -17,6 +17,7 @@ import { MonteCarloPanel, type MonteCarloSlot } from "./monte-carlo-panel";
 import { STACK_CATEGORIES, costStackSeries, cumulativeSeries, monthlyWaterSeries, tornadoRows, wetBulbBinRows } from "./series";
 import { WhatIfPanel } from "./what-if-panel";
 import { CondenserFootprintPanel } from "./condenser-footprint-panel";
+import { RatingFitTable } from "./rating-fit-table";
 
 export interface ComparisonProject {
   name: string;
@@ -223,6 +224,21 @@ export function ComparisonView(props: ComparisonViewProps) {
               <MonteCarloPanel initial={mcSlot} pollUrl={props.monteCarloPollUrl ?? null} labels={labels} currency={currency} />
             )}
           </div>
+        </div>
+      </Panel>
+
+      <Panel title="Selections and their rating points">
+        <div className="grid gap-6 lg:grid-cols-2" data-testid="rating-fits">
+          {result.physics.map((p) =>
+            p.ratingFit ? (
+              <RatingFitTable key={p.optionId} fit={p.ratingFit} system={system} title={p.label} />
+            ) : (
+              <p key={p.optionId} className="text-sm text-ink-soft">
+                <span className="font-semibold text-ink">{p.label}</span>:{" "}
+                {p.kind === "evaporativeCondenser" ? "calibrated on its rated heat rejection (no rating-point fit)." : "this result was computed before rating-point fits were recorded; save the scenario again to see it."}
+              </p>
+            ),
+          )}
         </div>
       </Panel>
 

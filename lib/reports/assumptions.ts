@@ -8,7 +8,7 @@ import type { ClimateSummary } from "@/lib/engine/climate/summary";
 import { FIRST_COST_ITEMS, type FirstCostItem } from "@/lib/engine/economics/types";
 import type { BasinHeaterInput, DutyInput, FoulingInput, OptionInput, ScenarioInput, WaterInput } from "@/lib/engine/input";
 import type { SewerBasis } from "@/lib/engine/water";
-import { OPTION_KIND_LABELS, type OptionKind } from "@/lib/engine/types";
+import { OPTION_KIND_LABELS, type OptionKind, type RatingFitSummary } from "@/lib/engine/types";
 import { economicsFieldDefaults } from "@/lib/scenarios/schema-economics";
 import { fmtMoney, fmtNumber, fmtPercent } from "./format";
 import type { ReportEngineResult } from "./types";
@@ -615,6 +615,28 @@ function economicsGroup(
   return { title: "Economics", rows: r.rows };
 }
 
+/** How the option's tower or cooler was calibrated on its rating points, each point with its residual. */
+function ratingFitGroup(label: string | undefined, fit: RatingFitSummary | undefined, system: UnitSystem, currency: string): AssumptionGroup {
+  const r = new Rows(system, currency);
+  if (!fit) return { title: "", rows: [] };
+  r.text("Calibration", fit.note, "fit of the manufacturer's rating points");
+  if (fit.device === "tower") {
+    r.n("Characteristic coefficient C", fit.coefficientC, 3, "", fit.method === "designPoint" ? "design point" : "fitted");
+    r.n("Characteristic exponent n", fit.exponentN, 3, "", fit.method === "fitted" ? "fitted" : "entered or default");
+  } else {
+    r.pct("Tube-side share of the wet resistance", fit.internalResistanceFraction, fit.method === "fitted" ? "fitted" : "entered or default");
+    r.n("Dry external conductance factor", fit.dryExternalConductanceFactor, 3, "", "calibrated on the dry rating when given, else entered or default");
+  }
+  const t = (c: number | undefined) => (c === undefined ? "—" : fmtNumber(convert("temperatureC", c, system), 2));
+  for (const p of fit.points) {
+    const name = p.label === "design" ? "Design point" : p.label === "dry" ? "Dry rating" : p.label.charAt(0).toUpperCase() + p.label.slice(1);
+    const residual =
+      p.residualK === undefined ? (p.rejected ?? "not computed") : `residual ${p.residualK >= 0 ? "+" : "-"}${fmtNumber(Math.abs(convert("temperatureDifferenceK", p.residualK, system)), 2)} ${unitOf("temperatureDifferenceK", system, currency)}`;
+    r.text(`${name}: leaving, rated / predicted`, `${t(p.ratedLeavingC)} / ${t(p.predictedLeavingC)}`, `${residual}${p.usedInFit ? "" : " (not in the fit)"}`, unitOf("temperatureC", system, currency));
+  }
+  return { title: `Rating points: ${label ?? "option"}`, rows: r.rows };
+}
+
 /** Every assumption group of the report, in reading order. */
 export function buildAssumptions(
   rawInput: unknown,
@@ -630,6 +652,7 @@ export function buildAssumptions(
   for (const o of input.options ?? []) {
     const phys = result.physics.find((p) => p.optionId === o.id);
     groups.push(optionGroup(o, phys?.cyclesOfConcentration, system, currency));
+    groups.push(ratingFitGroup(o.label, phys?.ratingFit, system, currency));
   }
   groups.push(waterGroup(input.water, input.fouling, system, currency));
   groups.push(tariffGroup(input.tariffs, input.upkeep?.labourRatePerHour, system, currency));

@@ -25,6 +25,7 @@ import type { Action } from "@/lib/auth/permissions";
 import { currentViewer, isUuid, requireViewer } from "@/lib/auth/session";
 import type { ScenarioResult } from "@/lib/engine";
 import type { ScenarioInput } from "@/lib/engine/input";
+import type { RatingFitSummary } from "@/lib/engine/types";
 import { analyzeAndStore, awaitResult, storedFor, type ResultState, type StoredAnalysis } from "./analysis";
 import { findResult } from "@/db/queries/results";
 import { ENGINE_VERSION } from "@/lib/engine";
@@ -194,6 +195,24 @@ export interface SavedScenario {
   warnings: number;
   /** Labels of the options whose first costs are not entered yet (their life-cycle figures wait). */
   firstCostsMissing: string[];
+  /** Each option's rating-point fit from this analysis, by option id (empty while it runs). */
+  ratingFits: Record<string, RatingFitSummary>;
+}
+
+/** The rating-point fits of an analysis result, by option id (results of older engines have none). */
+export function ratingFitsOf(result: Pick<ScenarioResult, "physics"> | null | undefined): Record<string, RatingFitSummary> {
+  const out: Record<string, RatingFitSummary> = {};
+  for (const p of result?.physics ?? []) if (p.ratingFit) out[p.optionId] = p.ratingFit;
+  return out;
+}
+
+/** The fits of the draft's stored result for its current inputs (none when it has no result yet). */
+export async function draftRatingFits(sa: ScenarioAccess): Promise<Record<string, RatingFitSummary>> {
+  try {
+    return ratingFitsOf((await draftResult(db, sa.ctx))?.result);
+  } catch {
+    return {};
+  }
 }
 
 /**
@@ -298,6 +317,7 @@ export const saveScenarioIn = defineAction<
       analysisError: analysis.full?.status === "failed" ? analysis.full.error : null,
       warnings: analysis.result?.warnings.length ?? 0,
       firstCostsMissing: saved.input.options.filter((o) => o.costs.firstCost === undefined).map((o) => o.label),
+      ratingFits: ratingFitsOf(analysis.result),
     });
   },
 });

@@ -501,7 +501,7 @@ const towerSchema = z
     designWetBulbC: airC,
     designLiquidToGasRatio: num.gt(0.1).max(5).default(d("options[].tower.designLiquidToGasRatio")),
     characteristicExponent: num.min(0.2).max(1.2).default(d("options[].tower.characteristicExponent")),
-    ratingPoints: z.array(towerRatingPointSchema).min(1, "enter at least one rating point, or none").max(5, "enter at most five rating points").optional(),
+    ratingPoints: z.array(towerRatingPointSchema).max(5, "enter at most five rating points").optional(),
   })
   .superRefine((t, ctx) => {
     if (t.leavingWaterC >= t.enteringWaterC)

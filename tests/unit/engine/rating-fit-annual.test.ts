@@ -6,6 +6,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { analyzeScenario } from "@/lib/engine";
+import { buildAssumptions } from "@/lib/reports/assumptions";
 import { defaultScenario, parseScenario, type ScenarioDraft } from "@/lib/scenarios/schema";
 import type { ClimateInput } from "@/lib/engine/climate/types";
 import { F, coldWater, hs } from "./merkel-reference";
@@ -82,6 +83,12 @@ describe("tower rating points through the schema and the annual run", () => {
     // The design point lies on the generating characteristic too.
     expect(Math.abs(fit.points.find((p) => p.label === "design")!.residualK!)).toBeLessThan(0.05);
     expect(fit.note).toMatch(/fitted to 3 rating points/);
+    // The report's assumptions carry the fit and each point's residual, in the viewer's units.
+    const parsed = parseScenario(towerDoc([0.9, 1.2, 1.5], ["airflow", "none", "fanPower"]));
+    const group = buildAssumptions(parsed.ok ? parsed.value : {}, r, "IP", "USD").find((g) => g.title === "Rating points: Open tower, direct")!;
+    expect(group.rows.find((row) => row.label === "Characteristic exponent n")!.source).toBe("fitted");
+    expect(group.rows.filter((row) => /^Rating \d: leaving/.test(row.label))).toHaveLength(3);
+    expect(group.rows.find((row) => row.label.startsWith("Rating 1"))!.unit).toBe("°F");
   });
 
   it("one point: n = 0.6 default, and the result says so", () => {

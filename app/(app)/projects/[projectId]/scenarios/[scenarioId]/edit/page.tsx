@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { listProjectDatasets, requireScenario } from "@/lib/scenarios/data";
+import { draftRatingFits, listProjectDatasets, requireScenario } from "@/lib/scenarios/data";
 import { prefillDocument } from "@/lib/scenarios/prefill";
 import type { EditorValues } from "@/lib/scenarios/editor-values";
 import { validateEditorValues } from "@/lib/scenarios/editor-validation";
@@ -22,7 +22,8 @@ export default async function EditScenarioPage({
   const { access, ctx } = await requireScenario(projectId, scenarioId, "scenario.edit", {
     withClimateData: false,
   });
-  const datasets = await listProjectDatasets(projectId);
+  const sa = { access, ctx };
+  const [datasets, ratingFits] = await Promise.all([listProjectDatasets(projectId), draftRatingFits(sa)]);
   const initial: EditorValues = {
     ...prefillDocument(ctx.dto.document),
     name: ctx.row.name,
@@ -57,6 +58,7 @@ export default async function EditScenarioPage({
         initial={initial}
         initialSection={typeof section === "string" ? section : null}
         initialProblems={validateEditorValues(initial, units)}
+        initialRatingFits={ratingFits}
       />
     </>
   );

@@ -35,6 +35,7 @@ import { OPTION_KIND_LABELS } from "@/lib/engine/types";
 import type { UnitSystem } from "@/lib/units";
 import { cloneScenarioAction, saveScenarioAction } from "../../actions";
 import { toFormErrors } from "./form-errors";
+import { RatingFitsContext, type RatingFits } from "./rating-points";
 import {
   DutySection,
   EconomicsSection,
@@ -82,6 +83,7 @@ export function ScenarioEditor(props: {
   initial: V;
   initialSection: string | null;
   initialProblems: EditorProblem[];
+  initialRatingFits: RatingFits;
 }) {
   const { projectId, scenarioId } = props;
   const ctx: MessageContext = useMemo(
@@ -116,6 +118,7 @@ export function ScenarioEditor(props: {
   const [summaryFocus, setSummaryFocus] = useState(0);
   const [pending, startTransition] = useTransition();
   const [copied, setCopied] = useState<string | null>(null);
+  const [ratingFits, setRatingFits] = useState<RatingFits>(props.initialRatingFits);
   const dirtyRef = useRef(false);
   const focusAfterRender = useRef<string | null>(null);
   const base = `/projects/${projectId}/scenarios/${scenarioId}`;
@@ -208,6 +211,7 @@ export function ScenarioEditor(props: {
         if (r.ok) {
           const v = r.value;
           setRevision(v.revision);
+          setRatingFits(v.ratingFits ?? {});
           setFormMessages([]);
           form.reset(form.getValues(), { keepValues: true });
           setBanner({
@@ -295,6 +299,7 @@ export function ScenarioEditor(props: {
 
   return (
     <UnitsProvider system={props.unitSystem} currency={props.currency}>
+      <RatingFitsProvider control={form.control} fits={ratingFits}>
       <FormProvider {...form}>
         <form
           noValidate
@@ -481,8 +486,16 @@ export function ScenarioEditor(props: {
           </div>
         </form>
       </FormProvider>
+      </RatingFitsProvider>
     </UnitsProvider>
   );
+}
+
+/** The last analysis's fits for the rating-point groups; "stale" once the form has unsaved changes. */
+function RatingFitsProvider({ control, fits, children }: { control: Control<V>; fits: RatingFits; children: React.ReactNode }) {
+  const { isDirty } = useFormState({ control });
+  const value = useMemo(() => ({ fits, stale: isDirty }), [fits, isDirty]);
+  return <RatingFitsContext.Provider value={value}>{children}</RatingFitsContext.Provider>;
 }
 
 function sectionOfProblem(store: ProblemStore, path: string): SectionId {

@@ -21,6 +21,7 @@ import { unitLabel } from "@/lib/units";
 import type { EditorOption, EditorPath, EditorValues } from "@/lib/scenarios/editor-values";
 import { MC_LABELS } from "@/lib/scenarios/field-labels";
 import { Check, Choice, FlowField, Group, Num, Pct, Plain, ScaledField, Text } from "./fields";
+import { CoolerWetRatings, TowerRatingPoints } from "./rating-points";
 
 type V = EditorValues;
 
@@ -619,6 +620,8 @@ export function OptionSection({
           />
         </Group>
       )}
+      {isTower ? <TowerRatingPoints i={i} /> : null}
+      {kind === "closedCircuitCooler" ? <CoolerWetRatings i={i} /> : null}
       {kind === "openTowerPlateHx" ? (
         <Group title="Plate exchanger">
           <Num
