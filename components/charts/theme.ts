@@ -23,6 +23,7 @@ export const CATEGORY_COLORS: Record<string, string> = {
   sewer: "#8fb3d9",
   chemicals: "#a86a00",
   upkeep: "#bf6a2e",
+  carbon: "#5b6b3a",
   replacements: "#86461b",
   residual: "#a9b7c1",
 };

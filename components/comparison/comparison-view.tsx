@@ -74,6 +74,8 @@ export function ComparisonView(props: ComparisonViewProps) {
   const climate = result.climateSummary;
   const design04 = climate.designWetBulbC.find((d) => d.exceedancePercent === 0.4);
   const designNote = designDaySentence(result.physics, system);
+  // The carbon-price layer only when carbon is priced (off by default).
+  const stackCategories = STACK_CATEGORIES.filter((c) => c.key !== "carbon" || e.options.some((o) => o.pvByCategory.carbon !== 0));
 
   return (
     <div className="space-y-6" data-testid="comparison">
@@ -163,7 +165,7 @@ export function ComparisonView(props: ComparisonViewProps) {
             ) : (
               <CumulativeCostChart series={cumulativeSeries(e)} currency={currency} />
             )}
-            <CostStackChart series={costStackSeries(e)} categories={STACK_CATEGORIES} currency={currency} />
+            <CostStackChart series={costStackSeries(e)} categories={stackCategories} currency={currency} />
           </div>
         </Panel>
       ) : (

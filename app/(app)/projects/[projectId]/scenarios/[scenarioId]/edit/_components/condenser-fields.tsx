@@ -229,10 +229,14 @@ export function CondenserConstructionGroup({ i, kind }: { i: number; kind: Optio
         label="Condenser cleaning, per cleaning"
         kind="money"
         noDefault
-        description={tagged(
-          `${formatNumber(d.cleaningCostPerEvent.value)} ${currency}`,
-          d.cleaningCostPerEvent.source,
-        )}
+        description={
+          kind === "openTowerDirect"
+            ? tagged(
+                `${formatNumber(d.cleaningCostPerEvent.value)} ${currency}`,
+                d.cleaningCostPerEvent.source,
+              )
+            : "On a closed loop the condenser is not cleaned on a schedule; the option's own cleaning cost (Life and upkeep) is what its scheduled cleanings cost."
+        }
       />
       <Num
         name={`${p}.upkeep.inspectionIntervalYears`}
