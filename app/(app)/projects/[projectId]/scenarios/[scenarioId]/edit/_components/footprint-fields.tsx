@@ -3,6 +3,7 @@
 import { useWatch } from "react-hook-form";
 import { useUnits } from "@/components/forms";
 import { GWP_REPORTS, GWP_REPORT_LABELS, REFRIGERANTS, REFRIGERANT_LABELS } from "@/lib/engine/refrigerants";
+import { DEFAULT_GRID_EMISSION_FACTOR } from "@/lib/engine/footprint";
 import type { EditorValues } from "@/lib/scenarios/editor-values";
 import { Check, Choice, Group, Pct, Plain, Text } from "./fields";
 
@@ -32,7 +33,13 @@ export function FootprintGroup() {
         label="Grid emission factor"
         unit="kg CO₂e/kWh"
       />
-      <Plain name="footprint.gridEmissionFactorYear" label="Year of the grid factor" unit="year" />
+      <Plain
+        name="footprint.gridEmissionFactorYear"
+        label="Year of the grid factor"
+        unit="year"
+        noDefault
+        description={`Default ${DEFAULT_GRID_EMISSION_FACTOR.value.dataYear} · the data year of the default factor; enter the year of the project's own factor.`}
+      />
       <Text name="footprint.gridEmissionFactorSource" label="Source of the grid factor" maxLength={300} />
       <Choice
         name="footprint.gwpReport"
