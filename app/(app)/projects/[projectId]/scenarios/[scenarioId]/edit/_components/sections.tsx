@@ -22,6 +22,7 @@ import type { EditorOption, EditorPath, EditorValues } from "@/lib/scenarios/edi
 import { MC_LABELS } from "@/lib/scenarios/field-labels";
 import { Check, Choice, FlowField, Group, Num, Pct, Plain, ScaledField, Text } from "./fields";
 import { CoolerWetRatings, TowerRatingPoints } from "./rating-points";
+import { OnDemand } from "./on-demand";
 
 type V = EditorValues;
 
@@ -1292,45 +1293,63 @@ export function EconomicsSection() {
         <Check name="sensitivity.enabled" label="Run the tornado and break-evens" />
         {sensitivityOn ? (
           <div className="mt-3 space-y-3">
-            {SENSITIVITY_INPUTS.map((k) => {
-              const mode = SENSITIVITY_INPUT_MODES[k];
-              const base = `sensitivity.tornado.${k}` as const;
-              return (
-                <div key={k} className="grid items-end gap-3 sm:grid-cols-[1.3fr_1fr_1fr]">
-                  <Check
-                    name={`${base}.enabled`}
-                    label={`${TORNADO_LABELS[k]} (${mode === "factor" ? "× the entered value" : mode === "delta" ? "added to the entered rate" : "absolute value"})`}
-                  />
-                  {mode === "delta" ? (
-                    <>
-                      <Pct name={`${base}.low`} label="Low" perYear />
-                      <Pct name={`${base}.high`} label="High" perYear />
-                    </>
-                  ) : (
-                    <>
-                      <Plain name={`${base}.low`} label="Low" unit={mode === "factor" ? "×" : "cycles"} />
-                      <Plain name={`${base}.high`} label="High" unit={mode === "factor" ? "×" : "cycles"} />
-                    </>
-                  )}
-                </div>
-              );
-            })}
-            <h3 className="pt-2 text-sm font-semibold">Break-even search ranges</h3>
-            {BREAK_EVEN_INPUTS.map((k) => (
-              <div key={k} className="grid items-end gap-3 sm:grid-cols-[1.3fr_1fr_1fr]">
-                <Check name={`sensitivity.breakEven.${k}.enabled`} label={BREAK_EVEN_LABELS[k]} />
-                <Plain
-                  name={`sensitivity.breakEven.${k}.min`}
-                  label="From"
-                  unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
-                />
-                <Plain
-                  name={`sensitivity.breakEven.${k}.max`}
-                  label="To"
-                  unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
-                />
-              </div>
-            ))}
+            <OnDemand
+              prefixes={["sensitivity.tornado", "sensitivity.breakEven"]}
+              summary={`the ${SENSITIVITY_INPUTS.length} tornado ranges and ${BREAK_EVEN_INPUTS.length} break-even searches`}
+              testId="sensitivity-ranges"
+            >
+              {() => (
+                <>
+                  {SENSITIVITY_INPUTS.map((k) => {
+                    const mode = SENSITIVITY_INPUT_MODES[k];
+                    const base = `sensitivity.tornado.${k}` as const;
+                    return (
+                      <div key={k} className="grid items-end gap-3 sm:grid-cols-[1.3fr_1fr_1fr]">
+                        <Check
+                          name={`${base}.enabled`}
+                          label={`${TORNADO_LABELS[k]} (${mode === "factor" ? "× the entered value" : mode === "delta" ? "added to the entered rate" : "absolute value"})`}
+                        />
+                        {mode === "delta" ? (
+                          <>
+                            <Pct name={`${base}.low`} label="Low" perYear />
+                            <Pct name={`${base}.high`} label="High" perYear />
+                          </>
+                        ) : (
+                          <>
+                            <Plain
+                              name={`${base}.low`}
+                              label="Low"
+                              unit={mode === "factor" ? "×" : "cycles"}
+                            />
+                            <Plain
+                              name={`${base}.high`}
+                              label="High"
+                              unit={mode === "factor" ? "×" : "cycles"}
+                            />
+                          </>
+                        )}
+                      </div>
+                    );
+                  })}
+                  <h3 className="pt-2 text-sm font-semibold">Break-even search ranges</h3>
+                  {BREAK_EVEN_INPUTS.map((k) => (
+                    <div key={k} className="grid items-end gap-3 sm:grid-cols-[1.3fr_1fr_1fr]">
+                      <Check name={`sensitivity.breakEven.${k}.enabled`} label={BREAK_EVEN_LABELS[k]} />
+                      <Plain
+                        name={`sensitivity.breakEven.${k}.min`}
+                        label="From"
+                        unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
+                      />
+                      <Plain
+                        name={`sensitivity.breakEven.${k}.max`}
+                        label="To"
+                        unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
+                      />
+                    </div>
+                  ))}
+                </>
+              )}
+            </OnDemand>
           </div>
         ) : null}
       </fieldset>
@@ -1344,9 +1363,13 @@ export function EconomicsSection() {
               <Num name="monteCarlo.seed" label="Seed" kind="count" />
               <Num name="monteCarlo.histogramBins" label="Histogram bins" kind="count" />
             </div>
-            {MONTE_CARLO_INPUTS.map((k) => (
-              <DistributionRow key={k} k={k} />
-            ))}
+            <OnDemand
+              prefixes={["monteCarlo.distributions"]}
+              summary={`the ${MONTE_CARLO_INPUTS.length} input distributions`}
+              testId="monte-carlo-distributions"
+            >
+              {() => MONTE_CARLO_INPUTS.map((k) => <DistributionRow key={k} k={k} />)}
+            </OnDemand>
           </div>
         ) : null}
       </fieldset>
