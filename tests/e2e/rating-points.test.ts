@@ -107,3 +107,33 @@ describe("tower rating points in the editor", () => {
     await screenshot(page, "rating-points-03-comparison");
   }, 300_000);
 });
+
+describe("the Economics step stays small", () => {
+  it("renders the tornado ranges and Monte Carlo distributions only when opened; prints the page's size", async () => {
+    // The demo scenario (seeded) runs the tornado and the Monte Carlo, so both long groups exist.
+    await page.goto("/projects");
+    const projects = await page.locator("a[href^='/projects/']").evaluateAll((as) => as.map((a) => a.getAttribute("href") ?? ""));
+    let editUrl: string | null = null;
+    for (const p of projects.filter((h) => /^\/projects\/[0-9a-f-]{36}$/.test(h))) {
+      await page.goto(p);
+      const scenarios = await page.locator("a[href*='/scenarios/']").evaluateAll((as) => as.map((a) => a.getAttribute("href") ?? ""));
+      const s = scenarios.find((h) => /\/scenarios\/[0-9a-f-]{36}$/.test(h));
+      if (!s) continue;
+      const html = await (await page.request.get(`${s}/edit?section=economics`)).text();
+      if (html.includes('data-testid="sensitivity-ranges"') && html.includes('data-testid="monte-carlo-distributions"')) {
+        editUrl = `${s}/edit?section=economics`;
+        console.log(`[economics step] ${html.length} bytes of HTML (with its scripts), ${html.replace(/<script[\s\S]*?<\/script>/g, "").length} without`);
+        break;
+      }
+    }
+    expect(editUrl, "a seeded scenario with the tornado and the Monte Carlo on").not.toBeNull();
+    await page.goto(editUrl!);
+    await page.locator("[data-testid=sensitivity-ranges] button").waitFor();
+    expect(await page.locator("#f-sensitivity-tornado-waterPrice-low").count()).toBe(0);
+    await page.click("[data-testid=sensitivity-ranges] button");
+    await page.locator("#f-sensitivity-tornado-waterPrice-low").waitFor();
+    await page.click("[data-testid=monte-carlo-distributions] button");
+    expect(await page.locator("[data-testid=monte-carlo-distributions] select").count()).toBeGreaterThan(5);
+    await screenshot(page, "economics-step-opened");
+  }, 120_000);
+});
