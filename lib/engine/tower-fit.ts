@@ -11,6 +11,7 @@
 import { merkelNumberChebyshev, type TowerModel, type TowerSelection } from "./tower";
 import { saturatedAirEnthalpyKJPerKg } from "./psychrometrics";
 import type { EngineWarning, RatingFitSummary, RatingPointCheck } from "./types";
+import { numericWarning, wv } from "./warnings";
 
 export interface TowerRatingPoint {
   waterFlowKgPerS: number;
@@ -255,12 +256,15 @@ export function calibrateTowerOnRatings(
   checks.push(design0);
   const designResidualK = design0.residualK ?? 0;
   if (Math.abs(designResidualK) > 0.5) {
-    warnings.push({
-      code: "tower.designOffFittedCharacteristic",
-      severity: "info",
-      message: `With the characteristic fitted to the rating points, the design point's leaving water is predicted ${designResidualK > 0 ? "warmer" : "colder"} than stated by ${Math.abs(designResidualK).toFixed(1)} K: check the design L/G and the rating points.`,
-      path: `${path}.designLiquidToGasRatio`,
-    });
+    warnings.push(
+      numericWarning({
+        code: "tower.designOffFittedCharacteristic",
+        severity: "info",
+        template: `With the characteristic fitted to the rating points, the design point's leaving water is predicted ${designResidualK > 0 ? "warmer" : "colder"} than stated by {d}: check the design L/G and the rating points.`,
+        values: { d: wv.dK(Math.abs(designResidualK)) },
+        path: `${path}.designLiquidToGasRatio`,
+      }),
+    );
   }
   return {
     model: {

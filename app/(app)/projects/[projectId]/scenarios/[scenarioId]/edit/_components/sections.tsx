@@ -520,7 +520,7 @@ export function OptionSection({
             name={`${p}.tower.characteristicExponent`}
             label="Characteristic exponent n"
             unit="—"
-            description="KaV/L = C·(L/G)^−n"
+            description="KaV/L = C·(L/G)^−n; used where the rating points below cannot fit n"
           />
         </Group>
       ) : (
