@@ -537,6 +537,7 @@ export function OptionSection({
           <Pct
             name={`${p}.cooler.internalResistanceFraction`}
             label="Tube-side share of the wet resistance"
+            description="Fitted instead when extra wet ratings (below) can tell it."
           />
           <Plain
             name={`${p}.cooler.dryExternalConductanceFactor`}
