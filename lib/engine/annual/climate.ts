@@ -33,6 +33,18 @@ export interface PreparedClimate {
  * ±1 K of it (the mean coincident dry-bulb; dry-bulb = wet-bulb + 5 K when no record is that close).
  */
 export function designHour(year: ClimateYear): { wetBulbC: number; dryBulbC: number } {
+  // A what-if or Monte Carlo draw prepares a shifted climate per draw; the unshifted design hour of the same
+  // year is computed once (the percentile sorts the year) and shifted by `shiftedDesign`.
+  const cached = designHourCache.get(year);
+  if (cached) return { ...cached };
+  const d = computeDesignHour(year);
+  designHourCache.set(year, d);
+  return { ...d };
+}
+
+const designHourCache = new WeakMap<ClimateYear, { wetBulbC: number; dryBulbC: number }>();
+
+function computeDesignHour(year: ClimateYear): { wetBulbC: number; dryBulbC: number } {
   const wb = designWetBulbPercentilesC(year, [0.4])[0]?.wetBulbC ?? Number.NaN;
   let sum = 0;
   let wsum = 0;
