@@ -249,7 +249,12 @@ export function coolerLeavingFluidAtAirflowC(
     return air.dryBulbC + heatKW / k - heatKW / cf;
   }
   const halfRange = (0.5 * heatKW) / cf;
-  let t = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, csGuess ?? model.designCsKJPerKgK);
+  // Start from the cs this cooler last converged to at this airflow (the states of a fan mix recur hour
+  // after hour), else the caller's guess.
+  const memo = csMemo.model === model ? csMemo.airflow.indexOf(airflowFraction) : -1;
+  const csStart = memo >= 0 ? (csMemo.cs[memo] ?? model.designCsKJPerKgK) : (csGuess ?? model.designCsKJPerKgK);
+  let t = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, csStart);
+  let csLast = csStart;
   // r(T) = G(T) − T: r > 0 below the root, r < 0 above it.
   let lo = Number.NEGATIVE_INFINITY;
   let hi = Number.POSITIVE_INFINITY;
@@ -258,6 +263,7 @@ export function coolerLeavingFluidAtAirflowC(
   let g = t;
   for (let i = 0; i < 16; i++) {
     const cs = enthalpyBasedAirSpecificHeat(t - halfRange, air, pPa);
+    csLast = cs;
     g = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, cs);
     const r = g - t;
     if (Math.abs(r) < 2e-4) break;
@@ -270,8 +276,35 @@ export function coolerLeavingFluidAtAirflowC(
     rPrev = r;
     t = next;
   }
+  if (csMemo.model !== model) {
+    csMemo.model = model;
+    csMemo.airflow.fill(Number.NaN);
+  }
+  const free = csMemo.airflow.findIndex((x) => Number.isNaN(x));
+  const slot = memo >= 0 ? memo : free >= 0 ? free : (csMemo.next = (csMemo.next + 1) % 4);
+  csMemo.airflow[slot] = airflowFraction;
+  csMemo.cs[slot] = csLast;
   return g - heatKW / cf;
 }
+
+/**
+ * Forget the warm starts (the annual loop calls it before each option's year, so that a run's answer never
+ * depends on what ran before it: the same inputs give the same numbers to the last bit).
+ */
+export function resetCoolerWarmStarts(): void {
+  warm.model = null;
+  csMemo.model = null;
+  csMemo.airflow.fill(Number.NaN);
+  csMemo.next = 0;
+}
+
+/** The cs a cooler last converged to at up to four airflows (starting points for the next hour, never results). */
+const csMemo: { model: CoolerModel | null; airflow: number[]; cs: number[]; next: number } = {
+  model: null,
+  airflow: [Number.NaN, Number.NaN, Number.NaN, Number.NaN],
+  cs: [0, 0, 0, 0],
+  next: 0,
+};
 
 /**
  * Heat a cooler rejects at a given entering-fluid temperature and airflow (for rating checks), kW:
@@ -361,21 +394,36 @@ const KS = { k: 0, dk: 0 };
 export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, needKWPerK: number, cs: number | undefined): number {
   if (!(needKWPerK > 0)) return Number.POSITIVE_INFINITY;
   const ks = KS;
-  coolerConductanceWithSlope(model, 1, air, cs, ks);
-  const gHi = ks.k - needKWPerK;
-  // The rating point itself counts as held: a relative 1e−6 of the conductance (rounding of the
-  // calibration round trip), as the tower's L/G root and the fan map allow.
-  if (gHi < 0) return gHi >= -1e-6 * needKWPerK ? 1 : Number.POSITIVE_INFINITY;
+  const wet = cs !== undefined;
+  if (warm.model !== model) {
+    warm.model = model;
+    warm.wetFraction = 1;
+    warm.dryFraction = 1;
+  }
+  // Start from the previous root of this cooler in this mode (the year runs one option at a time); full
+  // speed is evaluated whenever a step would pass it, so "insufficient" is decided exactly as before.
+  const start = wet ? warm.wetFraction : warm.dryFraction;
   let lo = 1e-3;
   let hi = 1;
-  let f = 1;
-  let g = gHi;
-  let dg = ks.dk;
+  let f = start > lo && start < 1 ? start : 1;
   let checkedLo = false;
   for (let i = 0; i < 60; i++) {
-    let next = dg > 0 ? f - g / dg : Number.NaN;
-    if (!(next > lo && next < hi)) {
-      if (!checkedLo) {
+    coolerConductanceWithSlope(model, f, air, cs, ks);
+    const g = ks.k - needKWPerK;
+    // The rating point itself counts as held: a relative 1e−6 of the conductance (rounding of the
+    // calibration round trip), as the tower's L/G root and the fan map allow.
+    if (f === 1 && g < 0) return g >= -1e-6 * needKWPerK ? 1 : Number.POSITIVE_INFINITY;
+    if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) {
+      if (wet) warm.wetFraction = f;
+      else warm.dryFraction = f;
+      return f;
+    }
+    if (g > 0) hi = f;
+    else lo = f;
+    let next = ks.dk > 0 ? f - g / ks.dk : Number.NaN;
+    if (next >= hi && hi === 1 && f !== 1) next = 1;
+    else if (!(next > lo && next < hi)) {
+      if (lo === 1e-3 && !checkedLo) {
         checkedLo = true;
         coolerConductanceWithSlope(model, lo, air, cs, ks);
         if (ks.k - needKWPerK >= 0) return lo;
@@ -383,15 +431,12 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
       next = 0.5 * (lo + hi);
     }
     f = next;
-    coolerConductanceWithSlope(model, f, air, cs, ks);
-    g = ks.k - needKWPerK;
-    dg = ks.dk;
-    if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) return f;
-    if (g > 0) hi = f;
-    else lo = f;
   }
   return 0.5 * (lo + hi);
 }
+
+/** The last airflow roots of the cooler `requiredAirflowFraction` served: starting points, never results. */
+const warm: { model: CoolerModel | null; wetFraction: number; dryFraction: number } = { model: null, wetFraction: 1, dryFraction: 1 };
 
 /**
  * Operate the cooler for one hour: dry if dry operation holds the required leaving-fluid temperature
@@ -440,6 +485,30 @@ export function coolerAirflowForLeavingFluid(
   const dK = (coolerConductanceKWPerK(model, f + df, air, cs) - coolerConductanceKWPerK(model, f, air, cs)) / df;
   const dNeed = -need / (tin - tAir);
   return { fraction: f, slopePerK: dK > 0 ? dNeed / dK : 0 };
+}
+
+/**
+ * d(required airflow fraction)/dT at full speed, for the leaving-fluid temperature full speed itself
+ * reaches (the floating search's low end): the slope of `coolerAirflowForLeavingFluid` at f = 1, computed
+ * directly — going through the airflow root there returned +∞ and no slope whenever the floating
+ * solution's round-off put the need a hair above full speed's conductance.
+ */
+export function coolerAirflowSlopeAtFullSpeedPerK(
+  model: CoolerModel,
+  air: EnteringAir,
+  heatKW: number,
+  leavingFluidC: number,
+  wet: boolean,
+  pPa: number,
+): number {
+  const tin = leavingFluidC + heatKW / model.fluidCapacityKWPerK;
+  const tAir = wet ? air.wetBulbC : air.dryBulbC;
+  if (!(tin > tAir)) return 0;
+  const cs = wet ? enthalpyBasedAirSpecificHeat(0.5 * (tin + leavingFluidC), air, pPa) : undefined;
+  const need = heatKW / (tin - tAir);
+  const df = 1e-3;
+  const dK = (coolerConductanceKWPerK(model, 1 + df, air, cs) - coolerConductanceKWPerK(model, 1, air, cs)) / df;
+  return dK > 0 ? -need / (tin - tAir) / dK : 0;
 }
 
 /**

@@ -371,6 +371,12 @@ export interface TowerHourResult {
 let lastLgModel: TowerModel | null = null;
 let lastLg = 1;
 
+/** Forget the warm start (see `resetCoolerWarmStarts`: same inputs, same numbers to the last bit). */
+export function resetTowerWarmStart(): void {
+  lastLgModel = null;
+  lastLg = 1;
+}
+
 /**
  * Operate the tower for one hour: hold the required cold-water temperature with the installed fan
  * control, or float at full speed when it cannot.

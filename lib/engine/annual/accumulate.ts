@@ -11,6 +11,8 @@ import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { evaluateRecord as evaluateRecordBound } from "./record";
 import { DAYS_IN_MONTH, WATER_DENSITY_KG_PER_M3 } from "./shared";
+import { resetCoolerWarmStarts } from "../fluid-cooler";
+import { resetTowerWarmStart } from "../tower";
 
 // Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
 // imported name runs the CommonJS interop's two property getters; a module constant calls the function
@@ -58,6 +60,9 @@ export function simulateOptionYear(
   stride = 1,
 ): OptionYearTotals {
   const cl = ctx.climate;
+  // The solvers' warm starts begin afresh for every year, so a run never depends on what ran before it.
+  resetCoolerWarmStarts();
+  resetTowerWarmStart();
   const acc: Accumulator = {
     monthly: Array.from({ length: 12 }, (_, i) => ({
       month: i + 1,

@@ -15,6 +15,7 @@ import {
   type CoolerModel,
   allowedCoolerModes as allowedCoolerModesBound,
   coolerAirflowForLeavingFluid as coolerAirflowForLeavingFluidBound,
+  coolerAirflowSlopeAtFullSpeedPerK,
   coolerLeavingFluidAtAirflowC as coolerLeavingFluidAtAirflowCBound,
   solveCoolerModeHour as solveCoolerModeHourBound,
 } from "../fluid-cooler";
@@ -107,7 +108,7 @@ function coolerMode(po: PreparedOption, model: CoolerModel, ctx: YearContext, ai
     if (!(a0.fraction <= 1 + 1e-6)) {
       lowC = coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, ctx.pPa) + lift;
       if (lowC >= setC) return outcome(ctx, qe, spray, wet, false, lowC, po.fan.designPowerKW, sprayEvaporation(wet, heatKW, 1, model, ctx, air));
-      atLow = { fraction: 1, slopePerK: h.airflowAt(lowC).slopePerK };
+      atLow = { fraction: 1, slopePerK: coolerAirflowSlopeAtFullSpeedPerK(model, air, heatKW, lowC - lift, wet, ctx.pPa) };
     }
     const best = optimalFloatingCondensing(po.fan, lowC, setC, h, atLow);
     const f = Math.min(1, Math.max(best.airflow.fraction, fMin));

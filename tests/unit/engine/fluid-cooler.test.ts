@@ -7,6 +7,8 @@ import {
   type CoolerSelection,
   calibrateCooler,
   coolerCapacityKW,
+  coolerAirflowForLeavingFluid,
+  coolerAirflowSlopeAtFullSpeedPerK,
   coolerConductanceKWPerK,
   coolerConductanceWithSlope,
   requiredAirflowFraction,
@@ -191,6 +193,23 @@ describe("cooler conductance slope (the Newton step of the airflow root)", () =>
         expect(Math.abs(out.dk - central) / central).toBeLessThan(1e-6);
         expect(requiredAirflowFraction(model, air, out.k, cs)).toBeCloseTo(f, 7);
       }
+    }
+  });
+});
+
+describe("airflow slope at full speed (the floating search's low end)", () => {
+  it("continues the requirement's slope from just warmer than what full speed reaches, where the root is below full speed", () => {
+    // Continuity check: the direct slope at full speed against coolerAirflowForLeavingFluid's own slope
+    // 0.001 K warmer (there the airflow root exists, f < 1). Both hold cs at the required temperatures
+    // (its drift with T is second order, see coolerAirflowForLeavingFluid).
+    for (const [db, wb, q] of [[20, 15, 0.8 * qWet], [28, 22, qWet], [10, 8, 0.6 * qWet]] as const) {
+      const air = enteringAir(db, wb, P);
+      const lowC = coolerLeavingFluidAtAirflowC(model, air, q, 1, true, P);
+      const inside = coolerAirflowForLeavingFluid(model, air, q, lowC + 1e-3, true, P);
+      expect(inside.fraction).toBeLessThan(1);
+      const direct = coolerAirflowSlopeAtFullSpeedPerK(model, air, q, lowC, true, P);
+      expect(direct).toBeLessThan(0);
+      expect(Math.abs(direct - inside.slopePerK) / Math.abs(inside.slopePerK)).toBeLessThan(0.01);
     }
   });
 });
