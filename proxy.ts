@@ -1,6 +1,6 @@
 import { getToken } from "next-auth/jwt";
 import { NextResponse, type NextRequest } from "next/server";
-import { ACTION_BODY_LIMIT_BYTES, checkTextReply, sameOriginAction, type EnvelopeCheck } from "@/lib/http/action-envelope";
+import { ACTION_BODY_LIMIT_BYTES, checkMultipartReply, checkTextReply, hasNoScriptActionFields, sameOriginAction, type EnvelopeCheck } from "@/lib/http/action-envelope";
 import { readBodyLimited } from "@/lib/http/body";
 import { setAsideForwardedFor } from "@/lib/http/client-address";
 import { contentSecurityPolicy, newNonce, SECURITY_HEADERS, STRICT_CSP } from "@/lib/http/security";
@@ -85,11 +85,14 @@ async function checkActionEnvelope(request: NextRequest): Promise<EnvelopeCheck>
     } catch {
       return { ok: false, status: 400, error: "The request is not a readable form." };
     }
-    // Only size and readability are checked here; the parts' references are left to the framework.
-    void form;
+    // A fetch action (the Next-Action header) encodes its arguments as numbered parts: every reference must
+    // name a part that was sent. A form posted without JavaScript carries "$ACTION_…" fields instead and
+    // no header; the framework reads those itself.
+    if (request.headers.has("next-action") && !hasNoScriptActionFields(form)) return checkMultipartReply(form);
     return { ok: true };
   }
-  return checkTextReply(new TextDecoder().decode(body.bytes));
+  // ignoreBOM: a byte-order mark stays in the text, so JSON.parse refuses it here as the framework would.
+  return checkTextReply(new TextDecoder("utf-8", { ignoreBOM: true }).decode(body.bytes));
 }
 
 function unavailableJson(): NextResponse {

@@ -88,8 +88,8 @@ export function checkTextReply(text: string): EnvelopeCheck {
 
 /**
  * A fetch action's multipart body (arguments that hold a FormData — the app's forms): part "0" is the JSON
- * list of arguments, other numbered parts are JSON values it refers to, and "<n>_<field>" parts are
- * the FormData's own fields (free text).
+ * list of arguments, other numbered parts are JSON values it refers to, and "<n>_<field>" (or
+ * "_<n>_<field>") parts are the FormData's own fields (free text).
  */
 export function checkMultipartReply(form: FormData): EnvelopeCheck {
   const parts = new Map<string, string>();
@@ -101,7 +101,8 @@ export function checkMultipartReply(form: FormData): EnvelopeCheck {
   }
   const root = parts.get("0");
   if (root === undefined) return bad("The request has no argument list.");
-  const exists = (id: string) => parts.has(id) || [...form.keys()].some((k) => k.startsWith(`${id}_`));
+  // A FormData argument's own fields travel as "<id>_<field>" or, from React 19's client, "_<id>_<field>".
+  const exists = (id: string) => parts.has(id) || [...form.keys()].some((k) => k.startsWith(`${id}_`) || k.startsWith(`_${id}_`));
   for (const [key, text] of parts) {
     const parsed = parseJson(text);
     if (!parsed.ok) return bad(`Part ${key} of the request is not valid JSON.`);
@@ -112,6 +113,12 @@ export function checkMultipartReply(form: FormData): EnvelopeCheck {
     if (!r.ok) return r;
   }
   return { ok: true };
+}
+
+/** A form posted without JavaScript (progressive enhancement): its action is named by "$ACTION_…" fields. */
+export function hasNoScriptActionFields(form: FormData): boolean {
+  for (const key of form.keys()) if (key.startsWith("$ACTION_")) return true;
+  return false;
 }
 
 /**

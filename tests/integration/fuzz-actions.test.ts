@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { sql } from "kysely";
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { testDb, uniq } from "../support/db";
+import { changedTables, dbSnapshot } from "../support/db-snapshot";
 import { fuzzPayloads, StatusTally, type FuzzPayload } from "../support/fuzz";
 import { buildWorld, type World } from "./sharing-fixtures";
 import type { Viewer } from "@/lib/auth/access";
@@ -51,17 +51,6 @@ let consultant: Viewer;
 type Op = { name: string; viewer: () => Viewer | null; base: () => Record<string, unknown>; keep?: string[]; ignored?: string[]; run: (v: Viewer | null, raw: unknown) => Promise<{ ok: boolean; status?: number }> };
 const ops: Op[] = [];
 const grand = new StatusTally();
-
-/** Row count and checksum of every table of the public schema (pg-boss keeps its own schema). */
-async function snapshot(): Promise<Record<string, string>> {
-  const tables = await sql<{ table_name: string }>`select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' order by table_name`.execute(db);
-  const out: Record<string, string> = {};
-  for (const { table_name } of tables.rows) {
-    const r = await sql<{ n: string; h: string | null }>`select count(*)::text as n, md5(string_agg(md5(t::text), '' order by md5(t::text))) as h from ${sql.table(table_name)} t`.execute(db);
-    out[table_name] = `${r.rows[0]!.n}:${r.rows[0]!.h ?? "-"}`;
-  }
-  return out;
-}
 
 async function tokenFor(email: string): Promise<string> {
   const r = await createInvitation(db, consultant, { projectId: w.P.id, email, role: "finance" }, { appUrl: "http://127.0.0.1:1" });
@@ -140,7 +129,7 @@ describe("seeded fuzz of every server action (in-process, real PostgreSQL)", () 
   });
 
   it(`${PER_ACTION} malformed payloads per action: only 4xx answers, nothing changed`, async () => {
-    const before = await snapshot();
+    const before = await dbSnapshot(db);
     const problems: string[] = [];
     const t0 = performance.now();
     for (const [k, op] of ops.entries()) {
@@ -166,8 +155,6 @@ describe("seeded fuzz of every server action (in-process, real PostgreSQL)", () 
     }
     console.log(`[fuzz-actions] ${ops.length} actions × ${PER_ACTION} in ${Math.round(performance.now() - t0)} ms`);
     expect(problems.slice(0, 30)).toEqual([]);
-    const after = await snapshot();
-    const changed = Object.keys(before).filter((t) => before[t] !== after[t]);
-    expect(changed, "tables changed by malformed payloads").toEqual([]);
+    expect(changedTables(before, await dbSnapshot(db)), "tables changed by malformed payloads").toEqual([]);
   }, 600_000);
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { ACTION_MAX_DEPTH, checkMultipartReply, checkTextReply, sameOriginAction } from "@/lib/http/action-envelope";
+import { ACTION_MAX_DEPTH, checkMultipartReply, checkTextReply, hasNoScriptActionFields, sameOriginAction } from "@/lib/http/action-envelope";
 
 // What React's client encoder (encodeReply) sends for plain arguments, written out by hand: a JSON list of
 // arguments; "$" strings are escapes ("$$"), inline values ("$undefined", "$NaN", "$D<date>", "$n<digits>")
@@ -43,6 +43,33 @@ describe("server-action envelopes", () => {
   it("refuses __proto__ keys (React's reviver would make them the object's prototype)", () => {
     expect(checkTextReply('[{"__proto__": {"admin": true}}]')).toMatchObject({ ok: false, status: 400 });
     expect(checkTextReply('[{"constructor": 1, "prototype": 2}]')).toEqual({ ok: true });
+  });
+
+  it("tells a form posted without JavaScript ($ACTION_ fields) from a fetch action's numbered parts", () => {
+    const noScript = new FormData();
+    noScript.set("$ACTION_ID_7f00", "");
+    noScript.set("currentPassword", "x");
+    expect(hasNoScriptActionFields(noScript)).toBe(true);
+    const fetched = new FormData();
+    fetched.set("0", '["$K1"]');
+    fetched.set("1_currentPassword", "x");
+    expect(hasNoScriptActionFields(fetched)).toBe(false);
+  });
+  it("lets through the password form as the browser sends it (fields named _1_<field>, root [null, \"$K1\"])", () => {
+    // Captured from Chromium 156 submitting the account page's password form (React 19.3 client).
+    const form = new FormData();
+    form.set("_1_currentPassword", "not-my-password-at-all");
+    form.set("_1_newPassword", "a-new-long-passphrase-2026");
+    form.set("_1_confirmPassword", "a-new-long-passphrase-2026");
+    form.set("0", '[null,"$K1"]');
+    expect(checkMultipartReply(form)).toEqual({ ok: true });
+    const missing = new FormData();
+    missing.set("0", '[null,"$K1","$@2"]');
+    missing.set("_1_x", "y");
+    expect(checkMultipartReply(missing)).toMatchObject({ ok: false, status: 400 });
+  });
+  it("refuses a byte-order mark before the JSON (the framework's parser does)", () => {
+    expect(checkTextReply('\uFEFF["a"]')).toMatchObject({ ok: false, status: 400 });
   });
 
   it("compares the Origin's host with X-Forwarded-Host, else Host, as Next.js does", () => {
