@@ -40,6 +40,28 @@ const config = [
       ],
     },
   },
+  // Routes and pages reach the database through the data-access layer (lib/*/data.ts, db/queries), never
+  // through the connection itself; scripts never import test code (shared helpers live in scripts/support).
+  {
+    files: ["app/**/*.{ts,tsx}"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        { paths: [{ name: "@/db", message: "app/ reaches the database through lib/*/data.ts or db/queries, not the db instance." }] },
+      ],
+    },
+  },
+  {
+    files: ["scripts/**/*.{ts,mjs}"],
+    // Freezes the regression guard from the test's own case list (issue 15's engine-speed work owns it).
+    ignores: ["scripts/engine-regression.ts"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        { patterns: [{ group: ["@/tests/*", "**/tests/**"], message: "scripts must not import tests (move the shared helper to scripts/support)." }] },
+      ],
+    },
+  },
   // Migrations are frozen in time and typed against Kysely<any> on purpose.
   { files: ["migrations/**/*.ts", "db/migrate.ts"], rules: { "@typescript-eslint/no-explicit-any": "off" } },
   { ignores: [".next/**", ".next-*/**", "node_modules/**", ".data/**", "test-results/**", "next-env.d.ts"] },

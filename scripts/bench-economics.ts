@@ -33,7 +33,7 @@ import {
   SYNTHETIC_OPTIONS,
   syntheticOptionCosts,
   syntheticOptionsPhysics,
-} from "@/tests/support/synthetic-options";
+} from "./support/synthetic-options";
 
 const root = path.resolve(__dirname, "..");
 
@@ -56,7 +56,7 @@ function time(runs: number, f: () => void): number {
 
 function syntheticArgs(): { args: AnalyzeEconomicsArgs; source: string } {
   return {
-    source: "synthetic yearly physics (tests/support/synthetic-options.ts), three options",
+    source: "synthetic yearly physics (scripts/support/synthetic-options.ts), three options",
     args: {
       physics: syntheticOptionsPhysics(),
       options: SYNTHETIC_OPTIONS.map((s) => ({

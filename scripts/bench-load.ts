@@ -14,8 +14,9 @@
  */
 import { createDb } from "../db/client";
 import { mulberry32 } from "../lib/engine/random";
-import { actionId, callAction, loadServerActions } from "../tests/support/server-actions";
 import { loadDotEnv } from "./dotenv";
+import { signInOverHttp } from "./support/http-session";
+import { actionId, callAction, loadServerActions } from "./support/server-actions";
 
 loadDotEnv();
 
@@ -34,17 +35,7 @@ const PASSWORD = "ledger-demo-2026";
 if (!/^http:\/\/(127\.0\.0\.1|localhost)(:\d+)?$/.test(BASE)) throw new Error("Loads run against loopback only.");
 
 async function signIn(): Promise<string> {
-  const csrf = await fetch(`${BASE}/api/auth/csrf`);
-  const csrfCookie = csrf.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: csrfCookie },
-    body: new URLSearchParams({ csrfToken, email: EMAIL, password: PASSWORD, json: "true", callbackUrl: `${BASE}/projects` }),
-  });
-  await res.arrayBuffer();
-  const session = res.headers.getSetCookie().map((c) => c.split(";")[0]!).find((c) => /next-auth\.session-token=./.test(c));
+  const session = await signInOverHttp(BASE, EMAIL, PASSWORD);
   if (!session) throw new Error("sign-in refused");
   return session;
 }

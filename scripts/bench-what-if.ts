@@ -10,6 +10,7 @@
  * users move what-if sliders. Prints p50/p95 (wall clock, ms) per phase.
  */
 import pg from "pg";
+import { signInOverHttp } from "./support/http-session";
 
 const BASE = process.env.BASE_URL ?? "http://127.0.0.1:3000";
 const EMAIL = process.env.BENCH_EMAIL ?? "cole.consultant@corrandale.example";
@@ -17,17 +18,7 @@ const PASSWORD = process.env.BENCH_PASSWORD ?? "ledger-demo-2026";
 const PER_USER = Number(process.env.BENCH_REQUESTS_PER_USER ?? 12);
 
 async function signIn(): Promise<string> {
-  const csrf = await fetch(`${BASE}/api/auth/csrf`);
-  const csrfCookie = csrf.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: csrfCookie },
-    body: new URLSearchParams({ csrfToken, email: EMAIL, password: PASSWORD, json: "true", callbackUrl: `${BASE}/projects` }),
-  });
-  await res.arrayBuffer();
-  const session = res.headers.getSetCookie().map((c) => c.split(";")[0] ?? "").find((c) => /next-auth\.session-token=./.test(c));
+  const session = await signInOverHttp(BASE, EMAIL, PASSWORD);
   if (!session) throw new Error("sign-in refused");
   return session;
 }

@@ -3,6 +3,7 @@ import { db } from "@/db";
 import { findClimateDatasetData, findClimateDatasetSummary, listClimateDatasetsOfProject } from "@/db/queries/climate";
 import { writeAudit } from "@/db/queries/audit";
 import { isUuid, type ProjectAccess } from "@/lib/auth/session";
+import { importClimateFile, type ClimateUploadForm, type ImportTarget } from "./import";
 import type { ClimateInput } from "@/lib/engine/climate";
 import { climateInputFromStored, type ClimateProvenance, type ClimateSourceKind, type StoredClimateData, type StoredClimateSummary } from "./build";
 
@@ -87,4 +88,9 @@ export async function getClimateInput(access: ProjectAccess, datasetId: string):
   const r = await findClimateDatasetData(db, access.project.id, datasetId);
   if (!r) return null;
   return climateInputFromStored(r.id, r.name, r.data as StoredClimateData);
+}
+
+/** Store an uploaded weather file for a project (the caller has authorized climate.manage). */
+export function importClimateUpload(target: ImportTarget, form: ClimateUploadForm) {
+  return importClimateFile(db, target, form);
 }

@@ -5,11 +5,9 @@
  * invitation its e-mail).
  */
 import PgBoss from "pg-boss";
-import { CompiledQuery, type Kysely, type Transaction } from "kysely";
-import type { Database } from "@/db/schema";
+import { CompiledQuery } from "kysely";
+import type { Executor } from "@/db/schema";
 import { queueSettings, type JobData, type QueueName } from "./queues";
-
-type Executor = Kysely<Database> | Transaction<Database>;
 
 /** The pg-boss schema name (its tables live apart from ours). */
 export const BOSS_SCHEMA = "pgboss";

@@ -6,7 +6,7 @@ import { createDb } from "@/db/client";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "@/db/seed";
 import { BASE_URL } from "./support";
 import { signInHttp } from "./http-session";
-import { actionId, callAction, loadServerActions } from "../support/server-actions";
+import { actionId, callAction, loadServerActions } from "@/scripts/support/server-actions";
 
 /**
  * PostgreSQL stops in the middle of the run (scripts/db.sh stop), under the running web server and worker:

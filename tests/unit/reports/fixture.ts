@@ -1,7 +1,7 @@
 /**
  * A report source for tests. Uses the engine's own analyzeScenario on tests/fixtures/scenario-bins.json
  * when that fixture and lib/scenarios/schema.ts exist; otherwise the economics engine on synthetic yearly
- * physics (round invented numbers, tests/support/synthetic-options.ts), which exercises every table and chart.
+ * physics (round invented numbers, scripts/support/synthetic-options.ts), which exercises every table and chart.
  */
 import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
@@ -20,7 +20,7 @@ import {
   SYNTHETIC_OPTIONS,
   syntheticOptionCosts,
   syntheticOptionsPhysics,
-} from "@/tests/support/synthetic-options";
+} from "@/scripts/support/synthetic-options";
 
 const ROOT = path.resolve(__dirname, "../../..");
 

@@ -1,12 +1,8 @@
 import { NextResponse } from "next/server";
 import { after } from "next/server";
-import { db } from "@/db";
-import { writeAudit } from "@/db/queries/audit";
+import { auditImmediateAnalysis, queueApiAnalysis } from "@/lib/analyses/data";
 import { currentViewer } from "@/lib/auth/session";
 import { isBudgetExceeded, timeBudget } from "@/lib/engine";
-import { sendJob } from "@/lib/jobs/boss";
-import { fitsLimits, lockAndCountOpenWork } from "@/lib/jobs/limits";
-import { QUEUES } from "@/lib/jobs/queues";
 import { analyzeDocument, isQuickAnalysis, monteCarloDraws, QUICK_ANALYSIS_MAX_RECORDS } from "@/lib/scenarios/analysis";
 import { inputsHash } from "@/lib/scenarios/hash";
 import { jsonError, readJsonBody, resultResponse } from "@/lib/http";
@@ -52,36 +48,12 @@ export async function POST(request: Request) {
       if (isBudgetExceeded(err)) return jsonError(422, err.message);
       throw err;
     }
-    after(() =>
-      writeAudit(db, {
-        actorId: viewer.id,
-        action: "analysis.api",
-        targetType: "analysis",
-        detail: { inputsHash: r.inputsHash, options: input.options.length, ms: Math.round(r.elapsedMs), mode: "sync" },
-      }),
-    );
+    after(() => auditImmediateAnalysis(viewer.id, { inputsHash: r.inputsHash, options: input.options.length, ms: Math.round(r.elapsedMs) }));
     return NextResponse.json(r, { headers: { "cache-control": "no-store" } });
   }
 
   const hash = inputsHash(input);
-  const queued = await db.transaction().execute(async (trx) => {
-    const room = fitsLimits(await lockAndCountOpenWork(trx, viewer.id), draws);
-    if (!room.ok) return room;
-    const row = await trx
-      .insertInto("api_analyses")
-      .values({ user_id: viewer.id, draws, inputs_hash: hash, input: JSON.stringify(input) })
-      .returning(["id", "status", "created_at as createdAt"])
-      .executeTakeFirstOrThrow();
-    await sendJob(trx, QUEUES.apiAnalysis, { kind: "apiAnalysis", analysisId: row.id }, { singletonKey: row.id });
-    await writeAudit(trx, {
-      actorId: viewer.id,
-      action: "analysis.api",
-      targetType: "analysis",
-      targetId: row.id,
-      detail: { inputsHash: hash, options: input.options.length, draws, mode: "queued" },
-    });
-    return { ok: true as const, row };
-  });
+  const queued = await queueApiAnalysis(viewer.id, { draws, inputsHash: hash, input, options: input.options.length });
   if (!queued.ok) return NextResponse.json({ error: queued.message }, { status: 429, headers: { "cache-control": "no-store", "retry-after": "30" } });
   const location = `/api/v1/analyses/${queued.row.id}`;
   return NextResponse.json(

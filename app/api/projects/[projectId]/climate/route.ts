@@ -1,9 +1,8 @@
 import { crossSiteRefusal, isCrossSite, jsonOk, NO_STORE } from "@/lib/http";
 import { NextResponse } from "next/server";
-import { db } from "@/db";
 import { authorizeProjectApi } from "@/lib/auth/session";
-import { importClimateFile, readClimateUpload } from "@/lib/climate/import";
-import { listClimateDatasets } from "@/lib/climate/data";
+import { readClimateUpload } from "@/lib/climate/import";
+import { importClimateUpload, listClimateDatasets } from "@/lib/climate/data";
 
 // Parsing uses node:crypto and large strings: the Node runtime, never the edge.
 export const runtime = "nodejs";
@@ -33,8 +32,7 @@ export async function POST(request: Request, { params }: Ctx) {
   const upload = await readClimateUpload(request);
   if (!upload.ok) return NextResponse.json(upload.outcome.body, { status: upload.outcome.status, headers: NO_STORE });
   const { project, viewer } = auth.access;
-  const outcome = await importClimateFile(
-    db,
+  const outcome = await importClimateUpload(
     { projectId: project.id, firmId: project.firmId, actorId: viewer.id, siteElevationM: project.elevationM },
     upload.form,
   );

@@ -1,5 +1,5 @@
 import { NextResponse } from "next/server";
-import { db } from "@/db";
+import { findOwnApiAnalysis } from "@/lib/analyses/data";
 import { currentViewer, isUuid } from "@/lib/auth/session";
 import { jsonError } from "@/lib/http";
 
@@ -17,12 +17,7 @@ export async function GET(_request: Request, { params }: { params: Promise<{ ana
   const viewer = await currentViewer();
   if (!viewer) return jsonError(401, "Sign in first.");
   if (!isUuid(analysisId)) return jsonError(404, "No such analysis.");
-  const row = await db
-    .selectFrom("api_analyses")
-    .select(["id", "status", "result", "error", "created_at as createdAt", "started_at as startedAt", "finished_at as finishedAt"])
-    .where("id", "=", analysisId)
-    .where("user_id", "=", viewer.id)
-    .executeTakeFirst();
+  const row = await findOwnApiAnalysis(viewer.id, analysisId);
   if (!row) return jsonError(404, "No such analysis.");
   const base = { id: row.id, status: row.status, createdAt: row.createdAt, startedAt: row.startedAt, finishedAt: row.finishedAt };
   if (row.status === "done") return NextResponse.json({ ...base, ...(row.result as object) }, { headers: { "cache-control": "no-store" } });
