@@ -69,14 +69,19 @@ function simpsonRef(coldC: number, rangeK: number, lg: number, haIn: number, pPa
   return ((CPW * step) / 3) * sum;
 }
 
+/** Wet-bulb °C, range K, approach K and L/G of real selections (Methods §2). */
+const typicalTower = [
+  fc.double({ min: 5, max: 28, noNaN: true }),
+  fc.double({ min: 3, max: 12, noNaN: true }),
+  fc.double({ min: 3, max: 12, noNaN: true }),
+  fc.double({ min: 0.5, max: 1.5, noNaN: true }),
+] as const;
+
 describe("Merkel number", () => {
   it("the engine's four-point rule equals the CTI ATC-105 rule evaluated with psychrolib enthalpies", () => {
     fc.assert(
       fc.property(
-        fc.double({ min: 5, max: 28, noNaN: true }),
-        fc.double({ min: 3, max: 12, noNaN: true }),
-        fc.double({ min: 3, max: 12, noNaN: true }),
-        fc.double({ min: 0.5, max: 1.5, noNaN: true }),
+        ...typicalTower,
         (wb, rangeK, approachK, lg) => {
           const ha = hsRef(wb, P);
           const ref = chebyshevRef(wb + approachK, rangeK, lg, ha, P);
@@ -90,17 +95,14 @@ describe("Merkel number", () => {
     );
   });
 
-  // Source: engineering methods §2 (the four-point rule and a fine integration agree within ~0.3 % over
+  // Source: Methods §2 (the four-point rule and a fine integration agree within ~0.3 % over
   // real selections: range and approach ≥ 3 K, L/G ≤ 1.5, KaV/L ≤ 2, typical design Merkel numbers 1–2,
   // common practice, no source); up to KaV/L 2.5 at cold wet-bulbs we allow 0.4 %. Both sides here
   // are the test's own psychrolib evaluations, the fine one by Simpson's rule.
   it("the engine's four-point result lies within 0.3 % (KaV/L < 2) and 0.4 % (< 2.5) of a fine Simpson integration", () => {
     fc.assert(
       fc.property(
-        fc.double({ min: 5, max: 28, noNaN: true }),
-        fc.double({ min: 3, max: 12, noNaN: true }),
-        fc.double({ min: 3, max: 12, noNaN: true }),
-        fc.double({ min: 0.5, max: 1.5, noNaN: true }),
+        ...typicalTower,
         (wb, rangeK, approachK, lg) => {
           const fine = simpsonRef(wb + approachK, rangeK, lg, hsRef(wb, P), P, 400);
           fc.pre(Number.isFinite(fine) && fine > 0 && fine < 2.5);
