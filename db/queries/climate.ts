@@ -64,3 +64,14 @@ export async function countClimateDatasets(db: Executor, projectId: string): Pro
     .executeTakeFirstOrThrow();
   return Number(r.n);
 }
+
+/** A dataset of this project only (never another project's), with its stored data or without it. */
+export function findProjectClimateDataset(ex: Executor, projectId: string, datasetId: string, withData: boolean) {
+  return ex
+    .selectFrom("climate_datasets")
+    .select(["id", "name", "source_kind", "project_id as projectId"])
+    .$if(withData, (q) => q.select("data"))
+    .where("id", "=", datasetId)
+    .where("project_id", "=", projectId)
+    .executeTakeFirst();
+}

@@ -132,3 +132,12 @@ export async function listProjectAccess(db: Executor, projectId: string) {
     .orderBy("users.name")
     .execute();
 }
+
+/** A project's site and report settings, as a scenario's analysis needs them. */
+export function findProjectSite(ex: Executor, projectId: string) {
+  return ex
+    .selectFrom("projects")
+    .select(["id", "name", "elevation_m as elevationM", "location_label as locationLabel", "site_name as siteName", "unit_system as unitSystem", "currency"])
+    .where("id", "=", projectId)
+    .executeTakeFirst();
+}

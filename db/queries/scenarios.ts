@@ -101,3 +101,12 @@ export async function setScenarioArchived(db: Executor, scenarioId: string, arch
     .executeTakeFirst();
 }
 
+/** Who saved a scenario last, when, and at which revision (for a refused stale save). */
+export function findScenarioLastSave(ex: Executor, scenarioId: string) {
+  return ex
+    .selectFrom("scenarios")
+    .leftJoin("users", "users.id", "scenarios.updated_by")
+    .select(["scenarios.revision", "scenarios.updated_at as updatedAt", "users.name as updatedByName"])
+    .where("scenarios.id", "=", scenarioId)
+    .executeTakeFirst();
+}

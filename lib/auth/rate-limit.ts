@@ -1,5 +1,5 @@
-import { sql, type Kysely } from "kysely";
-import type { Database } from "@/db/schema";
+import type { Executor } from "@/db/schema";
+import { addSignInFailure, anySignInKeyBlocked, deleteSignInAttempts } from "@/db/queries/sign-in-attempts";
 import { clientAddress as addressOf } from "@/lib/http/client-address";
 
 /** Sign-in throttling, stored in PostgreSQL so every app server sees the same counts. */
@@ -25,35 +25,15 @@ export function signInKeys(email: string, address: string): { account: string; a
 }
 
 /** True when either key is currently blocked. */
-export async function isSignInBlocked(db: Kysely<Database>, keys: string[]): Promise<boolean> {
-  const row = await db
-    .selectFrom("sign_in_attempts")
-    .select("key")
-    .where("key", "in", keys)
-    .where("blocked_until", ">", sql<Date>`now()`)
-    .executeTakeFirst();
-  return Boolean(row);
+export function isSignInBlocked(db: Executor, keys: string[]): Promise<boolean> {
+  return anySignInKeyBlocked(db, keys);
 }
 
 /** Count one failure against a key; block it once the window's limit is reached. */
-export async function recordSignInFailure(
-  db: Kysely<Database>,
-  key: string,
-  limit: { maxFailures: number; windowS: number; blockS: number },
-): Promise<void> {
-  await sql`
-    insert into sign_in_attempts (key, failures, window_start)
-    values (${key}, 1, now())
-    on conflict (key) do update set
-      failures = case when sign_in_attempts.window_start < now() - make_interval(secs => ${limit.windowS})
-                      then 1 else sign_in_attempts.failures + 1 end,
-      window_start = case when sign_in_attempts.window_start < now() - make_interval(secs => ${limit.windowS})
-                      then now() else sign_in_attempts.window_start end`.execute(db);
-  await sql`
-    update sign_in_attempts set blocked_until = now() + make_interval(secs => ${limit.blockS})
-    where key = ${key} and failures >= ${limit.maxFailures}`.execute(db);
+export function recordSignInFailure(db: Executor, key: string, limit: { maxFailures: number; windowS: number; blockS: number }): Promise<void> {
+  return addSignInFailure(db, key, limit);
 }
 
-export async function clearSignInFailures(db: Kysely<Database>, key: string): Promise<void> {
-  await db.deleteFrom("sign_in_attempts").where("key", "=", key).execute();
+export function clearSignInFailures(db: Executor, key: string): Promise<void> {
+  return deleteSignInAttempts(db, key);
 }

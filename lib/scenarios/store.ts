@@ -4,7 +4,9 @@
  * viewer, before calling here; tests call it with their own executor.
  */
 import type { Executor } from "@/db/schema";
-import { findScenario, insertScenario, setScenarioArchived, updateScenarioAtRevision, type ScenarioRow } from "@/db/queries/scenarios";
+import { findScenario, findScenarioLastSave, insertScenario, setScenarioArchived, updateScenarioAtRevision, type ScenarioRow } from "@/db/queries/scenarios";
+import { findProjectSite } from "@/db/queries/projects";
+import { findProjectClimateDataset } from "@/db/queries/climate";
 import type { FieldErrorMap } from "@/lib/result";
 import { isUuid } from "@/lib/auth/access";
 import type { ScenarioInput } from "@/lib/engine/input";
@@ -22,14 +24,6 @@ export interface ScenarioContext {
   dataset: (ClimateDatasetLike & { projectId: string }) | null;
 }
 
-async function loadProjectSite(db: Executor, projectId: string) {
-  return db
-    .selectFrom("projects")
-    .select(["id", "name", "elevation_m as elevationM", "location_label as locationLabel", "site_name as siteName", "unit_system as unitSystem", "currency"])
-    .where("id", "=", projectId)
-    .executeTakeFirst();
-}
-
 /**
  * A climate dataset of this project (never another project's), with its stored data — or without it
  * (`data: null`) where only its name is needed: the hourly arrays are the bulk of a scenario's reads.
@@ -37,20 +31,14 @@ async function loadProjectSite(db: Executor, projectId: string) {
 export async function loadDataset(db: Executor, projectId: string, datasetId: string | null, withData = true) {
   // A malformed id names no dataset (PostgreSQL would refuse it as a uuid).
   if (!datasetId || !isUuid(datasetId)) return null;
-  const ds = await db
-    .selectFrom("climate_datasets")
-    .select(["id", "name", "source_kind", "project_id as projectId"])
-    .$if(withData, (q) => q.select("data"))
-    .where("id", "=", datasetId)
-    .where("project_id", "=", projectId)
-    .executeTakeFirst();
+  const ds = await findProjectClimateDataset(db, projectId, datasetId, withData);
   return ds ? { data: null as unknown, ...ds } : null;
 }
 
 export async function loadScenarioContext(db: Executor, scenarioId: string, opts: { withClimateData?: boolean } = {}): Promise<ScenarioContext | null> {
   const row = await findScenario(db, scenarioId);
   if (!row) return null;
-  const project = await loadProjectSite(db, row.projectId);
+  const project = await findProjectSite(db, row.projectId);
   if (!project) return null;
   const dataset = await loadDataset(db, row.projectId, row.climateDatasetId, opts.withClimateData ?? true);
   return { row, dto: toScenarioDTO(row), project, dataset };
@@ -141,7 +129,7 @@ export async function saveScenario(
   const row = await findScenario(db, a.scenarioId);
   if (!row) return { ok: false, kind: "notFound" };
   if (row.archivedAt) return { ok: false, kind: "archived", message: "This scenario is archived; restore it or clone it to edit." };
-  const project = await loadProjectSite(db, row.projectId);
+  const project = await findProjectSite(db, row.projectId);
   if (!project) return { ok: false, kind: "notFound" };
   const name = a.name.trim();
   const dataset = await loadDataset(db, row.projectId, a.climateDatasetId);
@@ -164,12 +152,7 @@ export async function saveScenario(
 }
 
 async function conflict(db: Executor, scenarioId: string): Promise<SaveOutcome> {
-  const now = await db
-    .selectFrom("scenarios")
-    .leftJoin("users", "users.id", "scenarios.updated_by")
-    .select(["scenarios.revision", "scenarios.updated_at as updatedAt", "users.name as updatedByName"])
-    .where("scenarios.id", "=", scenarioId)
-    .executeTakeFirst();
+  const now = await findScenarioLastSave(db, scenarioId);
   if (!now) return { ok: false, kind: "notFound" };
   const at = now.updatedAt.toISOString();
   return {
