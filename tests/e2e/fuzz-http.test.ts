@@ -4,7 +4,7 @@ import path from "node:path";
 import { testDb, uniq } from "../support/db";
 import { changedTables, dbSnapshot } from "../support/db-snapshot";
 import { brokenJsonBodies, fuzzPayloads, StatusTally } from "../support/fuzz";
-import { loadServerActions, postAction } from "../support/server-actions";
+import { loadServerActions, postAction } from "@/scripts/support/server-actions";
 import { insertWorldPeople } from "../support/world";
 import { hashPassword } from "@/lib/auth/password";
 import { loadViewer } from "@/lib/auth/access";
