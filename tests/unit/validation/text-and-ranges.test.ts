@@ -94,14 +94,13 @@ describe("ranges", () => {
 
 describe("the engine's own step limit (should a value slip past the schema)", () => {
   it("a replacement schedule every 5e-324 years stops at once with a clear error", () => {
+    // The error itself shows the loop stopped at its step limit (no timing assertion: benchmarks print figures).
     let err: unknown;
-    const t0 = performance.now();
     try {
       replacementTimes(5e-324, 25);
     } catch (e) {
       err = e;
     }
-    expect(performance.now() - t0).toBeLessThan(1000);
     expect(err).toBeInstanceOf(AnalysisLimitExceeded);
     expect(isBudgetExceeded(err)).toBe(true);
     expect((err as Error).message).toMatch(/^The analysis stopped: replacements every 5e-324 years/);
