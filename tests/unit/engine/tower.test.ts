@@ -121,8 +121,8 @@ describe("Merkel number", () => {
     expect(Math.abs(merkelNumberNumerical(28.3, 5, 1.2, saturatedAirEnthalpyKJPerKg(24, P), P, 2000) / ref - 1)).toBeLessThan(1e-4);
   });
 
-  // Hand check: at the hot end (T = 26 + 0.9·10 = 35 °C) hs ≈ 129.8 kJ/kg (ASHRAE Fundamentals ch.1
-  // saturated-air table [memory]), the air's enthalpy ≈ 72.5 + 6·4.186·9 = 298.5 kJ/kg: far past
+  // Hand check: at the hot end (T = 26 + 0.9·10 = 35 °C) hs ≈ 129 kJ/kg (ASHRAE Fundamentals ch.1
+  // saturated-air table [memory]), the air's enthalpy ≈ 72.2 + 6·4.186·9 = 298.2 kJ/kg: far past
   // saturation, so no finite Merkel number exists.
   it("is infinite when the operating line crosses the saturation curve", () => {
     const ha = saturatedAirEnthalpyKJPerKg(24, P);
