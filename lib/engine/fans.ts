@@ -63,29 +63,32 @@ export function fanPowerAtSpeedKW(fan: FanModel, speedFraction: number): number 
  * - required > 1: the fan runs at full speed and the set-point is not held ("insufficient").
  */
 export function fanOperationForRequiredAirflow(fan: FanModel, requiredAirflowFraction: number): FanOperation {
-  const off: FanState = { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 };
-  const full: FanState = { airflowFraction: 1, powerKW: fan.designPowerKW };
+  // States are built only for the answer (called once per record and option).
   const f = requiredAirflowFraction;
   // 1e-6: the L/G root's own tolerance, so the design point itself counts as held.
-  if (f > 1 + 1e-6) return { kind: "insufficient", state: full };
-  if (f > 1 - 1e-6 && fan.control !== "variableSpeed") return { kind: "continuous", state: full };
-  if (f <= fan.naturalDraftAirflowFraction) return { kind: "continuous", state: off };
+  if (f > 1 + 1e-6) return { kind: "insufficient", state: { airflowFraction: 1, powerKW: fan.designPowerKW } };
+  if (f > 1 - 1e-6 && fan.control !== "variableSpeed") return { kind: "continuous", state: { airflowFraction: 1, powerKW: fan.designPowerKW } };
+  if (f <= fan.naturalDraftAirflowFraction) return { kind: "continuous", state: { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 } };
   switch (fan.control) {
     case "variableSpeed": {
       const fmin = Math.max(fan.minSpeedFraction, fan.naturalDraftAirflowFraction);
       if (f >= fmin) return { kind: "continuous", state: { airflowFraction: f, powerKW: fanPowerAtSpeedKW(fan, f) } };
-      return { kind: "mix", low: off, high: { airflowFraction: fmin, powerKW: fanPowerAtSpeedKW(fan, fmin) } };
+      return {
+        kind: "mix",
+        low: { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 },
+        high: { airflowFraction: fmin, powerKW: fanPowerAtSpeedKW(fan, fmin) },
+      };
     }
     case "twoSpeed": {
       const low: FanState = { airflowFraction: fan.lowSpeedFraction, powerKW: fanPowerAtSpeedKW(fan, fan.lowSpeedFraction) };
       if (f === fan.lowSpeedFraction) return { kind: "continuous", state: low };
-      if (f < fan.lowSpeedFraction) return { kind: "mix", low: off, high: low };
-      if (f === 1) return { kind: "continuous", state: full };
-      return { kind: "mix", low, high: full };
+      if (f < fan.lowSpeedFraction) return { kind: "mix", low: { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 }, high: low };
+      if (f === 1) return { kind: "continuous", state: { airflowFraction: 1, powerKW: fan.designPowerKW } };
+      return { kind: "mix", low, high: { airflowFraction: 1, powerKW: fan.designPowerKW } };
     }
     case "cycling":
-      if (f === 1) return { kind: "continuous", state: full };
-      return { kind: "mix", low: off, high: full };
+      if (f === 1) return { kind: "continuous", state: { airflowFraction: 1, powerKW: fan.designPowerKW } };
+      return { kind: "mix", low: { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 }, high: { airflowFraction: 1, powerKW: fan.designPowerKW } };
   }
 }
 

@@ -367,6 +367,10 @@ export interface TowerHourResult {
   evaporationKgPerS: number;
 }
 
+/** Scratch of `solveTowerHour`: the four hs at the requirement (read only within the call; the engine never re-enters). */
+const HOLD_HS = [0, 0, 0, 0];
+const HOLD_KNOWN = { tC: 0, saturatedEnthalpiesKJPerKg: HOLD_HS };
+
 /** The last L/G `solveTowerHour` found, and for which tower (a starting point, never a result). */
 let lastLgModel: TowerModel | null = null;
 let lastLg = 1;
@@ -399,7 +403,7 @@ export function solveTowerHour(
   }
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   let requiredFraction = Number.POSITIVE_INFINITY;
-  const hs = [0, 0, 0, 0];
+  const hs = HOLD_HS;
   let haveHs = false;
   if (requiredColdWaterC > air.wetBulbC) {
     haveHs = true;
@@ -417,8 +421,9 @@ export function solveTowerHour(
   }
   const op = fanOperationForRequiredAirflow(fan, requiredFraction);
   const gd = model.designAirFlowKgPerS;
+  HOLD_KNOWN.tC = requiredColdWaterC;
+  const known = haveHs ? HOLD_KNOWN : undefined;
   if (op.kind === "insufficient") {
-    const known = haveHs ? { tC: requiredColdWaterC, saturatedEnthalpiesKJPerKg: hs } : undefined;
     const tc = towerColdWaterAtAirflowC(model, air, heatKW, 1, pPa, requiredColdWaterC, known);
     return {
       held: false,
@@ -442,7 +447,6 @@ export function solveTowerHour(
       evaporationKgPerS: evaporationKgPerS(heatKW, f * gd, pPa, air),
     };
   }
-  const known = haveHs ? { tC: requiredColdWaterC, saturatedEnthalpiesKJPerKg: hs } : undefined;
   // The first Newton pass of the near state reuses the four hs at the requirement.
   const tLow = towerColdWaterAtAirflowC(model, air, heatKW, op.low.airflowFraction, pPa, requiredColdWaterC, known, MIX_STATE_TOLERANCE_K, MIX_STATE_RELATIVE_TOLERANCE);
   const tHigh = towerColdWaterAtAirflowC(model, air, heatKW, op.high.airflowFraction, pPa, requiredColdWaterC, known, MIX_STATE_TOLERANCE_K, MIX_STATE_RELATIVE_TOLERANCE);
