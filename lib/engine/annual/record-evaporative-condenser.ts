@@ -116,7 +116,10 @@ function mode(
     if (!(a0.fraction <= 1 + 1e-6)) {
       lowC = condensingTemperatureAtAirflowC(model, air, heatKW, 1, wet, ctx.pPa, derate);
       if (lowC >= setC) return outcome(false, lowC, 1, po.fan.designPowerKW, evapAt(1));
-      atLow = { fraction: 1, slopePerK: airflowAt(lowC).slopePerK };
+      // Full speed holds lowC by construction: the forward-difference slope from f = 1 there (the airflow
+      // root at lowC itself may answer "none suffices" on round-off, with no slope).
+      const above = airflowAt(lowC + 0.05).fraction;
+      atLow = { fraction: 1, slopePerK: Number.isFinite(above) ? Math.min(0, (above - 1) / 0.05) : 0 };
     }
     const best = optimalFloatingCondensing(po.fan, lowC, setC, { airflowAt, compressorSlope: slope }, atLow);
     const f = Math.min(1, Math.max(best.airflow.fraction, fMin));
