@@ -26,7 +26,7 @@ export function MonteCarloChart({
   const fmt = (v: number) => `${(v / 1000).toLocaleString("en-US", { maximumFractionDigits: 0 })}k`;
   const data = bins.map((b) => ({ bin: fmt((b.from + b.to) / 2), share: draws > 0 ? (100 * b.count) / draws : 0, negative: b.to <= 0 ? 1 : 0 }));
   return (
-    <ChartFrame title={`Net savings distribution — ${pairLabel}`} unit={`share of ${draws.toLocaleString("en-US")} draws, % per bin (${currency})`} testId="chart-monte-carlo" height={260}>
+    <ChartFrame title={`Net savings distribution — ${pairLabel}`} unit={`share of ${draws.toLocaleString("en-US")} draws, % per bin`} testId="chart-monte-carlo" height={260}>
       <ResponsiveBar
         data={data}
         keys={["share"]}
@@ -37,7 +37,8 @@ export function MonteCarloChart({
         theme={chartTheme}
         enableLabel={false}
         axisBottom={{
-          legend: `Net savings, ${currency} (thousands)`,
+          // The ticks carry their own "k" (thousands), so the legend names only the currency.
+          legend: `Net savings at the bin centre, ${currency}`,
           legendOffset: 38,
           legendPosition: "middle",
           tickValues: data.filter((_, i) => i % Math.max(1, Math.ceil(data.length / 8)) === 0).map((d) => d.bin),

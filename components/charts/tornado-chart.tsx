@@ -18,6 +18,8 @@ export function TornadoChart({ rows, currency, pairLabel }: { rows: TornadoRow[]
   const data = [...rows].reverse().map((r) => ({ input: r.label, low: r.low, high: r.high }));
   // A symmetric scale keeps zero in the middle, so bars that lower the savings never run under the labels.
   const m = Math.max(1, ...rows.flatMap((r) => [Math.abs(r.low), Math.abs(r.high)])) * 1.05;
+  // Room for the longest input label (11 px text, about 6 px a character) so none is cut at the left edge.
+  const left = Math.min(280, Math.max(150, Math.ceil(6 * Math.max(0, ...rows.map((r) => r.label.length))) + 12));
   return (
     <ChartFrame title={`Tornado — ${pairLabel}`} unit={`change of net savings, ${currency}`} testId="chart-tornado" height={Math.max(200, 34 * rows.length + 60)}>
       <ResponsiveBar
@@ -27,7 +29,7 @@ export function TornadoChart({ rows, currency, pairLabel }: { rows: TornadoRow[]
         layout="horizontal"
         groupMode="grouped"
         innerPadding={0}
-        margin={{ top: 8, right: 16, bottom: 40, left: 210 }}
+        margin={{ top: 8, right: 16, bottom: 40, left }}
         padding={0.3}
         valueScale={{ type: "linear", min: -m, max: m }}
         colors={({ id }) => (id === "low" ? "#7cc4c6" : "#bf6a2e")}
@@ -35,7 +37,8 @@ export function TornadoChart({ rows, currency, pairLabel }: { rows: TornadoRow[]
         enableLabel={false}
         enableGridX
         enableGridY={false}
-        axisBottom={{ format: (v: number) => compactNumber(v) }}
+        // Five ticks: a half-width chart has no room for nivo's default dozen (their labels ran together).
+        axisBottom={{ format: (v: number) => compactNumber(v), tickValues: 5 }}
         tooltipLabel={(d) => `${d.indexValue} at its ${d.id} value`}
         valueFormat={(v) => `${v >= 0 ? "+" : ""}${Math.round(v).toLocaleString("en-US")} ${currency}`}
         markers={[{ axis: "x", value: 0, lineStyle: { stroke: "#17222b", strokeWidth: 1 } }]}

@@ -1,6 +1,5 @@
 import type { ScenarioResult } from "@/lib/engine";
 import type { ScenarioInput } from "@/lib/engine/input";
-import { OPTION_KIND_LABELS } from "@/lib/engine/types";
 import { formatQuantity, type UnitSystem } from "@/lib/units";
 
 export interface Caution {
@@ -20,7 +19,7 @@ export function cautionsFor(input: ScenarioInput, result: ScenarioResult, system
   const wet = input.options.map((o) =>
     o.kind === "closedCircuitCooler" || o.kind === "evaporativeCondenser"
       ? `${o.label} (its spray-water loop)`
-      : `${o.label} (${OPTION_KIND_LABELS[o.kind].toLowerCase()} basin and fill)`,
+      : `${o.label} (its tower basin and fill)`,
   );
   out.push({
     id: "legionella",

@@ -5,6 +5,7 @@ import type { EngineWarning, OptionAnnualPhysics } from "@/lib/engine/types";
 import { formatNumber, formatQuantity, unitLabel, type QuantityKind, type UnitSystem } from "@/lib/units";
 import { warningText } from "@/lib/units/warnings";
 import { findComparison } from "@/lib/comparison/headline";
+import { measureNotesOf } from "@/lib/comparison/measure-notes";
 
 /** What a life-cycle cell shows while an option's first cost is not entered. */
 export const FIRST_COSTS_MISSING = "first costs missing";
@@ -254,7 +255,7 @@ export function ComparisonTable({
   ];
   const notesOf = (id: string) => warnings.filter((w) => w.optionId === id && sectionOfWarning(w) === "general");
   const measureNotes = (anyMissing ? [] : e.comparisons).flatMap((c) =>
-    [c.sirNote, c.airrNote, c.paybackNote].filter((n): n is string => Boolean(n)).map((n) => ({
+    measureNotesOf(c, labelOf, currency, e.studyPeriodYears).map((n) => ({
       code: "economics.measureNote",
       severity: "info" as const,
       message: n,

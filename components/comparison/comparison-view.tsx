@@ -13,6 +13,7 @@ import { WetBulbBinsChart } from "@/components/charts/wet-bulb-bins-chart";
 import { CautionList, ScreeningNote, cautionsFor } from "./cautions";
 import { ComparisonTable, WarningList, sectionOfWarning } from "./comparison-table";
 import { buildHeadline, designDaySentence, money } from "@/lib/comparison/headline";
+import { breakEvenLine } from "@/lib/comparison/break-even";
 import { MonteCarloPanel, type MonteCarloSlot } from "./monte-carlo-panel";
 import { STACK_CATEGORIES, costStackSeries, cumulativeSeries, monthlyWaterSeries, tornadoRows, wetBulbBinRows } from "./series";
 import { WhatIfPanel } from "./what-if-panel";
@@ -212,7 +213,7 @@ export function ComparisonView(props: ComparisonViewProps) {
               <ul className="mt-1 list-disc pl-5 text-sm text-ink-soft" data-testid="break-evens">
                 {e.sensitivity.breakEven.map((b) => (
                   <li key={`${b.input}-${b.alternativeOptionId}`}>
-                    {labels[b.alternativeOptionId]} against {labels[b.baseOptionId]?.toLowerCase()}: {b.note}
+                    {labels[b.alternativeOptionId]} against {labels[b.baseOptionId]?.toLowerCase()}: {breakEvenLine(b, currency, system)}
                   </li>
                 ))}
               </ul>

@@ -66,6 +66,8 @@ async function buildAndCompare(system: "IP" | "SI"): Promise<Observed> {
   await page.fill("#f-currency", "USD");
   await Promise.all([page.waitForURL(/\/projects\/[0-9a-f-]{36}$/), page.click("[data-testid=project-submit]")]);
   const projectUrl = new URL(page.url()).pathname;
+  // The site's elevation in the project's units (787.402 ft → "787 ft", with the stored 240 m beside it in IP).
+  expect(await page.innerText("[data-testid=project-elevation]")).toMatch(system === "IP" ? /^787\s*ft \(240\s*m\)$/ : /^240\s*m$/);
 
   step("project created");
   // 2. The generated EPW through the climate import.

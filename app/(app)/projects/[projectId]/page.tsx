@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { requireProjectAction } from "@/lib/auth/session";
+import { formatQuantity } from "@/lib/units";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { ClimateSection } from "./_components/climate-section";
 import { ScenarioSection } from "./_components/scenario-section";
@@ -25,7 +26,11 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
         <Panel title="Site">
           <dl className="grid grid-cols-2 gap-x-6 gap-y-2 text-sm md:grid-cols-4">
             <dt className="text-ink-faint">Elevation</dt>
-            <dd className="num text-left">{project.elevationM.toFixed(0)} m</dd>
+            <dd className="num text-left" data-testid="project-elevation">
+              {/* In the project's units like every other figure; the stored metres beside it when those are feet. */}
+              {formatQuantity("elevationM", project.elevationM, project.unitSystem, { decimals: 0 })}
+              {project.unitSystem === "IP" ? ` (${formatQuantity("elevationM", project.elevationM, "SI", { decimals: 0 })})` : ""}
+            </dd>
             <dt className="text-ink-faint">Units shown</dt>
             <dd>{project.unitSystem}</dd>
             <dt className="text-ink-faint">Currency</dt>
