@@ -99,12 +99,24 @@ describe("tower rating points in the editor", () => {
     }
     await screenshot(page, "rating-points-02-fitted");
 
+    // The cooler (option 3): a second wet rating at the design's own conditions cannot tell the resistance split,
+    // so the entered share is kept and the editor says so, with the design, the extra and no dry rating checked.
+    await page.click("[data-testid=nav-option-3]");
+    await page.click("[data-testid=add-cooler-wet-rating]");
+    await page.click("[data-testid=save-scenario]");
+    await page.locator("[data-testid=banner-saved]").waitFor({ timeout: 120_000 });
+    const cooler = page.locator("[data-testid=rating-fit-result] [data-testid=rating-fit-cooler]");
+    await cooler.waitFor({ timeout: 30_000 });
+    expect(await cooler.locator("[data-testid=rating-fit-note]").innerText()).toMatch(/Tube-side share 30 % kept/);
+    expect(await cooler.locator("[data-testid=rating-fit-row]").count()).toBe(2);
+    await screenshot(page, "rating-points-03-cooler");
+
     // The comparison shows the same fit among the selections.
     await Promise.all([page.waitForURL(/\/scenarios\/[0-9a-f-]{36}$/), page.click("[data-testid=banner-saved] a")]);
     const panel = page.locator("[data-testid=rating-fits] [data-testid=rating-fit-tower]").first();
     await panel.waitFor();
     expect(Number(await panel.locator("[data-testid=fit-n]").innerText())).toBeCloseTo(n, 6);
-    await screenshot(page, "rating-points-03-comparison");
+    await screenshot(page, "rating-points-04-comparison");
   }, 300_000);
 });
 

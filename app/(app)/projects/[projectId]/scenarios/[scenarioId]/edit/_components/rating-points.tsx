@@ -151,7 +151,13 @@ export function CoolerWetRatings({ i }: { i: number }) {
             </button>
           </div>
         ))}
-        <button type="button" className={addButton} onClick={addRating} disabled={fields.length >= 4}>
+        <button
+          type="button"
+          className={addButton}
+          onClick={addRating}
+          disabled={fields.length >= 4}
+          data-testid="add-cooler-wet-rating"
+        >
           Add a wet rating{fields.length >= 4 ? " (four at most)" : ""}
         </button>
       </div>
