@@ -3,11 +3,14 @@ import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { testDb, uniq } from "../support/db";
 import { changedTables, dbSnapshot } from "../support/db-snapshot";
-import { fuzzPayloads, StatusTally, type FuzzPayload } from "../support/fuzz";
+import { brokenJsonBodies, fuzzPayloads, StatusTally, type FuzzPayload } from "../support/fuzz";
+import { readJsonBody } from "@/lib/http";
+import { importClimateFile, readClimateUpload, saveBinTable } from "@/lib/climate/import";
+import { parseScenarioDocument } from "@/lib/scenarios/validate";
+import { whatIfBodySchema, WHAT_IF_MAX_BYTES } from "@/lib/scenarios/what-if";
 import { buildWorld, type World } from "./sharing-fixtures";
 import type { Viewer } from "@/lib/auth/access";
 import { changePassword } from "@/lib/auth/account";
-import { saveBinTable } from "@/lib/climate/import";
 import { createProject, updateProject } from "@/lib/projects/data";
 import { archiveScenarioIn, cloneScenarioIn, createScenarioIn, saveScenarioIn } from "@/lib/scenarios/data";
 import { documentFromStored } from "@/lib/scenarios/mappers";
@@ -50,6 +53,8 @@ let consultant: Viewer;
 
 type Op = { name: string; viewer: () => Viewer | null; base: () => Record<string, unknown>; keep?: string[]; ignored?: string[]; run: (v: Viewer | null, raw: unknown) => Promise<{ ok: boolean; status?: number }> };
 const ops: Op[] = [];
+type RouteOp = { name: string; requests: () => Request[]; run: (req: Request) => Promise<number>; stateless?: boolean };
+const routes: RouteOp[] = [];
 const grand = new StatusTally();
 
 async function tokenFor(email: string): Promise<string> {
@@ -100,6 +105,90 @@ beforeAll(async () => {
   const as = (v: Viewer | null) => () => v;
   const keepP = ["projectId"];
 
+  const url = "http://127.0.0.1:1/api";
+  const asObject = (v: unknown) => (v && typeof v === "object" && !Array.isArray(v) ? (v as Record<string, unknown>) : {});
+  const status = (r: { ok: boolean; status?: number }, okStatus = 200) => (r.ok ? okStatus : (r.status ?? 0));
+  /** Requests as a client sends them: seeded payloads as JSON, broken JSON, other content types, too large. */
+  const jsonRequests = (seed: number, base: Record<string, unknown>): Request[] => {
+    const broken = brokenJsonBodies(seed + 1, PER_ACTION, JSON.stringify(base));
+    return fuzzPayloads(seed, PER_ACTION, base).map((p, i) => {
+      const k = i % 10;
+      const body = k === 8 ? broken[i]! : i % 97 === 0 ? "x".repeat(6 * 1024 * 1024) : jsonText(p.value);
+      const type = k === 9 ? ["text/plain", "application/x-www-form-urlencoded", "multipart/form-data", ""][i % 4]! : "application/json";
+      return new Request(url, { method: "POST", headers: type ? { "content-type": type } : {}, body });
+    });
+  };
+  const scenarioDoc = structuredClone(saveBase.document);
+  routes.push(
+    {
+      name: "POST /api/projects/[id]/comments",
+      requests: () => jsonRequests(SEED + 100, { versionId: P.versionId, body: "A comment" }),
+      run: async (req) => {
+        const b = await readJsonBody(req, 16 * 1024);
+        if (!b.ok) return b.status;
+        const v = asObject(b.value);
+        return status(await addComment(db, owner, { versionId: v.versionId, body: v.body, projectId: P.id }, { appUrl: "http://127.0.0.1:1" }), 201);
+      },
+    },
+    {
+      name: "POST /api/projects/[id]/invitations",
+      requests: () => jsonRequests(SEED + 110, { email: "someone.new@example.test", role: "owner" }),
+      run: async (req) => {
+        const b = await readJsonBody(req, 16 * 1024);
+        if (!b.ok) return b.status;
+        return status(await createInvitation(db, consultant, { ...asObject(b.value), projectId: P.id }, { appUrl: "http://127.0.0.1:1" }), 201);
+      },
+    },
+    {
+      name: "POST /api/scenarios/[id]/what-if (body checks)",
+      stateless: true,
+      requests: () => jsonRequests(SEED + 120, { waterAndSewerPriceFactor: 1.2, discountRate: 0.05, loadFactor: 1.1 }),
+      run: async (req) => {
+        const b = await readJsonBody(req, WHAT_IF_MAX_BYTES);
+        if (!b.ok) return b.status;
+        return whatIfBodySchema.safeParse(b.value).success ? 200 : 422;
+      },
+    },
+    {
+      name: "POST /api/v1/analyses (body checks)",
+      stateless: true,
+      requests: () => jsonRequests(SEED + 130, scenarioDoc),
+      run: async (req) => {
+        const b = await readJsonBody(req, 5 * 1024 * 1024);
+        if (!b.ok) return b.status;
+        return parseScenarioDocument(b.value).ok ? 200 : 422;
+      },
+    },
+    {
+      name: "POST /api/projects/[id]/climate (upload)",
+      requests: () =>
+        Array.from({ length: PER_ACTION }, (_, i) => {
+          const k = i % 8;
+          if (k === 0) return new Request(url, { method: "POST", headers: { "content-type": "multipart/form-data; boundary=x" }, body: '--x\r\nContent-Disposition: form-data; name="file"\r\n\r\nabc' });
+          if (k === 1) return new Request(url, { method: "POST", headers: { "content-type": "multipart/form-data" }, body: "no boundary" });
+          if (k === 2) return new Request(url, { method: "POST", headers: { "content-type": "application/json" }, body: "{}" });
+          const form = new FormData();
+          const enc = new TextEncoder();
+          const bytes =
+            k === 3 ? enc.encode(`LOCATION,Nowhere,,,,${i},1,2,3\n${"DESIGN CONDITIONS,0\n".repeat(i % 3)}garbage`)
+            : k === 4 ? new Uint8Array([0x50, 0x4b, 0x03, 0x04, i & 255])
+            : k === 5 ? enc.encode(`LOCATION,\u0000${"x".repeat(i % 300)}\n1,2,3`)
+            : k === 6 ? enc.encode(Array.from({ length: 30 }, (_, r) => `${r},\uD800,${r * 1e308}`).join("\n"))
+            : new Uint8Array(0);
+          form.set("file", new Blob([new Uint8Array(bytes)]), k === 6 ? "w.csv" : "w.epw");
+          form.set("name", k === 7 ? "\u0000".repeat(5) : "x".repeat(i % 400));
+          if (k === 6) form.set("mapping", i % 2 ? "{not json" : JSON.stringify({ dryBulb: "\uDC00", columns: [1e308, NaN] }));
+          return new Request(url, { method: "POST", body: form });
+        }),
+      run: async (req) => {
+        const upload = await readClimateUpload(req);
+        if (!upload.ok) return upload.outcome.status;
+        const o = await importClimateFile(db, { projectId: P.id, firmId: w.firmA, actorId: consultant.id, siteElevationM: 240 }, upload.form);
+        return o.status;
+      },
+    },
+  );
+
   ops.push(
     { name: "createProjectAction → createProject", viewer: as(consultant), base: () => ({ firmId: w.firmA, clientName: "Invented client", name: "Fuzz project", siteName: "Site", locationLabel: "Valley", elevationM: 10, unitSystem: "SI", currency: "USD" }), keep: ["firmId"], run: (v, raw) => createProject(db, v, raw) },
     { name: "updateProjectAction → updateProject", viewer: as(consultant), base: () => ({ projectId: P.id, revision: 1, clientName: "Invented client", name: "Fuzz project", siteName: "Site", locationLabel: "Valley", elevationM: 10, unitSystem: "SI", currency: "USD" }), keep: keepP, run: (v, raw) => updateProject(db, v, raw) },
@@ -119,9 +208,18 @@ beforeAll(async () => {
   );
 }, 120_000);
 afterAll(async () => {
-  console.log(`[fuzz-actions] all server actions: ${grand.total} payloads → ${grand.text()}`);
+  console.log(`[fuzz-actions] all server actions and route bodies: ${grand.total} payloads → ${grand.text()}`);
   await db.destroy();
 });
+
+/** JSON text of a payload; nesting too deep for JSON.stringify is written out by hand. */
+function jsonText(v: unknown): string {
+  try {
+    return JSON.stringify(v) ?? "null";
+  } catch {
+    return `{"deep":${"[".repeat(5000)}${"]".repeat(5000)}}`;
+  }
+}
 
 describe("seeded fuzz of every server action (in-process, real PostgreSQL)", () => {
   it("covers every exported server action", () => {
@@ -156,5 +254,31 @@ describe("seeded fuzz of every server action (in-process, real PostgreSQL)", () 
     console.log(`[fuzz-actions] ${ops.length} actions × ${PER_ACTION} in ${Math.round(performance.now() - t0)} ms`);
     expect(problems.slice(0, 30)).toEqual([]);
     expect(changedTables(before, await dbSnapshot(db)), "tables changed by malformed payloads").toEqual([]);
+  }, 600_000);
+
+  it(`${PER_ACTION} malformed requests per route handler body (in-process Request objects): only 4xx (2xx only where nothing is stored), nothing changed`, async () => {
+    const before = await dbSnapshot(db);
+    const problems: string[] = [];
+    for (const route of routes) {
+      if (ONLY && !route.name.includes(ONLY)) continue;
+      const tally = new StatusTally();
+      const reqs = route.requests();
+      const one = async (req: Request, i: number) => {
+        try {
+          const st = await route.run(req);
+          tally.add(st);
+          const fine = (st >= 400 && st < 500) || (route.stateless && st === 200) || (route.name.includes("climate") && st === 200);
+          if (!fine) problems.push(`${route.name} #${i}: answered ${st}`);
+        } catch (err) {
+          tally.add(500);
+          problems.push(`${route.name} #${i}: threw ${(err as Error).message.slice(0, 200)}`);
+        }
+      };
+      for (let i = 0; i < reqs.length; i += 4) await Promise.all(reqs.slice(i, i + 4).map((r, j) => one(r, i + j)));
+      for (const [st, c] of tally.counts) for (let j = 0; j < c; j++) grand.add(st);
+      console.log(`[fuzz-actions] ${route.name}: ${tally.total} → ${tally.text()}`);
+    }
+    expect(problems.slice(0, 30)).toEqual([]);
+    expect(changedTables(before, await dbSnapshot(db)), "tables changed by malformed requests").toEqual([]);
   }, 600_000);
 });
