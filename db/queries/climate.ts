@@ -75,3 +75,13 @@ export function findProjectClimateDataset(ex: Executor, projectId: string, datas
     .where("project_id", "=", projectId)
     .executeTakeFirst();
 }
+
+/** The datasets a scenario may use (one project's), newest first: id, name, kind and size only. */
+export function listClimateDatasetChoices(db: Executor, projectId: string) {
+  return db
+    .selectFrom("climate_datasets")
+    .select(["id", "name", "source_kind as sourceKind", "hours_total as hoursTotal", "record_count as recordCount", "created_at as createdAt"])
+    .where("project_id", "=", projectId)
+    .orderBy("created_at", "desc")
+    .execute();
+}

@@ -109,3 +109,13 @@ export async function consumeInvitation(db: Executor, invitationId: string, user
     .returning(["id", "project_id as projectId", "role", "email"])
     .executeTakeFirst();
 }
+
+/** Delete invitations that expired unused more than `days` ago (the audit trail keeps the record). */
+export async function deleteInvitationsExpiredBefore(db: Executor, days: number): Promise<number> {
+  const r = await db
+    .deleteFrom("invitations")
+    .where("accepted_at", "is", null)
+    .where("expires_at", "<", sql<Date>`now() - make_interval(days => ${days})`)
+    .executeTakeFirst();
+  return Number(r.numDeletedRows);
+}

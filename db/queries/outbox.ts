@@ -130,3 +130,14 @@ export async function findOutboxStatus(db: Executor, id: string) {
     .where("id", "=", id)
     .executeTakeFirst();
 }
+
+/** Empty the bodies of messages that are no longer pending; returns how many. */
+export async function clearFinishedMailBodies(db: Executor): Promise<number> {
+  const r = await db
+    .updateTable("mail_outbox")
+    .set({ text_body: "", html_body: null })
+    .where("status", "<>", "pending")
+    .where((eb) => eb.or([eb("text_body", "<>", ""), eb("html_body", "is not", null)]))
+    .executeTakeFirst();
+  return Number(r.numUpdatedRows);
+}

@@ -32,3 +32,13 @@ export async function addSignInFailure(ex: Executor, key: string, limit: { maxFa
 export async function deleteSignInAttempts(ex: Executor, key: string): Promise<void> {
   await ex.deleteFrom("sign_in_attempts").where("key", "=", key).execute();
 }
+
+/** Delete throttle rows whose window started over a day ago and whose block (if any) has passed. */
+export async function deleteStaleSignInAttempts(ex: Executor): Promise<number> {
+  const r = await ex
+    .deleteFrom("sign_in_attempts")
+    .where("window_start", "<", sql<Date>`now() - interval '1 day'`)
+    .where((eb) => eb.or([eb("blocked_until", "is", null), eb("blocked_until", "<", sql<Date>`now()`)]))
+    .executeTakeFirst();
+  return Number(r.numDeletedRows);
+}

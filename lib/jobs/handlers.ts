@@ -4,10 +4,13 @@
  * An analysis that fails by itself (the inputs changed, over budget, an engine error) records the failure
  * and returns (no retry); a database or network error is thrown, so the queue retries the job.
  */
-import { sql, type Kysely } from "kysely";
+import type { Kysely } from "kysely";
+import { deleteApiAnalysesOlderThan, failApiAnalysis, findApiAnalysisForJob, markApiAnalysisRunning, storeApiAnalysisResultOnce } from "@/db/queries/api-analyses";
+import { deleteInvitationsExpiredBefore } from "@/db/queries/invitations";
+import { deleteStaleSignInAttempts } from "@/db/queries/sign-in-attempts";
 import type { Database } from "@/db/schema";
 import { failResult, findResultById, markResultRunning, storeResultOnce } from "@/db/queries/results";
-import { cancelStaleInvitationMail, markMailAttemptFailed } from "@/db/queries/outbox";
+import { cancelStaleInvitationMail, clearFinishedMailBodies, markMailAttemptFailed } from "@/db/queries/outbox";
 import { ENGINE_VERSION, isBudgetExceeded, timeBudget, type ScenarioResult } from "@/lib/engine";
 import { computeDeterministic, computeMonteCarlo, analyzeDocument } from "@/lib/scenarios/analysis";
 import { inputsHash } from "@/lib/scenarios/hash";
@@ -78,29 +81,17 @@ export async function runScenarioResultJob(db: Kysely<Database>, resultId: strin
 
 /** A queued analysis API request: validate the stored document again, compute, store once, drop the input. */
 export async function runApiAnalysisJob(db: Kysely<Database>, analysisId: string): Promise<AnalysisOutcome> {
-  const row = await db.selectFrom("api_analyses").select(["id", "status", "input"]).where("id", "=", analysisId).executeTakeFirst();
+  const row = await findApiAnalysisForJob(db, analysisId);
   if (!row) return "gone";
   if (row.status === "done") return "alreadyDone";
   if (row.status === "failed") return "failed";
   const fail = async (error: string) => {
-    await db
-      .updateTable("api_analyses")
-      .set({ status: "failed", error, input: null, finished_at: sql`now()` })
-      .where("id", "=", analysisId)
-      .where("status", "<>", "done")
-      .execute();
+    await failApiAnalysis(db, analysisId, error);
     return "failed" as const;
   };
   const parsed = parseScenarioDocument(row.input);
   if (!parsed.ok) return fail("The stored request no longer validates.");
-  const running = await db
-    .updateTable("api_analyses")
-    .set({ status: "running", started_at: sql`now()` })
-    .where("id", "=", analysisId)
-    .where("status", "in", ["queued", "running"])
-    .returning("id")
-    .executeTakeFirst();
-  if (!running) return "alreadyDone";
+  if (!(await markApiAnalysisRunning(db, analysisId))) return "alreadyDone";
   await yieldNow();
   let out;
   try {
@@ -108,14 +99,7 @@ export async function runApiAnalysisJob(db: Kysely<Database>, analysisId: string
   } catch (err) {
     return fail(engineFailure(err));
   }
-  const stored = await db
-    .updateTable("api_analyses")
-    .set({ status: "done", result: JSON.stringify(out), input: null, error: null, finished_at: sql`now()` })
-    .where("id", "=", analysisId)
-    .where("status", "<>", "done")
-    .returning("id")
-    .executeTakeFirst();
-  return stored ? "stored" : "alreadyDone";
+  return (await storeApiAnalysisResultOnce(db, analysisId, out)) ? "stored" : "alreadyDone";
 }
 
 /** One outbox message; the attempt numbers come from the job (pg-boss counts the retries). */
@@ -137,12 +121,7 @@ export async function recordDeadJob(db: Kysely<Database>, data: unknown): Promis
   const reason = "The background run failed several times (its worker stopped or lost the database); start it again.";
   if (d.kind === "scenarioResult" && d.resultId) await failResult(db, d.resultId, reason);
   else if (d.kind === "apiAnalysis" && d.analysisId) {
-    await db
-      .updateTable("api_analyses")
-      .set({ status: "failed", error: reason, input: null, finished_at: sql`now()` })
-      .where("id", "=", d.analysisId)
-      .where("status", "<>", "done")
-      .execute();
+    await failApiAnalysis(db, d.analysisId, reason);
   } else if (d.kind === "mail" && d.outboxId) {
     await cancelStaleInvitationMail(db, d.outboxId);
     await markMailAttemptFailed(db, d.outboxId, "Delivery failed on every attempt.", null);
@@ -170,30 +149,10 @@ export const RETENTION = {
  * API results older than a day, and any message body left on a message that is no longer pending.
  */
 export async function runCleanup(db: Kysely<Database>): Promise<CleanupReport> {
-  const inv = await db
-    .deleteFrom("invitations")
-    .where("accepted_at", "is", null)
-    .where("expires_at", "<", sql<Date>`now() - make_interval(days => ${RETENTION.expiredInvitationDays})`)
-    .executeTakeFirst();
-  const throttle = await db
-    .deleteFrom("sign_in_attempts")
-    .where("window_start", "<", sql<Date>`now() - interval '1 day'`)
-    .where((eb) => eb.or([eb("blocked_until", "is", null), eb("blocked_until", "<", sql<Date>`now()`)]))
-    .executeTakeFirst();
-  const api = await db
-    .deleteFrom("api_analyses")
-    .where("created_at", "<", sql<Date>`now() - make_interval(hours => ${RETENTION.apiAnalysisHours})`)
-    .executeTakeFirst();
-  const bodies = await db
-    .updateTable("mail_outbox")
-    .set({ text_body: "", html_body: null })
-    .where("status", "<>", "pending")
-    .where((eb) => eb.or([eb("text_body", "<>", ""), eb("html_body", "is not", null)]))
-    .executeTakeFirst();
   return {
-    invitations: Number(inv.numDeletedRows),
-    signInRows: Number(throttle.numDeletedRows),
-    apiAnalyses: Number(api.numDeletedRows),
-    mailBodies: Number(bodies.numUpdatedRows),
+    invitations: await deleteInvitationsExpiredBefore(db, RETENTION.expiredInvitationDays),
+    signInRows: await deleteStaleSignInAttempts(db),
+    apiAnalyses: await deleteApiAnalysesOlderThan(db, RETENTION.apiAnalysisHours),
+    mailBodies: await clearFinishedMailBodies(db),
   };
 }

@@ -3,7 +3,8 @@
  * and how many Monte Carlo draws those stand for. Checked in the transaction that queues the work, under
  * a per-user advisory lock, so two requests at the same moment cannot both slip under the limit.
  */
-import { sql, type Transaction } from "kysely";
+import type { Transaction } from "kysely";
+import { lockAndCountOpenWorkOfUser } from "@/db/queries/jobs";
 import type { Database } from "@/db/schema";
 
 export const JOB_LIMITS = {
@@ -19,15 +20,8 @@ export interface OpenWork {
 }
 
 /** Take the user's job lock for the rest of the transaction and count what is open. */
-export async function lockAndCountOpenWork(trx: Transaction<Database>, userId: string): Promise<OpenWork> {
-  await sql`select pg_advisory_xact_lock(hashtext(${"loopledger-jobs:" + userId}))`.execute(trx);
-  const r = await sql<{ jobs: number; draws: number }>`
-    select count(*)::int as jobs, coalesce(sum(draws), 0)::int as draws from (
-      select draws from scenario_results where requested_by = ${userId} and status in ('queued', 'running')
-      union all
-      select draws from api_analyses where user_id = ${userId} and status in ('queued', 'running')
-    ) open_work`.execute(trx);
-  return r.rows[0] ?? { jobs: 0, draws: 0 };
+export function lockAndCountOpenWork(trx: Transaction<Database>, userId: string): Promise<OpenWork> {
+  return lockAndCountOpenWorkOfUser(trx, userId);
 }
 
 export type LimitCheck = { ok: true } | { ok: false; message: string };

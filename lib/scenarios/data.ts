@@ -18,6 +18,7 @@ import { fail, invalid, ok, REFUSALS, type Refusal, type Result } from "@/lib/re
 import { db } from "@/db";
 import { writeAudit } from "@/db/queries/audit";
 import { listScenarioSummaries } from "@/db/queries/scenarios";
+import { listClimateDatasetChoices } from "@/db/queries/climate";
 import { inputsHash } from "./hash";
 import { latestResultsOfKind } from "@/db/queries/results";
 import { authorizeProject, loadProjectAccess, type ProjectAccess, type Viewer } from "@/lib/auth/access";
@@ -137,12 +138,7 @@ export async function listArchivedScenarios(access: ProjectAccess): Promise<{ id
 
 /** Climate datasets a scenario may use (this project's), newest first. */
 export async function listProjectDatasets(projectId: string) {
-  return db
-    .selectFrom("climate_datasets")
-    .select(["id", "name", "source_kind as sourceKind", "hours_total as hoursTotal", "record_count as recordCount", "created_at as createdAt"])
-    .where("project_id", "=", projectId)
-    .orderBy("created_at", "desc")
-    .execute();
+  return listClimateDatasetChoices(db, projectId);
 }
 
 /** The scenario named by the input's `scenarioId`, in the authorized project (404 when it is another project's). */
