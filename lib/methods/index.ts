@@ -5,6 +5,8 @@ import { marked, type Token, type Tokens } from "marked";
 import { ENGINE_VERSION } from "@/lib/engine/version";
 import { fieldDefaults } from "@/lib/scenarios/schema";
 import { componentLifeDefaultsYears, type FieldDefault } from "@/lib/scenarios/schema-economics";
+import { fieldInfo } from "@/lib/scenarios/field-labels";
+import { formatNumber, formatQuantity } from "@/lib/units";
 
 /**
  * The methods document (lib/methods/methods.md) as blocks that both the Methods page and the PDF
@@ -46,15 +48,42 @@ export function defaultText(v: unknown): string {
     .join(", ");
 }
 
-/** Every default of the scenario schema with its source, as markdown table rows. */
+/** An identifier-like default ("variableSpeed") in words ("variable speed"); other text as written. */
+function wordsOf(v: string): string {
+  return /^[a-z]+(?:[A-Z][a-z0-9]*)+$/.test(v) ? v.replace(/([a-z0-9])([A-Z])/g, "$1 $2").toLowerCase() : v;
+}
+
+/**
+ * A default as a person reads it: in the field's display unit (SI, like the rest of this document), percent
+ * fields ×100 with "%", yes/no for switches, identifiers in words. Values with no display stay as written.
+ */
+export function defaultCell(field: string, v: unknown): string {
+  const d = fieldInfo(field).display;
+  if (typeof v === "boolean") return v ? "yes" : "no";
+  if (typeof v === "string") return wordsOf(v);
+  if (typeof v !== "number" || !d) return defaultText(v);
+  const n = (x: number) => formatNumber(x, { sig: 4, grouping: false });
+  if ("q" in d) return d.q === "money" ? n(v) + " (currency of the project)" : formatQuantity(d.q, v, "SI", { sig: 4, grouping: false });
+  if ("percent" in d) return `${n(v * 100)} %${d.perYear ? "/yr" : ""}`;
+  if ("unit" in d) {
+    if (d.unit.startsWith("%")) return `${n(v * 100)} ${d.unit}`;
+    if (d.unit === "—" || d.unit === "year") return n(v);
+    return `${n(v)} ${d.unit}`;
+  }
+  return defaultText(v);
+}
+
+/** Every default of the scenario schema with its source, as markdown table rows: the input's name, then its key in the scenario file. */
 export function defaultsTableMarkdown(): string {
   const rows: [string, string, string][] = [
-    ...Object.entries(fieldDefaults as Record<string, FieldDefault>).map(
-      ([field, d]) => [field, defaultText(d.default), d.source] as [string, string, string],
-    ),
+    ...Object.entries(fieldDefaults as Record<string, FieldDefault>).map(([field, d]) => {
+      const info = fieldInfo(field);
+      const name = info.group && info.group !== info.label ? `${info.group}: ${info.label}` : info.label;
+      return [`${name} (${field})`, defaultCell(field, d.default), d.source] as [string, string, string];
+    }),
     ...Object.entries(componentLifeDefaultsYears).map(
       ([component, d]) =>
-        [`component life: ${component} (years)`, defaultText(d.default), d.source] as [
+        [`Component life: ${wordsOf(component)}`, `${defaultText(d.default)} years`, d.source] as [
           string,
           string,
           string,
@@ -63,7 +92,7 @@ export function defaultsTableMarkdown(): string {
   ];
   const cell = (s: string) => s.replace(/\|/g, "\\|").replace(/\n/g, " ");
   return [
-    "| Input | Default | Source |",
+    "| Input (key in the scenario file) | Default | Source |",
     "| --- | --- | --- |",
     ...rows.map((r) => `| ${r.map(cell).join(" | ")} |`),
   ].join("\n");

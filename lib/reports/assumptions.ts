@@ -98,7 +98,8 @@ class Rows {
   }
   money(label: string, v: number | undefined, source: string, decimals = 0): this {
     if (v === undefined || !Number.isFinite(v)) return this;
-    this.rows.push({ label, value: fmtMoney(v, this.currency, decimals), unit: this.currency, source });
+    // The currency is the row's unit, so the value carries no symbol (not "$185,000 USD").
+    this.rows.push({ label, value: fmtNumber(v, decimals), unit: this.currency, source });
     return this;
   }
   /** A price per SI unit shown per the viewer's unit (per kgal in IP). */

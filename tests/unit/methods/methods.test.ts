@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
-import { methodsDocument } from "@/lib/methods";
+import { defaultCell, methodsDocument } from "@/lib/methods";
 import { fieldDefaults } from "@/lib/scenarios/schema";
 import { ENGINE_VERSION } from "@/lib/engine/version";
 
@@ -40,9 +40,26 @@ describe("the methods document (lib/methods/methods.md)", () => {
     const table = doc.blocks.find((b) => b.kind === "table");
     expect(table?.kind).toBe("table");
     if (table?.kind !== "table") return;
-    const fields = new Set(table.rows.map((r) => r[0]));
+    // Each row names the input, then its key in the scenario file in parentheses.
+    const fields = new Set(table.rows.map((r) => /\(([^()]+)\)$/.exec(r[0] ?? "")?.[1]));
     for (const key of Object.keys(fieldDefaults)) expect(fields, key).toContain(key);
     for (const r of table.rows) expect(r[2]?.trim().length, `source of ${r[0]}`).toBeGreaterThan(0);
+  });
+
+  it("shows each default as a person reads it: percent ×100, units, yes/no, words (hand conversions)", () => {
+    // 0.005 as a fraction per year = 0.5 %/yr; a drift of 0.00005 of the flow = 0.005 % (hand calculation).
+    expect(defaultCell("tariffs.escalation.energy", 0.005)).toBe("0.5 %/yr");
+    expect(defaultCell("options[].driftFractionOfFlow", 0.00005)).toBe("0.005 % of flow");
+    expect(defaultCell("options[].fan.minSpeedFraction", 0.25)).toBe("25 %");
+    expect(defaultCell("options[].basinHeater.setPointC", 4.4)).toBe("4.4\u00a0°C");
+    expect(defaultCell("economics.baseYear", 2026)).toBe("2026");
+    expect(defaultCell("options[].cooler.allowDryMode", true)).toBe("yes");
+    expect(defaultCell("options[].fan.control", "variableSpeed")).toBe("variable speed");
+    const table = doc.blocks.find((b) => b.kind === "table");
+    if (table?.kind !== "table") throw new Error("no defaults table");
+    const row = table.rows.find((r) => r[0]?.endsWith("(tariffs.escalation.energy)"));
+    expect(row?.[0]).toBe("Real escalation: Escalation of electric energy (tariffs.escalation.energy)");
+    expect(row?.[1]).toBe("0.5 %/yr");
   });
 
   it("states one water-density convention", () => {
