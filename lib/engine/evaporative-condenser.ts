@@ -19,6 +19,7 @@
  * factor k calibrated on the dry rating (else 0.5–0.8 [practice]).
  * Evaporation from the air-side balance (leaving air saturated at ha,in + Q/ma), as every wet device.
  */
+import { allowedSprayModes } from "./spray-modes";
 import { type EnteringAir, evaporationKgPerS, saturatedTemperatureFromEnthalpyC } from "./air-side";
 import type { Sourced } from "./condenser-construction";
 import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } from "./fans";
@@ -318,13 +319,7 @@ export interface EvaporativeCondenserHourResult {
  * a switch-over dry-bulb fixes the mode; otherwise wet, and dry too where the unit is rated for it.
  */
 export function allowedEvaporativeCondenserModes(model: EvaporativeCondenserModel, dryBulbC: number): { wet: boolean; dry: boolean } {
-  if (dryBulbC < model.sprayLockoutDryBulbC) return { wet: false, dry: true };
-  const dryAllowed = model.allowDryMode && dryBulbC <= model.dryModeMaxDryBulbC;
-  if (model.modeSelection === "switchOverDryBulb") {
-    const dry = dryAllowed && dryBulbC <= model.switchOverDryBulbC;
-    return { wet: !dry, dry };
-  }
-  return { wet: true, dry: dryAllowed };
+  return allowedSprayModes(model, dryBulbC);
 }
 
 /**

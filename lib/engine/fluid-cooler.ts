@@ -15,11 +15,12 @@
  * Lewis analogy hc = hD·cp times a dry factor (calibrated on the dry rating when given, else
  * 0.5–0.8 [practice]); driving difference to the dry-bulb; no evaporation, no spray pump.
  */
+import { allowedSprayModes } from "./spray-modes";
 import { saturatedAirEnthalpyKJPerKg as saturatedAirEnthalpyKJPerKgBound } from "./psychrometrics";
 import { type EnteringAir, evaporationKgPerS as evaporationKgPerSBound } from "./air-side";
 import { type FanModel, fanOperationForRequiredAirflow as fanOperationForRequiredAirflowBound, highStateTimeFraction as highStateTimeFractionBound } from "./fans";
 import { type GlycolKind, fluidProperties, tubeSideCoefficientRatio } from "./glycol";
-import { counterflowEffectiveness as counterflowEffectivenessBound, counterflowNtu } from "./heat-exchanger";
+import { counterflowNtu } from "./heat-exchanger";
 import type { EngineWarning } from "./types";
 
 // Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
@@ -29,7 +30,6 @@ const saturatedAirEnthalpyKJPerKg = saturatedAirEnthalpyKJPerKgBound;
 const evaporationKgPerS = evaporationKgPerSBound;
 const fanOperationForRequiredAirflow = fanOperationForRequiredAirflowBound;
 const highStateTimeFraction = highStateTimeFractionBound;
-const counterflowEffectiveness = counterflowEffectivenessBound;
 
 /** The manufacturer's selection of a closed-circuit cooler. */
 export interface CoolerSelection {
@@ -192,25 +192,12 @@ export function coolerConductanceKWPerK(
   air: EnteringAir,
   csKJPerKgK: number | undefined,
 ): number {
-  const f = Math.max(airflowFraction, 1e-4);
-  const ma = model.designAirFlowKgPerS * f;
-  const f08 = Math.pow(f, 0.8);
-  let ca: number;
-  let uaExt: number;
-  if (csKJPerKgK === undefined) {
-    const cp = air.moistSpecificHeatKJPerKgK;
-    ca = ma * cp;
-    uaExt = model.dryFactor * model.externalMassTransferKgPerS * f08 * cp;
-  } else {
-    ca = ma * csKJPerKgK;
-    uaExt = model.externalWetUaKWPerK * f08 * (csKJPerKgK / model.designCsKJPerKgK);
-  }
-  const cf = model.fluidCapacityKWPerK;
-  const cmin = Math.min(ca, cf);
-  const cr = cmin / Math.max(ca, cf);
-  const ua = 1 / (1 / model.internalUaKWPerK + 1 / uaExt);
-  return counterflowEffectiveness(ua / cmin, cr) * cmin;
+  coolerConductanceWithSlope(model, airflowFraction, air, csKJPerKgK, K_ONLY);
+  return K_ONLY.k;
 }
+
+/** Scratch of `coolerConductanceKWPerK` (its own, so a caller holding `KS` is never overwritten). */
+const K_ONLY = { k: 0, dk: 0 };
 
 /** One hour (or bin) of cooler operation; rates are hour averages. */
 export interface CoolerHourResult {
@@ -451,13 +438,7 @@ const warm: { model: CoolerModel | null; wetFraction: number; dryFraction: numbe
  * `dryModeMaxDryBulbC`, and wet always.
  */
 export function allowedCoolerModes(model: CoolerModel, dryBulbC: number): { wet: boolean; dry: boolean } {
-  if (dryBulbC < model.sprayLockoutDryBulbC) return { wet: false, dry: true };
-  const dryAllowed = model.allowDryMode && dryBulbC <= model.dryModeMaxDryBulbC;
-  if (model.modeSelection === "switchOverDryBulb") {
-    const dry = dryAllowed && dryBulbC <= model.switchOverDryBulbC;
-    return { wet: !dry, dry };
-  }
-  return { wet: true, dry: dryAllowed };
+  return allowedSprayModes(model, dryBulbC);
 }
 
 /**
