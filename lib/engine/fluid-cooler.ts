@@ -196,6 +196,8 @@ export function coolerConductanceKWPerK(
   return K_ONLY.k;
 }
 
+const POW08 = { f: Number.NaN, value: 0 };
+
 /** Scratch of `coolerConductanceKWPerK` (its own, so a caller holding `KS` is never overwritten). */
 const K_ONLY = { k: 0, dk: 0 };
 
@@ -329,7 +331,12 @@ export function coolerCapacityKW(
 export function coolerConductanceWithSlope(model: CoolerModel, airflowFraction: number, air: EnteringAir, csKJPerKgK: number | undefined, out: { k: number; dk: number }): void {
   const f = Math.max(airflowFraction, 1e-4);
   const ma = model.designAirFlowKgPerS * f;
-  const f08 = Math.pow(f, 0.8);
+  // The passes of a floating solve repeat one airflow: keep its f^0.8.
+  if (f !== POW08.f) {
+    POW08.f = f;
+    POW08.value = Math.pow(f, 0.8);
+  }
+  const f08 = POW08.value;
   let ca: number;
   let uaExt: number;
   if (csKJPerKgK === undefined) {
