@@ -55,14 +55,29 @@ export const CATEGORY_COLORS: Record<CostCategory, string> = {
   residual: "#b9c4cc",
 };
 
+/** Longest scenario name the running header prints whole; a longer one is cut at a word with "…". */
+export const HEADER_NAME_MAX_CHARS = 64;
+
+/** The running header's right-hand text: a long scenario name shortened so it never runs into the firm's name. */
+export function headerScenarioText(scenarioName: string, versionLabel: string): string {
+  let name = scenarioName;
+  if (name.length > HEADER_NAME_MAX_CHARS) {
+    // One character more than is kept, so a space just after the last whole word counts as its end.
+    const cut = name.slice(0, HEADER_NAME_MAX_CHARS);
+    const space = cut.lastIndexOf(" ");
+    name = `${(space > HEADER_NAME_MAX_CHARS / 2 ? cut.slice(0, space) : cut).replace(/[\s,;:·—-]+$/, "")}…`;
+  }
+  return `${name}  ·  ${versionLabel}`;
+}
+
 function Chrome({ source }: { source: ReportSource }) {
   return (
     <>
       <View style={S.header} fixed>
         <T
-          style={{ fontWeight: 600, color: COLORS.basin700 }}
+          style={{ fontWeight: 600, color: COLORS.basin700, flexShrink: 0, marginRight: 16 }}
         >{`LoopLedger  ·  ${source.preparedBy.firmName}`}</T>
-        <T>{`${source.scenarioName}  ·  ${source.versionLabel}`}</T>
+        <T style={{ flexShrink: 1, textAlign: "right" }}>{headerScenarioText(source.scenarioName, source.versionLabel)}</T>
       </View>
       <View style={S.footerRule} fixed />
       <T style={S.footerLeft} fixed>{`${source.project.name}  ·  screening estimate, see cautions`}</T>

@@ -1,5 +1,5 @@
 /**
- * The report's assumptions table: a money row has its currency in the Unit column once, not "$185,000 USD"
+ * The report's assumptions table and running header: a money row has its currency in the Unit column once, not "$185,000 USD"
  * (the value column is a bare number). The labour rate is the schema's default of 85 per hour
  * ([practice] loaded technician rate, lib/scenarios/schema-economics.ts), written with two decimals.
  */
@@ -18,5 +18,16 @@ describe("assumptions: money rows", () => {
     for (const r of money) expect(r.value, r.label).toMatch(/^−?[\d,]+(\.\d+)?$/);
     const labour = rows.find((r) => r.label === "Maintenance labour rate");
     expect(labour).toMatchObject({ value: "85.00", unit: "USD/h" });
+  });
+});
+
+describe("the PDF's running header", () => {
+  it("shortens a long scenario name at a word so it cannot run into the firm's name", async () => {
+    const { headerScenarioText, HEADER_NAME_MAX_CHARS } = await import("@/lib/reports/pdf/document");
+    // The demo's 94-character name, cut by hand: its 64th character is the space after "closed-circuit", so the header keeps 63 and adds "…".
+    const long = "Condenser heat rejection: tower, isolated tower, closed-circuit cooler or evaporative condenser";
+    expect(HEADER_NAME_MAX_CHARS).toBe(64);
+    expect(headerScenarioText(long, "Version 1")).toBe("Condenser heat rejection: tower, isolated tower, closed-circuit…  ·  Version 1");
+    expect(headerScenarioText("Base case, 2026 tariffs", "Draft")).toBe("Base case, 2026 tariffs  ·  Draft");
   });
 });
