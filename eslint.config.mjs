@@ -47,7 +47,36 @@ const config = [
     rules: {
       "no-restricted-imports": [
         "error",
-        { paths: [{ name: "@/db", message: "app/ reaches the database through lib/*/data.ts or db/queries, not the db instance." }] },
+        {
+          paths: [
+            { name: "@/db", message: "app/ reaches the database through lib/*/data.ts or db/queries, not the db instance." },
+            { name: "kysely", allowTypeImports: true, message: "Queries live in db/queries; app/ may import kysely's types only." },
+          ],
+        },
+      ],
+    },
+  },
+  // Queries are written in db/queries only: lib and components may use kysely's types, not its builders
+  // (lib/jobs/boss.ts is the queue's bridge onto the same connection and runs the queue's own SQL).
+  {
+    files: ["lib/**/*.{ts,tsx}"],
+    ignores: ["lib/engine/**", "lib/jobs/boss.ts"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        {
+          paths: [{ name: "kysely", allowTypeImports: true, message: "Queries live in db/queries; lib may import kysely's types only." }],
+          patterns: [{ group: ["@/components", "@/components/*", "**/components/**"], message: "lib must not import components (move the shared piece into lib)." }],
+        },
+      ],
+    },
+  },
+  {
+    files: ["components/**/*.{ts,tsx}"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        { paths: [{ name: "kysely", allowTypeImports: true, message: "Queries live in db/queries; components may import kysely's types only." }] },
       ],
     },
   },

@@ -15,3 +15,10 @@ export async function lockAndCountOpenWorkOfUser(trx: Executor, userId: string):
     ) open_work`.execute(trx);
   return r.rows[0] ?? { jobs: 0, draws: 0 };
 }
+
+/** Singleton keys of the queue's jobs that are not finished yet (pg-boss keeps them in `schema`.job). */
+export async function liveJobSingletonKeys(ex: Executor, schema: string): Promise<Set<string>> {
+  const r = await sql<{ key: string }>`
+    select singleton_key as key from ${sql.raw(schema)}.job where state < 'completed' and singleton_key is not null`.execute(ex);
+  return new Set(r.rows.map((row) => row.key));
+}

@@ -5,7 +5,8 @@
  * them. The integration tests start workers in-process or as child processes.
  */
 import PgBoss from "pg-boss";
-import { sql, type Kysely } from "kysely";
+import type { Kysely } from "kysely";
+import { liveJobSingletonKeys } from "@/db/queries/jobs";
 import type { Database } from "@/db/schema";
 import { openResultRows, type ResultKind } from "@/db/queries/results";
 import { pendingMailIds } from "@/db/queries/outbox";
@@ -46,11 +47,7 @@ function dataOf<T extends JobData["kind"]>(
  * 'short' policy and the mail job ids keep this from creating repeats.
  */
 export async function resubmitOpenWork(db: Kysely<Database>): Promise<{ results: number; mail: number }> {
-  const live = await sql<{ key: string }>`
-    select singleton_key as key from ${sql.raw(BOSS_SCHEMA)}.job where state < 'completed' and singleton_key is not null`.execute(
-    db,
-  );
-  const liveKeys = new Set(live.rows.map((r) => r.key));
+  const liveKeys = await liveJobSingletonKeys(db, BOSS_SCHEMA);
   let results = 0;
   for (const row of await openResultRows(db)) {
     if (liveKeys.has(row.id)) continue;
