@@ -1,6 +1,6 @@
 /**
  * Regression guard for engine speed work — NOT a physics check. The reference figures in
- * tests/fixtures/engine-regression.json were frozen from the engine itself (scripts/engine-regression.ts)
+ * tests/fixtures/regression/engine-regression.json were frozen from the engine itself (scripts/engine-regression.ts)
  * before the solvers were made faster; this test only shows that faster solvers give the same answer.
  * The physics is checked against outside sources (ASHRAE, CTI, psychrolib, hand calculations) in the
  * other engine tests.
@@ -18,7 +18,7 @@ import { REGRESSION_CASES, type RegressionFigures, regressionFigures } from "./r
 
 vi.setConfig({ testTimeout: 120_000 });
 
-const frozen = JSON.parse(readFileSync(resolve(FIXTURES, "engine-regression.json"), "utf8")) as Record<string, RegressionFigures>;
+const frozen = JSON.parse(readFileSync(resolve(FIXTURES, "regression", "engine-regression.json"), "utf8")) as Record<string, RegressionFigures>;
 
 describe("engine regression guard (frozen from the engine itself; physics is tested elsewhere)", () => {
   for (const [name, load] of REGRESSION_CASES) {
