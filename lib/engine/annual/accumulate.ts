@@ -9,7 +9,7 @@ import type { EnergyByComponentKWh, MonthlyPhysics, WaterByComponentM3 } from ".
 import { blowdown as blowdownBound, sewerBilled as sewerBilledBound } from "../water";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
-import { evaluateRecord as evaluateRecordBound } from "./record";
+import { evaluateRecord as evaluateRecordBound, newRecordRates } from "./record";
 import { DAYS_IN_MONTH, WATER_DENSITY_KG_PER_M3 } from "./shared";
 import { resetCoolerWarmStarts } from "../fluid-cooler";
 import { resetTowerWarmStart } from "../tower";
@@ -60,6 +60,8 @@ export function simulateOptionYear(
   stride = 1,
 ): OptionYearTotals {
   const cl = ctx.climate;
+  // One rates object for the whole year: each record fills it and is read before the next one.
+  const scratch = newRecordRates();
   // The solvers' warm starts begin afresh for every year, so a run never depends on what ran before it.
   resetCoolerWarmStarts();
   resetTowerWarmStart();
@@ -107,7 +109,7 @@ export function simulateOptionYear(
         : binLoadFraction(profile, i, month > 0 ? month : undefined, air.dryBulbC);
     const heatKW = ctx.designHeatKW * fraction * ctx.loadFactor;
     const rf = month > 0 ? (foulingByMonth[month - 1] ?? 0) : meanRf;
-    const r = evaluateRecord(po, ctx, air, heatKW, rf);
+    const r = evaluateRecord(po, ctx, air, heatKW, rf, scratch);
     const e = r.evaporationKgPerS * toM3PerH * w;
     const d = r.driftKgPerS * toM3PerH * w;
     const b = blowdown(e, cycles, d);

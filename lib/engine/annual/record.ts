@@ -43,27 +43,30 @@ const towerRecord = towerRecordBound;
 export type { RecordRates } from "./record-types";
 
 
-export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: EnteringAir, heatKW: number, towerSideRf: number): RecordRates {
+/**
+ * One record's rates. `into` (optional) is a rates object to fill instead of a new one — the year loop
+ * passes one scratch object and reads it before the next record; every field is reset here.
+ */
+export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: EnteringAir, heatKW: number, towerSideRf: number, into?: RecordRates): RecordRates {
   const o = po.input;
-  const rates: RecordRates = {
-    heatKW,
-    fanKW: 0,
-    condenserPumpKW: 0,
-    secondaryPumpKW: 0,
-    sprayPumpKW: 0,
-    heaterKW: 0,
-    compressorKW: 0,
-    aboveCleanKW: 0,
-    compressorExtrapolated: false,
-    evaporationKgPerS: 0,
-    driftKgPerS: 0,
-    dry: false,
-    unmet: false,
-    running: false,
-    condensingC: 0,
-    referenceC: 0,
-    hottestSurfaceC: Number.NEGATIVE_INFINITY,
-  };
+  const rates = into ?? newRecordRates();
+  rates.heatKW = heatKW;
+  rates.fanKW = 0;
+  rates.condenserPumpKW = 0;
+  rates.secondaryPumpKW = 0;
+  rates.sprayPumpKW = 0;
+  rates.heaterKW = 0;
+  rates.compressorKW = 0;
+  rates.aboveCleanKW = 0;
+  rates.compressorExtrapolated = false;
+  rates.evaporationKgPerS = 0;
+  rates.driftKgPerS = 0;
+  rates.dry = false;
+  rates.unmet = false;
+  rates.running = false;
+  rates.condensingC = 0;
+  rates.referenceC = 0;
+  rates.hottestSurfaceC = Number.NEGATIVE_INFINITY;
   // Heater power should the basin hold still water in this hour (0 when drained then).
   const stillBasinHeaterKW = o.basinHeater.drainedWhenIdle ? 0 : basinHeaterPowerKW(o.basinHeater, air.dryBulbC);
   if (!(heatKW > 0)) {
@@ -110,4 +113,27 @@ function finishRates(rates: RecordRates, ctx: YearContext, refrigerationKW: numb
   rates.aboveCleanKW = Math.max(0, rates.compressorKW - compressorPowerKW(ctx.compressor, refrigerationKW, reference));
   rates.compressorExtrapolated = compressorExtrapolates(ctx.compressor, condensing);
   rates.unmet = ctx.duty.headPressureControl === "fixedSetPoint" ? !held : condensing > ctx.duty.condensingSetPointC + SET_POINT_TOLERANCE_K;
+}
+
+/** A rates object with every field at its idle value. */
+export function newRecordRates(): RecordRates {
+  return {
+    heatKW: 0,
+    fanKW: 0,
+    condenserPumpKW: 0,
+    secondaryPumpKW: 0,
+    sprayPumpKW: 0,
+    heaterKW: 0,
+    compressorKW: 0,
+    aboveCleanKW: 0,
+    compressorExtrapolated: false,
+    evaporationKgPerS: 0,
+    driftKgPerS: 0,
+    dry: false,
+    unmet: false,
+    running: false,
+    condensingC: 0,
+    referenceC: 0,
+    hottestSurfaceC: Number.NEGATIVE_INFINITY,
+  };
 }
