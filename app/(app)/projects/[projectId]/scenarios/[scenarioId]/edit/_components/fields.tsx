@@ -138,7 +138,8 @@ export function ScaledField({
               Default{" "}
               {hasDefault ? (
                 <span className="font-mono tabular-nums">
-                  {formatNumber(show(d.value as number), { sig: 4 })} {unit}
+                  {/* A year reads 2026, not 2,026. */}
+                  {formatNumber(show(d.value as number), { sig: 4, grouping: unit !== "year" })} {unit}
                 </span>
               ) : (
                 String(d.value)
