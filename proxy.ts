@@ -1,6 +1,6 @@
 import { getToken } from "next-auth/jwt";
 import { NextResponse, type NextRequest } from "next/server";
-import { ACTION_BODY_LIMIT_BYTES, checkMultipartReply, checkTextReply, hasNoScriptActionFields, sameOriginAction, type EnvelopeCheck } from "@/lib/http/action-envelope";
+import { ACTION_BODY_LIMIT_BYTES, checkMultipartReply, checkNoScriptForm, checkTextReply, hasNoScriptActionFields, sameOriginAction, type EnvelopeCheck } from "@/lib/http/action-envelope";
 import { readBodyLimited } from "@/lib/http/body";
 import { setAsideForwardedFor } from "@/lib/http/client-address";
 import { contentSecurityPolicy, newNonce, SECURITY_HEADERS, STRICT_CSP } from "@/lib/http/security";
@@ -87,9 +87,9 @@ async function checkActionEnvelope(request: NextRequest): Promise<EnvelopeCheck>
     }
     // A fetch action (the Next-Action header) encodes its arguments as numbered parts: every reference must
     // name a part that was sent. A form posted without JavaScript carries "$ACTION_…" fields instead and
-    // no header; the framework reads those itself.
+    // no header: its bound arguments' description is checked the same way (checkNoScriptForm).
     if (request.headers.has("next-action") && !hasNoScriptActionFields(form)) return checkMultipartReply(form);
-    return { ok: true };
+    return checkNoScriptForm(form);
   }
   // ignoreBOM: a byte-order mark stays in the text, so JSON.parse refuses it here as the framework would.
   return checkTextReply(new TextDecoder("utf-8", { ignoreBOM: true }).decode(body.bytes));

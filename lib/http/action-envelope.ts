@@ -115,6 +115,34 @@ export function checkMultipartReply(form: FormData): EnvelopeCheck {
   return { ok: true };
 }
 
+/**
+ * A form posted without JavaScript whose action has bound arguments: "$ACTION_REF_<n>" names the form, and
+ * "$ACTION_<n>:0" holds `{ id, bound }` in the reply format, its references naming "$ACTION_<n>:<k>" parts.
+ * The framework answers 500 when `bound` refers to a part that was not sent; refused here with 400.
+ */
+export function checkNoScriptForm(form: FormData): EnvelopeCheck {
+  for (const key of form.keys()) {
+    if (!key.startsWith("$ACTION_REF_")) continue;
+    const prefix = `$ACTION_${key.slice("$ACTION_REF_".length)}:`;
+    const root = form.get(`${prefix}0`);
+    if (typeof root !== "string") return bad("The form names an action it does not describe.");
+    const parsed = parseJson(root);
+    if (!parsed.ok) return bad("The form's action description is not valid JSON.");
+    const meta = parsed.value as { id?: unknown; bound?: unknown } | null;
+    if (!meta || typeof meta !== "object" || typeof meta.id !== "string") return bad("The form's action description is malformed.");
+    const r = checkReplyValue(meta, (id) => typeof form.get(`${prefix}${id}`) === "string");
+    if (!r.ok) return r;
+    for (const [k, v] of form.entries()) {
+      if (!k.startsWith(prefix) || k === `${prefix}0` || typeof v !== "string") continue;
+      const part = parseJson(v);
+      if (!part.ok) return bad("A part of the form's action description is not valid JSON.");
+      const rp = checkReplyValue(part.value, (id) => typeof form.get(`${prefix}${id}`) === "string");
+      if (!rp.ok) return rp;
+    }
+  }
+  return { ok: true };
+}
+
 /** A form posted without JavaScript (progressive enhancement): its action is named by "$ACTION_…" fields. */
 export function hasNoScriptActionFields(form: FormData): boolean {
   for (const key of form.keys()) if (key.startsWith("$ACTION_")) return true;

@@ -19,7 +19,8 @@ import { BASE_URL } from "./support";
  * takes a body gets PER_ROUTE (300) malformed requests (tests/support/fuzz.ts payloads as JSON, broken JSON,
  * wrong content types, bodies over the limit; broken multipart for the weather upload; malformed
  * credentials for sign-in), and the server-action envelope a few hundred (broken JSON, deep nesting,
- * __proto__, over 1 MB, multipart with a broken boundary or references to parts never sent). No answer may
+ * __proto__, over 1 MB, multipart with a broken boundary or references to parts never sent, forms posted
+ * without JavaScript whose bound arguments refer to missing parts). No answer may
  * be a 5xx, and the database must be as before (row count and checksum of every table). The actions' own
  * input checks get 2,000 payloads each in-process (tests/integration/fuzz-actions.test.ts).
  */
@@ -45,6 +46,13 @@ const lines: string[] = [];
  * 1.5 s apart agree (the outbox counts by its messages, not their delivery state: MESSAGE_COLUMNS).
  */
 async function quietSnapshot(): Promise<Record<string, string>> {
+  // First let the worker finish every queued or running analysis (a Monte Carlo reports progress as it goes).
+  for (let i = 0; i < 120; i++) {
+    const open = await db.selectFrom("scenario_results").select("id").where("status", "in", ["queued", "running"]).executeTakeFirst();
+    const api = await db.selectFrom("api_analyses").select("id").where("status", "in", ["queued", "running"]).executeTakeFirst();
+    if (!open && !api) break;
+    await new Promise((r) => setTimeout(r, 1000));
+  }
   let prev = await dbSnapshot(db);
   for (let i = 0; i < 40; i++) {
     await new Promise((r) => setTimeout(r, 1500));
@@ -229,7 +237,23 @@ describe("seeded fuzz over HTTP: route handlers and the server-action envelope",
         }),
       );
     }
-    const line = `[fuzz-http] server-action envelopes (${actions.length} actions): ${tally.total} → ${tally.text()}`;
+    // Forms posted without JavaScript: "$ACTION_REF_1" whose bound arguments refer to parts never sent.
+    const noScript: Req[] = Array.from({ length: Math.max(20, Math.floor(PER_ACTION_ENVELOPE / 10)) }, (_, i) => {
+      const a = actions[i % actions.length]!;
+      const form = new FormData();
+      form.set("$ACTION_REF_1", "");
+      form.set("$ACTION_1:0", [`{"id":"${a.id}","bound":"$@5"}`, `{"id":"${a.id}","bound":["$Q9"]}`, "{broken", `{"id":"${a.id}","bound":[{"__proto__":{}}]}`][i % 4]!);
+      form.set("$ACTION_KEY", "k1");
+      return { body: form, contentType: "" };
+    });
+    for (const r of noScript) {
+      const res = await post("/account", consultant)(r);
+      await res.arrayBuffer();
+      tally.add(res.status);
+      grand.add(res.status);
+      if (res.status >= 500) bad.push(`no-script form: ${res.status}`);
+    }
+    const line = `[fuzz-http] server-action envelopes (${actions.length} actions, incl. forms without JavaScript): ${tally.total} → ${tally.text()}`;
     lines.push(line);
     console.log(line);
 

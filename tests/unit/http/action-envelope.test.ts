@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { ACTION_MAX_DEPTH, checkMultipartReply, checkTextReply, hasNoScriptActionFields, sameOriginAction } from "@/lib/http/action-envelope";
+import { ACTION_MAX_DEPTH, checkMultipartReply, checkNoScriptForm, checkTextReply, hasNoScriptActionFields, sameOriginAction } from "@/lib/http/action-envelope";
 
 // What React's client encoder (encodeReply) sends for plain arguments, written out by hand: a JSON list of
 // arguments; "$" strings are escapes ("$$"), inline values ("$undefined", "$NaN", "$D<date>", "$n<digits>")
@@ -67,6 +67,24 @@ describe("server-action envelopes", () => {
     missing.set("0", '[null,"$K1","$@2"]');
     missing.set("_1_x", "y");
     expect(checkMultipartReply(missing)).toMatchObject({ ok: false, status: 400 });
+  });
+  it("checks a form posted without JavaScript: bound arguments must refer to parts that were sent", () => {
+    const good = new FormData();
+    good.set("$ACTION_REF_1", "");
+    good.set("$ACTION_1:0", '{"id":"60913784870dbe02a05dc1f53e3e010c90d3943ca9","bound":"$@1"}');
+    good.set("$ACTION_1:1", '["7f1c0c5e-0000-4000-8000-000000000000"]');
+    good.set("$ACTION_KEY", "k1");
+    good.set("email", "someone@example.test");
+    expect(checkNoScriptForm(good)).toEqual({ ok: true });
+    const plain = new FormData();
+    plain.set("$ACTION_ID_60913784870dbe02a05dc1f53e3e010c90d3943ca9", "");
+    expect(checkNoScriptForm(plain)).toEqual({ ok: true });
+    for (const meta of ['{"id":"a","bound":"$@5"}', '{"id":"a","bound":["$Q9"]}', "{broken", '{"bound":null}']) {
+      const f = new FormData();
+      f.set("$ACTION_REF_1", "");
+      f.set("$ACTION_1:0", meta);
+      expect(checkNoScriptForm(f), meta).toMatchObject({ ok: false, status: 400 });
+    }
   });
   it("refuses a byte-order mark before the JSON (the framework's parser does)", () => {
     expect(checkTextReply('\uFEFF["a"]')).toMatchObject({ ok: false, status: 400 });
