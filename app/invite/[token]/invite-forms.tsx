@@ -30,7 +30,7 @@ export function NewAccountForm({ token, email }: { token: string; email: string 
   }, [state, router]);
 
   return (
-    <form onSubmit={submitKeepingFields(action)} className="space-y-4" data-testid="invite-new-account" noValidate>
+    <form method="post" onSubmit={submitKeepingFields(action)} className="space-y-4" data-testid="invite-new-account" noValidate>
       <Field id="invite-email" name="email" label="E-mail" state={state} defaultValue={email} readOnly />
       <Field id="invite-name" name="name" label="Your name" autoComplete="name" state={state} required />
       <Field

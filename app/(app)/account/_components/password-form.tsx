@@ -30,7 +30,7 @@ export function PasswordForm() {
     });
   }, [state, router]);
   return (
-    <form ref={formRef} onSubmit={submitKeepingFields(action)} className="max-w-md space-y-4" data-testid="password-form" noValidate>
+    <form method="post" ref={formRef} onSubmit={submitKeepingFields(action)} className="max-w-md space-y-4" data-testid="password-form" noValidate>
       <Field id="pw-current" name="currentPassword" label="Current password" type="password" autoComplete="current-password" state={state} required />
       <Field
         id="pw-new"

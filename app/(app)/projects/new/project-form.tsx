@@ -73,7 +73,7 @@ export function ProjectForm({ mode, projectId, revision, firms, initial, cancelH
 
   return (
     <UnitsProvider system={unitSystem === "IP" ? "IP" : "SI"} currency={currency || "USD"}>
-      <form onSubmit={onSubmit} noValidate className="space-y-6" data-testid="project-form" aria-label={mode === "create" ? "New project" : "Edit project"}>
+      <form method="post" onSubmit={onSubmit} noValidate className="space-y-6" data-testid="project-form" aria-label={mode === "create" ? "New project" : "Edit project"}>
         <FormErrorSummary
           errors={formState.errors}
           formError={formError}

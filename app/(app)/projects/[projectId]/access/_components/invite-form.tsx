@@ -11,7 +11,7 @@ export function InviteForm({ projectId }: { projectId: string }) {
     if (state?.ok) formRef.current?.reset();
   }, [state]);
   return (
-    <form ref={formRef} onSubmit={submitKeepingFields(action)} className="grid gap-4 md:grid-cols-[2fr_1fr_auto] md:items-start" data-testid="invite-form" noValidate>
+    <form method="post" ref={formRef} onSubmit={submitKeepingFields(action)} className="grid gap-4 md:grid-cols-[2fr_1fr_auto] md:items-start" data-testid="invite-form" noValidate>
       <Field id="invite-email" name="email" label="E-mail address" type="email" autoComplete="off" state={state} required />
       <Field
         id="invite-role"

@@ -378,7 +378,7 @@ export function ClimateUpload({ projectId, maxBytes }: { projectId: string; maxB
   }
 
   return (
-    <form onSubmit={submit} className="space-y-5" noValidate data-testid="climate-upload">
+    <form method="post" onSubmit={submit} className="space-y-5" noValidate data-testid="climate-upload">
       <div className="grid gap-4 md:grid-cols-2">
         <div>
           <label htmlFor={fileId} className="block text-sm font-medium">

@@ -302,6 +302,7 @@ export function ScenarioEditor(props: {
       <RatingFitsProvider control={form.control} fits={ratingFits}>
       <FormProvider {...form}>
         <form
+          method="post"
           noValidate
           onSubmit={form.handleSubmit(save, onInvalid)}
           className="grid gap-6 lg:grid-cols-[15rem_1fr]"

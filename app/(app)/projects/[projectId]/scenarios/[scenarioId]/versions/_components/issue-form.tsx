@@ -7,7 +7,7 @@ import { issueAction } from "../actions";
 export function IssueForm({ projectId, scenarioId, nextNumber }: { projectId: string; scenarioId: string; nextNumber: number }) {
   const [state, action, pending] = useActionState<ActionState, FormData>(issueAction.bind(null, projectId, scenarioId), null);
   return (
-    <form onSubmit={submitKeepingFields(action)} className="space-y-3" data-testid="issue-form">
+    <form method="post" onSubmit={submitKeepingFields(action)} className="space-y-3" data-testid="issue-form">
       <div>
         <label htmlFor="issue-note" className="block text-sm font-medium">
           Note to the client <span className="font-normal text-ink-faint">(optional)</span>

@@ -12,7 +12,7 @@ export function CommentForm({ projectId, versionId }: { projectId: string; versi
   }, [state]);
   const errors = state && !state.ok ? state.fieldErrors?.body : undefined;
   return (
-    <form ref={ref} onSubmit={submitKeepingFields(action)} className="space-y-3" data-testid="comment-form">
+    <form method="post" ref={ref} onSubmit={submitKeepingFields(action)} className="space-y-3" data-testid="comment-form">
       <label htmlFor="comment-body" className="block text-sm font-medium">
         Add a comment for the consultant
       </label>
