@@ -11,8 +11,11 @@ export const CHART_COLORS = {
   danger: "#b42323",
 };
 
-/** One colour per option, in option order (teal, copper, slate, amber). */
-export const OPTION_COLORS = ["#157277", "#bf6a2e", "#3d4b57", "#a86a00"];
+/**
+ * One colour per option, in option order (teal, copper, slate, light teal) — the PDF report's order. Amber as
+ * the fourth was hard to tell from copper in the cumulative-cost lines; light teal differs in lightness too.
+ */
+export const OPTION_COLORS = ["#157277", "#bf6a2e", "#56697a", "#7cc4c6"];
 
 /** Cost categories, stacked bottom to top. */
 export const CATEGORY_COLORS: Record<string, string> = {
