@@ -6,7 +6,7 @@
  */
 import { scenarioSchema } from "./schema";
 import { withPlaceholders } from "./validate";
-import { sectionOfPath, type EditorValues, type SectionId } from "./editor-values";
+import { partOfPath, sectionOfPath, type EditorValues, type PartId, type SectionId } from "./editor-values";
 import { humanIssue, type MessageContext } from "./field-messages";
 
 export interface EditorProblem {
@@ -57,6 +57,23 @@ export function statusBySection(problems: readonly EditorProblem[]): Map<Section
     const s = m.get(p.section) ?? { missing: 0, invalid: 0 };
     s[p.kind] += 1;
     m.set(p.section, s);
+  }
+  return m;
+}
+
+/** Problems of one step counted per part (the step's own count is their sum). */
+export function statusByPart(
+  problems: readonly EditorProblem[],
+  section: SectionId,
+): Map<PartId, SectionStatus> {
+  const m = new Map<PartId, SectionStatus>();
+  for (const p of problems) {
+    if (p.section !== section) continue;
+    const part = partOfPath(p.path);
+    if (!part) continue;
+    const s = m.get(part) ?? { missing: 0, invalid: 0 };
+    s[p.kind] += 1;
+    m.set(part, s);
   }
   return m;
 }

@@ -80,3 +80,85 @@ export function sectionOfPath(path: string): SectionId {
     return "economics";
   return "general";
 }
+
+/**
+ * The parts of the long steps, shown one at a time (`?section=option-2&part=condenser`): an option step in
+ * four parts, Economics in four. The other steps are short enough to show whole.
+ */
+export const OPTION_PARTS = [
+  { id: "selection", title: "Selection and fans" },
+  { id: "condenser", title: "Condenser" },
+  { id: "pumps", title: "Pumps, basin and water" },
+  { id: "costs", title: "First cost and upkeep" },
+] as const;
+export const ECONOMICS_PARTS = [
+  { id: "study", title: "Study and rates" },
+  { id: "sensitivity", title: "Sensitivity" },
+  { id: "monte-carlo", title: "Monte Carlo" },
+  { id: "footprint", title: "Footprint" },
+] as const;
+
+export type OptionPartId = (typeof OPTION_PARTS)[number]["id"];
+export type EconomicsPartId = (typeof ECONOMICS_PARTS)[number]["id"];
+export type PartId = OptionPartId | EconomicsPartId;
+export interface EditorPart {
+  readonly id: PartId;
+  readonly title: string;
+}
+
+/** The parts of a step, in order; none for a step shown whole. */
+export function partsOfSection(id: SectionId): readonly EditorPart[] {
+  if (id === "economics") return ECONOMICS_PARTS;
+  return optionIndexOfSection(id) === null ? [] : OPTION_PARTS;
+}
+
+/** Parse a `?part=` value for a step: its first part when the value is not one of its parts. */
+export function parsePart(section: SectionId, value: string | null | undefined): PartId | null {
+  const parts = partsOfSection(section);
+  if (parts.length === 0) return null;
+  return parts.find((p) => p.id === value)?.id ?? parts[0]!.id;
+}
+
+/** Fields of an option's condenser part: the condenser, the plate exchanger, an evaporative condenser's coil. */
+const OPTION_CONDENSER_PREFIXES = [
+  "condenser",
+  "plateExchanger",
+  "evaporativeCondenser.coilMaterial",
+  "evaporativeCondenser.specificChargeKgPerKW",
+  "evaporativeCondenser.coilScaling",
+  "evaporativeCondenser.coilLifeYears",
+  "evaporativeCondenser.coilReplacementCost",
+];
+const OPTION_PUMP_PREFIXES = [
+  "condenserPump",
+  "towerPump",
+  "sprayPump",
+  "basinHeater",
+  "cyclesOfConcentration",
+  "driftFractionOfFlow",
+  "wetLoopVolumeM3",
+];
+const startsWithField = (rest: string, prefixes: readonly string[]) =>
+  prefixes.some((p) => rest === p || rest.startsWith(`${p}.`));
+
+/** The part of its step a field path is edited in (null for a step shown whole). */
+export function partOfPath(path: string): PartId | null {
+  const m = /^options\.\d+(?:\.(.*))?$/.exec(path);
+  if (m) {
+    const rest = m[1] ?? "";
+    if (startsWithField(rest, OPTION_CONDENSER_PREFIXES)) return "condenser";
+    if (startsWithField(rest, OPTION_PUMP_PREFIXES)) return "pumps";
+    if (startsWithField(rest, ["costs"])) return "costs";
+    return "selection";
+  }
+  if (sectionOfPath(path) !== "economics") return null;
+  if (path.startsWith("sensitivity")) return "sensitivity";
+  if (path.startsWith("monteCarlo")) return "monte-carlo";
+  if (path.startsWith("footprint")) return "footprint";
+  return "study";
+}
+
+/** Where a step/part lives in the editor's address (`?section=option-1&part=costs`). */
+export function editorPlaceQuery(section: SectionId, part: PartId | null): string {
+  return part ? `?section=${section}&part=${part}` : `?section=${section}`;
+}

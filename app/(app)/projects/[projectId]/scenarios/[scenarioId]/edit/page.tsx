@@ -15,10 +15,10 @@ export default async function EditScenarioPage({
   searchParams,
 }: {
   params: Promise<{ projectId: string; scenarioId: string }>;
-  searchParams: Promise<{ section?: string | string[] }>;
+  searchParams: Promise<{ section?: string | string[]; part?: string | string[] }>;
 }) {
   const { projectId, scenarioId } = await params;
-  const { section } = await searchParams;
+  const { section, part } = await searchParams;
   const { access, ctx } = await requireScenario(projectId, scenarioId, "scenario.edit", {
     withClimateData: false,
   });
@@ -57,6 +57,7 @@ export default async function EditScenarioPage({
         datasets={datasets.map((d) => ({ id: d.id, name: d.name }))}
         initial={initial}
         initialSection={typeof section === "string" ? section : null}
+        initialPart={typeof part === "string" ? part : null}
         initialProblems={validateEditorValues(initial, units)}
         initialRatingFits={ratingFits}
       />

@@ -281,8 +281,11 @@ export function CondenserConstructionGroup({ i, kind }: { i: number; kind: Optio
   );
 }
 
-/** The evaporative condenser's rating, wet/dry operation, coil and spray pump. */
-export function EvaporativeCondenserGroups({ i }: { i: number }) {
+/**
+ * The evaporative condenser's rating and wet/dry operation (the option's "selection" part), or its coil (the
+ * "condenser" part).
+ */
+export function EvaporativeCondenserGroups({ i, part }: { i: number; part: "selection" | "condenser" }) {
   const { setValue } = useFormContext<V>();
   const p = `options.${i}.evaporativeCondenser` as const;
   const modeSelection = useWatch<V, `options.${number}.evaporativeCondenser.modeSelection`>({
@@ -291,6 +294,7 @@ export function EvaporativeCondenserGroups({ i }: { i: number }) {
   const dryRating = useWatch<V, `options.${number}.evaporativeCondenser.dryRating`>({
     name: `${p}.dryRating`,
   });
+  if (part === "condenser") return <EvaporativeCondenserCoil i={i} />;
   return (
     <>
       <Group
@@ -365,6 +369,14 @@ export function EvaporativeCondenserGroups({ i }: { i: number }) {
           </>
         ) : null}
       </Group>
+    </>
+  );
+}
+
+function EvaporativeCondenserCoil({ i }: { i: number }) {
+  const p = `options.${i}.evaporativeCondenser` as const;
+  return (
+    <>
       <Group
         title="Coil"
         note="Scale on the coil derates its capacity until the coil is cleaned; the cleaning restores it. The coil's refrigerant counts in the inventory."

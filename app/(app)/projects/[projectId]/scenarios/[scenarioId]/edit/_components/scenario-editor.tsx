@@ -22,14 +22,27 @@ import {
 import { SelectField, TextField, UnitsProvider, fieldId } from "@/components/forms";
 import {
   EDITOR_SECTIONS,
+  editorPlaceQuery,
   optionIndexOfSection,
   optionSectionId,
+  parsePart,
   parseSection,
+  partOfPath,
+  partsOfSection,
   sectionOrder,
+  type EconomicsPartId,
   type EditorValues,
+  type OptionPartId,
+  type PartId,
   type SectionId,
 } from "@/lib/scenarios/editor-values";
-import { statusBySection, validateEditorValues, type EditorProblem } from "@/lib/scenarios/editor-validation";
+import {
+  statusByPart,
+  statusBySection,
+  validateEditorValues,
+  type EditorProblem,
+  type SectionStatus,
+} from "@/lib/scenarios/editor-validation";
 import { placeOf, placeText, type MessageContext } from "@/lib/scenarios/field-messages";
 import { OPTION_KIND_LABELS } from "@/lib/engine/types";
 import type { UnitSystem } from "@/lib/units";
@@ -82,6 +95,7 @@ export function ScenarioEditor(props: {
   datasets: { id: string; name: string }[];
   initial: V;
   initialSection: string | null;
+  initialPart: string | null;
   initialProblems: EditorProblem[];
   initialRatingFits: RatingFits;
 }) {
@@ -111,6 +125,9 @@ export function ScenarioEditor(props: {
   const options = useFieldArray<V, "options">({ control: form.control, name: "options" });
   const optionCount = options.fields.length;
   const [active, setActive] = useState<SectionId>(() => parseSection(props.initialSection, optionCount));
+  const [activePart, setActivePart] = useState<PartId | null>(() =>
+    parsePart(parseSection(props.initialSection, optionCount), props.initialPart),
+  );
   const [revision, setRevision] = useState(props.revision);
   const [banner, setBanner] = useState<Banner>(null);
   const [formMessages, setFormMessages] = useState<string[]>([]);
@@ -124,12 +141,21 @@ export function ScenarioEditor(props: {
   const base = `/projects/${projectId}/scenarios/${scenarioId}`;
   const order = sectionOrder(optionCount);
   const current = order.includes(active) ? active : "general";
+  const currentPart = parsePart(current, activePart);
 
-  const select = useCallback((id: SectionId, focus?: string) => {
+  /**
+   * Open a step (and one of its parts: its first when none is named) and put it in the address. Focus goes to
+   * `focus` (a field), else to the step's title; `focus: null` leaves it where it is (a part's own link).
+   */
+  const select = useCallback((id: SectionId, opts: { part?: PartId | null; focus?: string | null } = {}) => {
+    const part = parsePart(id, opts.part);
     setActive(id);
-    focusAfterRender.current = focus ?? `${id}-title`;
+    setActivePart(part);
+    focusAfterRender.current = opts.focus === null ? null : (opts.focus ?? `${id}-title`);
     const url = new URL(window.location.href);
     url.searchParams.set("section", id);
+    if (part) url.searchParams.set("part", part);
+    else url.searchParams.delete("part");
     url.hash = "";
     window.history.pushState(null, "", url.toString());
   }, []);
@@ -147,10 +173,12 @@ export function ScenarioEditor(props: {
 
   // Back and forward move between sections as they were opened.
   useEffect(() => {
-    const onPop = () =>
-      setActive(
-        parseSection(new URL(window.location.href).searchParams.get("section"), options.fields.length),
-      );
+    const onPop = () => {
+      const params = new URL(window.location.href).searchParams;
+      const section = parseSection(params.get("section"), options.fields.length);
+      setActive(section);
+      setActivePart(parsePart(section, params.get("part")));
+    };
     window.addEventListener("popstate", onPop);
     return () => window.removeEventListener("popstate", onPop);
   }, [options.fields.length]);
@@ -265,7 +293,10 @@ export function ScenarioEditor(props: {
         }
         setBanner({
           kind: "error",
-          text: r.status === 401 ? "Your session has ended: sign in again (your edits stay in this tab)." : r.error,
+          text:
+            r.status === 401
+              ? "Your session has ended: sign in again (your edits stay in this tab)."
+              : r.error,
         });
       });
     },
@@ -292,208 +323,246 @@ export function ScenarioEditor(props: {
     () => props.datasets.map((d) => ({ value: d.id, label: d.name })),
     [props.datasets],
   );
-  const index = order.indexOf(current);
-  const prev = index > 0 ? order[index - 1] : null;
-  const next = index < order.length - 1 ? order[index + 1] : null;
+  // Previous and next walk the parts of a step, then the steps (entering a step at its first part).
+  const places = order.flatMap((id) => {
+    const parts = partsOfSection(id);
+    return parts.length === 0
+      ? [{ id, part: null }]
+      : parts.map((p) => ({ id, part: p.id as PartId | null }));
+  });
+  const index = places.findIndex((p) => p.id === current && p.part === currentPart);
+  const prev = index > 0 ? places[index - 1]! : null;
+  const next = index >= 0 && index < places.length - 1 ? places[index + 1]! : null;
   const optionIndex = optionIndexOfSection(current);
+  const partNav = (
+    <PartNav
+      control={form.control}
+      store={store}
+      section={current}
+      active={currentPart}
+      onSelect={(part) => select(current, { part, focus: null })}
+    />
+  );
 
   return (
     <UnitsProvider system={props.unitSystem} currency={props.currency}>
       <RatingFitsProvider control={form.control} fits={ratingFits}>
-      <FormProvider {...form}>
-        <form
-          method="post"
-          noValidate
-          onSubmit={form.handleSubmit(save, onInvalid)}
-          className="grid gap-6 lg:grid-cols-[15rem_1fr]"
-          data-testid="scenario-editor"
-          aria-label="Scenario inputs"
-        >
-          <SectionNav control={form.control} store={store} order={order} active={current} onSelect={select} />
-          <div className="min-w-0 space-y-6">
-            {showSummary ? (
-              <ProblemSummary
-                control={form.control}
-                store={store}
-                formMessages={formMessages}
-                focusKey={summaryFocus}
-                onGo={(path) => select(sectionOfProblem(store, path), fieldId(path))}
-              />
-            ) : null}
-            <div id="editor-panel" aria-live="off">
-              {current === "general" ? (
-                <Section
-                  id="general"
-                  title="General"
-                  intro="Name the scenario, choose the climate it runs on and the options it compares."
-                >
-                  <div className="grid gap-4 sm:grid-cols-2">
-                    <TextField<V> name="name" label="Scenario name" maxLength={200} required />
-                    <SelectField<V>
-                      name="climateDatasetId"
-                      label="Climate dataset"
-                      options={datasetOptions}
-                      placeholder="Choose a dataset"
-                      emptyValue=""
-                      required
-                      description="Stored typical-year weather of this project (hourly or bins)."
-                    />
-                  </div>
-                  <GeneralOptions
-                    control={form.control}
-                    onAdd={(o) => options.append(o)}
-                    onOpen={(i) => select(optionSectionId(i))}
-                  />
-                </Section>
-              ) : null}
-              {current === "duty" ? <DutySection /> : null}
-              {optionIndex !== null && options.fields[optionIndex] ? (
-                <OptionSection
-                  key={options.fields[optionIndex].id}
-                  i={optionIndex}
-                  canRemove={optionCount > 2}
-                  onRemove={() => {
-                    if (!window.confirm(`Remove option ${optionIndex + 1} and everything entered for it?`))
-                      return;
-                    options.remove(optionIndex);
-                    select("general");
-                  }}
+        <FormProvider {...form}>
+          <form
+            method="post"
+            noValidate
+            onSubmit={form.handleSubmit(save, onInvalid)}
+            className="grid gap-6 lg:grid-cols-[15rem_1fr]"
+            data-testid="scenario-editor"
+            aria-label="Scenario inputs"
+          >
+            <SectionNav
+              control={form.control}
+              store={store}
+              order={order}
+              active={current}
+              onSelect={select}
+            />
+            <div className="min-w-0 space-y-6">
+              {showSummary ? (
+                <ProblemSummary
+                  control={form.control}
+                  store={store}
+                  formMessages={formMessages}
+                  focusKey={summaryFocus}
+                  onGo={(path) =>
+                    select(sectionOfProblem(store, path), { part: partOfPath(path), focus: fieldId(path) })
+                  }
                 />
               ) : null}
-              {current === "water" ? <WaterSection /> : null}
-              {current === "upkeep" ? <UpkeepSection /> : null}
-              {current === "tariffs" ? <TariffsSection /> : null}
-              {current === "economics" ? <EconomicsSection /> : null}
-            </div>
-            <div className="flex flex-wrap justify-between gap-2" data-testid="section-steps">
-              {prev ? (
-                <a
-                  href={`?section=${prev}`}
-                  data-section-link
-                  className="rounded-md border border-line-strong px-3 py-1.5 text-sm hover:bg-paper-sunk"
-                  onClick={(e) => (e.preventDefault(), select(prev))}
-                >
-                  ← <SectionTitle control={form.control} id={prev} />
-                </a>
-              ) : (
-                <span />
-              )}
-              {next ? (
-                <a
-                  href={`?section=${next}`}
-                  data-section-link
-                  className="rounded-md border border-line-strong px-3 py-1.5 text-sm hover:bg-paper-sunk"
-                  onClick={(e) => (e.preventDefault(), select(next))}
-                >
-                  <SectionTitle control={form.control} id={next} /> →
-                </a>
-              ) : null}
-            </div>
-            <div
-              className="sticky bottom-0 z-10 -mx-2 rounded-panel border border-line bg-paper-raised/95 px-4 py-3 shadow-panel backdrop-blur"
-              data-testid="save-bar"
-            >
-              {banner ? (
-                <div
-                  role={banner.kind === "saved" ? "status" : "alert"}
-                  data-testid={`banner-${banner.kind}`}
-                  className={`mb-3 rounded-md border px-3 py-2 text-sm ${
-                    banner.kind === "saved"
-                      ? "border-ok-600 bg-ok-50 text-ok-600"
-                      : banner.kind === "conflict"
-                        ? "border-caution-600 bg-caution-50 text-caution-800"
-                        : "border-danger-600 bg-danger-50 text-danger-700"
-                  }`}
-                >
-                  <p>{banner.text}</p>
-                  {banner.kind === "saved" ? (
-                    <Link href={base} className="mt-1 inline-block font-medium underline">
-                      See the comparison
-                    </Link>
-                  ) : null}
-                  {banner.kind === "conflict" ? (
-                    <div className="mt-2 flex flex-wrap gap-2">
-                      <button
-                        type="button"
-                        onClick={copyInputs}
-                        className="rounded-md border border-caution-600 bg-paper-raised px-3 py-1.5 text-sm"
-                      >
-                        Copy my inputs (JSON)
-                      </button>
-                      <button
-                        type="button"
-                        onClick={() => {
-                          if (
-                            window.confirm(
-                              `Load revision ${banner.currentRevision}? Your unsaved edits in this tab will be replaced (copy them first).`,
-                            )
-                          ) {
-                            dirtyRef.current = false;
-                            window.location.reload();
-                          }
-                        }}
-                        className="rounded-md border border-caution-600 bg-paper-raised px-3 py-1.5 text-sm"
-                      >
-                        Load the newer revision
-                      </button>
-                    </div>
-                  ) : null}
-                  {copied ? (
-                    copied.startsWith("{") ? (
-                      <textarea
-                        readOnly
-                        aria-label="Your inputs as JSON"
-                        className="mt-2 h-40 w-full rounded border border-line p-2 font-mono text-xs"
-                        value={copied}
+              <div id="editor-panel" aria-live="off">
+                {current === "general" ? (
+                  <Section
+                    id="general"
+                    title="General"
+                    intro="Name the scenario, choose the climate it runs on and the options it compares."
+                  >
+                    <div className="grid gap-4 sm:grid-cols-2">
+                      <TextField<V> name="name" label="Scenario name" maxLength={200} required />
+                      <SelectField<V>
+                        name="climateDatasetId"
+                        label="Climate dataset"
+                        options={datasetOptions}
+                        placeholder="Choose a dataset"
+                        emptyValue=""
+                        required
+                        description="Stored typical-year weather of this project (hourly or bins)."
                       />
-                    ) : (
-                      <p className="mt-1 text-xs">{copied}</p>
-                    )
-                  ) : null}
+                    </div>
+                    <GeneralOptions
+                      control={form.control}
+                      onAdd={(o) => options.append(o)}
+                      onOpen={(i) => select(optionSectionId(i))}
+                    />
+                  </Section>
+                ) : null}
+                {current === "duty" ? <DutySection /> : null}
+                {optionIndex !== null && options.fields[optionIndex] ? (
+                  <OptionSection
+                    key={options.fields[optionIndex].id}
+                    i={optionIndex}
+                    part={(currentPart ?? "selection") as OptionPartId}
+                    partNav={partNav}
+                    canRemove={optionCount > 2}
+                    onRemove={() => {
+                      if (!window.confirm(`Remove option ${optionIndex + 1} and everything entered for it?`))
+                        return;
+                      options.remove(optionIndex);
+                      select("general");
+                    }}
+                  />
+                ) : null}
+                {current === "water" ? <WaterSection /> : null}
+                {current === "upkeep" ? <UpkeepSection /> : null}
+                {current === "tariffs" ? <TariffsSection /> : null}
+                {current === "economics" ? (
+                  <EconomicsSection part={(currentPart ?? "study") as EconomicsPartId} partNav={partNav} />
+                ) : null}
+              </div>
+              <div className="flex flex-wrap justify-between gap-2" data-testid="section-steps">
+                {prev ? (
+                  <a
+                    href={editorPlaceQuery(prev.id, prev.part)}
+                    data-section-link
+                    data-testid="step-prev"
+                    className="rounded-md border border-line-strong px-3 py-1.5 text-sm hover:bg-paper-sunk"
+                    onClick={(e) => (e.preventDefault(), select(prev.id, { part: prev.part }))}
+                  >
+                    ← <PlaceTitle control={form.control} id={prev.id} part={prev.part} current={current} />
+                  </a>
+                ) : (
+                  <span />
+                )}
+                {next ? (
+                  <a
+                    href={editorPlaceQuery(next.id, next.part)}
+                    data-section-link
+                    data-testid="step-next"
+                    className="rounded-md border border-line-strong px-3 py-1.5 text-sm hover:bg-paper-sunk"
+                    onClick={(e) => (e.preventDefault(), select(next.id, { part: next.part }))}
+                  >
+                    <PlaceTitle control={form.control} id={next.id} part={next.part} current={current} /> →
+                  </a>
+                ) : null}
+              </div>
+              <div
+                className="sticky bottom-0 z-10 -mx-2 rounded-panel border border-line bg-paper-raised/95 px-4 py-3 shadow-panel backdrop-blur"
+                data-testid="save-bar"
+              >
+                {banner ? (
+                  <div
+                    role={banner.kind === "saved" ? "status" : "alert"}
+                    data-testid={`banner-${banner.kind}`}
+                    className={`mb-3 rounded-md border px-3 py-2 text-sm ${
+                      banner.kind === "saved"
+                        ? "border-ok-600 bg-ok-50 text-ok-600"
+                        : banner.kind === "conflict"
+                          ? "border-caution-600 bg-caution-50 text-caution-800"
+                          : "border-danger-600 bg-danger-50 text-danger-700"
+                    }`}
+                  >
+                    <p>{banner.text}</p>
+                    {banner.kind === "saved" ? (
+                      <Link href={base} className="mt-1 inline-block font-medium underline">
+                        See the comparison
+                      </Link>
+                    ) : null}
+                    {banner.kind === "conflict" ? (
+                      <div className="mt-2 flex flex-wrap gap-2">
+                        <button
+                          type="button"
+                          onClick={copyInputs}
+                          className="rounded-md border border-caution-600 bg-paper-raised px-3 py-1.5 text-sm"
+                        >
+                          Copy my inputs (JSON)
+                        </button>
+                        <button
+                          type="button"
+                          onClick={() => {
+                            if (
+                              window.confirm(
+                                `Load revision ${banner.currentRevision}? Your unsaved edits in this tab will be replaced (copy them first).`,
+                              )
+                            ) {
+                              dirtyRef.current = false;
+                              window.location.reload();
+                            }
+                          }}
+                          className="rounded-md border border-caution-600 bg-paper-raised px-3 py-1.5 text-sm"
+                        >
+                          Load the newer revision
+                        </button>
+                      </div>
+                    ) : null}
+                    {copied ? (
+                      copied.startsWith("{") ? (
+                        <textarea
+                          readOnly
+                          aria-label="Your inputs as JSON"
+                          className="mt-2 h-40 w-full rounded border border-line p-2 font-mono text-xs"
+                          value={copied}
+                        />
+                      ) : (
+                        <p className="mt-1 text-xs">{copied}</p>
+                      )
+                    ) : null}
+                  </div>
+                ) : null}
+                <div className="flex flex-wrap items-center gap-3">
+                  <button
+                    type="submit"
+                    disabled={pending}
+                    data-testid="save-scenario"
+                    className="inline-flex items-center justify-center gap-2 rounded-md bg-basin-600 px-4 py-2 text-sm font-medium text-white hover:bg-basin-700 disabled:bg-basin-300"
+                  >
+                    {pending ? "Saving and analysing…" : "Save and analyse"}
+                  </button>
+                  <DirtyNote control={form.control} revision={revision} dirtyRef={dirtyRef} />
+                  <button
+                    type="button"
+                    className="ml-auto rounded-md border border-line-strong bg-paper-raised px-3 py-1.5 text-sm hover:bg-paper-sunk"
+                    onClick={() => {
+                      const note = dirtyRef.current
+                        ? "The copy is made from the saved revision: your unsaved edits here are not in it. Clone anyway?"
+                        : "Make a copy of this scenario and open it?";
+                      if (!window.confirm(note)) return;
+                      dirtyRef.current = false;
+                      startTransition(async () => {
+                        const r = await cloneScenarioAction(projectId, scenarioId);
+                        if (!r.ok) setBanner({ kind: "error", text: r.error });
+                      });
+                    }}
+                  >
+                    Clone
+                  </button>
+                  <Link href={base} className="text-sm text-basin-700 hover:underline">
+                    Comparison
+                  </Link>
                 </div>
-              ) : null}
-              <div className="flex flex-wrap items-center gap-3">
-                <button
-                  type="submit"
-                  disabled={pending}
-                  data-testid="save-scenario"
-                  className="inline-flex items-center justify-center gap-2 rounded-md bg-basin-600 px-4 py-2 text-sm font-medium text-white hover:bg-basin-700 disabled:bg-basin-300"
-                >
-                  {pending ? "Saving and analysing…" : "Save and analyse"}
-                </button>
-                <DirtyNote control={form.control} revision={revision} dirtyRef={dirtyRef} />
-                <button
-                  type="button"
-                  className="ml-auto rounded-md border border-line-strong bg-paper-raised px-3 py-1.5 text-sm hover:bg-paper-sunk"
-                  onClick={() => {
-                    const note = dirtyRef.current
-                      ? "The copy is made from the saved revision: your unsaved edits here are not in it. Clone anyway?"
-                      : "Make a copy of this scenario and open it?";
-                    if (!window.confirm(note)) return;
-                    dirtyRef.current = false;
-                    startTransition(async () => {
-                      const r = await cloneScenarioAction(projectId, scenarioId);
-                      if (!r.ok) setBanner({ kind: "error", text: r.error });
-                    });
-                  }}
-                >
-                  Clone
-                </button>
-                <Link href={base} className="text-sm text-basin-700 hover:underline">
-                  Comparison
-                </Link>
               </div>
             </div>
-          </div>
-        </form>
-      </FormProvider>
+          </form>
+        </FormProvider>
       </RatingFitsProvider>
     </UnitsProvider>
   );
 }
 
 /** The last analysis's fits for the rating-point groups; "stale" once the form has unsaved changes. */
-function RatingFitsProvider({ control, fits, children }: { control: Control<V>; fits: RatingFits; children: React.ReactNode }) {
+function RatingFitsProvider({
+  control,
+  fits,
+  children,
+}: {
+  control: Control<V>;
+  fits: RatingFits;
+  children: React.ReactNode;
+}) {
   const { isDirty } = useFormState({ control });
   const value = useMemo(() => ({ fits, stale: isDirty }), [fits, isDirty]);
   return <RatingFitsContext.Provider value={value}>{children}</RatingFitsContext.Provider>;
@@ -514,6 +583,109 @@ function SectionTitle({ control, id }: { control: Control<V>; id: SectionId }) {
   if (i === null) return <>{EDITOR_SECTIONS.find((s) => s.id === id)?.title ?? id}</>;
   const o = labels?.[i];
   return <>{`Option ${i + 1}: ${o?.label || (o?.kind ? OPTION_KIND_LABELS[o.kind] : "")}`}</>;
+}
+
+/** A prev/next link's text: the part's name within the open step, else the step's (and part's) name. */
+function PlaceTitle({
+  control,
+  id,
+  part,
+  current,
+}: {
+  control: Control<V>;
+  id: SectionId;
+  part: PartId | null;
+  current: SectionId;
+}) {
+  const partTitle = part ? partsOfSection(id).find((p) => p.id === part)?.title : undefined;
+  if (partTitle && id === current) return <>{partTitle}</>;
+  return (
+    <>
+      <SectionTitle control={control} id={id} />
+      {partTitle ? `: ${partTitle}` : null}
+    </>
+  );
+}
+
+/** A count's words: "2 errors · 1 to fill", or "✓" when there is nothing to do. */
+function statusBadge(s: SectionStatus | undefined, firstCostDue = false) {
+  const state = s && s.invalid > 0 ? "errors" : s || firstCostDue ? "incomplete" : "complete";
+  const badge =
+    state === "complete"
+      ? "✓"
+      : [
+          s && s.invalid > 0 ? `${s.invalid} ${s.invalid === 1 ? "error" : "errors"}` : null,
+          s && s.missing > 0 ? `${s.missing} to fill` : null,
+          firstCostDue ? "first cost" : null,
+        ]
+          .filter(Boolean)
+          .join(" · ");
+  return { state, badge } as const;
+}
+
+/**
+ * The parts of the open step, one shown at a time, each with its own count (the step's count in the list of
+ * steps is their sum). Plain links (?section=…&part=…): reachable with Tab, opened with Enter.
+ */
+function PartNav({
+  control,
+  store,
+  section,
+  active,
+  onSelect,
+}: {
+  control: Control<V>;
+  store: ProblemStore;
+  section: SectionId;
+  active: PartId | null;
+  onSelect: (part: PartId) => void;
+}) {
+  const problems = useProblems(store);
+  const status = statusByPart(problems, section);
+  const i = optionIndexOfSection(section);
+  const firstCost = useWatch({ control, name: `options.${i ?? 0}.costs.firstCost` });
+  const firstCostDue =
+    i !== null &&
+    !(firstCost && Object.values(firstCost).some((v) => typeof v === "number" && Number.isFinite(v)));
+  const parts = partsOfSection(section);
+  if (parts.length === 0) return null;
+  return (
+    <nav aria-label="Parts of this step" className="mt-3" data-testid="part-nav">
+      <ol className="flex flex-wrap gap-1 border-b border-line text-sm">
+        {parts.map((p, n) => {
+          const { state, badge } = statusBadge(status.get(p.id), p.id === "costs" && firstCostDue);
+          const isActive = p.id === active;
+          return (
+            <li key={p.id}>
+              <a
+                href={editorPlaceQuery(section, p.id)}
+                data-section-link
+                data-state={state}
+                data-testid={`part-${p.id}`}
+                aria-current={isActive ? "step" : undefined}
+                onClick={(e) => {
+                  e.preventDefault();
+                  onSelect(p.id);
+                }}
+                className={`-mb-px flex items-baseline gap-2 rounded-t-md border px-3 py-1.5 ${isActive ? "border-line border-b-paper-raised bg-paper-raised font-medium text-ink" : "border-transparent text-ink-soft hover:bg-paper-sunk hover:text-ink"}`}
+              >
+                <span>
+                  <span className="mr-1 text-xs text-ink-faint">{String.fromCharCode(97 + n)}.</span>
+                  {p.title}
+                </span>
+                <span
+                  className={`shrink-0 text-xs ${state === "complete" ? "text-ok-600" : state === "errors" ? "text-danger-700" : "text-caution-800"}`}
+                  aria-label={state === "complete" ? "complete" : badge}
+                >
+                  {badge}
+                </span>
+              </a>
+            </li>
+          );
+        })}
+      </ol>
+    </nav>
+  );
 }
 
 /**
@@ -553,17 +725,7 @@ function SectionNav({
           const s = status.get(id);
           const isActive = id === active;
           const firstCostDue = noFirstCost(id);
-          const state = s && s.invalid > 0 ? "errors" : s || firstCostDue ? "incomplete" : "complete";
-          const badge =
-            state === "complete"
-              ? "✓"
-              : [
-                  s && s.invalid > 0 ? `${s.invalid} ${s.invalid === 1 ? "error" : "errors"}` : null,
-                  s && s.missing > 0 ? `${s.missing} to fill` : null,
-                  firstCostDue ? "first cost" : null,
-                ]
-                  .filter(Boolean)
-                  .join(" · ");
+          const { state, badge } = statusBadge(s, firstCostDue);
           return (
             <li key={id}>
               <a
@@ -594,8 +756,9 @@ function SectionNav({
         })}
       </ol>
       <p className="mt-4 hidden text-xs text-ink-faint lg:block">
-        ✓ complete · “to fill”: empty fields without a default · “first cost”: the option analyses, its life-cycle cost waits for it · errors: values to correct. Values are saved
-        in SI whatever the units shown.
+        ✓ complete · “to fill”: empty fields without a default · “first cost”: the option analyses, its
+        life-cycle cost waits for it · errors: values to correct. Values are saved in SI whatever the units
+        shown.
       </p>
     </nav>
   );
@@ -643,7 +806,7 @@ function ProblemSummary({
           <li key={`${p.path}:${p.message}`}>
             <a
               className="underline"
-              href={`?section=${p.section}#${fieldId(p.path)}`}
+              href={`${editorPlaceQuery(p.section, partOfPath(p.path))}#${fieldId(p.path)}`}
               data-section-link
               onClick={(e) => {
                 e.preventDefault();

@@ -18,7 +18,13 @@ import { newOptionOfKind } from "@/lib/scenarios/prefill";
 import { CondenserConstructionGroup, EvaporativeCondenserGroups, SprayPumpFields } from "./condenser-fields";
 import { CarbonPriceGroup, FootprintGroup, RefrigerantField } from "./footprint-fields";
 import { unitLabel } from "@/lib/units";
-import type { EditorOption, EditorPath, EditorValues } from "@/lib/scenarios/editor-values";
+import type {
+  EconomicsPartId,
+  EditorOption,
+  EditorPath,
+  EditorValues,
+  OptionPartId,
+} from "@/lib/scenarios/editor-values";
 import { MC_LABELS } from "@/lib/scenarios/field-labels";
 import { Check, Choice, FlowField, Group, Num, Pct, Plain, ScaledField, Text } from "./fields";
 import { CoolerWetRatings, TowerRatingPoints } from "./rating-points";
@@ -67,12 +73,15 @@ export function Section({
   children,
   intro,
   action,
+  nav,
 }: {
   id: string;
   title: string;
   children: React.ReactNode;
   intro?: React.ReactNode;
   action?: React.ReactNode;
+  /** The step's parts, when it is shown a part at a time. */
+  nav?: React.ReactNode;
 }) {
   return (
     <section
@@ -88,6 +97,7 @@ export function Section({
         {action}
       </div>
       {intro ? <p className="mt-1 text-sm text-ink-soft">{intro}</p> : null}
+      {nav}
       <div className="mt-4 space-y-4">{children}</div>
     </section>
   );
@@ -455,20 +465,48 @@ function PeriodicList({ i }: { i: number }) {
   );
 }
 
-/** One option's inputs: its own section of the editor. */
+/** An option's fans (its "selection" part). */
+function FanGroup({ i }: { i: number }) {
+  const p = `options.${i}` as const;
+  const fanControl = useWatch<V, `options.${number}.fan.control`>({ name: `options.${i}.fan.control` });
+  return (
+    <Group title="Fans">
+      <Num name={`${p}.fan.designPowerKW`} label="Fan motor input at full speed (all cells)" kind="powerKW" />
+      <Choice
+        name={`${p}.fan.control`}
+        label="Fan control"
+        options={[
+          { value: "variableSpeed", label: "Variable speed" },
+          { value: "twoSpeed", label: "Two-speed" },
+          { value: "cycling", label: "On/off cycling" },
+        ]}
+      />
+      <Pct name={`${p}.fan.minSpeedFraction`} label="Minimum speed" />
+      <Pct name={`${p}.fan.powerFloorFraction`} label="Power floor at low speed" />
+      {fanControl === "twoSpeed" ? <Pct name={`${p}.fan.lowSpeedFraction`} label="Low speed" /> : null}
+      <Pct name={`${p}.fan.naturalDraftAirflowFraction`} label="Airflow with the fan off" />
+    </Group>
+  );
+}
+
+/** One option's inputs: its own section of the editor, a part at a time. */
 export function OptionSection({
   i,
+  part,
+  partNav,
   onRemove,
   canRemove,
 }: {
   i: number;
+  /** The part shown; the others stay in the form's values. */
+  part: OptionPartId;
+  partNav: React.ReactNode;
   onRemove: () => void;
   canRemove: boolean;
 }) {
   const { setValue } = useFormContext<V>();
   const kind = useWatch<V, `options.${number}.kind`>({ name: `options.${i}.kind` });
   const label = useWatch<V, `options.${number}.label`>({ name: `options.${i}.label` });
-  const fanControl = useWatch<V, `options.${number}.fan.control`>({ name: `options.${i}.fan.control` });
   const dryRating = useWatch<V, `options.${number}.cooler.dryRating`>({
     name: `options.${i}.cooler.dryRating`,
   });
@@ -485,6 +523,7 @@ export function OptionSection({
       id={`option-${i + 1}`}
       title={`Option ${i + 1}: ${label || OPTION_KIND_LABELS[kind]}`}
       intro={`${OPTION_KIND_LABELS[kind]}. Enter the manufacturer's certified selection; every wet option needs water treatment and a water-management programme.`}
+      nav={partNav}
       action={
         canRemove ? (
           <button
@@ -498,133 +537,151 @@ export function OptionSection({
         ) : null
       }
     >
-      <Group title="Identification">
-        <Text name={`${p}.label`} label="Label" maxLength={120} />
-        <Text
-          name={`${p}.id`}
-          label="Option id"
-          description="Used in exports and as the base-option reference."
-          maxLength={64}
-        />
-      </Group>
-      {kind === "evaporativeCondenser" ? (
-        <EvaporativeCondenserGroups i={i} />
-      ) : isTower ? (
-        <Group title="Tower selection at design" note="From the manufacturer's certified selection.">
-          <FlowField name={`${p}.tower.waterFlowKgPerS`} label="Tower water flow" />
-          <Num name={`${p}.tower.enteringWaterC`} label="Entering (hot) water" kind="temperatureC" />
-          <Num name={`${p}.tower.leavingWaterC`} label="Leaving (cold) water" kind="temperatureC" />
-          <Num name={`${p}.tower.designWetBulbC`} label="Design entering wet-bulb" kind="temperatureC" />
-          <Plain name={`${p}.tower.designLiquidToGasRatio`} label="Design L/G" unit="kg/kg" />
-          <Plain
-            name={`${p}.tower.characteristicExponent`}
-            label="Characteristic exponent n"
-            unit="—"
-            description="KaV/L = C·(L/G)^−n; used where the rating points below cannot fit n"
-          />
-        </Group>
-      ) : (
-        <Group title="Cooler selection at design" note="From the manufacturer's certified selection.">
-          <FlowField name={`${p}.cooler.fluidFlowKgPerS`} label="Process fluid flow" />
-          <Num name={`${p}.cooler.enteringFluidC`} label="Entering fluid" kind="temperatureC" />
-          <Num name={`${p}.cooler.leavingFluidC`} label="Leaving fluid" kind="temperatureC" />
-          <Num name={`${p}.cooler.designWetBulbC`} label="Design entering wet-bulb" kind="temperatureC" />
-          <Plain
-            name={`${p}.cooler.designFluidToAirRatio`}
-            label="Design fluid-to-air mass ratio"
-            unit="kg/kg"
-          />
-          <Pct
-            name={`${p}.cooler.internalResistanceFraction`}
-            label="Tube-side share of the wet resistance"
-            description="Fitted instead when extra wet ratings (below) can tell it."
-          />
-          <Plain
-            name={`${p}.cooler.dryExternalConductanceFactor`}
-            label="Dry external conductance factor"
-            unit="—"
-          />
-          <Check name={`${p}.cooler.allowDryMode`} label="May run dry (spray pump off)" />
-          <Choice
-            name={`${p}.cooler.modeSelection`}
-            label="Wet or dry in each hour"
-            options={[
-              { value: "lowestTotalPower", label: "Whichever needs less fan + spray + compressor power" },
-              { value: "switchOverDryBulb", label: "Dry at or below a switch-over dry-bulb" },
-            ]}
-          />
-          {modeSelection === "switchOverDryBulb" ? (
-            <Num name={`${p}.cooler.switchOverDryBulbC`} label="Switch-over dry-bulb" kind="temperatureC" />
-          ) : null}
-          <Num
-            name={`${p}.cooler.sprayLockoutDryBulbC`}
-            label="Spray locked out below dry-bulb"
-            kind="temperatureC"
-            description="Freeze protection: always dry below it."
-          />
-          <Num
-            name={`${p}.cooler.dryModeMaxDryBulbC`}
-            label="Dry operation only below dry-bulb"
-            kind="temperatureC"
-            optional
-          />
-          <div className="sm:col-span-2 xl:col-span-3">
-            <label className="flex items-center gap-2 text-sm">
-              <input
-                type="checkbox"
-                className="h-4 w-4 accent-basin-600"
-                checked={Boolean(dryRating)}
-                onChange={(e) =>
-                  setValue(
-                    `options.${i}.cooler.dryRating`,
-                    e.target.checked ? { enteringFluidC: 35, leavingFluidC: 30, dryBulbC: 10 } : undefined,
-                    { shouldDirty: true, shouldValidate: true },
-                  )
-                }
+      {part === "selection" ? (
+        <>
+          <Group title="Identification">
+            <Text name={`${p}.label`} label="Label" maxLength={120} />
+            <Text
+              name={`${p}.id`}
+              label="Option id"
+              description="Used in exports and as the base-option reference."
+              maxLength={64}
+            />
+          </Group>
+          {kind === "evaporativeCondenser" ? (
+            <EvaporativeCondenserGroups i={i} part="selection" />
+          ) : isTower ? (
+            <Group title="Tower selection at design" note="From the manufacturer's certified selection.">
+              <FlowField name={`${p}.tower.waterFlowKgPerS`} label="Tower water flow" />
+              <Num name={`${p}.tower.enteringWaterC`} label="Entering (hot) water" kind="temperatureC" />
+              <Num name={`${p}.tower.leavingWaterC`} label="Leaving (cold) water" kind="temperatureC" />
+              <Num name={`${p}.tower.designWetBulbC`} label="Design entering wet-bulb" kind="temperatureC" />
+              <Plain name={`${p}.tower.designLiquidToGasRatio`} label="Design L/G" unit="kg/kg" />
+              <Plain
+                name={`${p}.tower.characteristicExponent`}
+                label="Characteristic exponent n"
+                unit="—"
+                description="KaV/L = C·(L/G)^−n; used where the rating points below cannot fit n"
               />
-              I have a dry rating from the manufacturer (calibrates dry operation)
-            </label>
-          </div>
-          {dryRating ? (
-            <>
+            </Group>
+          ) : (
+            <Group title="Cooler selection at design" note="From the manufacturer's certified selection.">
+              <FlowField name={`${p}.cooler.fluidFlowKgPerS`} label="Process fluid flow" />
+              <Num name={`${p}.cooler.enteringFluidC`} label="Entering fluid" kind="temperatureC" />
+              <Num name={`${p}.cooler.leavingFluidC`} label="Leaving fluid" kind="temperatureC" />
+              <Num name={`${p}.cooler.designWetBulbC`} label="Design entering wet-bulb" kind="temperatureC" />
+              <Plain
+                name={`${p}.cooler.designFluidToAirRatio`}
+                label="Design fluid-to-air mass ratio"
+                unit="kg/kg"
+              />
+              <Pct
+                name={`${p}.cooler.internalResistanceFraction`}
+                label="Tube-side share of the wet resistance"
+                description="Fitted instead when extra wet ratings (below) can tell it."
+              />
+              <Plain
+                name={`${p}.cooler.dryExternalConductanceFactor`}
+                label="Dry external conductance factor"
+                unit="—"
+              />
+              <Check name={`${p}.cooler.allowDryMode`} label="May run dry (spray pump off)" />
+              <Choice
+                name={`${p}.cooler.modeSelection`}
+                label="Wet or dry in each hour"
+                options={[
+                  { value: "lowestTotalPower", label: "Whichever needs less fan + spray + compressor power" },
+                  { value: "switchOverDryBulb", label: "Dry at or below a switch-over dry-bulb" },
+                ]}
+              />
+              {modeSelection === "switchOverDryBulb" ? (
+                <Num
+                  name={`${p}.cooler.switchOverDryBulbC`}
+                  label="Switch-over dry-bulb"
+                  kind="temperatureC"
+                />
+              ) : null}
               <Num
-                name={`${p}.cooler.dryRating.enteringFluidC`}
-                label="Dry rating: entering fluid"
+                name={`${p}.cooler.sprayLockoutDryBulbC`}
+                label="Spray locked out below dry-bulb"
                 kind="temperatureC"
+                description="Freeze protection: always dry below it."
               />
               <Num
-                name={`${p}.cooler.dryRating.leavingFluidC`}
-                label="Dry rating: leaving fluid"
+                name={`${p}.cooler.dryModeMaxDryBulbC`}
+                label="Dry operation only below dry-bulb"
                 kind="temperatureC"
+                optional
               />
-              <Num name={`${p}.cooler.dryRating.dryBulbC`} label="Dry rating: dry-bulb" kind="temperatureC" />
-            </>
-          ) : null}
-          <Choice
-            name={`${p}.cooler.glycol.kind`}
-            label="Process fluid"
-            options={[
-              { value: "none", label: "Water" },
-              { value: "ethyleneGlycol", label: "Ethylene glycol solution" },
-              { value: "propyleneGlycol", label: "Propylene glycol solution" },
-            ]}
-          />
-          {glycolKind !== "none" ? (
-            <Pct name={`${p}.cooler.glycol.massFraction`} label="Glycol mass fraction" />
-          ) : null}
-          <Choice
-            name={`${p}.cooler.ratingFluid`}
-            label="The rating is given on"
-            options={[
-              { value: "water", label: "Water (derate for glycol)" },
-              { value: "loopFluid", label: "The loop fluid itself" },
-            ]}
-          />
-        </Group>
-      )}
-      {isTower ? <TowerRatingPoints i={i} /> : null}
-      {kind === "closedCircuitCooler" ? <CoolerWetRatings i={i} /> : null}
-      {kind === "openTowerPlateHx" ? (
+              <div className="sm:col-span-2 xl:col-span-3">
+                <label className="flex items-center gap-2 text-sm">
+                  <input
+                    type="checkbox"
+                    className="h-4 w-4 accent-basin-600"
+                    checked={Boolean(dryRating)}
+                    onChange={(e) =>
+                      setValue(
+                        `options.${i}.cooler.dryRating`,
+                        e.target.checked
+                          ? { enteringFluidC: 35, leavingFluidC: 30, dryBulbC: 10 }
+                          : undefined,
+                        { shouldDirty: true, shouldValidate: true },
+                      )
+                    }
+                  />
+                  I have a dry rating from the manufacturer (calibrates dry operation)
+                </label>
+              </div>
+              {dryRating ? (
+                <>
+                  <Num
+                    name={`${p}.cooler.dryRating.enteringFluidC`}
+                    label="Dry rating: entering fluid"
+                    kind="temperatureC"
+                  />
+                  <Num
+                    name={`${p}.cooler.dryRating.leavingFluidC`}
+                    label="Dry rating: leaving fluid"
+                    kind="temperatureC"
+                  />
+                  <Num
+                    name={`${p}.cooler.dryRating.dryBulbC`}
+                    label="Dry rating: dry-bulb"
+                    kind="temperatureC"
+                  />
+                </>
+              ) : null}
+              <Choice
+                name={`${p}.cooler.glycol.kind`}
+                label="Process fluid"
+                options={[
+                  { value: "none", label: "Water" },
+                  { value: "ethyleneGlycol", label: "Ethylene glycol solution" },
+                  { value: "propyleneGlycol", label: "Propylene glycol solution" },
+                ]}
+              />
+              {glycolKind !== "none" ? (
+                <Pct name={`${p}.cooler.glycol.massFraction`} label="Glycol mass fraction" />
+              ) : null}
+              <Choice
+                name={`${p}.cooler.ratingFluid`}
+                label="The rating is given on"
+                options={[
+                  { value: "water", label: "Water (derate for glycol)" },
+                  { value: "loopFluid", label: "The loop fluid itself" },
+                ]}
+              />
+            </Group>
+          )}
+          {isTower ? <TowerRatingPoints i={i} /> : null}
+          {kind === "closedCircuitCooler" ? <CoolerWetRatings i={i} /> : null}
+          <FanGroup i={i} />
+        </>
+      ) : null}
+      {part === "condenser" && kind === "evaporativeCondenser" ? (
+        <EvaporativeCondenserGroups i={i} part="condenser" />
+      ) : null}
+      {part === "condenser" && kind === "openTowerPlateHx" ? (
         <Group title="Plate exchanger">
           <Num
             name={`${p}.plateExchanger.designApproachK`}
@@ -654,27 +711,7 @@ export function OptionSection({
           />
         </Group>
       ) : null}
-      <Group title="Fans">
-        <Num
-          name={`${p}.fan.designPowerKW`}
-          label="Fan motor input at full speed (all cells)"
-          kind="powerKW"
-        />
-        <Choice
-          name={`${p}.fan.control`}
-          label="Fan control"
-          options={[
-            { value: "variableSpeed", label: "Variable speed" },
-            { value: "twoSpeed", label: "Two-speed" },
-            { value: "cycling", label: "On/off cycling" },
-          ]}
-        />
-        <Pct name={`${p}.fan.minSpeedFraction`} label="Minimum speed" />
-        <Pct name={`${p}.fan.powerFloorFraction`} label="Power floor at low speed" />
-        {fanControl === "twoSpeed" ? <Pct name={`${p}.fan.lowSpeedFraction`} label="Low speed" /> : null}
-        <Pct name={`${p}.fan.naturalDraftAirflowFraction`} label="Airflow with the fan off" />
-      </Group>
-      {kind !== "evaporativeCondenser" ? (
+      {part === "condenser" && kind !== "evaporativeCondenser" ? (
         <>
           <Group title="Condenser">
             <Num
@@ -705,98 +742,106 @@ export function OptionSection({
           <CondenserConstructionGroup i={i} kind={kind} />
         </>
       ) : null}
-      <Group title="Pumps, basin and drift">
-        {kind !== "evaporativeCondenser" ? (
-          <>
-            <Num
-              name={`${p}.condenserPump.headM`}
-              label={
-                kind === "closedCircuitCooler"
-                  ? "Process-loop pump head"
-                  : kind === "openTowerPlateHx"
-                    ? "Clean-loop pump head"
-                    : "Condenser-water pump head"
-              }
-              kind="headM"
+      {part === "pumps" ? (
+        <Group title="Pumps, basin and drift">
+          {kind !== "evaporativeCondenser" ? (
+            <>
+              <Num
+                name={`${p}.condenserPump.headM`}
+                label={
+                  kind === "closedCircuitCooler"
+                    ? "Process-loop pump head"
+                    : kind === "openTowerPlateHx"
+                      ? "Clean-loop pump head"
+                      : "Condenser-water pump head"
+                }
+                kind="headM"
+              />
+              <Pct name={`${p}.condenserPump.efficiency`} label="Pump wire-to-water efficiency" />
+            </>
+          ) : null}
+          {kind === "openTowerPlateHx" ? (
+            <>
+              <Num name={`${p}.towerPump.headM`} label="Tower-side pump head" kind="headM" />
+              <Pct name={`${p}.towerPump.efficiency`} label="Tower-side pump efficiency" />
+            </>
+          ) : null}
+          {kind === "closedCircuitCooler" || kind === "evaporativeCondenser" ? (
+            <SprayPumpFields i={i} />
+          ) : null}
+          <Num name={`${p}.basinHeater.powerKW`} label="Basin heater rating" kind="powerKW" />
+          <Num
+            name={`${p}.basinHeater.setPointC`}
+            label="Basin heater thermostat set-point"
+            kind="temperatureC"
+          />
+          <Num
+            name={`${p}.basinHeater.heatLossKWPerK`}
+            label="Basin heat loss per degree below the set-point"
+            kind="uaKWPerK"
+            description="The heater supplies this loss, up to its rating, while the basin holds still water."
+            optional
+          />
+          <Check
+            name={`${p}.basinHeater.drainedWhenIdle`}
+            label="Basin drained whenever no water circulates"
+            description="Idle tower, or cooler running dry: no basin heat then."
+          />
+          <Plain
+            name={`${p}.cyclesOfConcentration`}
+            label="This loop's own cycles of concentration"
+            unit="—"
+            description="Leave empty to run at the scenario's cycles (Water); e.g. a cooler's spray loop held lower."
+          />
+          <ScaledField
+            name={`${p}.driftFractionOfFlow`}
+            label="Drift"
+            unit="% of flow"
+            show={(v) => v * 100}
+            store={(v) => v / 100}
+          />
+          <Num name={`${p}.wetLoopVolumeM3`} label="Wet-loop water volume" kind="volumeM3" optional />
+        </Group>
+      ) : null}
+      {part === "costs" ? (
+        <>
+          <FirstCostGroup i={i} kind={kind} />
+          <Group title="Life and upkeep">
+            <Num name={`${p}.costs.serviceLifeYears`} label="Service life" kind="years" />
+            <Check
+              name={`${p}.costs.replaceAtEndOfLife`}
+              label="Replace at the end of its life within the study"
             />
-            <Pct name={`${p}.condenserPump.efficiency`} label="Pump wire-to-water efficiency" />
-          </>
-        ) : null}
-        {kind === "openTowerPlateHx" ? (
-          <>
-            <Num name={`${p}.towerPump.headM`} label="Tower-side pump head" kind="headM" />
-            <Pct name={`${p}.towerPump.efficiency`} label="Tower-side pump efficiency" />
-          </>
-        ) : null}
-        {kind === "closedCircuitCooler" || kind === "evaporativeCondenser" ? <SprayPumpFields i={i} /> : null}
-        <Num name={`${p}.basinHeater.powerKW`} label="Basin heater rating" kind="powerKW" />
-        <Num
-          name={`${p}.basinHeater.setPointC`}
-          label="Basin heater thermostat set-point"
-          kind="temperatureC"
-        />
-        <Num
-          name={`${p}.basinHeater.heatLossKWPerK`}
-          label="Basin heat loss per degree below the set-point"
-          kind="uaKWPerK"
-          description="The heater supplies this loss, up to its rating, while the basin holds still water."
-          optional
-        />
-        <Check
-          name={`${p}.basinHeater.drainedWhenIdle`}
-          label="Basin drained whenever no water circulates"
-          description="Idle tower, or cooler running dry: no basin heat then."
-        />
-        <Plain
-          name={`${p}.cyclesOfConcentration`}
-          label="This loop's own cycles of concentration"
-          unit="—"
-          description="Leave empty to run at the scenario's cycles (Water); e.g. a cooler's spray loop held lower."
-        />
-        <ScaledField
-          name={`${p}.driftFractionOfFlow`}
-          label="Drift"
-          unit="% of flow"
-          show={(v) => v * 100}
-          store={(v) => v / 100}
-        />
-        <Num name={`${p}.wetLoopVolumeM3`} label="Wet-loop water volume" kind="volumeM3" optional />
-      </Group>
-      <FirstCostGroup i={i} kind={kind} />
-      <Group title="Life and upkeep">
-        <Num name={`${p}.costs.serviceLifeYears`} label="Service life" kind="years" />
-        <Check
-          name={`${p}.costs.replaceAtEndOfLife`}
-          label="Replace at the end of its life within the study"
-        />
-        <Num
-          name={`${p}.costs.upkeep.annualLabourHours`}
-          label="Own staff routine upkeep"
-          kind="hours"
-          description="Hours per year."
-        />
-        <Num
-          name={`${p}.costs.upkeep.annualServiceCost`}
-          label="Service contract, parts, consumables"
-          kind="money"
-          description="Per year."
-        />
-        <Num
-          name={`${p}.costs.upkeep.cleaningCostPerEvent`}
-          label={
-            kind === "openTowerDirect"
-              ? "Condenser tube cleaning, per cleaning"
-              : kind === "openTowerPlateHx"
-                ? "Plate-exchanger cleaning, per cleaning"
-                : kind === "evaporativeCondenser"
-                  ? "Coil cleaning, per cleaning"
-                  : "Cleaning cost per event"
-          }
-          kind="money"
-        />
-      </Group>
-      <ComponentsList i={i} />
-      <PeriodicList i={i} />
+            <Num
+              name={`${p}.costs.upkeep.annualLabourHours`}
+              label="Own staff routine upkeep"
+              kind="hours"
+              description="Hours per year."
+            />
+            <Num
+              name={`${p}.costs.upkeep.annualServiceCost`}
+              label="Service contract, parts, consumables"
+              kind="money"
+              description="Per year."
+            />
+            <Num
+              name={`${p}.costs.upkeep.cleaningCostPerEvent`}
+              label={
+                kind === "openTowerDirect"
+                  ? "Condenser tube cleaning, per cleaning"
+                  : kind === "openTowerPlateHx"
+                    ? "Plate-exchanger cleaning, per cleaning"
+                    : kind === "evaporativeCondenser"
+                      ? "Coil cleaning, per cleaning"
+                      : "Cleaning cost per event"
+              }
+              kind="money"
+            />
+          </Group>
+          <ComponentsList i={i} />
+          <PeriodicList i={i} />
+        </>
+      ) : null}
     </Section>
   );
 }
@@ -1249,7 +1294,8 @@ function BaseOptionChoice() {
   );
 }
 
-export function EconomicsSection() {
+/** The study, the sensitivity, the Monte Carlo and the footprint: a part at a time. */
+export function EconomicsSection({ part, partNav }: { part: EconomicsPartId; partNav: React.ReactNode }) {
   const sensitivityOn = useWatch<V, "sensitivity.enabled">({ name: "sensitivity.enabled" });
   const mcOn = useWatch<V, "monteCarlo.enabled">({ name: "monteCarlo.enabled" });
   return (
@@ -1257,124 +1303,131 @@ export function EconomicsSection() {
       id="economics"
       title="Economics"
       intro="NIST Handbook 135 life-cycle cost: present values at one base date, constant dollars unless a nominal analysis is chosen."
+      nav={partNav}
     >
-      <Group title="Study">
-        <Plain name="economics.baseYear" label="Base year" unit="year" />
-        <Num name="economics.studyPeriodYears" label="Study period" kind="years" />
-        <Choice
-          name="economics.analysis"
-          label="Dollars"
-          options={[
-            { value: "real", label: "Constant (real)" },
-            { value: "nominal", label: "Then-current (nominal)" },
-          ]}
-        />
-        <Pct name="economics.realDiscountRate" label="Real discount rate" perYear />
-        <Pct name="economics.inflationRate" label="General inflation" perYear />
-        <Choice
-          name="economics.discounting"
-          label="Discounting of yearly costs"
-          options={[
-            { value: "endOfYear", label: "End of year" },
-            { value: "midYear", label: "Mid-year" },
-          ]}
-        />
-        <Choice
-          name="economics.residualValueMethod"
-          label="Residual value"
-          options={[
-            { value: "linear", label: "Linear by remaining life" },
-            { value: "none", label: "None" },
-          ]}
-        />
-        <BaseOptionChoice />
-      </Group>
-      <fieldset className="rounded-md border border-line p-4">
-        <legend className="px-1 text-sm font-semibold">Sensitivity: tornado and break-even ranges</legend>
-        <Check name="sensitivity.enabled" label="Run the tornado and break-evens" />
-        {sensitivityOn ? (
-          <div className="mt-3 space-y-3">
-            <OnDemand
-              prefixes={["sensitivity.tornado", "sensitivity.breakEven"]}
-              summary={`the ${SENSITIVITY_INPUTS.length} tornado ranges and ${BREAK_EVEN_INPUTS.length} break-even searches`}
-              testId="sensitivity-ranges"
-            >
-              {() => (
-                <>
-                  {SENSITIVITY_INPUTS.map((k) => {
-                    const mode = SENSITIVITY_INPUT_MODES[k];
-                    const base = `sensitivity.tornado.${k}` as const;
-                    return (
+      {part === "study" ? (
+        <Group title="Study">
+          <Plain name="economics.baseYear" label="Base year" unit="year" />
+          <Num name="economics.studyPeriodYears" label="Study period" kind="years" />
+          <Choice
+            name="economics.analysis"
+            label="Dollars"
+            options={[
+              { value: "real", label: "Constant (real)" },
+              { value: "nominal", label: "Then-current (nominal)" },
+            ]}
+          />
+          <Pct name="economics.realDiscountRate" label="Real discount rate" perYear />
+          <Pct name="economics.inflationRate" label="General inflation" perYear />
+          <Choice
+            name="economics.discounting"
+            label="Discounting of yearly costs"
+            options={[
+              { value: "endOfYear", label: "End of year" },
+              { value: "midYear", label: "Mid-year" },
+            ]}
+          />
+          <Choice
+            name="economics.residualValueMethod"
+            label="Residual value"
+            options={[
+              { value: "linear", label: "Linear by remaining life" },
+              { value: "none", label: "None" },
+            ]}
+          />
+          <BaseOptionChoice />
+        </Group>
+      ) : null}
+      {part === "sensitivity" ? (
+        <fieldset className="rounded-md border border-line p-4">
+          <legend className="px-1 text-sm font-semibold">Sensitivity: tornado and break-even ranges</legend>
+          <Check name="sensitivity.enabled" label="Run the tornado and break-evens" />
+          {sensitivityOn ? (
+            <div className="mt-3 space-y-3">
+              <OnDemand
+                prefixes={["sensitivity.tornado", "sensitivity.breakEven"]}
+                summary={`the ${SENSITIVITY_INPUTS.length} tornado ranges and ${BREAK_EVEN_INPUTS.length} break-even searches`}
+                testId="sensitivity-ranges"
+              >
+                {() => (
+                  <>
+                    {SENSITIVITY_INPUTS.map((k) => {
+                      const mode = SENSITIVITY_INPUT_MODES[k];
+                      const base = `sensitivity.tornado.${k}` as const;
+                      return (
+                        <div key={k} className="grid items-end gap-3 sm:grid-cols-[1.3fr_1fr_1fr]">
+                          <Check
+                            name={`${base}.enabled`}
+                            label={`${TORNADO_LABELS[k]} (${mode === "factor" ? "× the entered value" : mode === "delta" ? "added to the entered rate" : "absolute value"})`}
+                          />
+                          {mode === "delta" ? (
+                            <>
+                              <Pct name={`${base}.low`} label="Low" perYear />
+                              <Pct name={`${base}.high`} label="High" perYear />
+                            </>
+                          ) : (
+                            <>
+                              <Plain
+                                name={`${base}.low`}
+                                label="Low"
+                                unit={mode === "factor" ? "×" : "cycles"}
+                              />
+                              <Plain
+                                name={`${base}.high`}
+                                label="High"
+                                unit={mode === "factor" ? "×" : "cycles"}
+                              />
+                            </>
+                          )}
+                        </div>
+                      );
+                    })}
+                    <h3 className="pt-2 text-sm font-semibold">Break-even search ranges</h3>
+                    {BREAK_EVEN_INPUTS.map((k) => (
                       <div key={k} className="grid items-end gap-3 sm:grid-cols-[1.3fr_1fr_1fr]">
-                        <Check
-                          name={`${base}.enabled`}
-                          label={`${TORNADO_LABELS[k]} (${mode === "factor" ? "× the entered value" : mode === "delta" ? "added to the entered rate" : "absolute value"})`}
+                        <Check name={`sensitivity.breakEven.${k}.enabled`} label={BREAK_EVEN_LABELS[k]} />
+                        <Plain
+                          name={`sensitivity.breakEven.${k}.min`}
+                          label="From"
+                          unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
                         />
-                        {mode === "delta" ? (
-                          <>
-                            <Pct name={`${base}.low`} label="Low" perYear />
-                            <Pct name={`${base}.high`} label="High" perYear />
-                          </>
-                        ) : (
-                          <>
-                            <Plain
-                              name={`${base}.low`}
-                              label="Low"
-                              unit={mode === "factor" ? "×" : "cycles"}
-                            />
-                            <Plain
-                              name={`${base}.high`}
-                              label="High"
-                              unit={mode === "factor" ? "×" : "cycles"}
-                            />
-                          </>
-                        )}
+                        <Plain
+                          name={`sensitivity.breakEven.${k}.max`}
+                          label="To"
+                          unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
+                        />
                       </div>
-                    );
-                  })}
-                  <h3 className="pt-2 text-sm font-semibold">Break-even search ranges</h3>
-                  {BREAK_EVEN_INPUTS.map((k) => (
-                    <div key={k} className="grid items-end gap-3 sm:grid-cols-[1.3fr_1fr_1fr]">
-                      <Check name={`sensitivity.breakEven.${k}.enabled`} label={BREAK_EVEN_LABELS[k]} />
-                      <Plain
-                        name={`sensitivity.breakEven.${k}.min`}
-                        label="From"
-                        unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
-                      />
-                      <Plain
-                        name={`sensitivity.breakEven.${k}.max`}
-                        label="To"
-                        unit={k === "cyclesOfConcentration" ? "cycles" : "×"}
-                      />
-                    </div>
-                  ))}
-                </>
-              )}
-            </OnDemand>
-          </div>
-        ) : null}
-      </fieldset>
-      <fieldset className="rounded-md border border-line p-4" id="uncertainty">
-        <legend className="px-1 text-sm font-semibold">Uncertainty: Monte Carlo</legend>
-        <Check name="monteCarlo.enabled" label="Run the Monte Carlo after each save (in the background)" />
-        {mcOn ? (
-          <div className="mt-3 space-y-3">
-            <div className="grid gap-4 sm:grid-cols-3">
-              <Num name="monteCarlo.draws" label="Draws" kind="count" />
-              <Num name="monteCarlo.seed" label="Seed" kind="count" />
-              <Num name="monteCarlo.histogramBins" label="Histogram bins" kind="count" />
+                    ))}
+                  </>
+                )}
+              </OnDemand>
             </div>
-            <OnDemand
-              prefixes={["monteCarlo.distributions"]}
-              summary={`the ${MONTE_CARLO_INPUTS.length} input distributions`}
-              testId="monte-carlo-distributions"
-            >
-              {() => MONTE_CARLO_INPUTS.map((k) => <DistributionRow key={k} k={k} />)}
-            </OnDemand>
-          </div>
-        ) : null}
-      </fieldset>
-      <FootprintGroup />
+          ) : null}
+        </fieldset>
+      ) : null}
+      {part === "monte-carlo" ? (
+        <fieldset className="rounded-md border border-line p-4" id="uncertainty">
+          <legend className="px-1 text-sm font-semibold">Uncertainty: Monte Carlo</legend>
+          <Check name="monteCarlo.enabled" label="Run the Monte Carlo after each save (in the background)" />
+          {mcOn ? (
+            <div className="mt-3 space-y-3">
+              <div className="grid gap-4 sm:grid-cols-3">
+                <Num name="monteCarlo.draws" label="Draws" kind="count" />
+                <Num name="monteCarlo.seed" label="Seed" kind="count" />
+                <Num name="monteCarlo.histogramBins" label="Histogram bins" kind="count" />
+              </div>
+              <OnDemand
+                prefixes={["monteCarlo.distributions"]}
+                summary={`the ${MONTE_CARLO_INPUTS.length} input distributions`}
+                testId="monte-carlo-distributions"
+              >
+                {() => MONTE_CARLO_INPUTS.map((k) => <DistributionRow key={k} k={k} />)}
+              </OnDemand>
+            </div>
+          ) : null}
+        </fieldset>
+      ) : null}
+      {part === "footprint" ? <FootprintGroup /> : null}
     </Section>
   );
 }
