@@ -334,6 +334,9 @@ export function ScenarioEditor(props: {
   const prev = index > 0 ? places[index - 1]! : null;
   const next = index >= 0 && index < places.length - 1 ? places[index + 1]! : null;
   const optionIndex = optionIndexOfSection(current);
+  // From one option's part to another option: the same part (first costs option after option).
+  const navPart = (id: SectionId): PartId | null =>
+    optionIndex !== null && optionIndexOfSection(id) !== null && id !== current ? currentPart : null;
   const partNav = (
     <PartNav
       control={form.control}
@@ -361,7 +364,8 @@ export function ScenarioEditor(props: {
               store={store}
               order={order}
               active={current}
-              onSelect={select}
+              partOf={navPart}
+              onSelect={(id) => select(id, { part: navPart(id) })}
             />
             <div className="min-w-0 space-y-6">
               {showSummary ? (
@@ -697,12 +701,15 @@ function SectionNav({
   store,
   order,
   active,
+  partOf,
   onSelect,
 }: {
   control: Control<V>;
   store: ProblemStore;
   order: SectionId[];
   active: SectionId;
+  /** The part a step's link opens (null: its first). */
+  partOf: (id: SectionId) => PartId | null;
   onSelect: (id: SectionId) => void;
 }) {
   const problems = useProblems(store);
@@ -729,7 +736,7 @@ function SectionNav({
           return (
             <li key={id}>
               <a
-                href={`?section=${id}`}
+                href={editorPlaceQuery(id, partOf(id))}
                 data-section-link
                 data-state={state}
                 data-testid={`nav-${id}`}
