@@ -142,12 +142,16 @@ describe("a first study without a fight", () => {
     await page.goto(`${scenarioUrl}/versions`);
     await page.locator("[data-testid=issue-needs-first-costs]").waitFor();
 
-    // 6. First costs: one figure per option (the quote's total as equipment; the other items count as 0).
-    await page.goto(`${scenarioUrl}/edit?section=option-1`);
+    // 6. First costs: one figure per option (the quote's total as equipment; the other items count as 0), in
+    // the options' "First cost and upkeep" part, which stays open from one option to the next.
+    await page.goto(`${scenarioUrl}/edit?section=option-1&part=costs`);
     effort.clicks++;
     const quotes = ["410000", "470000", "520000"];
     for (let i = 0; i < 3; i++) {
-      if (i > 0) await click(`[data-testid=nav-option-${i + 1}]`);
+      if (i > 0) {
+        await click(`[data-testid=nav-option-${i + 1}]`);
+        await page.waitForURL(new RegExp(`section=option-${i + 1}&part=costs`));
+      }
       await fill(`#f-options-${i}-costs-firstCost-equipment`, quotes[i]!);
     }
     await shot(7, "first-costs-entered");
@@ -207,6 +211,14 @@ describe("a first study without a fight", () => {
     await page.click("[data-testid=nav-water]");
     await page.fill("#f-water-makeup-ph", "99");
     await page.fill("#f-water-makeup-silicaMgPerL", "1,2,3");
+    // An error in a part not shown: option 1's first cost, entered negative, then another part opened.
+    await page.click("[data-testid=nav-option-1]");
+    await page.click("[data-testid=part-costs]");
+    await page.fill("#f-options-0-costs-firstCost-equipment", "-5");
+    await page.click("[data-testid=part-pumps]");
+    await page.locator("[data-testid=part-costs][data-state=errors]").waitFor();
+    expect(await page.locator("[data-testid=part-selection]").getAttribute("data-state")).toBe("errors");
+    expect(await page.locator("[data-testid=part-pumps]").getAttribute("data-state")).toBe("complete");
     await page.click("[data-testid=save-scenario]");
     await page.locator("[data-testid=form-error-summary]").waitFor();
     const nonsense = await visibleMessages();
@@ -218,9 +230,15 @@ describe("a first study without a fight", () => {
     expect(nonsense.join("\n")).toMatch(/Water › Makeup-water analysis › pH: Enter at most 11/);
     // The nav counts the errors per section.
     expect(await page.locator("[data-testid=nav-option-1]").getAttribute("data-state")).toBe("errors");
-    // A summary link opens the field's section and puts the cursor in it.
-    await page.locator("[data-testid=form-error-summary] a", { hasText: "Leaving (cold) water" }).click();
-    await page.waitForURL(/section=option-1/);
+    // A summary link opens the field's section and part and puts the cursor in it.
+    const leaving = page.locator("[data-testid=form-error-summary] a", { hasText: "Leaving (cold) water" });
+    expect(await leaving.getAttribute("href")).toBe("?section=option-1&part=selection#f-options-0-tower-leavingWaterC");
+    await leaving.click();
+    await page.waitForURL(/section=option-1&part=selection/);
     expect(await page.evaluate(() => document.activeElement?.id)).toBe("f-options-0-tower-leavingWaterC");
+    // The first cost's error, in the costs part (not shown now), is reached the same way.
+    await page.locator("[data-testid=form-error-summary] a", { hasText: "First cost" }).first().click();
+    await page.waitForURL(/section=option-1&part=costs/);
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe("f-options-0-costs-firstCost-equipment");
   }, 120_000);
 });

@@ -62,8 +62,15 @@ describe("four ways to reject the heat", () => {
     expect(await page.locator("#f-options-3-condenserPump-headM").count()).toBe(0);
     await screenshot(page, "four-options-01-evaporative-condenser-in-editor");
 
-    // The direct tower's condenser: shell-and-tube, with its defaults and their sources beside them.
+    // The evaporative condenser's coil is in its "Condenser" part (one part of a step at a time).
+    await page.click("[data-testid=part-condenser]");
+    await page.locator("#f-options-3-evaporativeCondenser-coilScaling-cleaningIntervalMonths").waitFor();
+    expect(await page.locator("#f-options-3-evaporativeCondenser-ratedHeatRejectionKW").count()).toBe(0);
+
+    // The direct tower's condenser: shell-and-tube, with its defaults and their sources beside them. Moving to
+    // another option keeps the open part.
     await page.click("[data-testid=nav-option-1]");
+    await page.waitForURL(/section=option-1&part=condenser/);
     await page.selectOption("#f-options-0-condenser-construction", "plateAndFrame");
     await page.locator("[data-testid=construction-defaults] summary").click();
     await page.locator("[data-testid=construction-defaults]", { hasText: "gasketed" }).waitFor();
@@ -76,15 +83,26 @@ describe("four ways to reject the heat", () => {
     expect(await page.inputValue("#f-options-0-condenser-cleanUWPerM2K")).toBe("1000");
     await screenshot(page, "four-options-02-shell-and-tube-defaults");
 
-    // First costs: one quote per option (the other items count as 0).
+    // First costs: one quote per option (the other items count as 0), in each option's "First cost and upkeep"
+    // part; its count says "first cost" until one is entered.
     const quotes = ["410000", "470000", "520000", "455000"];
     for (let i = 0; i < 4; i++) {
       await page.click(`[data-testid=nav-option-${i + 1}]`);
+      await page.click("[data-testid=part-costs]");
+      await page.locator("[data-testid=part-costs][aria-current=step]").waitFor();
       await page.fill(`#f-options-${i}-costs-firstCost-equipment`, quotes[i]!);
+      await page.locator("[data-testid=part-costs][data-state=complete]").waitFor();
     }
+    // Saved from another part than the one holding the first costs: the hidden parts' values are kept.
+    await page.click("[data-testid=part-selection]");
+    await page.locator("#f-options-3-evaporativeCondenser-ratedHeatRejectionKW").waitFor();
     await page.click("[data-testid=save-scenario]");
     await page.locator("[data-testid=banner-saved]").waitFor({ timeout: 120_000 });
     expect(await page.locator("[data-testid=banner-saved]").innerText()).not.toMatch(/First costs are still missing/);
+    // …and stored: opened afresh at option 2's costs part (the address names the part).
+    await page.goto(`${scenarioUrl}/edit?section=option-2&part=costs`);
+    expect(await page.inputValue("#f-options-1-costs-firstCost-equipment")).toBe("470000");
+    expect(await page.locator("[data-testid=part-costs]").getAttribute("aria-current")).toBe("step");
   });
 
   it("compares the four: condenser plans, inventory in kg and lb, footprint, readable at 1280 px", async () => {

@@ -131,9 +131,10 @@ describe("the Economics step stays small", () => {
       const scenarios = await page.locator("a[href*='/scenarios/']").evaluateAll((as) => as.map((a) => a.getAttribute("href") ?? ""));
       const s = scenarios.find((h) => /\/scenarios\/[0-9a-f-]{36}$/.test(h));
       if (!s) continue;
-      const html = await (await page.request.get(`${s}/edit?section=economics`)).text();
-      if (html.includes('data-testid="sensitivity-ranges"') && html.includes('data-testid="monte-carlo-distributions"')) {
-        editUrl = `${s}/edit?section=economics`;
+      const html = await (await page.request.get(`${s}/edit?section=economics&part=sensitivity`)).text();
+      const mc = await (await page.request.get(`${s}/edit?section=economics&part=monte-carlo`)).text();
+      if (html.includes('data-testid="sensitivity-ranges"') && mc.includes('data-testid="monte-carlo-distributions"')) {
+        editUrl = `${s}/edit?section=economics&part=sensitivity`;
         console.log(`[economics step] ${html.length} bytes of HTML (with its scripts), ${html.replace(/<script[\s\S]*?<\/script>/g, "").length} without`);
         break;
       }
@@ -144,6 +145,8 @@ describe("the Economics step stays small", () => {
     expect(await page.locator("#f-sensitivity-tornado-waterPrice-low").count()).toBe(0);
     await page.click("[data-testid=sensitivity-ranges] button");
     await page.locator("#f-sensitivity-tornado-waterPrice-low").waitFor();
+    await page.click("[data-testid=part-monte-carlo]");
+    await page.locator("[data-testid=monte-carlo-distributions] button").waitFor();
     await page.click("[data-testid=monte-carlo-distributions] button");
     expect(await page.locator("[data-testid=monte-carlo-distributions] select").count()).toBeGreaterThan(5);
     await screenshot(page, "economics-step-opened");

@@ -101,6 +101,7 @@ async function buildAndCompare(system: "IP" | "SI"): Promise<Observed> {
   step("client validation seen");
   for (const [i, items] of Object.entries(FIRST_COSTS)) {
     await page.click(`[data-testid=nav-option-${Number(i) + 1}]`);
+    await page.click("[data-testid=part-costs]");
     for (const [k, v] of Object.entries(items)) await page.fill(`#f-options-${i}-costs-firstCost-${k}`, String(v));
   }
   await page.locator("[data-testid=form-error-summary]").waitFor({ state: "detached" }).catch(() => undefined);
