@@ -1214,7 +1214,7 @@ function DistributionRow({ k }: { k: MonteCarloInputKey }) {
   const m = MC_LABELS[k];
   const unit = k === "cyclesOfConcentration" ? "cycles" : "×";
   return (
-    <div className="grid items-end gap-3 rounded-md border border-line p-3 sm:grid-cols-4">
+    <div className="grid items-end gap-3 rounded-md border border-line px-3 py-2 sm:grid-cols-4">
       <div>
         <label htmlFor={`f-${name.replace(/\./g, "-")}-type`} className="block text-sm font-medium">
           {m.label}
