@@ -64,3 +64,30 @@ export function humidityRatioFromWetBulbAndWs(dryBulbC: number, wetBulbC: number
       : ((2830 - 0.24 * tw) * wsAtWetBulb - 1.006 * (dryBulbC - tw)) / (2830 + 1.86 * dryBulbC - 2.1 * tw);
   return w > 0 ? w : 0;
 }
+
+/**
+ * d²(ln pws)/dT² of the Hyland–Wexler saturation pressure, 1/K² (branch as `logSaturationPressureSlopePerK`).
+ * Source: second derivative of ASHRAE Fundamentals 2017 ch.1 eqs. 5 and 6.
+ */
+export function logSaturationPressureCurvaturePerK2(tC: number, overIce = !(tC > 0.01)): number {
+  const t = tC + KELVIN_OFFSET;
+  if (!overIce) {
+    return (-2 * 5.8002206e3) / (t * t * t) + 2 * 4.1764768e-5 - 6 * 1.4452093e-8 * t - 6.5459673 / (t * t);
+  }
+  return (-2 * 5.6745359e3) / (t * t * t) + 2 * 6.2215701e-7 + 6 * 2.0747825e-9 * t - 12 * 9.484024e-13 * t * t - 4.1635019 / (t * t);
+}
+
+/**
+ * d²hs/dT² of saturated air at temperature t, given hs(t) already evaluated, kJ/(kg dry air·K²): the
+ * derivative of `saturatedEnthalpySlopeKJPerKgK`. With g = 1 + Ws/0.621945, L = d(ln pws)/dT, Ws′ = Ws·g·L:
+ * Ws″ = Ws′·g·L + Ws·(Ws′/0.621945)·L + Ws·g·L′, hs″ = 2·1.86·Ws′ + (2501 + 1.86·t)·Ws″.
+ * Source: calculus on ASHRAE Fundamentals 2017 ch.1 eqs. 5–6, 23, 32. No exponential.
+ */
+export function saturatedEnthalpyCurvatureKJPerKgK2(tC: number, hsKJPerKg: number): number {
+  const ws = saturationHumidityRatioFromEnthalpy(tC, hsKJPerKg);
+  const g = 1 + ws / MOLAR_MASS_RATIO;
+  const l = logSaturationPressureSlopePerK(tC);
+  const dWs = ws * g * l;
+  const d2Ws = dWs * g * l + ws * (dWs / MOLAR_MASS_RATIO) * l + ws * g * logSaturationPressureCurvaturePerK2(tC);
+  return 2 * 1.86 * dWs + (2501 + 1.86 * tC) * d2Ws;
+}

@@ -10,7 +10,10 @@
 import { saturatedAirEnthalpyKJPerKg as saturatedAirEnthalpyKJPerKgBound, waterSpecificHeatKJPerKgK } from "./psychrometrics";
 import { type EnteringAir, evaporationKgPerS as evaporationKgPerSBound, tableSaturatedTemperatureC as tableSaturatedTemperatureCBound } from "./air-side";
 import { type FanModel, fanOperationForRequiredAirflow as fanOperationForRequiredAirflowBound, highStateTimeFraction as highStateTimeFractionBound } from "./fans";
-import { saturatedEnthalpySlopeKJPerKgK as saturatedEnthalpySlopeKJPerKgKBound } from "./saturation";
+import {
+  saturatedEnthalpyCurvatureKJPerKgK2 as saturatedEnthalpyCurvatureKJPerKgK2Bound,
+  saturatedEnthalpySlopeKJPerKgK as saturatedEnthalpySlopeKJPerKgKBound,
+} from "./saturation";
 import { brentRoot } from "./solvers";
 import type { EngineWarning } from "./types";
 
@@ -23,6 +26,7 @@ const tableSaturatedTemperatureC = tableSaturatedTemperatureCBound;
 const fanOperationForRequiredAirflow = fanOperationForRequiredAirflowBound;
 const highStateTimeFraction = highStateTimeFractionBound;
 const saturatedEnthalpySlopeKJPerKgK = saturatedEnthalpySlopeKJPerKgKBound;
+const saturatedEnthalpyCurvatureKJPerKgK2 = saturatedEnthalpyCurvatureKJPerKgK2Bound;
 
 const CPW = waterSpecificHeatKJPerKgK;
 /**
@@ -233,9 +237,11 @@ export function requiredLiquidToGasRatio(
 
 /**
  * Cold-water temperature the tower delivers at a given airflow (floating, not controlled), °C:
- * the Tc where Chebyshev demand equals the characteristic, found by bracketed Newton on
- * 1/demand − 1/supply with the analytic slope of hs.
- * 4 saturated-enthalpy evaluations per iteration; `guessC` (e.g. the set-point) speeds it up.
+ * the Tc where Chebyshev demand equals the characteristic, found by bracketed Halley steps on
+ * ρ = 1/demand − 1/supply with the analytic slope and curvature of hs (Newton where Halley's denominator
+ * is not safely positive). 4 saturated-enthalpy evaluations per iteration; `guessC` (e.g. the set-point)
+ * speeds it up. Converged when the Newton step is within the tolerance, or — without `slopeOut` — when the
+ * error the step leaves, |ρ″/(2ρ′)|·s², is.
  * `slopeOut` receives d(required airflow fraction)/dT at the solution (towerAirflowForColdWater's slope,
  * from the last iterate's saturated enthalpies: no further evaluation).
  */
@@ -279,6 +285,7 @@ export function towerColdWaterAtAirflowC(
   for (let iter = 0; iter < 40; iter++) {
     let sum = 0;
     let dsum = 0;
+    let d2sum = 0;
     let lsum = 0;
     let feasible = true;
     const reuse = iter === 0 && knownUsable && known.tC === t;
@@ -291,9 +298,12 @@ export function towerColdWaterAtAirflowC(
         feasible = false;
         break;
       }
-      sum += 1 / drive;
-      dsum += saturatedEnthalpySlopeKJPerKgK(tk, hs) / (drive * drive);
-      lsum += (CPW * k * rangeK) / (drive * drive);
+      const inv = 1 / drive;
+      const slope = saturatedEnthalpySlopeKJPerKgK(tk, hs);
+      sum += inv;
+      dsum += slope * inv * inv;
+      d2sum += (saturatedEnthalpyCurvatureKJPerKgK2(tk, hs) - 2 * slope * slope * inv) * inv * inv;
+      lsum += CPW * k * rangeK * inv * inv;
     }
     if (!feasible) {
       lo = Math.max(lo, t);
@@ -307,9 +317,20 @@ export function towerColdWaterAtAirflowC(
     if (rho < 0) lo = Math.max(lo, t);
     else hi = Math.min(hi, t);
     const dRho = (((CPW * rangeK) / 4) * dsum) / (demand * demand);
-    let next = t - rho / dRho;
-    const tol = toleranceK + (guessC !== undefined ? relativeTolerance * Math.abs(next - guessC) : 0);
-    if (rho === 0 || Math.abs(next - t) < tol) {
+    const newton = t - rho / dRho;
+    // Halley's step with ρ″ = (4/(cpw·R))·(Σ(hs″ᵢ/rᵢ² − 2hs′ᵢ²/rᵢ³)/Σ² + 2(Σhs′ᵢ/rᵢ²)²/Σ³), Σ = Σ1/rᵢ
+    // (hs″ analytic, no further evaluation).
+    const d2Rho = ((4 / (CPW * rangeK)) * (d2sum + (2 * dsum * dsum) / sum)) / (sum * sum);
+    const halleyDenominator = 2 * dRho * dRho - rho * d2Rho;
+    const halley = halleyDenominator > dRho * dRho;
+    let next = halley ? t - (2 * rho * dRho) / halleyDenominator : newton;
+    const tol = toleranceK + (guessC !== undefined ? relativeTolerance * Math.abs(newton - guessC) : 0);
+    // Converged when the step itself is within the tolerance, or (without a slope to report at t) when the
+    // error left after it is: a Newton step s from t leaves ≈ |ρ″/(2ρ′)|·s² (Halley's less, third order),
+    // so a state a few K from its start needs one evaluation near the root instead of two.
+    const step = newton - t;
+    const leftK = halley && !slopeOut ? Math.abs(d2Rho / (2 * dRho)) * step * step : Number.POSITIVE_INFINITY;
+    if (rho === 0 || Math.abs(step) < tol || (!reuse && leftK < tol)) {
       if (slopeOut) {
         // d(airflow fraction)/dT of the requirement at this temperature (see towerAirflowForColdWater).
         const k4 = 4 / (CPW * rangeK);

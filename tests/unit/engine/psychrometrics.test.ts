@@ -20,6 +20,7 @@ import {
   wetBulbFromDewPointC,
   wetBulbFromRelativeHumidityC,
 } from "@/lib/engine/psychrometrics";
+import { saturatedEnthalpyCurvatureKJPerKgK2 } from "@/lib/engine/saturation";
 
 const P0 = STANDARD_ATMOSPHERE_PA;
 
@@ -293,5 +294,26 @@ describe("saturated enthalpy hot path (tabulated per pressure)", () => {
     psychrolib.SetUnitSystem(psychrolib.SI);
     expect(Math.abs(h - psychrolib.GetSatAirEnthalpy(30, P0) / 1000)).toBeLessThan(1e-9);
     expect(Math.abs(twb - psychrolib.GetTWetBulbFromRelHum(30, 0.5, P0))).toBeLessThan(1e-9);
+  });
+});
+
+describe("curvature of the saturated-air enthalpy, d²hs/dT² (the tower's Halley step)", () => {
+  // Reference: the central second difference of psychrolib's GetSatAirEnthalpy (the reference implementation
+  // of ASHRAE Fundamentals 2017 ch.1), h = 0.01 K: truncation h²·hs⁗/12 and round-off are both far below
+  // 0.1 % of hs″ at these temperatures (hand estimate).
+  psychrolib.SetUnitSystem(psychrolib.SI);
+  const cases: [number, number][] = [
+    [-10, 101325],
+    [5, 101325],
+    [20, 101325],
+    [35, 101325],
+    [30, 89875],
+  ];
+  it.each(cases)("at %d °C, %d Pa: within 0.1 % of psychrolib's second difference", (t, p) => {
+    const h = 0.01;
+    const hsJ = (x: number) => psychrolib.GetSatAirEnthalpy(x, p);
+    const reference = (hsJ(t + h) - 2 * hsJ(t) + hsJ(t - h)) / (h * h) / 1000;
+    const hs = psychrolib.GetSatAirEnthalpy(t, p) / 1000;
+    expect(Math.abs(saturatedEnthalpyCurvatureKJPerKgK2(t, hs) / reference - 1)).toBeLessThan(1e-3);
   });
 });
