@@ -25,6 +25,7 @@ import type { Sourced } from "./condenser-construction";
 import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } from "./fans";
 import { type FoulingGrowth, monthlyFoulingM2KPerW } from "./fouling";
 import { saturatedAirEnthalpyKJPerKg } from "./psychrometrics";
+import { positivePower } from "./solvers";
 import type { EngineWarning } from "./types";
 import { blowdown } from "./water";
 
@@ -194,7 +195,7 @@ function chordSlope(air: EnteringAir, condensingC: number, hsCondensing: number)
 export function wetConductanceKgPerS(model: EvaporativeCondenserModel, airflowFraction: number, csKJPerKgK: number): number {
   const f = Math.max(airflowFraction, 1e-4);
   const ma = model.designAirFlowKgPerS * f;
-  const uaH = 1 / (1 / (model.externalMassTransferKgPerS * Math.pow(f, 0.8)) + csKJPerKgK / model.internalUaKWPerK);
+  const uaH = 1 / (1 / (model.externalMassTransferKgPerS * positivePower(f, 0.8)) + csKJPerKgK / model.internalUaKWPerK);
   return ma * (1 - Math.exp(-uaH / ma));
 }
 
@@ -203,7 +204,7 @@ export function dryConductanceKWPerK(model: EvaporativeCondenserModel, airflowFr
   const f = Math.max(airflowFraction, 1e-4);
   const cp = air.moistSpecificHeatKJPerKgK;
   const ca = model.designAirFlowKgPerS * f * cp;
-  const ua = 1 / (1 / (model.dryFactor * model.externalMassTransferKgPerS * Math.pow(f, 0.8) * cp) + 1 / model.internalUaKWPerK);
+  const ua = 1 / (1 / (model.dryFactor * model.externalMassTransferKgPerS * positivePower(f, 0.8) * cp) + 1 / model.internalUaKWPerK);
   return ca * (1 - Math.exp(-ua / ca));
 }
 

@@ -22,6 +22,7 @@ import { type FanModel, fanOperationForRequiredAirflow as fanOperationForRequire
 import { type GlycolKind, fluidProperties, tubeSideCoefficientRatio } from "./glycol";
 import { counterflowNtu } from "./heat-exchanger";
 import type { EngineWarning } from "./types";
+import { positivePower as positivePowerBound } from "./solvers";
 
 // Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
 // imported name runs the CommonJS interop's two property getters; a module constant calls the function
@@ -30,6 +31,7 @@ const saturatedAirEnthalpyKJPerKg = saturatedAirEnthalpyKJPerKgBound;
 const evaporationKgPerS = evaporationKgPerSBound;
 const fanOperationForRequiredAirflow = fanOperationForRequiredAirflowBound;
 const highStateTimeFraction = highStateTimeFractionBound;
+const positivePower = positivePowerBound;
 
 /** The manufacturer's selection of a closed-circuit cooler. */
 export interface CoolerSelection {
@@ -334,7 +336,7 @@ export function coolerConductanceWithSlope(model: CoolerModel, airflowFraction: 
   // The passes of a floating solve repeat one airflow: keep its f^0.8.
   if (f !== POW08.f) {
     POW08.f = f;
-    POW08.value = Math.pow(f, 0.8);
+    POW08.value = positivePower(f, 0.8);
   }
   const f08 = POW08.value;
   let ca: number;

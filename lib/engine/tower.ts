@@ -14,7 +14,7 @@ import {
   saturatedEnthalpyCurvatureKJPerKgK2 as saturatedEnthalpyCurvatureKJPerKgK2Bound,
   saturatedEnthalpySlopeKJPerKgK as saturatedEnthalpySlopeKJPerKgKBound,
 } from "./saturation";
-import { brentRoot } from "./solvers";
+import { brentRoot, positivePower as positivePowerBound } from "./solvers";
 import type { EngineWarning } from "./types";
 
 // Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
@@ -26,6 +26,7 @@ const tableSaturatedTemperatureC = tableSaturatedTemperatureCBound;
 const fanOperationForRequiredAirflow = fanOperationForRequiredAirflowBound;
 const highStateTimeFraction = highStateTimeFractionBound;
 const saturatedEnthalpySlopeKJPerKgK = saturatedEnthalpySlopeKJPerKgKBound;
+const positivePower = positivePowerBound;
 const saturatedEnthalpyCurvatureKJPerKgK2 = saturatedEnthalpyCurvatureKJPerKgK2Bound;
 
 const CPW = waterSpecificHeatKJPerKgK;
@@ -93,7 +94,7 @@ export function merkelNumberNumerical(
  * n ≈ 0.5–0.8 [practice].
  */
 export function towerCharacteristicMerkel(coefficientC: number, exponentN: number, liquidToGasRatio: number): number {
-  return coefficientC * Math.pow(liquidToGasRatio, -exponentN);
+  return coefficientC * positivePower(liquidToGasRatio, -exponentN);
 }
 
 /** The manufacturer's design point of a tower selection. */
@@ -206,7 +207,7 @@ export function requiredLiquidToGasRatio(
   let hi = lgMax;
   const k4 = 4 / c;
   let psiLo = k4 / (1 / d0 + 1 / d1 + 1 / d2 + 1 / d3);
-  let psiHi = -Math.pow(lgMax, exponentN) / coefficientC;
+  let psiHi = -positivePower(lgMax, exponentN) / coefficientC;
   let lg = guessLiquidToGasRatio > 0 && guessLiquidToGasRatio < lgMax ? guessLiquidToGasRatio : 0.5 * lgMax;
   for (let iter = 0; iter < 60; iter++) {
     const r0 = d0 - lg * s0;
@@ -215,7 +216,7 @@ export function requiredLiquidToGasRatio(
     const r3 = d3 - lg * s3;
     const sum = 1 / r0 + 1 / r1 + 1 / r2 + 1 / r3;
     const dsum = s0 / (r0 * r0) + s1 / (r1 * r1) + s2 / (r2 * r2) + s3 / (r3 * r3);
-    const lgn = Math.pow(lg, exponentN);
+    const lgn = positivePower(lg, exponentN);
     const psi = k4 / sum - lgn / coefficientC;
     if (psi > 0) {
       lo = lg;
@@ -335,7 +336,7 @@ export function towerColdWaterAtAirflowC(
         // d(airflow fraction)/dT of the requirement at this temperature (see towerAirflowForColdWater).
         const k4 = 4 / (CPW * rangeK);
         const psiT = (k4 * dsum) / (sum * sum);
-        const psiL = (-k4 * lsum) / (sum * sum) - (model.exponentN * Math.pow(lg, model.exponentN - 1)) / model.coefficientC;
+        const psiL = (-k4 * lsum) / (sum * sum) - (model.exponentN * positivePower(lg, model.exponentN - 1)) / model.coefficientC;
         slopeOut.airflowSlopePerK = (-Math.max(airflowFraction, 1e-3) / lg) * (-psiT / psiL);
       }
       return Math.max(next, floorC);
@@ -534,7 +535,7 @@ export function towerAirflowForColdWater(
   }
   const k4 = 4 / c;
   const psiT = (k4 * sumT) / (sumInv * sumInv);
-  const psiL = (-k4 * sumL) / (sumInv * sumInv) - (model.exponentN * Math.pow(lg, model.exponentN - 1)) / model.coefficientC;
+  const psiL = (-k4 * sumL) / (sumInv * sumInv) - (model.exponentN * positivePower(lg, model.exponentN - 1)) / model.coefficientC;
   const dLgdT = -psiT / psiL;
   const fraction = model.waterFlowKgPerS / lg / model.designAirFlowKgPerS;
   return { fraction, slopePerK: (-fraction / lg) * dLgdT, liquidToGasRatio: lg };
