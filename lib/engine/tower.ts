@@ -174,7 +174,7 @@ function pinchLiquidToGasRatio(coldWaterC: number, rangeK: number, haIn: number,
  * L/G at which a tower with characteristic C·(L/G)^−n delivers a given cold-water temperature at a
  * given range, from the four saturated enthalpies hs(Tc + kᵢR) (fixed once Tc and R are fixed):
  * solve (cpw·R/4)·Σ 1/(hsᵢ − ha,in − (L/G)·cpw·kᵢR) = C·(L/G)^−n, a monotone 1-D root in ln(L/G)
- * (safeguarded Newton on 1/demand − 1/supply) that needs no further saturated-enthalpy evaluation. Returns 0 when no airflow can do it
+ * (safeguarded Halley steps on 1/demand − 1/supply) that needs no further saturated-enthalpy evaluation. Returns 0 when no airflow can do it
  * (cold water at or below the wet-bulb).
  */
 export function requiredLiquidToGasRatio(
@@ -202,20 +202,22 @@ export function requiredLiquidToGasRatio(
   const s3 = 0.9 * c;
   const lgMax = Math.min(d0 / s0, d1 / s1, d2 / s2, d3 / s3);
   // ψ(L/G) = 1/demand − 1/supply: 1/demand falls almost linearly to 0 at the pinch, 1/supply =
-  // (L/G)^n/C is concave, so ψ is smooth, convex and decreasing; bracketed Newton converges in a few steps.
+  // (L/G)^n/C is concave, so ψ is smooth, convex and decreasing; bracketed Halley steps converge in a few.
   let lo = 0;
   let hi = lgMax;
   const k4 = 4 / c;
   let psiLo = k4 / (1 / d0 + 1 / d1 + 1 / d2 + 1 / d3);
-  let psiHi = -positivePower(lgMax, exponentN) / coefficientC;
+  // ψ at the bracket's high end, only if a secant step needs it before a Newton iterate lands above the root.
+  let psiHi = Number.NaN;
   let lg = guessLiquidToGasRatio > 0 && guessLiquidToGasRatio < lgMax ? guessLiquidToGasRatio : 0.5 * lgMax;
   for (let iter = 0; iter < 60; iter++) {
-    const r0 = d0 - lg * s0;
-    const r1 = d1 - lg * s1;
-    const r2 = d2 - lg * s2;
-    const r3 = d3 - lg * s3;
-    const sum = 1 / r0 + 1 / r1 + 1 / r2 + 1 / r3;
-    const dsum = s0 / (r0 * r0) + s1 / (r1 * r1) + s2 / (r2 * r2) + s3 / (r3 * r3);
+    const i0 = 1 / (d0 - lg * s0);
+    const i1 = 1 / (d1 - lg * s1);
+    const i2 = 1 / (d2 - lg * s2);
+    const i3 = 1 / (d3 - lg * s3);
+    const sum = i0 + i1 + i2 + i3;
+    const dsum = s0 * i0 * i0 + s1 * i1 * i1 + s2 * i2 * i2 + s3 * i3 * i3;
+    const d2sum = 2 * (s0 * s0 * i0 * i0 * i0 + s1 * s1 * i1 * i1 * i1 + s2 * s2 * i2 * i2 * i2 + s3 * s3 * i3 * i3 * i3);
     const lgn = positivePower(lg, exponentN);
     const psi = k4 / sum - lgn / coefficientC;
     if (psi > 0) {
@@ -226,9 +228,15 @@ export function requiredLiquidToGasRatio(
       psiHi = psi;
     }
     const dpsi = (-k4 * dsum) / (sum * sum) - (exponentN * lgn) / (lg * coefficientC);
-    let next = lg - psi / dpsi;
-    if (psi === 0 || Math.abs(next - lg) < 1e-10 * lg) return next;
+    // Halley's step: ψ″ = (4/(cpw·R))·(2(Σsᵢ/rᵢ²)²/Σ³ − Σ(2sᵢ²/rᵢ³)/Σ²) − n(n − 1)(L/G)^(n−2)/C, Σ = Σ1/rᵢ.
+    const d2psi = k4 * ((2 * dsum * dsum) / (sum * sum * sum) - d2sum / (sum * sum)) - (exponentN * (exponentN - 1) * lgn) / (lg * lg * coefficientC);
+    const step = -psi / dpsi;
+    const halleyDenominator = 2 * dpsi * dpsi - psi * d2psi;
+    let next = halleyDenominator > dpsi * dpsi ? lg - (2 * psi * dpsi) / halleyDenominator : lg + step;
+    // Converged when the Newton step, or the error it leaves (|ψ″/(2ψ′)|·s²), is below 1e−10 of L/G.
+    if (psi === 0 || Math.abs(step) < 1e-10 * lg || Math.abs(d2psi / (2 * dpsi)) * step * step < 1e-10 * lg) return next;
     // Outside the bracket: a secant step between its ends (bisection only if that degenerates).
+    if (!(next > lo && next < hi) && Number.isNaN(psiHi)) psiHi = -positivePower(hi, exponentN) / coefficientC;
     if (!(next > lo && next < hi)) next = lo + (psiLo * (hi - lo)) / (psiLo - psiHi);
     if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
     lg = next;
