@@ -245,6 +245,29 @@ export function requiredLiquidToGasRatio(
 }
 
 /**
+ * The tower characteristic C·(L/G)^−n of the last two L/G values asked for, per tower: the floating solves of a
+ * fan mix ask for the same two fan states hour after hour (the same number, computed once).
+ */
+const SUPPLY_MEMO = { model: null as TowerModel | null, lg: [Number.NaN, Number.NaN], supply: [0, 0], next: 0 };
+
+function supplyAtLiquidToGas(model: TowerModel, lg: number): number {
+  const m = SUPPLY_MEMO;
+  if (m.model === model) {
+    if (m.lg[0] === lg) return m.supply[0] ?? 0;
+    if (m.lg[1] === lg) return m.supply[1] ?? 0;
+  } else {
+    m.model = model;
+    m.lg[0] = Number.NaN;
+    m.lg[1] = Number.NaN;
+  }
+  const supply = towerCharacteristicMerkel(model.coefficientC, model.exponentN, lg);
+  m.lg[m.next] = lg;
+  m.supply[m.next] = supply;
+  m.next = 1 - m.next;
+  return supply;
+}
+
+/**
  * Cold-water temperature the tower delivers at a given airflow (floating, not controlled), °C:
  * the Tc where Chebyshev demand equals the characteristic, found by bracketed Halley steps on
  * ρ = 1/demand − 1/supply with the analytic slope and curvature of hs (Newton where Halley's denominator
@@ -268,7 +291,7 @@ export function towerColdWaterAtAirflowC(
 ): number {
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   const lg = model.waterFlowKgPerS / (model.designAirFlowKgPerS * Math.max(airflowFraction, 1e-3));
-  const supply = towerCharacteristicMerkel(model.coefficientC, model.exponentN, lg);
+  const supply = supplyAtLiquidToGas(model, lg);
   const haIn = air.enthalpyKJPerKg;
   // Lowest feasible Tc (operating line touching the saturation curve at a Chebyshev point), from the
   // saturation table: hs(Tc + kR) = ha,in + (L/G)·cpw·kR. There 1/demand = 0; the binding point's
