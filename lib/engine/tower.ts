@@ -296,9 +296,17 @@ export function towerColdWaterAtAirflowC(
   // Lowest feasible Tc (operating line touching the saturation curve at a Chebyshev point), from the
   // saturation table: hs(Tc + kR) = ha,in + (L/G)·cpw·kR. There 1/demand = 0; the binding point's
   // slope gives a first estimate of the root without evaluating hs.
+  // A known point (e.g. the requirement's four hs) lies above the pinch when its four driving forces are
+  // positive: then it starts the search, its first pass brackets the root, and the pinch is not needed.
+  let knownUsable = known !== undefined && known.tC > air.wetBulbC + 1e-3;
+  for (let i = 0; knownUsable && known !== undefined && i < 4; i++) {
+    const k = CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0;
+    if (!((known.saturatedEnthalpiesKJPerKg[i] ?? 0) - haIn - lg * CPW * k * rangeK > 0)) knownUsable = false;
+  }
   let pinchC = air.wetBulbC + 1e-3;
   let pinchSlope = 0;
-  for (const k of CHEBYSHEV_RANGE_FRACTIONS) {
+  for (let i = 0; !knownUsable && i < 4; i++) {
+    const k = CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0;
     const target = haIn + lg * CPW * k * rangeK;
     const tk = tableSaturatedTemperatureC(air.table, target);
     if (Number.isFinite(tk) && tk - k * rangeK > pinchC) {
@@ -307,9 +315,9 @@ export function towerColdWaterAtAirflowC(
     }
   }
   const floorC = pinchC;
-  const knownUsable = known !== undefined && known.tC > pinchC;
+  const start = knownUsable ? known : undefined;
   let t: number;
-  if (knownUsable) t = known.tC;
+  if (start) t = start.tC;
   else if (pinchSlope > 0) t = pinchC + ((CPW * rangeK) / 4) * (pinchSlope > 0 ? 1 / (supply * pinchSlope) : 0);
   else t = Math.max(guessC ?? air.wetBulbC + model.designApproachK, floorC + 1e-3);
   let lo = floorC; // residual < 0 side (too cold)
@@ -320,11 +328,11 @@ export function towerColdWaterAtAirflowC(
     let d2sum = 0;
     let lsum = 0;
     let feasible = true;
-    const reuse = iter === 0 && knownUsable && known.tC === t;
+    const reuse = iter === 0 && start !== undefined && start.tC === t;
     for (let i = 0; i < 4; i++) {
       const k = CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0;
       const tk = t + k * rangeK;
-      const hs = reuse ? (known.saturatedEnthalpiesKJPerKg[i] ?? 0) : saturatedAirEnthalpyKJPerKg(tk, pPa);
+      const hs = reuse ? (start.saturatedEnthalpiesKJPerKg[i] ?? 0) : saturatedAirEnthalpyKJPerKg(tk, pPa);
       const drive = hs - haIn - lg * CPW * k * rangeK;
       if (!(drive > 0)) {
         feasible = false;
