@@ -85,6 +85,10 @@ export interface CoolerModel {
   designApproachK: number;
 }
 
+/** Tolerance of a fan-mix state's leaving-fluid temperature, as the tower's (tower.ts): 0.01 K plus 2 % of its distance from the requirement. */
+const MIX_STATE_TOLERANCE_K = 0.01;
+const MIX_STATE_RELATIVE_TOLERANCE = 0.02;
+
 const CP_DRY_RATING_AIR = 1.006 + 1.86 * 0.005; // moist-air cp at a typical W for the dry rating
 
 /**
@@ -233,6 +237,7 @@ export function coolerLeavingFluidAtAirflowC(
   wet: boolean,
   pPa: number,
   csGuess?: number,
+  mixOf?: { requiredLeavingFluidC: number },
 ): number {
   const cf = model.fluidCapacityKWPerK;
   if (!wet) {
@@ -257,7 +262,10 @@ export function coolerLeavingFluidAtAirflowC(
     csLast = cs;
     g = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, cs);
     const r = g - t;
-    if (Math.abs(r) < 2e-4) break;
+    // A fan-mix state (`mixOf`) to the tower's mix-state tolerance (tower.ts): 0.01 K plus 2 % of its
+    // distance from the requirement — the mix fraction is insensitive to the far state.
+    const tol = mixOf ? MIX_STATE_TOLERANCE_K + MIX_STATE_RELATIVE_TOLERANCE * Math.abs(g - heatKW / cf - mixOf.requiredLeavingFluidC) : 2e-4;
+    if (Math.abs(r) < tol) break;
     if (r > 0) lo = t;
     else hi = t;
     // First pass: the substitution step (G(T) lies on the other side of the root). Then secant steps.
@@ -578,8 +586,9 @@ function finishMode(
     const f = op.state.powerKW > 0 ? op.state.airflowFraction : Math.max(requiredFraction, 1e-3);
     return { mode, held: true, leavingFluidC: requiredLeavingFluidC, enteringFluidC: requiredLeavingFluidC + heatKW / cf, airflowFraction: f, fanPowerKW: op.state.powerKW, evaporationKgPerS: wet ? evaporationKgPerS(heatKW, f * ma, pPa, air) : 0, sprayOn: wet };
   }
-  const tLow = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.low.airflowFraction, wet, pPa, cs);
-  const tHigh = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.high.airflowFraction, wet, pPa, cs);
+  const mixOf = { requiredLeavingFluidC };
+  const tLow = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.low.airflowFraction, wet, pPa, cs, mixOf);
+  const tHigh = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.high.airflowFraction, wet, pPa, cs, mixOf);
   const x = highStateTimeFraction(tLow, tHigh, requiredLeavingFluidC);
   return {
     mode,
