@@ -370,7 +370,7 @@ export function towerColdWaterAtAirflowC(
     // so a state a few K from its start needs one evaluation near the root instead of two.
     const step = newton - t;
     const leftK = halley && !slopeOut ? Math.abs(d2Rho / (2 * dRho)) * step * step : Number.POSITIVE_INFINITY;
-    if (rho === 0 || Math.abs(step) < tol || (!reuse && leftK < tol)) {
+    if (rho === 0 || Math.abs(step) < tol || leftK < tol) {
       if (slopeOut) {
         // d(airflow fraction)/dT of the requirement at this temperature (see towerAirflowForColdWater).
         const k4 = 4 / (CPW * rangeK);
