@@ -6,7 +6,10 @@
  *  - the median CPU time per analysis: physics (climate + calibration + year + cleaning optimum) and the
  *    full analysis with deterministic economics;
  *  - saturated-air enthalpy evaluations per hour and option over the whole physics run (cleaning optimum
- *    included), and how many of them evaluated the formula itself (exp/log) rather than its table;
+ *    included), and how many of them evaluated the formula itself (exp/log) rather than its table: every
+ *    call of the primitive during one fresh analysis (prepareScenario + physicsOf) divided by hours × options;
+ *    the climate's entering-air states, computed once per analysis and read by every option, count once in
+ *    the total (1/options per option); the per-pressure tables, built once per process, do not recur;
  *  - the ratio of the physics time to the bare cost of that many evaluations of the primitive — the full
  *    formula (one exp, one log) and its per-pressure table — measured in the same run;
  *  - the what-if physics re-run (physical overrides on the compressed climate, applied to the stored hourly
