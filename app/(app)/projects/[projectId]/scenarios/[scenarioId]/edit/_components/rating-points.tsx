@@ -44,9 +44,62 @@ function FitAfterAnalysis({ i, device }: { i: number; device: "tower" | "cooler"
   );
 }
 
-const removeButton = "mb-1 rounded border border-line px-2 py-1 text-xs hover:bg-danger-50";
-const addButton =
-  "rounded border border-line-strong px-2 py-1 text-xs hover:bg-paper-sunk disabled:opacity-50";
+/** One rating's fields on a row, with its remove button (`columns`: how many fields the row holds). */
+function RatingRow(props: {
+  columns: 5 | 6;
+  removeLabel: string;
+  onRemove: () => void;
+  testId?: string;
+  children: React.ReactNode;
+}) {
+  const cols =
+    props.columns === 6 ? "xl:grid-cols-[repeat(6,1fr)_auto]" : "xl:grid-cols-[repeat(5,1fr)_auto]";
+  return (
+    <div
+      className={`grid items-end gap-2 rounded-md border border-line p-2 sm:grid-cols-3 ${cols}`}
+      data-testid={props.testId}
+    >
+      {props.children}
+      <button
+        type="button"
+        className="mb-1 rounded border border-line px-2 py-1 text-xs hover:bg-danger-50"
+        onClick={props.onRemove}
+        aria-label={props.removeLabel}
+      >
+        Remove
+      </button>
+    </div>
+  );
+}
+
+/** The rows of a rating list, its add button (off at `max`) and, after an analysis, the fit. */
+function RatingList(props: {
+  testId: string;
+  count: number;
+  max: number;
+  onAdd: () => void;
+  addTestId: string;
+  addLabel: string;
+  maxText: string;
+  children: React.ReactNode;
+}) {
+  const full = props.count >= props.max;
+  return (
+    <div className="space-y-3 sm:col-span-2 xl:col-span-3" data-testid={props.testId}>
+      {props.children}
+      <button
+        type="button"
+        className="rounded border border-line-strong px-2 py-1 text-xs hover:bg-paper-sunk disabled:opacity-50"
+        onClick={props.onAdd}
+        disabled={full}
+        data-testid={props.addTestId}
+      >
+        {props.addLabel}
+        {full ? ` (${props.maxText})` : ""}
+      </button>
+    </div>
+  );
+}
 
 export function TowerRatingPoints({ i }: { i: number }) {
   const { getValues } = useFormContext<V>();
@@ -74,12 +127,22 @@ export function TowerRatingPoints({ i }: { i: number }) {
         </>
       }
     >
-      <div className="space-y-3 sm:col-span-2 xl:col-span-3" data-testid="tower-rating-points">
+      <RatingList
+        testId="tower-rating-points"
+        count={fields.length}
+        max={5}
+        onAdd={addPoint}
+        addTestId="add-tower-rating-point"
+        addLabel="Add a rating point"
+        maxText="five at most"
+      >
         {fields.map((f, j) => (
-          <div
+          <RatingRow
             key={f.id}
-            className="grid items-end gap-2 rounded-md border border-line p-2 sm:grid-cols-3 xl:grid-cols-[repeat(6,1fr)_auto]"
-            data-testid="tower-rating-point"
+            columns={6}
+            testId="tower-rating-point"
+            onRemove={() => remove(j)}
+            removeLabel={`Remove tower rating point ${j + 1}`}
           >
             <FlowField name={`${name}.${j}.waterFlowKgPerS`} label={`Point ${j + 1}: water flow`} />
             <Num name={`${name}.${j}.enteringWaterC`} label="Entering (hot) water" kind="temperatureC" />
@@ -87,26 +150,9 @@ export function TowerRatingPoints({ i }: { i: number }) {
             <Num name={`${name}.${j}.wetBulbC`} label="Entering wet-bulb" kind="temperatureC" />
             <Num name={`${name}.${j}.airFlowKgPerS`} label="Airflow (mass)" kind="massFlowKgPerS" optional />
             <Num name={`${name}.${j}.fanPowerKW`} label="Fan motor input" kind="powerKW" optional />
-            <button
-              type="button"
-              className={removeButton}
-              onClick={() => remove(j)}
-              aria-label={`Remove tower rating point ${j + 1}`}
-            >
-              Remove
-            </button>
-          </div>
+          </RatingRow>
         ))}
-        <button
-          type="button"
-          className={addButton}
-          onClick={addPoint}
-          disabled={fields.length >= 5}
-          data-testid="add-tower-rating-point"
-        >
-          Add a rating point{fields.length >= 5 ? " (five at most)" : ""}
-        </button>
-      </div>
+      </RatingList>
       <FitAfterAnalysis i={i} device="tower" />
     </Group>
   );
@@ -130,37 +176,30 @@ export function CoolerWetRatings({ i }: { i: number }) {
       title="Extra wet ratings"
       note="Wet ratings of the same cooler at another fluid flow, airflow or wet-bulb (up to four). With the design rating held, they fit how the wet resistance splits between the tube side and the air side; without them the entered share is used. The dry rating (above) then calibrates dry operation."
     >
-      <div className="space-y-3 sm:col-span-2 xl:col-span-3" data-testid="cooler-wet-ratings">
+      <RatingList
+        testId="cooler-wet-ratings"
+        count={fields.length}
+        max={4}
+        onAdd={addRating}
+        addTestId="add-cooler-wet-rating"
+        addLabel="Add a wet rating"
+        maxText="four at most"
+      >
         {fields.map((f, j) => (
-          <div
+          <RatingRow
             key={f.id}
-            className="grid items-end gap-2 rounded-md border border-line p-2 sm:grid-cols-3 xl:grid-cols-[repeat(5,1fr)_auto]"
+            columns={5}
+            onRemove={() => remove(j)}
+            removeLabel={`Remove cooler wet rating ${j + 2}`}
           >
             <FlowField name={`${name}.${j}.fluidFlowKgPerS`} label={`Rating ${j + 2}: fluid flow`} />
             <Num name={`${name}.${j}.enteringFluidC`} label="Entering fluid" kind="temperatureC" />
             <Num name={`${name}.${j}.leavingFluidC`} label="Leaving fluid" kind="temperatureC" />
             <Num name={`${name}.${j}.wetBulbC`} label="Entering wet-bulb" kind="temperatureC" />
             <Num name={`${name}.${j}.airFlowKgPerS`} label="Airflow (mass)" kind="massFlowKgPerS" optional />
-            <button
-              type="button"
-              className={removeButton}
-              onClick={() => remove(j)}
-              aria-label={`Remove cooler wet rating ${j + 2}`}
-            >
-              Remove
-            </button>
-          </div>
+          </RatingRow>
         ))}
-        <button
-          type="button"
-          className={addButton}
-          onClick={addRating}
-          disabled={fields.length >= 4}
-          data-testid="add-cooler-wet-rating"
-        >
-          Add a wet rating{fields.length >= 4 ? " (four at most)" : ""}
-        </button>
-      </div>
+      </RatingList>
       <FitAfterAnalysis i={i} device="cooler" />
     </Group>
   );
