@@ -2,7 +2,8 @@
  * npm run bench:engine — speed of the engine on a full hourly year and on its compressed climate.
  *
  * Prints, for the hourly fixture with three options and with a fourth option added (a second
- * closed-circuit cooler with two-speed fans), at full resolution (8760 h) and on the compressed climate:
+ * closed-circuit cooler with two-speed fans), each also under floating head pressure (the hour's control
+ * optimum), at full resolution (8760 h) and on the compressed climate:
  *  - the median CPU time per analysis: physics (climate + calibration + year + cleaning optimum) and the
  *    full analysis with deterministic economics;
  *  - saturated-air enthalpy evaluations per hour and option over the whole physics run (cleaning optimum
@@ -182,6 +183,7 @@ benchPhysics(input, "Hourly fixture");
 benchPhysics({ ...input, duty: { ...input.duty, headPressureControl: "floating" } }, "Hourly fixture, floating head pressure (each hour's fan + spray + compressor optimum)");
 const four = withFourthOption(input);
 benchPhysics(four, "Hourly fixture + a fourth option");
+benchPhysics({ ...four, duty: { ...four.duty, headPressureControl: "floating" } }, "Hourly fixture + a fourth option, floating head pressure (each hour's fan + spray + compressor optimum)");
 benchWhatIfAndMonteCarlo(four);
 process.stdout.write(`${lines.join("\n")}\n`);
 if (sink === 42) process.stdout.write("\n");

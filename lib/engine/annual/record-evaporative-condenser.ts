@@ -121,7 +121,7 @@ function mode(
       const above = airflowAt(lowC + 0.05).fraction;
       atLow = { fraction: 1, slopePerK: Number.isFinite(above) ? Math.min(0, (above - 1) / 0.05) : 0 };
     }
-    const best = optimalFloatingCondensing(po.fan, lowC, setC, { airflowAt, compressorSlope: slope }, atLow);
+    const best = optimalFloatingCondensing(po.fan, lowC, setC, { airflowAt, compressorSlope: slope, slopeIsExact: false }, atLow);
     const f = Math.min(1, Math.max(best.airflow.fraction, fMin));
     return outcome(true, best.condensingC, f, fanPowerAtSpeedKW(po.fan, f), evapAt(f));
   }

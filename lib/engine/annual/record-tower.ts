@@ -115,6 +115,8 @@ function finishTower(rates: RecordRates, liftK: number, rangeK: number, held: bo
 
 /** The tower's hour as the floating-head search sees it: Tc = cold water + lift. */
 class TowerFloatingHour implements FloatingHour {
+  /** towerAirflowForColdWater's slope is the implicit derivative of its L/G root (tower.ts). */
+  readonly slopeIsExact = true;
   private model!: TowerModel;
   private air!: EnteringAir;
   private heatKW = 0;
