@@ -396,6 +396,7 @@ const KS = { k: 0, dk: 0 };
  * (bisection otherwise), to |εCmin − need| < 1e−9·need.
  */
 export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, needKWPerK: number, cs: number | undefined): number {
+  ROOT_CONDUCTANCE.fraction = Number.NaN;
   if (!(needKWPerK > 0)) return Number.POSITIVE_INFINITY;
   const ks = KS;
   const wet = cs !== undefined;
@@ -416,11 +417,11 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
     const g = ks.k - needKWPerK;
     // The rating point itself counts as held: a relative 1e−6 of the conductance (rounding of the
     // calibration round trip), as the tower's L/G root and the fan map allow.
-    if (f === 1 && g < 0) return g >= -1e-6 * needKWPerK ? 1 : Number.POSITIVE_INFINITY;
+    if (f === 1 && g < 0) return g >= -1e-6 * needKWPerK ? rootWithConductance(1, ks.k) : Number.POSITIVE_INFINITY;
     if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) {
       if (wet) warm.wetFraction = f;
       else warm.dryFraction = f;
-      return f;
+      return rootWithConductance(f, ks.k);
     }
     if (g > 0) hi = f;
     else lo = f;
@@ -430,13 +431,26 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
       if (lo === 1e-3 && !checkedLo) {
         checkedLo = true;
         coolerConductanceWithSlope(model, lo, air, cs, ks);
-        if (ks.k - needKWPerK >= 0) return lo;
+        if (ks.k - needKWPerK >= 0) return rootWithConductance(lo, ks.k);
       }
       next = 0.5 * (lo + hi);
     }
     f = next;
   }
   return 0.5 * (lo + hi);
+}
+
+/**
+ * The conductance εCmin the last `requiredAirflowFraction` call evaluated at the fraction it returned (NaN
+ * when it returned none it evaluated): its caller's slope needs that same value, so it is kept, not
+ * recomputed (bit for bit the same number: same model, air, cs and fraction).
+ */
+const ROOT_CONDUCTANCE = { fraction: Number.NaN, kKWPerK: 0 };
+
+function rootWithConductance(fraction: number, kKWPerK: number): number {
+  ROOT_CONDUCTANCE.fraction = fraction;
+  ROOT_CONDUCTANCE.kKWPerK = kKWPerK;
+  return fraction;
 }
 
 /** The last airflow roots of the cooler `requiredAirflowFraction` served: starting points, never results. */
@@ -480,7 +494,8 @@ export function coolerAirflowForLeavingFluid(
   const f = requiredAirflowFraction(model, air, need, cs);
   if (!Number.isFinite(f)) return { fraction: f, slopePerK: 0 };
   const df = 1e-3 * f;
-  const dK = (coolerConductanceKWPerK(model, f + df, air, cs) - coolerConductanceKWPerK(model, f, air, cs)) / df;
+  const kAtRoot = ROOT_CONDUCTANCE.fraction === f ? ROOT_CONDUCTANCE.kKWPerK : coolerConductanceKWPerK(model, f, air, cs);
+  const dK = (coolerConductanceKWPerK(model, f + df, air, cs) - kAtRoot) / df;
   const dNeed = -need / (tin - tAir);
   return { fraction: f, slopePerK: dK > 0 ? dNeed / dK : 0 };
 }

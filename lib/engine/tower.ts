@@ -538,6 +538,9 @@ export interface AirflowAtTemperature {
   liquidToGasRatio?: number;
 }
 
+/** Scratch of `towerAirflowForColdWater`'s four saturated enthalpies (read within the call, never kept). */
+const AIRFLOW_HS = [0, 0, 0, 0];
+
 /**
  * Airflow fraction the tower needs for a cold-water temperature at a heat load, and its slope, from four
  * saturated enthalpies: L/G from `requiredLiquidToGasRatio`, f = L/(L/G)/Gdesign, and by implicit
@@ -555,7 +558,7 @@ export function towerAirflowForColdWater(
 ): AirflowAtTemperature {
   if (!(coldWaterC > air.wetBulbC)) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
-  const hs = [0, 0, 0, 0];
+  const hs = AIRFLOW_HS;
   for (let i = 0; i < 4; i++) hs[i] = saturatedAirEnthalpyKJPerKg(coldWaterC + (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK, pPa);
   const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN, guessLiquidToGasRatio);
   if (!(lg > 0)) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
