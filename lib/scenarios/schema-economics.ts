@@ -509,7 +509,7 @@ export const monteCarloSchema = z.object({
         if (d.max > hi) ctx.addIssue({ code: "custom", path: [key, "max"], message: `${what} cannot exceed ${hi}` });
       }
     })
-    .default(() => structuredClone(dflt("monteCarlo.distributions")) as never),
+    .default(() => structuredClone(dflt("monteCarlo.distributions"))),
 });
 
 export type OptionCostsDocument = z.input<typeof optionCostsSchema>;

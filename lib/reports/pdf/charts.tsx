@@ -55,7 +55,7 @@ function Label({
       y={y}
       fill={color}
       textAnchor={anchor}
-      style={{ ...FONT, fontSize: size, ...(weight ? { fontWeight: weight } : {}) } as never}
+      style={{ ...FONT, fontSize: size, ...(weight ? { fontWeight: weight } : {}) }}
     >
       {pdfText(text)}
     </SvgText>
