@@ -8,9 +8,8 @@ import { resolve } from "node:path";
 import { parseEpw } from "@/lib/engine/climate";
 import { analyzeScenario, type ScenarioInput } from "@/lib/engine";
 import { pressureFromElevationPa } from "@/lib/engine/psychrometrics";
-import { demoClimateDataset, demoScenarioDocument } from "@/lib/scenarios/demo";
 import { parseScenario } from "@/lib/scenarios/schema";
-import { buildEngineInput } from "@/lib/scenarios/store";
+import { demoEngineInput } from "./support/demo-input";
 
 function fixture(name: string): ScenarioInput {
   const dir = resolve(__dirname, "../tests/fixtures");
@@ -29,14 +28,7 @@ function fixture(name: string): ScenarioInput {
   return r.value;
 }
 
-function demo(): ScenarioInput {
-  const site = { elevationM: 240, locationLabel: "Harrowgate Flats (invented)" };
-  const ds = demoClimateDataset(site.elevationM);
-  const dataset = { id: "00000000-0000-4000-8000-000000000000", name: ds.name, source_kind: ds.sourceKind, data: JSON.parse(JSON.stringify(ds.data)) };
-  const r = buildEngineInput(demoScenarioDocument(), dataset, site);
-  if (!r.ok) throw new Error(JSON.stringify(r.fieldErrors));
-  return r.input;
-}
+const demo = demoEngineInput;
 
 const cases: [string, () => ScenarioInput][] = [
   ["demo", demo],

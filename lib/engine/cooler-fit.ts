@@ -90,6 +90,17 @@ export interface CoolerSplitFit {
 
 const pct = (v: number) => `${Math.round(v * 1000) / 10} %`;
 
+/** The selection's design wet rating: the fluid's cp at a mean temperature, design airflow and its wet UA. */
+function designRating(sel: CoolerSelection, pPa: number) {
+  const cpOf = (tin: number, tout: number) => {
+    const mean = 0.5 * (tin + tout);
+    return sel.ratingFluid === "water" ? fluidProperties("none", 0, mean).specificHeatKJPerKgK : fluidProperties(sel.glycol.kind, sel.glycol.massFraction, mean).specificHeatKJPerKgK;
+  };
+  const maD = sel.fluidFlowKgPerS / sel.designFluidToAirRatio;
+  const design: RatingConditions = { m: sel.fluidFlowKgPerS, cp: cpOf(sel.enteringFluidC, sel.leavingFluidC), ma: maD, tin: sel.enteringFluidC, tout: sel.leavingFluidC, wb: sel.designWetBulbC };
+  return { cpOf, maD, design, uaD: wetRatingUa(design, pPa) };
+}
+
 /**
  * Fit the tube-side share of the wet resistance to the selection's wet ratings (the design rating and
  * `wetRatings`), with each rating's residual. `dryFactor` (from calibrateCooler, after the split) is used for
@@ -103,13 +114,7 @@ export function fitCoolerResistanceSplit(
   const warnings: EngineWarning[] = [];
   const extras = sel.wetRatings ?? [];
   const f0 = sel.internalResistanceFraction;
-  const cpOf = (tin: number, tout: number) => {
-    const mean = 0.5 * (tin + tout);
-    return sel.ratingFluid === "water" ? fluidProperties("none", 0, mean).specificHeatKJPerKgK : fluidProperties(sel.glycol.kind, sel.glycol.massFraction, mean).specificHeatKJPerKgK;
-  };
-  const maD = sel.fluidFlowKgPerS / sel.designFluidToAirRatio;
-  const design: RatingConditions = { m: sel.fluidFlowKgPerS, cp: cpOf(sel.enteringFluidC, sel.leavingFluidC), ma: maD, tin: sel.enteringFluidC, tout: sel.leavingFluidC, wb: sel.designWetBulbC };
-  const uaD = wetRatingUa(design, pPa);
+  const { cpOf, maD, design, uaD } = designRating(sel, pPa);
   const keep = (note: string): CoolerSplitFit => ({
     internalResistanceFraction: f0,
     method: "defaultSplit",
@@ -172,13 +177,7 @@ export function coolerRatingChecks(
   usedInFit: boolean,
   pPa: number,
 ): RatingPointCheck[] {
-  const cpOf = (tin: number, tout: number) => {
-    const mean = 0.5 * (tin + tout);
-    return sel.ratingFluid === "water" ? fluidProperties("none", 0, mean).specificHeatKJPerKgK : fluidProperties(sel.glycol.kind, sel.glycol.massFraction, mean).specificHeatKJPerKgK;
-  };
-  const maD = sel.fluidFlowKgPerS / sel.designFluidToAirRatio;
-  const design: RatingConditions = { m: sel.fluidFlowKgPerS, cp: cpOf(sel.enteringFluidC, sel.leavingFluidC), ma: maD, tin: sel.enteringFluidC, tout: sel.leavingFluidC, wb: sel.designWetBulbC };
-  const uaD = wetRatingUa(design, pPa);
+  const { cpOf, maD, design, uaD } = designRating(sel, pPa);
   if (!uaD) return [];
   const rD = 1 / uaD.ua;
   const rInt = internalResistanceFraction * rD;

@@ -5,18 +5,10 @@
  * `npm run bench`), and the demo scenario (four options including an evaporative condenser).
  */
 import { analyzeScenario, type ScenarioInput } from "@/lib/engine";
-import { demoClimateDataset, demoScenarioDocument } from "@/lib/scenarios/demo";
-import { buildEngineInput } from "@/lib/scenarios/store";
+import { demoEngineInput } from "@/scripts/support/demo-input";
 import { fixtureInput } from "./helpers";
 
-function demo(): ScenarioInput {
-  const site = { elevationM: 240, locationLabel: "Harrowgate Flats (invented)" };
-  const ds = demoClimateDataset(site.elevationM);
-  const dataset = { id: "00000000-0000-4000-8000-000000000000", name: ds.name, source_kind: ds.sourceKind, data: JSON.parse(JSON.stringify(ds.data)) };
-  const r = buildEngineInput(demoScenarioDocument(), dataset, site);
-  if (!r.ok) throw new Error(JSON.stringify(r.fieldErrors));
-  return r.input;
-}
+const demo = demoEngineInput;
 
 function withFourthOption(input: ScenarioInput): ScenarioInput {
   const cooler = input.options.find((o) => o.kind === "closedCircuitCooler");
