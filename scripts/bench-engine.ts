@@ -12,7 +12,8 @@
  *    the climate's entering-air states, computed once per analysis and read by every option, count once in
  *    the total (1/options per option); the per-pressure tables, built once per process, do not recur;
  *  - the ratio of the physics time to the bare cost of that many evaluations of the primitive — the full
- *    formula (one exp, one log) and its per-pressure table — measured in the same run;
+ *    formula (one exp, one log) and its per-pressure table — measured in the same run, in interleaved rounds
+ *    (one physics run, then the bare evaluations), the median of the per-round ratios;
  *  - the what-if physics re-run (physical overrides on the compressed climate, applied to the stored hourly
  *    result, and its economics);
  *  - Monte Carlo draws per second with physics per draw (load, climate shift, fouling, cycles and prices),
@@ -78,13 +79,11 @@ function cpu(fn: () => void, runs: number): number {
 }
 
 let sink = 0;
-/** CPU time of `calls` evaluations of a primitive over the temperatures the solvers visit, ms. */
-function primitiveMs(calls: number, f: (tC: number, pPa: number) => number, pPa: number): number {
-  const run = () => {
+/** CPU time of one pass of `calls` evaluations of a primitive over the temperatures the solvers visit, ms. */
+function primitiveOnce(calls: number, f: (tC: number, pPa: number) => number, pPa: number): number {
+  return cpu(() => {
     for (let i = 0; i < calls; i++) sink += f(-10 + (i % 600) * 0.1, pPa);
-  };
-  run();
-  return cpu(run, 9);
+  }, 1);
 }
 
 function economicsOf(input: ScenarioInput, physics: ReturnType<typeof physicsOf>) {
@@ -98,6 +97,7 @@ function economicsOf(input: ScenarioInput, physics: ReturnType<typeof physicsOf>
 }
 
 const RUNS = 9;
+const ROUNDS = 21;
 const lines: string[] = [];
 const out = (s: string) => lines.push(s);
 
@@ -120,10 +120,30 @@ function benchPhysics(input: ScenarioInput, label: string) {
     const calls = psychroCounters.saturatedEnthalpyCalls;
     const exact = psychroCounters.exactSaturatedEnthalpyCalls;
     const records = resolution === "full" ? hours : (q.compression?.count ?? hours);
-    const physicsMs = cpu(() => physicsOf(prepareScenario(input), {}, resolution), RUNS);
+    // Interleaved rounds: each round times one physics run and, right after it, the bare evaluations, so
+    // that a change of the machine's speed during the run (a shared host) moves both sides of a ratio alike;
+    // the ratios are the medians of the per-round ratios.
+    const physicsRuns: number[] = [];
+    const exactRuns: number[] = [];
+    const tableRuns: number[] = [];
+    const exactRatios: number[] = [];
+    const tableRatios: number[] = [];
+    primitiveOnce(calls, saturatedAirEnthalpyExactKJPerKg, pPa);
+    primitiveOnce(calls, saturatedAirEnthalpyKJPerKg, pPa);
+    for (let round = 0; round < ROUNDS; round++) {
+      const ph = cpu(() => physicsOf(prepareScenario(input), {}, resolution), 1);
+      const ex = primitiveOnce(calls, saturatedAirEnthalpyExactKJPerKg, pPa);
+      const tb = primitiveOnce(calls, saturatedAirEnthalpyKJPerKg, pPa);
+      physicsRuns.push(ph);
+      exactRuns.push(ex);
+      tableRuns.push(tb);
+      exactRatios.push(ph / ex);
+      tableRatios.push(ph / tb);
+    }
+    const physicsMs = median(physicsRuns);
+    const exactMs = median(exactRuns);
+    const tableMs = median(tableRuns);
     const fullMs = cpu(() => economicsOf(input, physicsOf(prepareScenario(input), {}, resolution)), RUNS);
-    const exactMs = primitiveMs(calls, saturatedAirEnthalpyExactKJPerKg, pPa);
-    const tableMs = primitiveMs(calls, saturatedAirEnthalpyKJPerKg, pPa);
     const perRecord = calls / (records * nOpt);
     out(
       `  ${resolution === "full" ? `full year (${hours} h)` : `compressed (${records} records)`}: physics ${physicsMs.toFixed(1)} ms, analysis with economics ${fullMs.toFixed(1)} ms CPU`,
@@ -132,7 +152,7 @@ function benchPhysics(input: ScenarioInput, label: string) {
       `    saturated-enthalpy evaluations: ${calls} = ${perRecord.toFixed(2)} per ${resolution === "full" ? "hour" : "record"} and option (${exact} of them the full formula: table building and temperatures outside it)`,
     );
     out(
-      `    ratio physics / bare evaluations: ${(physicsMs / exactMs).toFixed(2)} against the formula (${exactMs.toFixed(2)} ms for ${calls}), ${(physicsMs / tableMs).toFixed(2)} against the table (${tableMs.toFixed(2)} ms)`,
+      `    ratio physics / bare evaluations: ${median(exactRatios).toFixed(2)} against the formula (${exactMs.toFixed(2)} ms for ${calls}), ${median(tableRatios).toFixed(2)} against the table (${tableMs.toFixed(2)} ms); median of ${ROUNDS} interleaved rounds`,
     );
   }
 }
