@@ -198,14 +198,43 @@ export function coolerConductanceKWPerK(
   air: EnteringAir,
   csKJPerKgK: number | undefined,
 ): number {
-  coolerConductanceWithSlope(model, airflowFraction, air, csKJPerKgK, K_ONLY);
-  return K_ONLY.k;
+  // The same arithmetic, in the same order, as the value part of `coolerConductanceWithSlope` (so both give
+  // the same number to the last bit), without the slope's terms.
+  const f = Math.max(airflowFraction, 1e-4);
+  const ma = model.designAirFlowKgPerS * f;
+  if (f !== POW08.f) {
+    POW08.f = f;
+    POW08.value = positivePower(f, 0.8);
+  }
+  const f08 = POW08.value;
+  let ca: number;
+  let uaExt: number;
+  if (csKJPerKgK === undefined) {
+    const cp = air.moistSpecificHeatKJPerKgK;
+    ca = ma * cp;
+    uaExt = model.dryFactor * model.externalMassTransferKgPerS * f08 * cp;
+  } else {
+    ca = ma * csKJPerKgK;
+    uaExt = model.externalWetUaKWPerK * f08 * (csKJPerKgK / model.designCsKJPerKgK);
+  }
+  const cf = model.fluidCapacityKWPerK;
+  const airMin = ca < cf;
+  const cmin = airMin ? ca : cf;
+  const cr = airMin ? ca / cf : cf / ca;
+  const ua = 1 / (1 / model.internalUaKWPerK + 1 / uaExt);
+  const ntu = ua / cmin;
+  let eps: number;
+  if (Math.abs(1 - cr) < 1e-6) {
+    eps = ntu / (1 + ntu);
+  } else {
+    const e = Math.exp(-ntu * (1 - cr));
+    eps = (1 - e) / (1 - cr * e);
+  }
+  return f > 0 && ntu > 0 ? eps * cmin : 0;
 }
 
 const POW08 = { f: Number.NaN, value: 0 };
 
-/** Scratch of `coolerConductanceKWPerK` (its own, so a caller holding `KS` is never overwritten). */
-const K_ONLY = { k: 0, dk: 0 };
 
 /** One hour (or bin) of cooler operation; rates are hour averages. */
 export interface CoolerHourResult {

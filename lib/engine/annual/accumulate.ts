@@ -135,8 +135,11 @@ export function simulateOptionYear(
     // (its energy and water; its demand joins the monthly-peak estimate below).
     const shares = month > 0 ? null : DAYS_IN_MONTH;
     if (month <= 0) monthless.push({ kW: totalKW, hours: w });
-    for (let mi = 0; mi < 12; mi++) {
-      const share = shares ? (shares[mi] ?? 0) / 365 : mi === month - 1 ? 1 : 0;
+    // A record with a month touches that month only (share 1); one without, every month by its days.
+    const firstMonth = shares ? 0 : month - 1;
+    const endMonth = shares ? 12 : month;
+    for (let mi = firstMonth; mi < endMonth; mi++) {
+      const share = shares ? (shares[mi] ?? 0) / 365 : 1;
       if (share === 0) continue;
       const mo = acc.monthly[mi];
       if (!mo) continue;

@@ -61,7 +61,8 @@ export function coolerRecord(
   if (modes.dry) {
     // Dry, the basin holds still water (unless drained): its heater belongs to the dry mode's power.
     const dry = coolerMode(po, model, ctx, air, hour, false);
-    best = { ...dry, totalKW: dry.totalKW + stillBasinHeaterKW };
+    dry.totalKW += stillBasinHeaterKW;
+    best = dry;
   }
   if (modes.wet) {
     const wet = coolerMode(po, model, ctx, air, hour, true);
@@ -84,7 +85,7 @@ export function coolerRecord(
   return { held: r.held, condensingC: r.condensingC, leavingC: leaving };
 }
 
-/** The hour in one mode under the head-pressure control, with its fan + spray + compressor power. */
+/** The hour in one mode under the head-pressure control, with its fan + spray + compressor power (a new object). */
 function coolerMode(po: PreparedOption, model: CoolerModel, ctx: YearContext, air: EnteringAir, hour: HourCondenser, wet: boolean): ModeOutcome {
   const heatKW = hour.heatKW;
   const qe = hour.refrigerationKW;
