@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # npm start: install if needed, PostgreSQL on loopback, migrate, seed the demo, local mail catcher, build, serve
-# the web app and one background worker (scripts/worker.ts; more workers: `npm run worker` elsewhere).
+# the web app and one background worker (scripts/worker.ts, bundled by scripts/bundle.mjs; more workers:
+# `npm run worker` elsewhere).
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
 export NEXT_TELEMETRY_DISABLED=1
@@ -30,12 +31,13 @@ if [ -f scripts/mail-catcher.ts ]; then
   pids+=($!)
 fi
 
-echo "[start] building (next build)…"
+echo "[start] building (next build, and the worker's bundle)…"
 npx next build
+node scripts/bundle.mjs scripts/worker.ts .worker/worker.cjs
 t1=$(date +%s)
 echo "[start] ready in $((t1 - t0)) s"
 echo "[start] LoopLedger is at http://127.0.0.1:${PORT:-3000}  (stop with Ctrl-C; 'npm run db:stop' stops PostgreSQL)"
-setsid node node_modules/tsx/dist/cli.mjs scripts/worker.ts &
+setsid node --enable-source-maps .worker/worker.cjs &
 pids+=($!)
 setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "${PORT:-3000}" &
 pids+=($!)

@@ -44,14 +44,15 @@ npx vitest run --project unit --project integration --reporter=default --reporte
 
 if [ "${SKIP_E2E:-0}" != "1" ]; then
   echo "[test] building the app for browser tests…"
-  if npx next build > "$results/next-build.log" 2>&1; then
+  worker_bundle="${WORKER_DIST_DIR:-.worker}/worker.cjs"
+  if npx next build > "$results/next-build.log" 2>&1 && node scripts/bundle.mjs scripts/worker.ts "$worker_bundle" >> "$results/next-build.log" 2>&1; then
     if curl -s -o /dev/null "http://127.0.0.1:${TEST_PORT}/"; then
       echo "[test] something already listens on 127.0.0.1:${TEST_PORT}; stop it or set TEST_PORT" >&2
       echo "0 passed, 1 failed"; exit 1
     fi
     setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$TEST_PORT" > "$results/next-server.log" 2>&1 &
     server_pid=$!
-    setsid node node_modules/tsx/dist/cli.mjs scripts/worker.ts > "$results/worker.log" 2>&1 &
+    setsid node --enable-source-maps "$worker_bundle" > "$results/worker.log" 2>&1 &
     worker_pid=$!
     for _ in $(seq 1 100); do curl -sf -o /dev/null "http://127.0.0.1:${TEST_PORT}/signin" && break; sleep 0.3; done
     E2E_BASE_URL="http://127.0.0.1:${TEST_PORT}" npx vitest run --project e2e --reporter=default --reporter=json \

@@ -10,21 +10,12 @@
  * They differ by (Ws* − W)·hw(t*) (the adiabatic-saturation balance): ~0.4 kJ/kg at 35/25.6 °C, which
  * is ~1 % of the evaporation in warm dry air.
  */
-import { moistAirEnthalpyKJPerKg as moistAirEnthalpyKJPerKgBound, saturatedAirEnthalpyKJPerKg as saturatedAirEnthalpyKJPerKgBound } from "./psychrometrics";
+import { moistAirEnthalpyKJPerKg, saturatedAirEnthalpyKJPerKg } from "./psychrometrics";
 import {
-  humidityRatioFromWetBulbAndWs as humidityRatioFromWetBulbAndWsBound,
-  saturatedEnthalpySlopeKJPerKgK as saturatedEnthalpySlopeKJPerKgKBound,
-  saturationHumidityRatioFromEnthalpy as saturationHumidityRatioFromEnthalpyBound,
+  humidityRatioFromWetBulbAndWs,
+  saturatedEnthalpySlopeKJPerKgK,
+  saturationHumidityRatioFromEnthalpy,
 } from "./saturation";
-
-// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
-// imported name runs the CommonJS interop's two property getters; a module constant calls the function
-// directly (the same function — no behaviour change).
-const saturatedAirEnthalpyKJPerKg = saturatedAirEnthalpyKJPerKgBound;
-const moistAirEnthalpyKJPerKg = moistAirEnthalpyKJPerKgBound;
-const saturatedEnthalpySlopeKJPerKgK = saturatedEnthalpySlopeKJPerKgKBound;
-const saturationHumidityRatioFromEnthalpy = saturationHumidityRatioFromEnthalpyBound;
-const humidityRatioFromWetBulbAndWs = humidityRatioFromWetBulbAndWsBound;
 
 /**
  * Saturated-air enthalpy tabulated every 0.25 K from −40 to 90 °C at one pressure, for inverting

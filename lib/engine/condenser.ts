@@ -6,12 +6,7 @@
  * flow and heat. Source: Incropera & DeWitt, Fundamentals of Heat and Mass Transfer (ε-NTU, Cr = 0);
  * fouling in series: TEMA Standards (RGP-T-2.4).
  */
-import { isothermalStreamEffectiveness as isothermalStreamEffectivenessBound } from "./heat-exchanger";
-
-// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
-// imported name runs the CommonJS interop's two property getters; a module constant calls the function
-// directly (the same function — no behaviour change).
-const isothermalStreamEffectiveness = isothermalStreamEffectivenessBound;
+import { isothermalStreamEffectiveness } from "./heat-exchanger";
 
 /**
  * Clean-condenser UA from its design point, kW/K: ε = Q/(Cw·(Tc − Tw,in)), UA = −Cw·ln(1 − ε).

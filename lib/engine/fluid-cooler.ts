@@ -16,22 +16,13 @@
  * 0.5–0.8 [practice]); driving difference to the dry-bulb; no evaporation, no spray pump.
  */
 import { allowedSprayModes } from "./spray-modes";
-import { saturatedAirEnthalpyKJPerKg as saturatedAirEnthalpyKJPerKgBound } from "./psychrometrics";
-import { type EnteringAir, evaporationKgPerS as evaporationKgPerSBound } from "./air-side";
-import { type FanModel, fanOperationForRequiredAirflow as fanOperationForRequiredAirflowBound, highStateTimeFraction as highStateTimeFractionBound } from "./fans";
+import { saturatedAirEnthalpyKJPerKg } from "./psychrometrics";
+import { type EnteringAir, evaporationKgPerS } from "./air-side";
+import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } from "./fans";
 import { type GlycolKind, fluidProperties, tubeSideCoefficientRatio } from "./glycol";
 import { counterflowNtu } from "./heat-exchanger";
 import type { EngineWarning } from "./types";
-import { positivePower as positivePowerBound } from "./solvers";
-
-// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
-// imported name runs the CommonJS interop's two property getters; a module constant calls the function
-// directly (the same function — no behaviour change).
-const saturatedAirEnthalpyKJPerKg = saturatedAirEnthalpyKJPerKgBound;
-const evaporationKgPerS = evaporationKgPerSBound;
-const fanOperationForRequiredAirflow = fanOperationForRequiredAirflowBound;
-const highStateTimeFraction = highStateTimeFractionBound;
-const positivePower = positivePowerBound;
+import { positivePower } from "./solvers";
 
 /** The manufacturer's selection of a closed-circuit cooler. */
 export interface CoolerSelection {
@@ -234,7 +225,6 @@ export function coolerConductanceKWPerK(
 }
 
 const POW08 = { f: Number.NaN, value: 0 };
-
 
 /** One hour (or bin) of cooler operation; rates are hour averages. */
 export interface CoolerHourResult {

@@ -7,12 +7,7 @@
  * UA (and so ε) constant, fouling lowers it: UA = UAclean/(1 + Rf·Uclean).
  * Source: counterflow ε-NTU (Incropera & DeWitt; Kays & London); Methods §5.
  */
-import { counterflowEffectiveness as counterflowEffectivenessBound, counterflowNtu } from "./heat-exchanger";
-
-// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
-// imported name runs the CommonJS interop's two property getters; a module constant calls the function
-// directly (the same function — no behaviour change).
-const counterflowEffectiveness = counterflowEffectivenessBound;
+import { counterflowEffectiveness, counterflowNtu } from "./heat-exchanger";
 
 /**
  * Clean UA of the exchanger from its design approach, kW/K:

@@ -7,27 +7,15 @@
  * Supply (tower characteristic): KaV/L = C·(L/G)^−n, C calibrated at the manufacturer's design point.
  * Airflow is proportional to fan speed; water flow is constant (constant-speed condenser-water pumps).
  */
-import { saturatedAirEnthalpyKJPerKg as saturatedAirEnthalpyKJPerKgBound, waterSpecificHeatKJPerKgK } from "./psychrometrics";
-import { type EnteringAir, evaporationKgPerS as evaporationKgPerSBound, tableSaturatedTemperatureC as tableSaturatedTemperatureCBound } from "./air-side";
-import { type FanModel, fanOperationForRequiredAirflow as fanOperationForRequiredAirflowBound, highStateTimeFraction as highStateTimeFractionBound } from "./fans";
+import { saturatedAirEnthalpyKJPerKg, waterSpecificHeatKJPerKgK } from "./psychrometrics";
+import { type EnteringAir, evaporationKgPerS, tableSaturatedTemperatureC } from "./air-side";
+import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } from "./fans";
 import {
-  saturatedEnthalpyCurvatureKJPerKgK2 as saturatedEnthalpyCurvatureKJPerKgK2Bound,
-  saturatedEnthalpySlopeKJPerKgK as saturatedEnthalpySlopeKJPerKgKBound,
+  saturatedEnthalpyCurvatureKJPerKgK2,
+  saturatedEnthalpySlopeKJPerKgK,
 } from "./saturation";
-import { brentRoot, positivePower as positivePowerBound } from "./solvers";
+import { brentRoot, positivePower } from "./solvers";
 import type { EngineWarning } from "./types";
-
-// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
-// imported name runs the CommonJS interop's two property getters; a module constant calls the function
-// directly (the same function — no behaviour change).
-const saturatedAirEnthalpyKJPerKg = saturatedAirEnthalpyKJPerKgBound;
-const evaporationKgPerS = evaporationKgPerSBound;
-const tableSaturatedTemperatureC = tableSaturatedTemperatureCBound;
-const fanOperationForRequiredAirflow = fanOperationForRequiredAirflowBound;
-const highStateTimeFraction = highStateTimeFractionBound;
-const saturatedEnthalpySlopeKJPerKgK = saturatedEnthalpySlopeKJPerKgKBound;
-const positivePower = positivePowerBound;
-const saturatedEnthalpyCurvatureKJPerKgK2 = saturatedEnthalpyCurvatureKJPerKgK2Bound;
 
 const CPW = waterSpecificHeatKJPerKgK;
 /**

@@ -4,24 +4,15 @@
  * the water balance closed per record: B from the cycles, M = E + B + D, the sewer volume billed.
  */
 import { monthlyPeakFromMonthlessRecordsKW } from "../demand";
-import { binLoadFraction as binLoadFractionBound, hourLoadFraction as hourLoadFractionBound } from "../duty";
+import { binLoadFraction, hourLoadFraction } from "../duty";
 import type { EnergyByComponentKWh, MonthlyPhysics, WaterByComponentM3 } from "../types";
-import { blowdown as blowdownBound, sewerBilled as sewerBilledBound } from "../water";
+import { blowdown, sewerBilled } from "../water";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
-import { evaluateRecord as evaluateRecordBound, newRecordRates } from "./record";
+import { evaluateRecord, newRecordRates } from "./record";
 import { DAYS_IN_MONTH, WATER_DENSITY_KG_PER_M3 } from "./shared";
 import { resetCoolerWarmStarts } from "../fluid-cooler";
 import { resetTowerWarmStart } from "../tower";
-
-// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
-// imported name runs the CommonJS interop's two property getters; a module constant calls the function
-// directly (the same function — no behaviour change).
-const hourLoadFraction = hourLoadFractionBound;
-const binLoadFraction = binLoadFractionBound;
-const blowdown = blowdownBound;
-const sewerBilled = sewerBilledBound;
-const evaluateRecord = evaluateRecordBound;
 
 interface Accumulator {
   monthly: MonthlyPhysics[];

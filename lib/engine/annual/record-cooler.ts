@@ -8,34 +8,21 @@
  * the spray; with the spray off the basin heater holds the still basin at its set-point (record.ts),
  * and that heater power counts against the dry mode in the choice.
  */
-import { type EnteringAir, evaporationKgPerS as evaporationKgPerSBound } from "../air-side";
-import { type CompressorModel, compressorPowerKW as compressorPowerKWBound, compressorPowerSlopeKWPerK as compressorPowerSlopeKWPerKBound } from "../compressor";
-import { fanPowerAtSpeedKW as fanPowerAtSpeedKWBound } from "../fans";
+import { type EnteringAir, evaporationKgPerS } from "../air-side";
+import { type CompressorModel, compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
+import { fanPowerAtSpeedKW } from "../fans";
 import {
   type CoolerModel,
-  allowedCoolerModes as allowedCoolerModesBound,
-  coolerAirflowForLeavingFluid as coolerAirflowForLeavingFluidBound,
+  allowedCoolerModes,
+  coolerAirflowForLeavingFluid,
   coolerAirflowSlopeAtFullSpeedPerK,
-  coolerLeavingFluidAtAirflowC as coolerLeavingFluidAtAirflowCBound,
-  solveCoolerModeHour as solveCoolerModeHourBound,
+  coolerLeavingFluidAtAirflowC,
+  solveCoolerModeHour,
 } from "../fluid-cooler";
-import { type FloatingHour, optimalFloatingCondensing as optimalFloatingCondensingBound } from "../head-pressure";
+import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, lowerFanStates } from "./record-types";
-
-// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
-// imported name runs the CommonJS interop's two property getters; a module constant calls the function
-// directly (the same function — no behaviour change).
-const evaporationKgPerS = evaporationKgPerSBound;
-const compressorPowerKW = compressorPowerKWBound;
-const compressorPowerSlopeKWPerK = compressorPowerSlopeKWPerKBound;
-const fanPowerAtSpeedKW = fanPowerAtSpeedKWBound;
-const allowedCoolerModes = allowedCoolerModesBound;
-const coolerAirflowForLeavingFluid = coolerAirflowForLeavingFluidBound;
-const coolerLeavingFluidAtAirflowC = coolerLeavingFluidAtAirflowCBound;
-const solveCoolerModeHour = solveCoolerModeHourBound;
-const optimalFloatingCondensing = optimalFloatingCondensingBound;
 
 interface ModeOutcome {
   wet: boolean;

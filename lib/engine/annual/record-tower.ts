@@ -9,31 +9,17 @@
  *   its floating temperature (fan power and condensing temperature are both linear in the mix fraction,
  *   so the optimum is at a state or at the minimum).
  */
-import { type EnteringAir, evaporationKgPerS as evaporationKgPerSBound } from "../air-side";
-import { type CompressorModel, compressorPowerKW as compressorPowerKWBound, compressorPowerSlopeKWPerK as compressorPowerSlopeKWPerKBound } from "../compressor";
-import { fouledUaKWPerK as fouledUaKWPerKBound } from "../condenser";
-import { fanPowerAtSpeedKW as fanPowerAtSpeedKWBound } from "../fans";
-import { type FloatingHour, optimalFloatingCondensing as optimalFloatingCondensingBound } from "../head-pressure";
-import { plateExchangerApproachK as plateExchangerApproachKBound } from "../plate-exchanger";
+import { type EnteringAir, evaporationKgPerS } from "../air-side";
+import { type CompressorModel, compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
+import { fouledUaKWPerK } from "../condenser";
+import { fanPowerAtSpeedKW } from "../fans";
+import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
+import { plateExchangerApproachK } from "../plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
-import { type TowerModel, solveTowerHour as solveTowerHourBound, towerAirflowForColdWater as towerAirflowForColdWaterBound, towerColdWaterAtAirflowC as towerColdWaterAtAirflowCBound } from "../tower";
+import { type TowerModel, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC } from "../tower";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, lowerFanStates } from "./record-types";
-
-// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
-// imported name runs the CommonJS interop's two property getters; a module constant calls the function
-// directly (the same function — no behaviour change).
-const evaporationKgPerS = evaporationKgPerSBound;
-const compressorPowerKW = compressorPowerKWBound;
-const compressorPowerSlopeKWPerK = compressorPowerSlopeKWPerKBound;
-const fouledUaKWPerK = fouledUaKWPerKBound;
-const fanPowerAtSpeedKW = fanPowerAtSpeedKWBound;
-const optimalFloatingCondensing = optimalFloatingCondensingBound;
-const plateExchangerApproachK = plateExchangerApproachKBound;
-const solveTowerHour = solveTowerHourBound;
-const towerAirflowForColdWater = towerAirflowForColdWaterBound;
-const towerColdWaterAtAirflowC = towerColdWaterAtAirflowCBound;
 
 export function towerRecord(
   po: PreparedOption,

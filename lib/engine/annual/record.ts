@@ -15,33 +15,19 @@
  * in those hours (`basinHeater.drainedWhenIdle`).
  */
 import type { EnteringAir } from "../air-side";
-import { compressorExtrapolates as compressorExtrapolatesBound, compressorPowerKW as compressorPowerKWBound } from "../compressor";
-import { condensingTemperatureC as condensingTemperatureCBound, fouledUaKWPerK as fouledUaKWPerKBound } from "../condenser";
-import { isothermalStreamEffectiveness as isothermalStreamEffectivenessBound } from "../heat-exchanger";
-import { basinHeaterPowerKW as basinHeaterPowerKWBound } from "../basin-heater";
+import { compressorExtrapolates, compressorPowerKW } from "../compressor";
+import { condensingTemperatureC, fouledUaKWPerK } from "../condenser";
+import { isothermalStreamEffectiveness } from "../heat-exchanger";
+import { basinHeaterPowerKW } from "../basin-heater";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
-import { coolerRecord as coolerRecordBound } from "./record-cooler";
-import { evaporativeCondenserRecord as evaporativeCondenserRecordBound } from "./record-evaporative-condenser";
-import { towerRecord as towerRecordBound } from "./record-tower";
+import { coolerRecord } from "./record-cooler";
+import { evaporativeCondenserRecord } from "./record-evaporative-condenser";
+import { towerRecord } from "./record-tower";
 import type { DeviceRecord, HourCondenser, RecordRates } from "./record-types";
 import { SET_POINT_TOLERANCE_K } from "./record-types";
 
-// Hot-path imports bound once at module load: under tsx (the worker, `npm run bench`) each call through an
-// imported name runs the CommonJS interop's two property getters; a module constant calls the function
-// directly (the same function — no behaviour change).
-const compressorExtrapolates = compressorExtrapolatesBound;
-const compressorPowerKW = compressorPowerKWBound;
-const condensingTemperatureC = condensingTemperatureCBound;
-const fouledUaKWPerK = fouledUaKWPerKBound;
-const isothermalStreamEffectiveness = isothermalStreamEffectivenessBound;
-const basinHeaterPowerKW = basinHeaterPowerKWBound;
-const coolerRecord = coolerRecordBound;
-const evaporativeCondenserRecord = evaporativeCondenserRecordBound;
-const towerRecord = towerRecordBound;
-
 export type { RecordRates } from "./record-types";
-
 
 /**
  * One record's rates. `into` (optional) is a rates object to fill instead of a new one — the year loop
