@@ -7,6 +7,7 @@ import {
   fromSI,
   inputText,
   parseNumberInput,
+  quantityInputText,
   toSI,
   unitLabel,
   unitName,
@@ -36,7 +37,10 @@ export interface NumberFieldProps<T extends FieldValues> {
   description?: ReactNode;
   /** What an empty box stores (default undefined; use null for nullable schema fields). */
   emptyValue?: null | undefined;
-  /** Significant figures the box shows (default 6: enough to round-trip what a person typed). */
+  /**
+   * Significant figures the box shows. Default: 6 where the unit shown is the stored one (enough to
+   * round-trip what a person typed); a converted value rounded by lib/units' convertedInputText.
+   */
   inputSig?: number;
   /** Significant figures or decimals of the default shown in the hint. */
   hintDecimals?: number;
@@ -69,7 +73,13 @@ export function NumberField<T extends FieldValues>(props: NumberFieldProps<T>) {
   } = useController({ name: props.name, ...(props.control ? { control: props.control } : {}) });
   const value: unknown = fieldValue;
 
-  const textOf = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? inputText(fromSI(kind, v, system), props.inputSig ?? 6) : "");
+  // A converted value (IP) reads rounded ("29.5 hp", not "29.5025"); the form keeps the stored SI value.
+  const textOf = (v: unknown) =>
+    typeof v !== "number" || !Number.isFinite(v)
+      ? ""
+      : props.inputSig !== undefined
+        ? inputText(fromSI(kind, v, system), props.inputSig)
+        : quantityInputText(kind, v, system);
   const [text, setText] = useState(() => textOf(value));
   const [seen, setSeen] = useState<{ value: unknown; system: UnitSystem }>({ value, system });
   if (!sameNumber(seen.value, value) || seen.system !== system) {

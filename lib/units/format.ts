@@ -84,3 +84,41 @@ export function inputText(value: number | null | undefined, sig = 6): string {
   // Number → string gives the shortest exact text ("0.0001", "85", "1e-7"), never grouped.
   return String(Object.is(r, -0) ? 0 : r);
 }
+
+/** Significant figures an input box shows for a value converted out of its stored unit (kW → hp, °C → °F). */
+export const CONVERTED_INPUT_SIG = 4;
+
+/** Significant digits written in a number's text ("29.5025" → 6, "0.0065" → 2, "264000" → 3). */
+function significantDigitsOf(text: string): number {
+  const mantissa = text.replace(/^[-+]/, "").replace(/e.*$/i, "");
+  const digits = mantissa.replace(".", "").replace(/^0+/, "");
+  return (mantissa.includes(".") ? digits : digits.replace(/0+$/, "")).length || 1;
+}
+
+/**
+ * An input box's text for a value converted from its stored unit: 22 kW reads "29.5" hp, not "29.5025".
+ * Four significant figures, more where the whole-number part needs them (264,172 gal stays 264172), and a
+ * value that already reads in five significant figures or fewer is shown as it is, so a number a person
+ * typed in these units reads back as typed (1234.5 gpm stays 1234.5). Only the text is rounded: the form
+ * keeps the stored value, so a box nobody edits saves back exactly what was stored.
+ */
+export function convertedInputText(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "";
+  const six = inputText(value, 6);
+  if (significantDigitsOf(six) <= 5) return six;
+  const abs = Math.abs(value);
+  const wholeDigits = abs >= 1 ? Math.floor(Math.log10(abs)) + 1 : 0;
+  return inputText(value, Math.max(CONVERTED_INPUT_SIG, wholeDigits));
+}
+
+/**
+ * An input box's text for a stored SI value in `system`'s unit: where the shown unit is the stored one
+ * (every SI unit, money, kWh), `sig` significant figures as stored; where it is converted (IP), rounded by
+ * `convertedInputText`.
+ */
+export function quantityInputText(kind: QuantityKind, valueSI: number | null | undefined, system: UnitSystem, sig = 6): string {
+  if (valueSI === null || valueSI === undefined || !Number.isFinite(valueSI)) return "";
+  const u = (QUANTITIES[kind] as QuantityDef)[system];
+  const shown = valueSI / u.factor + (u.offset ?? 0);
+  return u.factor === 1 && !u.offset ? inputText(shown, sig) : convertedInputText(shown);
+}

@@ -6,6 +6,7 @@ import { CheckboxField, NumberField, SelectField, TextField, useUnits } from "@/
 import { errorIdOf, fieldId, hintIdOf } from "@/components/forms/errors";
 import { describedBy, FieldShell, inputBorder, inputClass } from "@/components/forms/field-shell";
 import {
+  convertedInputText,
   formatNumber,
   fromSI,
   inputText,
@@ -87,6 +88,7 @@ export function ScaledField({
   store,
   description,
   sig = 6,
+  shownText,
   className,
   noDefault,
 }: {
@@ -98,6 +100,8 @@ export function ScaledField({
   store: (shown: number) => number;
   description?: ReactNode;
   sig?: number;
+  /** The box's text for a shown value, when it is converted and reads rounded (default: `sig` figures). */
+  shownText?: (shown: number) => string;
   className?: string;
   /** The description states the default itself (e.g. one that depends on another field). */
   noDefault?: boolean;
@@ -114,7 +118,8 @@ export function ScaledField({
     fieldState,
   } = useController({ name, control });
   const value: unknown = fieldValue;
-  const textOf = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? inputText(show(v), sig) : "");
+  const textOf = (v: unknown) =>
+    typeof v === "number" && Number.isFinite(v) ? (shownText ? shownText(show(v)) : inputText(show(v), sig)) : "";
   const [text, setText] = useState(() => textOf(value));
   const [seen, setSeen] = useState<unknown>(value);
   if (!sameNumber(seen, value)) {
@@ -245,6 +250,7 @@ export function FlowField({
       unitTitle={`${unitName("waterFlowLPerS", system)} of water at 20 °C (stored as mass flow, kg/s)`}
       show={(kgPerS) => fromSI("waterFlowLPerS", waterLPerSFromKgPerS(kgPerS), system)}
       store={(shown) => waterKgPerSFromLPerS(toSI("waterFlowLPerS", shown, system))}
+      {...(system === "IP" ? { shownText: convertedInputText } : {})}
       description={description ?? "Volume of water at 20 °C (998.2 kg/m³); stored as mass flow."}
     />
   );
