@@ -327,6 +327,12 @@ const csMemo: { model: CoolerModel | null; airflow: number[]; cs: number[]; next
 /**
  * Heat a cooler rejects at a given entering-fluid temperature and airflow (for rating checks), kW:
  * Q = εCmin·(Tin − Tair) with cs consistent with the resulting mean fluid temperature.
+ * Wet: Q is the root of r(Q) = εCmin(cs(Q))·(Tin − Twb) − Q, cs the chord slope at Tm = Tin − Q/(2·Cf).
+ * A larger Q lowers Tm, hence cs and εCmin, so r falls strictly; the plain substitution Q ← εCmin(cs(Q))·ΔT
+ * therefore oscillates about the root and crawls where its slope nears −1 (hot fluid, large ΔT), stopping
+ * short of the tolerance. The root is taken instead by secant steps kept inside the energy-balance bracket
+ * [0, Cf·(Tin − Twb)] (the fluid cannot leave below the wet-bulb: r(0) > 0, r(Cf·ΔT) = (εCmin − Cf)·ΔT < 0),
+ * bisection if a step leaves it, to |r(Q)| < 1e−6·max(1, Q).
  */
 export function coolerCapacityKW(
   model: CoolerModel,
@@ -338,11 +344,27 @@ export function coolerCapacityKW(
 ): number {
   if (!wet) return coolerConductanceKWPerK(model, airflowFraction, air, undefined) * (enteringFluidC - air.dryBulbC);
   const cf = model.fluidCapacityKWPerK;
-  let q = coolerConductanceKWPerK(model, airflowFraction, air, model.designCsKJPerKgK) * (enteringFluidC - air.wetBulbC);
-  for (let i = 0; i < 20; i++) {
+  const drivingK = enteringFluidC - air.wetBulbC;
+  if (drivingK === 0) return 0;
+  // The bracket's ends by the sign of r: r > 0 at `pos`, r < 0 at `neg` (below the wet-bulb the signs swap).
+  let pos = drivingK > 0 ? 0 : cf * drivingK;
+  let neg = drivingK > 0 ? cf * drivingK : 0;
+  let q = coolerConductanceKWPerK(model, airflowFraction, air, model.designCsKJPerKgK) * drivingK;
+  if (!(q > Math.min(pos, neg) && q < Math.max(pos, neg))) q = 0.5 * (pos + neg);
+  let qPrev = Number.NaN;
+  let rPrev = Number.NaN;
+  for (let i = 0; i < 60; i++) {
     const cs = enthalpyBasedAirSpecificHeat(enteringFluidC - (0.5 * q) / cf, air, pPa);
-    const next = coolerConductanceKWPerK(model, airflowFraction, air, cs) * (enteringFluidC - air.wetBulbC);
-    if (Math.abs(next - q) < 1e-6 * Math.max(1, q)) return next;
+    const g = coolerConductanceKWPerK(model, airflowFraction, air, cs) * drivingK;
+    const r = g - q;
+    if (Math.abs(r) < 1e-6 * Math.max(1, Math.abs(q))) return q;
+    if (r > 0) pos = q;
+    else neg = q;
+    // First pass: the substitution step (it lands on the other side of the root). Then secant steps.
+    let next = i === 0 ? g : q - (r * (q - qPrev)) / (r - rPrev);
+    if (!(next > Math.min(pos, neg) && next < Math.max(pos, neg))) next = 0.5 * (pos + neg);
+    qPrev = q;
+    rPrev = r;
     q = next;
   }
   return q;

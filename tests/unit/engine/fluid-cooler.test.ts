@@ -11,6 +11,7 @@ import {
   coolerAirflowSlopeAtFullSpeedPerK,
   coolerConductanceKWPerK,
   coolerConductanceWithSlope,
+  enthalpyBasedAirSpecificHeat,
   requiredAirflowFraction,
   coolerLeavingFluidAtAirflowC,
   solveCoolerHour,
@@ -176,6 +177,55 @@ describe("cooler leaving-fluid temperature at a given airflow (wet, floating)", 
           expect(Math.abs(back - q) / q, `db ${db} wb ${wb} Q ${q.toFixed(0)} f ${f}: T ${t}`).toBeLessThan(5e-4);
         }
       }
+    }
+  });
+});
+
+describe("cooler capacity at a given entering-fluid temperature and airflow (wet, rating checks)", () => {
+  // A unit with a large conductance for its airflow (rated at 2.5 K approach over a 10 K range at a 16 °C
+  // wet-bulb) run with hot fluid at low airflow: there the substitution Q ← εCmin(cs(Q))·ΔT swings about the
+  // root with a slope near −0.8 and, after its 20 passes, stopped ~0.1 % from it (85 °C, f = 0.15). The
+  // answer must be a fixed point of its own defining equation.
+  const hot = calibrateCooler({ ...sel, designWetBulbC: 16, leavingFluidC: 18.5, enteringFluidC: 28.5, dryRating: undefined }, P, "c").model;
+  psychrolib.SetUnitSystem(psychrolib.SI);
+  const hsKJ = (tC: number) => psychrolib.GetSatAirEnthalpy(tC, P) / 1000;
+  const cases = [
+    [hot, 20, 85, 0.15],
+    [hot, 25, 80, 0.1],
+    [hot, 27, 85, 0.05],
+    [hot, 10, 60, 0.15],
+    [model, 20, 85, 0.1],
+    [model, 24, 70, 0.15],
+  ] as const;
+  it("returns a fixed point of Q = εCmin(cs(Q))·(Tin − Twb) at low airflow and large ΔT", () => {
+    for (const [m, wb, tin, f] of cases) {
+      const air = enteringAir(wb + 5, wb, P);
+      const q = coolerCapacityKW(m, tin, air, f, true, P);
+      const label = `Twb ${wb} Tin ${tin} f ${f}: Q ${q}`;
+      // The model's own definition, rebuilt from its primitives: Tm = Tin − Q/(2·Cf), cs = chord slope of hs
+      // between Twb and Tm (Jaber & Webb 1989), εCmin by counterflow ε-NTU (Incropera & DeWitt, Table 11.3).
+      const tm = tin - q / (2 * m.fluidCapacityKWPerK);
+      const own = coolerConductanceKWPerK(m, f, air, enthalpyBasedAirSpecificHeat(tm, air, P)) * (tin - wb);
+      expect(Math.abs(own - q), label).toBeLessThan(1e-6 * q);
+      // The same balance with psychrolib's saturated-air enthalpy (ASHRAE Fundamentals 2017 ch.1, the
+      // reference library) for cs: the engine's hs differs from it only by its fit, within 0.05 %.
+      const csRef = (hsKJ(tm) - hsKJ(wb)) / (tm - wb);
+      const ref = coolerConductanceKWPerK(m, f, air, csRef) * (tin - wb);
+      expect(Math.abs(ref - q) / q, label).toBeLessThan(5e-4);
+    }
+  });
+
+  it("stays within the energy-balance bounds", () => {
+    for (const [m, wb, tin, f] of cases) {
+      const air = enteringAir(wb + 5, wb, P);
+      const q = coolerCapacityKW(m, tin, air, f, true, P);
+      const label = `Twb ${wb} Tin ${tin} f ${f}: Q ${q}`;
+      // First law, fluid side: the fluid cannot leave below the entering wet-bulb, Q < Cf·(Tin − Twb).
+      expect(q, label).toBeGreaterThan(0);
+      expect(q, label).toBeLessThan(m.fluidCapacityKWPerK * (tin - wb));
+      // First law, air side: the air cannot leave above saturation at the entering-fluid temperature,
+      // Q < ma·(hs(Tin) − hs(Twb)), hs from psychrolib (ASHRAE Fundamentals 2017 ch.1); 0.05 % for the fit.
+      expect(q, label).toBeLessThan(m.designAirFlowKgPerS * f * (hsKJ(tin) - hsKJ(wb)) * (1 + 5e-4));
     }
   });
 });
