@@ -144,6 +144,90 @@ export function enteringAir(dryBulbC: number, wetBulbC: number, pPa: number): En
 }
 
 /**
+ * The entering-air states of a whole climate, one column per quantity (the same numbers as `enteringAir`
+ * per record). A year of records kept as 8,760 small objects cost the garbage collector more than their
+ * arithmetic (they outlive many young-generation collections during the year loop); columns are a few
+ * typed arrays. `enteringAirAt` reads one record into an object the caller reuses.
+ */
+export interface EnteringAirColumns {
+  count: number;
+  dryBulbC: Float64Array;
+  wetBulbC: Float64Array;
+  enthalpyKJPerKg: Float64Array;
+  moistEnthalpyKJPerKg: Float64Array;
+  slopeAtWetBulbKJPerKgK: Float64Array;
+  humidityRatio: Float64Array;
+  moistSpecificHeatKJPerKgK: Float64Array;
+  /** 1 where the record has a state (a bin list may have holes), else 0. */
+  present: Uint8Array;
+  table: SaturationTable;
+}
+
+/** An entering-air object to fill (its fields in `enteringAir`'s order, so both share one shape). */
+export function blankEnteringAir(table: SaturationTable): EnteringAir {
+  return {
+    dryBulbC: 0,
+    wetBulbC: 0,
+    enthalpyKJPerKg: 0,
+    moistEnthalpyKJPerKg: 0,
+    slopeAtWetBulbKJPerKgK: 0,
+    humidityRatio: 0,
+    moistSpecificHeatKJPerKgK: 0,
+    table,
+  };
+}
+
+/** Empty columns for `count` records at pressure p (fill with `setEnteringAir`). */
+export function enteringAirColumns(count: number, pPa: number): EnteringAirColumns {
+  return {
+    count,
+    dryBulbC: new Float64Array(count),
+    wetBulbC: new Float64Array(count),
+    enthalpyKJPerKg: new Float64Array(count),
+    moistEnthalpyKJPerKg: new Float64Array(count),
+    slopeAtWetBulbKJPerKgK: new Float64Array(count),
+    humidityRatio: new Float64Array(count),
+    moistSpecificHeatKJPerKgK: new Float64Array(count),
+    present: new Uint8Array(count),
+    table: saturationTable(pPa),
+  };
+}
+
+/** Record i of the columns: the entering-air state of `enteringAir(dryBulbC, wetBulbC, p)`. */
+export function setEnteringAir(cols: EnteringAirColumns, i: number, dryBulbC: number, wetBulbC: number, pPa: number): void {
+  const twb = Math.min(wetBulbC, dryBulbC);
+  const hs = saturatedAirEnthalpyKJPerKg(twb, pPa);
+  const ws = saturationHumidityRatioFromEnthalpy(twb, hs);
+  const w = humidityRatioFromWetBulbAndWs(dryBulbC, twb, ws);
+  cols.dryBulbC[i] = dryBulbC;
+  cols.wetBulbC[i] = twb;
+  cols.enthalpyKJPerKg[i] = hs;
+  cols.moistEnthalpyKJPerKg[i] = moistAirEnthalpyKJPerKg(dryBulbC, w);
+  cols.slopeAtWetBulbKJPerKgK[i] = saturatedEnthalpySlopeKJPerKgK(twb, hs);
+  cols.humidityRatio[i] = w;
+  cols.moistSpecificHeatKJPerKgK[i] = 1.006 + 1.86 * w;
+  cols.present[i] = 1;
+}
+
+/**
+ * Record i of the columns as an EnteringAir, written into `into` (a new object when omitted), or undefined
+ * where the record has no state. The object is the caller's: the year loop passes one and reuses it.
+ */
+export function enteringAirAt(cols: EnteringAirColumns, i: number, into?: EnteringAir): EnteringAir | undefined {
+  if (!(i >= 0 && i < cols.count) || cols.present[i] !== 1) return undefined;
+  const a = into ?? blankEnteringAir(cols.table);
+  a.dryBulbC = cols.dryBulbC[i]!;
+  a.wetBulbC = cols.wetBulbC[i]!;
+  a.enthalpyKJPerKg = cols.enthalpyKJPerKg[i]!;
+  a.moistEnthalpyKJPerKg = cols.moistEnthalpyKJPerKg[i]!;
+  a.slopeAtWetBulbKJPerKgK = cols.slopeAtWetBulbKJPerKgK[i]!;
+  a.humidityRatio = cols.humidityRatio[i]!;
+  a.moistSpecificHeatKJPerKgK = cols.moistSpecificHeatKJPerKgK[i]!;
+  a.table = cols.table;
+  return a;
+}
+
+/**
  * Temperature of saturated air with enthalpy h, °C: Newton on hs(T) = h with the analytic slope,
  * started from the tangent at the wet-bulb (hs is convex, so the iterates approach from above);
  * inside the table's range the table inverse is used instead (no evaluation).

@@ -3,6 +3,7 @@
  * over the months (an hour or a monthly bin to its month; a bin without a month pro rata by days), with
  * the water balance closed per record: B from the cycles, M = E + B + D, the sewer volume billed.
  */
+import { blankEnteringAir, enteringAirAt } from "../air-side";
 import { monthlyPeakFromMonthlessRecordsKW } from "../demand";
 import { binLoadFraction, hourLoadFraction } from "../duty";
 import type { EnergyByComponentKWh, MonthlyPhysics, WaterByComponentM3 } from "../types";
@@ -53,6 +54,8 @@ export function simulateOptionYear(
   const cl = ctx.climate;
   // One rates object for the whole year: each record fills it and is read before the next one.
   const scratch = newRecordRates();
+  // One entering-air object for the whole year too: each record's state is read into it from the columns.
+  const scratchAir = blankEnteringAir(cl.air.table);
   // The solvers' warm starts begin afresh for every year, so a run never depends on what ran before it.
   resetCoolerWarmStarts();
   resetTowerWarmStart();
@@ -89,7 +92,7 @@ export function simulateOptionYear(
   // Records without a month (bins without months): their demand sets an estimated monthly peak (demand.ts).
   const monthless: { kW: number; hours: number }[] = [];
   for (let i = 0; i < cl.count; i += stride) {
-    const air = cl.air[i];
+    const air = enteringAirAt(cl.air, i, scratchAir);
     if (!air) continue;
     const month = cl.month[i] ?? 0;
     const w = (cl.hours[i] ?? 0) * stride;

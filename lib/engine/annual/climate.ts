@@ -2,7 +2,7 @@
  * Pipeline step 1 — climate preparation: the climate as the annual loop walks it, with the entering-air
  * state (enthalpy, humidity) computed once per record.
  */
-import { type EnteringAir, enteringAir } from "../air-side";
+import { type EnteringAirColumns, enteringAirColumns, setEnteringAir } from "../air-side";
 import { designWetBulbPercentilesC } from "../climate/binning";
 import type { ClimateYear } from "../climate/types";
 
@@ -15,7 +15,8 @@ export interface PreparedClimate {
   /** 0…23, or −1 for a bin. */
   hour: Int8Array;
   hours: Float64Array;
-  air: EnteringAir[];
+  /** Entering-air state of each record (columns; `enteringAirAt` reads one). */
+  air: EnteringAirColumns;
   totalHours: number;
   /** Bins carry no month: monthly results are spread pro rata by days. */
   monthsUnknown: boolean;
@@ -74,19 +75,19 @@ function computeDesignHour(year: ClimateYear): { wetBulbC: number; dryBulbC: num
 export function prepareClimate(year: ClimateYear, pPa: number, shiftK = 0): PreparedClimate {
   if (year.kind === "hourly") {
     const n = year.dryBulbC.length;
-    const air: EnteringAir[] = new Array(n);
+    const air = enteringAirColumns(n, pPa);
     const month = new Int8Array(n);
     const hour = new Int8Array(n);
     const hours = new Float64Array(n).fill(1);
     for (let i = 0; i < n; i++) {
       month[i] = year.month[i] ?? 1;
       hour[i] = year.hour[i] ?? 0;
-      air[i] = enteringAir((year.dryBulbC[i] ?? 0) + shiftK, (year.wetBulbC[i] ?? 0) + shiftK, pPa);
+      setEnteringAir(air, i, (year.dryBulbC[i] ?? 0) + shiftK, (year.wetBulbC[i] ?? 0) + shiftK, pPa);
     }
     return { kind: "hourly", count: n, month, hour, hours, air, totalHours: n, monthsUnknown: false, design: shiftedDesign(designHour(year), shiftK) };
   }
   const n = year.bins.length;
-  const air: EnteringAir[] = new Array(n);
+  const air = enteringAirColumns(n, pPa);
   const month = new Int8Array(n);
   const hour = new Int8Array(n).fill(-1);
   const hours = new Float64Array(n);
@@ -99,7 +100,7 @@ export function prepareClimate(year: ClimateYear, pPa: number, shiftK = 0): Prep
     if (b.month === undefined) unknown = true;
     hours[i] = b.hours;
     total += b.hours;
-    air[i] = enteringAir(b.meanCoincidentDryBulbC + shiftK, b.wetBulbC + shiftK, pPa);
+    setEnteringAir(air, i, b.meanCoincidentDryBulbC + shiftK, b.wetBulbC + shiftK, pPa);
   }
   return { kind: "bins", count: n, month, hour, hours, air, totalHours: total, monthsUnknown: unknown, design: shiftedDesign(designHour(year), shiftK) };
 }

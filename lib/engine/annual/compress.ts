@@ -14,7 +14,7 @@
  * A climate shift (what-if, Monte Carlo) moves every hour's dry-bulb and wet-bulb by the same ΔT before the
  * records' means are formed; the grouping itself stays that of the unshifted year.
  */
-import { enteringAir } from "../air-side";
+import { enteringAirColumns, setEnteringAir } from "../air-side";
 import type { HourlyClimateYear } from "../climate/types";
 import { hourLoadFraction } from "../duty";
 import type { LoadProfileInput } from "../input";
@@ -134,11 +134,11 @@ export function prepareCompressedClimate(
     sumLoad[r] = (sumLoad[r] ?? 0) + hourLoadFraction(profile, m, h, db);
     hourOfDayHours[24 * r + h] = (hourOfDayHours[24 * r + h] ?? 0) + 1;
   }
-  const air = new Array<ReturnType<typeof enteringAir>>(n);
+  const air = enteringAirColumns(n, pPa);
   const loadFraction = new Float64Array(n);
   for (let r = 0; r < n; r++) {
     const k = c.hours[r] ?? 1;
-    air[r] = enteringAir((sumDb[r] ?? 0) / k, (sumWb[r] ?? 0) / k, pPa);
+    setEnteringAir(air, r, (sumDb[r] ?? 0) / k, (sumWb[r] ?? 0) / k, pPa);
     loadFraction[r] = (sumLoad[r] ?? 0) / k;
   }
   return {

@@ -1,6 +1,6 @@
 import { describe, expect, it, vi } from "vitest";
 import { analyzeScenario, physicsOf, prepareScenario } from "@/lib/engine";
-import { enteringAir } from "@/lib/engine/air-side";
+import { enteringAir, enteringAirAt } from "@/lib/engine/air-side";
 import { type YearContext, compressorModelFromDuty } from "@/lib/engine/annual";
 import { evaluateRecord } from "@/lib/engine/annual/record";
 import { compressorPowerKW } from "@/lib/engine/compressor";
@@ -102,7 +102,7 @@ describe("closed-circuit cooler: wet or dry", () => {
     const cl = prepared.climate;
     let cold = 0;
     for (let i = 0; i < cl.count; i++) {
-      const air = cl.air[i];
+      const air = enteringAirAt(cl.air, i);
       if (!air || air.dryBulbC >= lockout) continue;
       cold++;
       const q = ctx.designHeatKW * hourLoadFraction(input.duty.loadProfile, cl.month[i] ?? 1, cl.hour[i] ?? 0, air.dryBulbC);
@@ -120,7 +120,7 @@ describe("closed-circuit cooler: wet or dry", () => {
     const cl = prepared.climate;
     let both = 0;
     for (let i = 0; i < cl.count; i += 13) {
-      const air = cl.air[i];
+      const air = enteringAirAt(cl.air, i);
       if (!air || air.dryBulbC < lockout) continue;
       const q = ctx.designHeatKW * hourLoadFraction(input.duty.loadProfile, cl.month[i] ?? 1, cl.hour[i] ?? 0, air.dryBulbC);
       const total = (r: ReturnType<typeof evaluateRecord>) => r.fanKW + r.sprayPumpKW + r.compressorKW;
