@@ -46,9 +46,19 @@ export function cashFlowSheetName(i: number): string {
 
 const SHORT_LABELS: Record<CostCategory, string> = {
   ...COST_CATEGORY_LABELS,
-  chemicals: "Chemicals & WMP",
   upkeep: "Upkeep",
 };
+
+/**
+ * The calendar-year cell of a cash-flow row. The base date (year 0, 1 January of the base year: first
+ * costs) and the first operating year share a calendar year, so those two say which is which; later years
+ * are plain numbers.
+ */
+export function calendarYearCell(yearIndex: number, calendarYear: number): string | number {
+  if (yearIndex === 0) return `${calendarYear} (year 0, first cost)`;
+  if (yearIndex === 1) return `${calendarYear} (year 1, first operating year)`;
+  return calendarYear;
+}
 
 /** Names of the Inputs sheet's cells (workbook-level defined names). */
 export const NAMES = {
@@ -402,7 +412,8 @@ function addCashFlowSheet(
   header.push(...amounts.map((a) => `PV ${a.title} (${cur})`), `PV total (${cur})`, `Cumulative PV (${cur})`);
   const hr = ws.getRow(headerRow);
   hr.values = header;
-  hr.height = 44;
+  // Four lines of 11 pt: the longest headers ("PV Chemicals & water-management programme (USD)") wrap to four.
+  hr.height = 62;
   headerStyle(hr);
 
   const d = eco.discountRate;
@@ -411,7 +422,7 @@ function addCashFlowSheet(
     const r = first + i;
     const t = cf.yearIndex;
     ws.getCell(r, 1).value = t;
-    ws.getCell(r, 2).value = cf.calendarYear;
+    ws.getCell(r, 2).value = calendarYearCell(t, cf.calendarYear);
     amounts.forEach((a, j) => {
       const c = ws.getCell(r, amountStart + j);
       c.value = a.amount(o, i);
@@ -498,7 +509,7 @@ function addCashFlowSheet(
   wb.definedNames.add(`'${sheet}'!$${col(pvTotalCol)}$${lccRow}`, name);
 
   ws.getColumn(1).width = 12;
-  ws.getColumn(2).width = 10;
+  ws.getColumn(2).width = 30;
   for (let c = 3; c <= cumCol; c++) ws.getColumn(c).width = c === dfCol || c === dfMidCol ? 14 : 15;
   ws.views = [{ state: "frozen", xSplit: 2, ySplit: headerRow }];
   return { sheet, firstDataRow: first, lastDataRow: last, totalRow, lccCell: name };

@@ -752,9 +752,7 @@ function CashFlowTable({
     { title: "Year", width: 0.75, cell: (r) => r.label },
     { title: "Calendar", width: 0.6, cell: (r) => r.calendar },
     ...used.map((c) => ({
-      title: COST_CATEGORY_LABELS[c]
-        .replace(" & water-management programme", " & WMP")
-        .replace(" (labour, cleaning, testing)", ""),
+      title: COST_CATEGORY_LABELS[c].replace(" (labour, cleaning, testing)", ""),
       unit: currency,
       width: 1,
       align: "right" as const,

@@ -144,6 +144,10 @@ describe("PDF report", () => {
       if (!hasRows) continue;
       pagesWithRows++;
       if (!/Cumulative PV/.test(t)) expect.fail(`page ${p} continues a cash-flow table without its header row`);
+      // The chemicals column is headed in words, not an unexplained abbreviation (the header wraps in its
+      // column and pdftotext interleaves the wrapped lines, so the words are looked for one by one).
+      if (/\bWMP\b/.test(t)) expect.fail(`page ${p} abbreviates the water-management programme`);
+      if (/Chemicals &/.test(t)) for (const w of ["water-management", "programme"]) expect(t).toContain(w);
     }
     expect(tables).toBe(src.result.economics.options.length);
     expect(pagesWithRows).toBeGreaterThanOrEqual(src.result.economics.options.length);

@@ -86,6 +86,22 @@ describe("cash-flow workbook (end-of-year, real)", () => {
       expect(ev.nameRef(n)).toBeDefined();
   });
 
+  it("spells out the water-management programme and says which 2026 is the base date and which the first operating year", () => {
+    // The fixture's base year is 2026 (tests/fixtures/scenario-bins.json): year 0 is 1 January 2026 (first
+    // costs), year 1 the first operating year, also 2026 (NIST Handbook 135's base date and study years).
+    expect(src.result.economics.baseYear).toBe(2026);
+    const ws = wb.getWorksheet(cashFlowSheetName(0))!;
+    const header = (ws.getRow(4).values as unknown[]).map((v) => String(v ?? ""));
+    expect(header).toContain("Chemicals & water-management programme (USD)");
+    expect(header).toContain("PV Chemicals & water-management programme (USD)");
+    expect(header.join(" ")).not.toMatch(/\bWMP\b/);
+    expect(ws.getCell(5, 1).value).toBe(0);
+    expect(ws.getCell(5, 2).value).toBe("2026 (year 0, first cost)");
+    expect(ws.getCell(6, 1).value).toBe(1);
+    expect(ws.getCell(6, 2).value).toBe("2026 (year 1, first operating year)");
+    expect(ws.getCell(7, 2).value).toBe(2027);
+  });
+
   it("writes discount factors, present values, totals and LCC as formulas with the engine's values cached", () => {
     src.result.economics.options.forEach((o, i) => {
       const ws = wb.getWorksheet(cashFlowSheetName(i))!;
