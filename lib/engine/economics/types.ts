@@ -481,6 +481,11 @@ export interface BreakEvenResult {
   value: number | null;
   /** The tie in plain units where it helps (e.g. combined water + sewer price per m³, price per kWh). */
   absoluteValue: number | null;
+  /**
+   * The SI unit of absoluteValue in words ("per m³, …"), like `note` for the stored result and the JSON API.
+   * Screens and reports do not show either for a tie: they restate it in the project's units and currency
+   * (lib/comparison/break-even.ts, lib/reports/summary.ts; per kgal in IP).
+   */
   absoluteUnit?: string;
   searchMin: number;
   searchMax: number;
