@@ -189,42 +189,14 @@ export function coolerConductanceKWPerK(
   air: EnteringAir,
   csKJPerKgK: number | undefined,
 ): number {
-  // The same arithmetic, in the same order, as the value part of `coolerConductanceWithSlope` (so both give
-  // the same number to the last bit), without the slope's terms.
-  const f = Math.max(airflowFraction, 1e-4);
-  const ma = model.designAirFlowKgPerS * f;
-  if (f !== POW08.f) {
-    POW08.f = f;
-    POW08.value = positivePower(f, 0.8);
-  }
-  const f08 = POW08.value;
-  let ca: number;
-  let uaExt: number;
-  if (csKJPerKgK === undefined) {
-    const cp = air.moistSpecificHeatKJPerKgK;
-    ca = ma * cp;
-    uaExt = model.dryFactor * model.externalMassTransferKgPerS * f08 * cp;
-  } else {
-    ca = ma * csKJPerKgK;
-    uaExt = model.externalWetUaKWPerK * f08 * (csKJPerKgK / model.designCsKJPerKgK);
-  }
-  const cf = model.fluidCapacityKWPerK;
-  const airMin = ca < cf;
-  const cmin = airMin ? ca : cf;
-  const cr = airMin ? ca / cf : cf / ca;
-  const ua = 1 / (1 / model.internalUaKWPerK + 1 / uaExt);
-  const ntu = ua / cmin;
-  let eps: number;
-  if (Math.abs(1 - cr) < 1e-6) {
-    eps = ntu / (1 + ntu);
-  } else {
-    const e = Math.exp(-ntu * (1 - cr));
-    eps = (1 - e) / (1 - cr * e);
-  }
-  return f > 0 && ntu > 0 ? eps * cmin : 0;
+  coolerConductance(model, airflowFraction, air, csKJPerKgK, K_ONLY, false);
+  return K_ONLY.k;
 }
 
 const POW08 = { f: Number.NaN, value: 0 };
+
+/** Scratch of `coolerConductanceKWPerK` (its own, so a caller holding `KS` is never overwritten). */
+const K_ONLY = { k: 0, dk: 0 };
 
 /** One hour (or bin) of cooler operation; rates are hour averages. */
 export interface CoolerHourResult {
@@ -380,6 +352,22 @@ export function coolerCapacityKW(
  * Source: the counterflow ε-NTU relation (heat-exchanger.ts); calculus.
  */
 export function coolerConductanceWithSlope(model: CoolerModel, airflowFraction: number, air: EnteringAir, csKJPerKgK: number | undefined, out: { k: number; dk: number }): void {
+  coolerConductance(model, airflowFraction, air, csKJPerKgK, out, true);
+}
+
+/**
+ * εCmin into `out.k`, and with `withSlope` its slope into `out.dk` (without it `out.dk` is left as it was:
+ * the value alone skips the slope's terms — most calls need only the value). One body for both, so the
+ * value is the same number either way.
+ */
+function coolerConductance(
+  model: CoolerModel,
+  airflowFraction: number,
+  air: EnteringAir,
+  csKJPerKgK: number | undefined,
+  out: { k: number; dk: number },
+  withSlope: boolean,
+): void {
   const f = Math.max(airflowFraction, 1e-4);
   const ma = model.designAirFlowKgPerS * f;
   // The passes of a floating solve repeat one airflow: keep its f^0.8.
@@ -404,25 +392,18 @@ export function coolerConductanceWithSlope(model: CoolerModel, airflowFraction: 
   const cr = airMin ? ca / cf : cf / ca;
   const ua = 1 / (1 / model.internalUaKWPerK + 1 / uaExt);
   const ntu = ua / cmin;
+  const nearBalanced = Math.abs(1 - cr) < 1e-6;
+  const e = nearBalanced ? 0 : Math.exp(-ntu * (1 - cr));
+  const d = 1 - cr * e;
+  const eps = nearBalanced ? ntu / (1 + ntu) : (1 - e) / d;
+  out.k = f > 0 && ntu > 0 ? eps * cmin : 0;
+  if (!withSlope) return;
   const dUa = (ua / uaExt) * (ua / uaExt) * ((0.8 * uaExt) / f);
   const dCmin = airMin ? ca / f : 0;
   const dCr = airMin ? cr / f : -cr / f;
   const dNtu = dUa / cmin - (ntu * dCmin) / cmin;
-  let eps: number;
-  let epsN: number;
-  let epsCr: number;
-  if (Math.abs(1 - cr) < 1e-6) {
-    eps = ntu / (1 + ntu);
-    epsN = 1 / ((1 + ntu) * (1 + ntu));
-    epsCr = (-ntu * ntu) / (2 * (1 + ntu) * (1 + ntu));
-  } else {
-    const e = Math.exp(-ntu * (1 - cr));
-    const d = 1 - cr * e;
-    eps = (1 - e) / d;
-    epsN = ((1 - cr) * (1 - cr) * e) / (d * d);
-    epsCr = (e * (1 - e - ntu * (1 - cr))) / (d * d);
-  }
-  out.k = f > 0 && ntu > 0 ? eps * cmin : 0;
+  const epsN = nearBalanced ? 1 / ((1 + ntu) * (1 + ntu)) : ((1 - cr) * (1 - cr) * e) / (d * d);
+  const epsCr = nearBalanced ? (-ntu * ntu) / (2 * (1 + ntu) * (1 + ntu)) : (e * (1 - e - ntu * (1 - cr))) / (d * d);
   out.dk = airflowFraction > 1e-4 ? (epsN * dNtu + epsCr * dCr) * cmin + eps * dCmin : 0;
 }
 
