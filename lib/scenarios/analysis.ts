@@ -216,6 +216,11 @@ export async function storedFor(db: Executor, scenarioId: string, input: Scenari
   };
 }
 
+/** The Monte Carlo job of a scenario's inputs (by their hash), without reading the deterministic result. */
+export async function storedMonteCarloFor(db: Executor, scenarioId: string, hash: string) {
+  return monteCarloStatusOf(await findResult(db, scenarioId, ENGINE_VERSION, hash, "monteCarlo"));
+}
+
 /**
  * The complete result of a stateless analysis (the public API): deterministic part and, when enabled,
  * Monte Carlo, within `budget`.

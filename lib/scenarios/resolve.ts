@@ -8,7 +8,7 @@ import { upgradeStoredResult } from "@/lib/engine/legacy";
 import type { MonteCarloResult } from "@/lib/engine/economics/types";
 import type { ScenarioInput } from "@/lib/engine/input";
 import { fail, REFUSALS, type Result } from "@/lib/result";
-import { storedFor } from "./analysis";
+import { storedFor, storedMonteCarloFor } from "./analysis";
 import { Lru } from "./cache";
 import { buildEngineInput, loadScenarioContext, withClimateData, type ScenarioContext } from "./store";
 import { shapeResultFor } from "./result-view";
@@ -58,12 +58,12 @@ const g = globalThis as unknown as { loopledgerDraftCache?: Lru<Omit<DraftSource
 const draftCache = (g.loopledgerDraftCache ??= new Lru<Omit<DraftSource, "monteCarlo">>(32));
 
 /** The draft's engine input and the stored result for exactly that input (null when it has none yet). */
-export async function draftResult(db: Executor, ctx: ScenarioContext): Promise<DraftSource | null> {
+export async function draftResult(db: Executor, ctx: ScenarioContext, opts: { monteCarlo: boolean } = { monteCarlo: true }): Promise<DraftSource | null> {
   const key = [ctx.row.id, ctx.row.revision, ctx.row.climateDatasetId, ctx.project.elevationM, ctx.project.locationLabel].join("|");
   const hit = draftCache.get(key);
   if (hit) {
-    const stored = await storedFor(db, ctx.row.id, hit.input);
-    return { ...hit, monteCarlo: stored.monteCarlo };
+    // The input, its hash and its result are the cached ones; only the Monte Carlo job moves on its own.
+    return { ...hit, monteCarlo: opts.monteCarlo ? await storedMonteCarloFor(db, ctx.row.id, hit.inputsHash) : null };
   }
   const full = await withClimateData(db, ctx);
   const built = buildEngineInput(full.dto.document, full.dataset, full.project);
@@ -123,16 +123,20 @@ export async function resolveScenarioResult(
   db: Executor,
   viewer: Viewer | null,
   scenarioId: string,
-  opts: { action: Action; version: number | null },
+  opts: { action: Action; version: number | null; monteCarlo?: boolean },
 ): Promise<Result<ResolvedResult>> {
   const sel = await resolveScenarioSelection(db, viewer, scenarioId, opts);
   if (!sel.ok) return sel;
   const { access, scenario: ctx } = sel.value;
   const withheld = !access.can("scenario.viewCashFlows");
+  // `monteCarlo: false` (the what-if, which re-prices without the draws): the stored Monte Carlo run — ten
+  // thousand draws per comparison — is neither read nor merged.
+  const wantMonteCarlo = opts.monteCarlo ?? true;
 
   if (sel.value.kind === "issued") {
     const v = sel.value.version;
-    const result = await withMonteCarlo(db, ctx.row.id, upgradeStoredResult(v.result as ScenarioResult), v.engineVersion, v.inputsHash);
+    const upgraded = upgradeStoredResult(v.result as ScenarioResult);
+    const result = wantMonteCarlo ? await withMonteCarlo(db, ctx.row.id, upgraded, v.engineVersion, v.inputsHash) : upgraded;
     return {
       ok: true,
       value: {
@@ -153,7 +157,7 @@ export async function resolveScenarioResult(
     };
   }
 
-  const draft = await draftResult(db, ctx);
+  const draft = await draftResult(db, ctx, { monteCarlo: wantMonteCarlo });
   if (!draft) return fail(409, "The draft has no stored result for its current inputs: complete and save it to analyse it.");
   const mc = draft.monteCarlo?.status === "done" ? draft.monteCarlo.result : null;
   const result = mc && !draft.result.economics.monteCarlo ? { ...draft.result, economics: { ...draft.result.economics, monteCarlo: mc } } : draft.result;

@@ -26,7 +26,7 @@ export const dynamic = "force-dynamic";
 export async function POST(request: Request, { params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
   const version = parseVersionParam(new URL(request.url).searchParams.get("version"));
-  const r = await perform(resolveScenarioResult, scenarioId, { action: "scenario.whatIf", version: version.ok ? version.value : null });
+  const r = await perform(resolveScenarioResult, scenarioId, { action: "scenario.whatIf", version: version.ok ? version.value : null, monteCarlo: false });
   if (!r.ok) return failureResponse(r);
   if (!version.ok) return failureResponse(version);
   const body = await readJsonBody(request, WHAT_IF_MAX_BYTES);
