@@ -67,7 +67,7 @@ export function CondenserFootprintPanel({
   system: UnitSystem;
   currency: string;
 }) {
-  const plans = condenserPlanTable(result, currency);
+  const plans = condenserPlanTable(result, system, currency);
   const footprint = footprintTable(result, system, currency);
   const cautions = inventoryCautionTexts(result);
   if (!plans && !footprint) return null;

@@ -52,8 +52,15 @@ function byOption<T extends { optionId: string }>(items: T[] | undefined, ids: s
   return ids.map((id) => m.get(id));
 }
 
-/** Construction, material, inventory (kg and lb) and the upkeep plan of each option's condenser; null without plans. */
-export function condenserPlanTable(r: CondenserFootprintResult, currency: string): OptionRowsTable | null {
+/**
+ * Construction, material, clean U (in the viewer's units), inventory (kg and lb) and the upkeep plan of each
+ * option's condenser; null without plans.
+ */
+export function condenserPlanTable(
+  r: CondenserFootprintResult,
+  system: UnitSystem,
+  currency: string,
+): OptionRowsTable | null {
   if (!r.condensers || r.condensers.length === 0) return null;
   const columns = r.economics.options.map((o) => ({ optionId: o.optionId, label: o.label }));
   const plans = byOption(
@@ -67,6 +74,8 @@ export function condenserPlanTable(r: CondenserFootprintResult, currency: string
     cells: plans.map((p) => (p ? cell(p) : text("—"))),
   });
   const lb = (kg: number) => fromSI("massKg", kg, "IP");
+  const uUnit = unitLabel("heatTransferCoefficientWPerM2K", system);
+  const u = (wPerM2K: number) => fromSI("heatTransferCoefficientWPerM2K", wPerM2K, system);
   const rows: PlanRow[] = [
     row("construction", "Condenser", "", (p) => text(p.constructionLabel)),
     row("waterSide", "Wetted by", "", (p) =>
@@ -79,10 +88,10 @@ export function condenserPlanTable(r: CondenserFootprintResult, currency: string
       ),
     ),
     row("material", "Material", "", (p) => text(p.materialLabel)),
-    row("cleanU", "Clean U", "W/(m²·K)", (p) =>
+    row("cleanU", "Clean U", uUnit, (p) =>
       p.cleanUWPerM2K === null
         ? text("— (rated capacity)")
-        : num(p.cleanUWPerM2K, `${fmtSignificant(p.cleanUWPerM2K, 3)} W/(m²·K)`),
+        : num(u(p.cleanUWPerM2K), `${fmtSignificant(u(p.cleanUWPerM2K), 3)} ${uUnit}`),
     ),
     row("chargePerKW", "Refrigerant charge per kW", "kg/kW", (p) =>
       num(p.specificChargeKgPerKW, `${fmtSignificant(p.specificChargeKgPerKW, 2)} kg/kW`),

@@ -652,7 +652,7 @@ function addSummarySheet(wb: ExcelJS.Workbook, src: ReportSource, lccNames: stri
  * the same rows as the comparison and the PDF; numbers as numbers with the row's unit. No cash flows.
  */
 function addCondenserSheet(wb: ExcelJS.Workbook, src: ReportSource): void {
-  const plans = condenserPlanTable(src.result, src.project.currency);
+  const plans = condenserPlanTable(src.result, src.unitSystem, src.project.currency);
   const footprint = footprintTable(src.result, src.unitSystem, src.project.currency);
   if (!plans && !footprint) return;
   const ws = wb.addWorksheet("Condensers", { properties: { tabColor: { argb: "FF5B6B3A" } } });

@@ -222,7 +222,7 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
   }),
   ...grouped("Plate exchanger", {
     [`${O}.plateExchanger.designApproachK`]: ["Design approach", q("temperatureDifferenceK")],
-    [`${O}.plateExchanger.cleanUWPerM2K`]: ["Clean U", unit("W/(m²·K)")],
+    [`${O}.plateExchanger.cleanUWPerM2K`]: ["Clean U", q("heatTransferCoefficientWPerM2K")],
     [`${O}.plateExchanger.cleanSideFlowKgPerS`]: ["Clean (condenser) side flow", flow],
     [`${O}.plateExchanger.towerSidePressureDropKPa`]: ["Tower-side pressure drop", q("pressureDropKPa")],
     [`${O}.plateExchanger.cleanSidePressureDropKPa`]: ["Clean-side pressure drop", q("pressureDropKPa")],
@@ -239,7 +239,7 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
   ...grouped("Condenser", {
     [`${O}.condenser.designCondensingC`]: ["Design condensing temperature", q("temperatureC")],
     [`${O}.condenser.designEnteringWaterC`]: ["Design entering water", q("temperatureC")],
-    [`${O}.condenser.cleanUWPerM2K`]: ["Clean U", unit("W/(m²·K)")],
+    [`${O}.condenser.cleanUWPerM2K`]: ["Clean U", q("heatTransferCoefficientWPerM2K")],
     [`${O}.condenser.designFoulingM2KPerW`]: ["Fouling allowance in the design point", q("foulingM2KPerW")],
     [`${O}.condenser.waterSideResistanceFraction`]: ["Water-side share of the clean condenser's resistance", pct],
   }),

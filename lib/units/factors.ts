@@ -51,7 +51,7 @@ export const L_PER_S_PER_GPM = (M3_PER_US_GAL * 1000) / 60;
 export const M3_PER_S_PER_CFM = M3_PER_FT3 / 60;
 /** lb/ft³, kg/m³ (SP 811 B.8 1.601846 E+01 kg/m³). */
 export const KG_PER_M3_PER_LB_PER_FT3 = KG_PER_LB / M3_PER_FT3;
-/** Btu/(h·ft²·°F), W/(m²·K) (SP 811 B.8 5.678263 W/(m²·K)); its reciprocal converts fouling resistances. */
+/** Btu/(h·ft²·°F), W/(m²·K) (SP 811 B.8 5.678263 W/(m²·K)), for U-values; its reciprocal converts fouling resistances. */
 export const W_PER_M2K_PER_BTU_PER_HFT2F = W_PER_BTU_PER_H / ((M_PER_FT * M_PER_FT) * (5 / 9));
 /** h·ft²·°F/Btu, m²·K/W (reciprocal of the above; SP 811 B.8 1.761102 E−01 m²·K/W). */
 export const M2K_PER_W_PER_HFT2F_PER_BTU = 1 / W_PER_M2K_PER_BTU_PER_HFT2F;

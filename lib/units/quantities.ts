@@ -214,6 +214,17 @@ export const QUANTITIES = {
     SI: same("µS/cm", "microsiemens per centimetre"),
     IP: same("µS/cm", "microsiemens per centimetre"),
   },
+  heatTransferCoefficientWPerM2K: {
+    label: "Heat-transfer coefficient (U)",
+    storedSymbol: "W/(m²·K)",
+    SI: si("W/(m²·K)", "watts per square-metre kelvin"),
+    IP: {
+      symbol: "Btu/(h·ft²·°F)",
+      name: "Btu per hour square-foot degree Fahrenheit",
+      factor: F.W_PER_M2K_PER_BTU_PER_HFT2F,
+      source: `${SP811}: 1 Btu/(h·ft²·°F) = 5.678263 W/(m²·K)`,
+    },
+  },
   foulingM2KPerW: {
     label: "Fouling resistance",
     storedSymbol: "m²·K/W",

@@ -27,7 +27,7 @@ function columnsOf(table: OptionRowsTable): Column<PlanRow>[] {
  */
 export function CondenserFootprintSection({ source }: { source: ReportSource }) {
   const r = source.result;
-  const plans = condenserPlanTable(r, source.project.currency);
+  const plans = condenserPlanTable(r, source.unitSystem, source.project.currency);
   const footprint = footprintTable(r, source.unitSystem, source.project.currency);
   const cautions = inventoryCautionTexts(r);
   return (

@@ -89,7 +89,7 @@ const cell = (t: ReturnType<typeof footprintTable>, key: string, i: number) => t
 
 describe("condenser plan table", () => {
   it("gives each option's refrigerant in kg and in lb (1 lb = 0.45359237 kg, NIST SP 811)", () => {
-    const t = condenserPlanTable(result(0), "USD")!;
+    const t = condenserPlanTable(result(0), "SI", "USD")!;
     expect(t.columns.map((c) => c.label)).toEqual(["Tower, direct", "Evaporative condenser"]);
     expect(cell(t, "inventoryKg", 0).value).toBe(80);
     // 80 / 0.45359237 = 176.3698 lb; 160 kg = 352.7396 lb.
@@ -99,15 +99,28 @@ describe("condenser plan table", () => {
   });
 
   it("shows eddy-current testing with its interval for tubes and no inspection interval for the coil", () => {
-    const t = condenserPlanTable(result(0), "USD")!;
+    const t = condenserPlanTable(result(0), "SI", "USD")!;
     expect(cell(t, "inspection", 0).text).toMatch(/eddy-current/i);
     expect(cell(t, "inspectionEvery", 0).value).toBe(3);
     expect(cell(t, "inspectionEvery", 1).text).toBe("—");
     expect(cell(t, "cleanU", 1).value).toBeNull();
   });
 
+  it("gives the clean U in W/(m²·K) in SI and in Btu/(h·ft²·°F) in IP (1 Btu/(h·ft²·°F) = 5.678263 W/(m²·K), NIST SP 811 B.8)", () => {
+    const si = condenserPlanTable(result(0), "SI", "USD")!;
+    expect(si.rows.find((r) => r.key === "cleanU")!.unit).toBe("W/(m²·K)");
+    expect(cell(si, "cleanU", 0).value).toBe(1000);
+    expect(cell(si, "cleanU", 0).text).toBe("1,000 W/(m²·K)");
+    const ip = condenserPlanTable(result(0), "IP", "USD")!;
+    expect(ip.rows.find((r) => r.key === "cleanU")!.unit).toBe("Btu/(h·ft²·°F)");
+    // By hand: 1000 / 5.678263 = 176.11 Btu/(h·ft²·°F), shown to 3 figures.
+    expect(cell(ip, "cleanU", 0).value).toBeCloseTo(176.11, 2);
+    expect(cell(ip, "cleanU", 0).text).toBe("176 Btu/(h·ft²·°F)");
+    expect(cell(ip, "cleanU", 1).text).toBe("— (rated capacity)");
+  });
+
   it("is absent for a result stored before condenser plans existed", () => {
-    expect(condenserPlanTable({ economics: { options: [] } }, "USD")).toBeNull();
+    expect(condenserPlanTable({ economics: { options: [] } }, "SI", "USD")).toBeNull();
     expect(footprintTable({ economics: { options: [] } }, "SI", "USD")).toBeNull();
   });
 

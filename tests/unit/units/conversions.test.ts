@@ -64,6 +64,8 @@ const CASES: Record<QuantityKind, Case> = {
   // SP811 B.8: Btu_IT/(h·ft²·°F) = 5.678263 W/(m²·K) → 1 h·ft²·°F/Btu = 1/5.678263 m²·K/W; the TEMA tower-water
   // allowance 0.001 h·ft²·°F/Btu ≈ 0.000176 m²·K/W [memory].
   foulingM2KPerW: { ip: 0.001, si: 0.001 / 5.678263, relTol: 1e-6, source: "SP811 B.8 5.678263 W/(m²·K)" },
+  // SP811 B.8 (and ASHRAE Handbook—Fundamentals, unit conversions): 1 Btu_IT/(h·ft²·°F) = 5.678263 W/(m²·K).
+  heatTransferCoefficientWPerM2K: { ip: 1, si: 5.678263, relTol: 1e-6, source: "SP811 B.8 Btu/(h·ft²·°F) = 5.678263 W/(m²·K)" },
   // E8 Btu/h = 0.29307107 W and SP811 1 K = 1.8 °F: 1 Btu/(h·°F) = 0.52752793 W/K.
   uaKWPerK: { ip: 1000, si: 0.29307107 * 1.8, relTol: 2e-8, source: "E8 Btu/h; SP811 1 K = 1.8 °F" },
   // SP811 B.8: ft³/min = 4.719474 E−04 m³/s.
@@ -146,6 +148,19 @@ describe("lib/units: offsets, differences and labels", () => {
     expect(unitLabel("pricePerM3Ccf", "IP", "USD")).toBe("USD/CCF");
     expect(unitLabel("temperatureDifferenceK", "SI")).toBe("K");
     expect(unitLabel("foulingM2KPerW", "IP")).toBe("h·ft²·°F/Btu");
+  });
+
+  it("a U-value reads in Btu/(h·ft²·°F) in IP: 1 W/(m²·K) = 0.176110 Btu/(h·ft²·°F) (NIST SP 811 B.8; ASHRAE Handbook—Fundamentals unit conversions)", () => {
+    // Hand calculation with the published factor 1 Btu/(h·ft²·°F) = 5.678263 W/(m²·K):
+    // 4500 / 5.678263 = 792.50 Btu/(h·ft²·°F); 1000 / 5.678263 = 176.11; 176.11 Btu/(h·ft²·°F) × 5.678263 ≈ 1000 W/(m²·K).
+    close(fromSI("heatTransferCoefficientWPerM2K", 4500, "IP"), 792.50, 1e-5);
+    close(fromSI("heatTransferCoefficientWPerM2K", 1000, "IP"), 176.110, 1e-5);
+    close(fromSI("heatTransferCoefficientWPerM2K", 1, "IP"), 0.176110, 1e-5);
+    close(toSI("heatTransferCoefficientWPerM2K", 176.110, "IP"), 1000, 1e-5);
+    // Fouling resistance is its reciprocal: 1 h·ft²·°F/Btu = 0.176110 m²·K/W (SP 811 B.8 1.761102 E−01).
+    close(toSI("foulingM2KPerW", 1, "IP"), 0.176110, 1e-5);
+    expect(unitLabel("heatTransferCoefficientWPerM2K", "IP")).toBe("Btu/(h·ft²·°F)");
+    expect(unitLabel("heatTransferCoefficientWPerM2K", "SI")).toBe("W/(m²·K)");
   });
 
   it("one ton of refrigeration is 12,000 Btu/h and a cooling-tower ton 15,000 Btu/h (E8)", () => {

@@ -18,7 +18,7 @@ import {
 } from "@/lib/engine/condenser-construction";
 import { isAmmonia, type Refrigerant } from "@/lib/engine/refrigerants";
 import type { OptionKind } from "@/lib/engine/types";
-import { formatNumber, formatQuantity } from "@/lib/units";
+import { formatNumber, formatQuantity, type UnitSystem } from "@/lib/units";
 import type { EditorValues } from "@/lib/scenarios/editor-values";
 import { Check, Choice, Group, Num, Pct, Plain, FlowField } from "./fields";
 
@@ -30,6 +30,17 @@ const CONSTRUCTION_OPTIONS = CONDENSER_CONSTRUCTIONS.map((c) => ({
 }));
 const MATERIAL_OPTIONS = CONDENSER_MATERIALS.map((m) => ({ value: m, label: CONDENSER_MATERIAL_LABELS[m] }));
 const CLEANING_OPTIONS = CLEANING_METHODS.map((m) => ({ value: m, label: CLEANING_METHOD_LABELS[m] }));
+
+/** A clean U (stored in W/(m²·K)) in the project's units, to 3 figures. */
+function uText(wPerM2K: number, system: UnitSystem): string {
+  return formatQuantity("heatTransferCoefficientWPerM2K", wPerM2K, system, { sig: 3 });
+}
+
+/** A range of clean U ("800–1,400 W/(m²·K)", "141–247 Btu/(h·ft²·°F)"). */
+function uRangeText([lo, hi]: readonly [number, number], system: UnitSystem): string {
+  const kind = "heatTransferCoefficientWPerM2K";
+  return `${formatQuantity(kind, lo, system, { sig: 3, withUnit: false })}–${formatQuantity(kind, hi, system, { sig: 3 })}`;
+}
 
 /** The construction's defaults, each with its source or tag, as the engine will use them where a field is left empty. */
 function ConstructionDefaultsTable({
@@ -48,12 +59,8 @@ function ConstructionDefaultsTable({
   const openTower = kind === "openTowerDirect";
   const material = defaultCondenserMaterial(construction, refrigerant);
   const rows: [string, string, string][] = [
-    [
-      "Clean U range",
-      `${d.cleanURangeWPerM2K.value[0]}–${d.cleanURangeWPerM2K.value[1]} W/(m²·K)`,
-      d.cleanURangeWPerM2K.source,
-    ],
-    ["Clean U", `${d.cleanUWPerM2K.value} W/(m²·K)`, d.cleanUWPerM2K.source],
+    ["Clean U range", uRangeText(d.cleanURangeWPerM2K.value, system), d.cleanURangeWPerM2K.source],
+    ["Clean U", uText(d.cleanUWPerM2K.value, system), d.cleanUWPerM2K.source],
     [
       "Fouling growth on open-tower water",
       `× ${d.foulingGrowthMultiplierOpenTower.value}`,
@@ -159,7 +166,7 @@ export function CondenserConstructionGroup({ i, kind }: { i: number; kind: Optio
         shouldValidate: true,
       });
   }, [construction, getValues, setValue, p]);
-  const { currency } = useUnits();
+  const { currency, system } = useUnits();
   const materialDefault = CONDENSER_MATERIAL_LABELS[defaultCondenserMaterial(construction, refrigerant)];
   const wearLife = d.tubeBundleLifeYears.value !== undefined ? d.tubeBundleLifeYears : d.gasketLifeYears;
   const wearLabel =
@@ -186,13 +193,13 @@ export function CondenserConstructionGroup({ i, kind }: { i: number; kind: Optio
         placeholder={`Default: ${materialDefault}`}
         description="Carbon or stainless steel with ammonia; copper alloys only with halocarbons."
       />
-      <Plain
+      <Num
         name={`${p}.cleanUWPerM2K`}
         label="Clean U"
-        unit="W/(m²·K)"
+        kind="heatTransferCoefficientWPerM2K"
         noDefault
         description={tagged(
-          `${d.cleanUWPerM2K.value} W/(m²·K); ${d.cleanURangeWPerM2K.value[0]}–${d.cleanURangeWPerM2K.value[1]} is usual`,
+          `${uText(d.cleanUWPerM2K.value, system)}; ${uRangeText(d.cleanURangeWPerM2K.value, system)} is usual`,
           d.cleanUWPerM2K.source,
           "Default",
         )}

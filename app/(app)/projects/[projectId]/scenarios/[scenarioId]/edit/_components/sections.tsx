@@ -688,7 +688,7 @@ export function OptionSection({
             label="Design approach"
             kind="temperatureDifferenceK"
           />
-          <Plain name={`${p}.plateExchanger.cleanUWPerM2K`} label="Clean U" unit="W/(m²·K)" />
+          <Num name={`${p}.plateExchanger.cleanUWPerM2K`} label="Clean U" kind="heatTransferCoefficientWPerM2K" />
           <FlowField
             name={`${p}.plateExchanger.cleanSideFlowKgPerS`}
             label="Clean (condenser) side flow"
@@ -725,7 +725,7 @@ export function OptionSection({
               kind="temperatureC"
               optional
             />
-            <Plain name={`${p}.condenser.cleanUWPerM2K`} label="Clean U" unit="W/(m²·K)" />
+            <Num name={`${p}.condenser.cleanUWPerM2K`} label="Clean U" kind="heatTransferCoefficientWPerM2K" />
             <Num
               name={`${p}.condenser.designFoulingM2KPerW`}
               label="Fouling allowance in the design point"
