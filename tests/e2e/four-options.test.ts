@@ -79,8 +79,9 @@ describe("four ways to reject the heat", () => {
     await defaults.filter({ hasText: "Eddy-current testing" }).waitFor();
     expect(await defaults.innerText()).toMatch(/\[practice\]/);
     expect(await defaults.innerText()).toMatch(/\[memory\]/);
-    // The clean U followed the construction back to shell-and-tube's 1000 W/(m²·K).
-    expect(await page.inputValue("#f-options-0-condenser-cleanUWPerM2K")).toBe("1000");
+    // The clean U followed the construction back to shell-and-tube's 1000 W/(m²·K), shown in this IP project
+    // as 1000 / 5.678263 = 176.11 Btu/(h·ft²·°F) (NIST SP 811 B.8: 1 Btu/(h·ft²·°F) = 5.678263 W/(m²·K)).
+    expect(await page.inputValue("#f-options-0-condenser-cleanUWPerM2K")).toBe("176.11");
     await screenshot(page, "four-options-02-shell-and-tube-defaults");
 
     // First costs: one quote per option (the other items count as 0), in each option's "First cost and upkeep"
