@@ -7,6 +7,7 @@
 import { binHourly } from "@/lib/engine/climate/binning";
 import type { ClimateInput } from "@/lib/engine/climate/types";
 import { COST_CATEGORIES, COST_CATEGORY_LABELS } from "@/lib/engine/economics/types";
+import { calendarYearLabel } from "./format";
 import { neutraliseText } from "./neutralise";
 import type { ReportSource } from "./types";
 import { convert, unitOf } from "./units";
@@ -52,6 +53,8 @@ export function cashFlowsCsv(src: ReportSource): string {
     `Cumulative present value (${cur})`,
     "Discount rate (fraction per year)",
     "First cost",
+    // Years 0 and 1 share a calendar year: this says which is which. Last, so no earlier column moves.
+    "Calendar year (labelled)",
   ];
   const rows: Cell[][] = [];
   for (const o of eco.options) {
@@ -68,6 +71,7 @@ export function cashFlowsCsv(src: ReportSource): string {
         round(c.cumulativePresentValue, 2),
         eco.discountRate,
         status,
+        calendarYearLabel(c.yearIndex, c.calendarYear),
       ]);
     }
   }

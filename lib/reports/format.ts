@@ -106,3 +106,15 @@ export function fmtDate(d: Date): string {
 export function isoDate(d: Date): string {
   return d.toISOString().slice(0, 10);
 }
+
+/**
+ * A study year's calendar year, saying which is which where two share one: the base date (year 0, 1 January
+ * of the base year: first costs) and the first operating year fall in the same calendar year, so those two
+ * read "2026 (year 0, first cost)" and "2026 (year 1, first operating year)"; later years are the plain year.
+ * The one wording of the workbook, the PDF and the CSV.
+ */
+export function calendarYearLabel(yearIndex: number, calendarYear: number): string {
+  if (yearIndex === 0) return `${calendarYear} (year 0, first cost)`;
+  if (yearIndex === 1) return `${calendarYear} (year 1, first operating year)`;
+  return String(calendarYear);
+}

@@ -17,7 +17,7 @@ import {
   type OptionEconomics,
 } from "@/lib/engine/economics/types";
 import type { ScenarioInput } from "@/lib/engine/input";
-import { isoDate } from "./format";
+import { calendarYearLabel, isoDate } from "./format";
 import { neutraliseText } from "./neutralise";
 import type { ReportSource } from "./types";
 import { convert, unitOf } from "./units";
@@ -51,13 +51,11 @@ const SHORT_LABELS: Record<CostCategory, string> = {
 
 /**
  * The calendar-year cell of a cash-flow row. The base date (year 0, 1 January of the base year: first
- * costs) and the first operating year share a calendar year, so those two say which is which; later years
- * are plain numbers.
+ * costs) and the first operating year share a calendar year, so those two say which is which (the wording
+ * of `calendarYearLabel`, shared with the PDF and the CSV); later years are plain numbers.
  */
 export function calendarYearCell(yearIndex: number, calendarYear: number): string | number {
-  if (yearIndex === 0) return `${calendarYear} (year 0, first cost)`;
-  if (yearIndex === 1) return `${calendarYear} (year 1, first operating year)`;
-  return calendarYear;
+  return yearIndex <= 1 ? calendarYearLabel(yearIndex, calendarYear) : calendarYear;
 }
 
 /** Names of the Inputs sheet's cells (workbook-level defined names). */

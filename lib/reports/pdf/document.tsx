@@ -15,7 +15,7 @@ import type { OptionAnnualPhysics } from "@/lib/engine/types";
 import { warningText } from "@/lib/units/warnings";
 import { designDaySentence } from "../design-day";
 import { buildAssumptions } from "../assumptions";
-import { fmtDate, fmtMoney, fmtNumber, fmtPercent, fmtRatio, fmtYears } from "../format";
+import { calendarYearLabel, fmtDate, fmtMoney, fmtNumber, fmtPercent, fmtRatio, fmtYears } from "../format";
 import {
   buildSummary,
   labelOf,
@@ -715,7 +715,7 @@ function cashRows(flows: YearCashFlow[], deflate: ((t: number) => number) | null
     for (const k of COST_CATEGORIES) amounts[k] = c.byCategory[k] * f;
     return {
       label: c.yearIndex === 0 ? "0 (base)" : String(c.yearIndex),
-      calendar: String(c.calendarYear),
+      calendar: calendarYearLabel(c.yearIndex, c.calendarYear),
       amounts,
       total: c.total * f,
       pv: c.presentValue,
@@ -749,8 +749,9 @@ function CashFlowTable({
     cumulative: option.lcc,
   };
   const cols: Column<CashRow>[] = [
-    { title: "Year", width: 0.75, cell: (r) => r.label },
-    { title: "Calendar", width: 0.6, cell: (r) => r.calendar },
+    { title: "Year", width: 0.6, cell: (r) => r.label },
+    // Years 0 and 1 share a calendar year: their cells say which is which ("2026 (year 0, first cost)").
+    { title: "Calendar", width: 1.05, cell: (r) => r.calendar },
     ...used.map((c) => ({
       title: COST_CATEGORY_LABELS[c].replace(" (labour, cleaning, testing)", ""),
       unit: currency,
@@ -760,7 +761,7 @@ function CashFlowTable({
     })),
     { title: "Total", unit: currency, width: 1.05, align: "right", cell: (r) => m(r.total) },
     { title: "Present value", unit: currency, width: 1.05, align: "right", cell: (r) => m(r.pv) },
-    { title: "Cumulative PV", unit: currency, width: 1.1, align: "right", cell: (r) => m(r.cumulative) },
+    { title: "Cumulative PV", unit: currency, width: 1.25, align: "right", cell: (r) => m(r.cumulative) },
   ];
   return (
     <View>

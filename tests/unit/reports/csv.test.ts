@@ -47,6 +47,28 @@ describe("CSV exports", () => {
     }
   });
 
+  it("cash flows say which 2026 is year 0 (first cost) and which year 1 (first operating year), in a column of their own", async () => {
+    // The fixture's base year is 2026: year 0 is 1 January 2026 (first costs) and year 1, the first operating
+    // year, is also 2026 (NIST Handbook 135's base date and study years). The wording is the workbook's.
+    const src = await reportSource({ unitSystem: "SI" });
+    expect(src.result.economics.baseYear).toBe(2026);
+    const rows = parse(cashFlowsCsv(src));
+    const header = rows[0]!;
+    // The numeric columns stay where they were and stay numbers; the label is the last column.
+    expect(header.slice(0, 3)).toEqual(["Option", "Study year t", "Calendar year"]);
+    expect(header.at(-2)).toBe("First cost");
+    expect(header.at(-1)).toBe("Calendar year (labelled)");
+    const label = header.length - 1;
+    const first = src.result.economics.options[0]!.label;
+    const mine = rows.slice(1).filter((r) => r[0] === first);
+    expect(mine[0]!.slice(1, 3)).toEqual(["0", "2026"]);
+    expect(mine[0]![label]).toBe("2026 (year 0, first cost)");
+    expect(mine[1]!.slice(1, 3)).toEqual(["1", "2026"]);
+    expect(mine[1]![label]).toBe("2026 (year 1, first operating year)");
+    expect(mine[2]!.slice(1, 3)).toEqual(["2", "2027"]);
+    expect(mine[2]![label]).toBe("2027");
+  });
+
   it("water and energy: makeup = evaporation + drift + blowdown per row, volumes in kgal for IP", async () => {
     const src = await reportSource({ unitSystem: "IP" });
     const rows = parse(waterEnergyCsv(src));

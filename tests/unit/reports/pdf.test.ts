@@ -153,6 +153,16 @@ describe("PDF report", () => {
     expect(pagesWithRows).toBeGreaterThanOrEqual(src.result.economics.options.length);
   });
 
+  it("says in each cash-flow table which 2026 is year 0 (first cost) and which year 1 (first operating year)", () => {
+    // The fixture's base year is 2026: year 0 is 1 January 2026 (first costs) and year 1, the first operating
+    // year, is also 2026 (NIST Handbook 135's base date and study years); the wording is the workbook's.
+    expect(src.result.economics.baseYear).toBe(2026);
+    const text = pdfToText(pdf).replace(/\s+/g, " ");
+    const n = src.result.economics.options.length;
+    expect(text.match(/2026 \(year 0, first cost\)/g)?.length ?? 0).toBeGreaterThanOrEqual(n);
+    expect(text.match(/2026 \(year 1, first operating year\)/g)?.length ?? 0).toBeGreaterThanOrEqual(n);
+  });
+
   it("uses only characters the shipped latin font subset can draw", () => {
     const text = pdfToText(pdf);
     const missing = [
