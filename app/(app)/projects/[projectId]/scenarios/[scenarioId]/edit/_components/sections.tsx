@@ -725,7 +725,6 @@ export function OptionSection({
               kind="temperatureC"
               optional
             />
-            <Num name={`${p}.condenser.cleanUWPerM2K`} label="Clean U" kind="heatTransferCoefficientWPerM2K" />
             <Num
               name={`${p}.condenser.designFoulingM2KPerW`}
               label="Fouling allowance in the design point"
