@@ -33,7 +33,7 @@ fi
 
 echo "[start] building (next build, and the worker's bundle)…"
 npx next build
-node scripts/bundle.mjs scripts/worker.ts .worker/worker.cjs
+npm run -s build:worker
 t1=$(date +%s)
 echo "[start] ready in $((t1 - t0)) s"
 echo "[start] LoopLedger is at http://127.0.0.1:${PORT:-3000}  (stop with Ctrl-C; 'npm run db:stop' stops PostgreSQL)"

@@ -127,20 +127,24 @@ export interface EnteringAir {
  * ch.1 eq. 33/35); the true enthalpy h(t, W) (eq. 32) for the evaporation balance.
  */
 export function enteringAir(dryBulbC: number, wetBulbC: number, pPa: number): EnteringAir {
+  const a = blankEnteringAir(saturationTable(pPa));
+  fillEnteringAir(a, dryBulbC, wetBulbC, pPa);
+  return a;
+}
+
+/** Writes the entering-air state of (dry-bulb, wet-bulb, p) into `a` (see `enteringAir`); `a.table` is kept. */
+function fillEnteringAir(a: EnteringAir, dryBulbC: number, wetBulbC: number, pPa: number): void {
   const twb = Math.min(wetBulbC, dryBulbC);
   const hs = saturatedAirEnthalpyKJPerKg(twb, pPa);
   const ws = saturationHumidityRatioFromEnthalpy(twb, hs);
   const w = humidityRatioFromWetBulbAndWs(dryBulbC, twb, ws);
-  return {
-    dryBulbC,
-    wetBulbC: twb,
-    enthalpyKJPerKg: hs,
-    moistEnthalpyKJPerKg: moistAirEnthalpyKJPerKg(dryBulbC, w),
-    slopeAtWetBulbKJPerKgK: saturatedEnthalpySlopeKJPerKgK(twb, hs),
-    humidityRatio: w,
-    moistSpecificHeatKJPerKgK: 1.006 + 1.86 * w,
-    table: saturationTable(pPa),
-  };
+  a.dryBulbC = dryBulbC;
+  a.wetBulbC = twb;
+  a.enthalpyKJPerKg = hs;
+  a.moistEnthalpyKJPerKg = moistAirEnthalpyKJPerKg(dryBulbC, w);
+  a.slopeAtWetBulbKJPerKgK = saturatedEnthalpySlopeKJPerKgK(twb, hs);
+  a.humidityRatio = w;
+  a.moistSpecificHeatKJPerKgK = 1.006 + 1.86 * w;
 }
 
 /**
@@ -195,19 +199,20 @@ export function enteringAirColumns(count: number, pPa: number): EnteringAirColum
 
 /** Record i of the columns: the entering-air state of `enteringAir(dryBulbC, wetBulbC, p)`. */
 export function setEnteringAir(cols: EnteringAirColumns, i: number, dryBulbC: number, wetBulbC: number, pPa: number): void {
-  const twb = Math.min(wetBulbC, dryBulbC);
-  const hs = saturatedAirEnthalpyKJPerKg(twb, pPa);
-  const ws = saturationHumidityRatioFromEnthalpy(twb, hs);
-  const w = humidityRatioFromWetBulbAndWs(dryBulbC, twb, ws);
-  cols.dryBulbC[i] = dryBulbC;
-  cols.wetBulbC[i] = twb;
-  cols.enthalpyKJPerKg[i] = hs;
-  cols.moistEnthalpyKJPerKg[i] = moistAirEnthalpyKJPerKg(dryBulbC, w);
-  cols.slopeAtWetBulbKJPerKgK[i] = saturatedEnthalpySlopeKJPerKgK(twb, hs);
-  cols.humidityRatio[i] = w;
-  cols.moistSpecificHeatKJPerKgK[i] = 1.006 + 1.86 * w;
+  const a = FILL_SCRATCH.air ?? (FILL_SCRATCH.air = blankEnteringAir(cols.table));
+  fillEnteringAir(a, dryBulbC, wetBulbC, pPa);
+  cols.dryBulbC[i] = a.dryBulbC;
+  cols.wetBulbC[i] = a.wetBulbC;
+  cols.enthalpyKJPerKg[i] = a.enthalpyKJPerKg;
+  cols.moistEnthalpyKJPerKg[i] = a.moistEnthalpyKJPerKg;
+  cols.slopeAtWetBulbKJPerKgK[i] = a.slopeAtWetBulbKJPerKgK;
+  cols.humidityRatio[i] = a.humidityRatio;
+  cols.moistSpecificHeatKJPerKgK[i] = a.moistSpecificHeatKJPerKgK;
   cols.present[i] = 1;
 }
+
+/** `setEnteringAir`'s one state object, filled and copied per record (its table is not read). */
+const FILL_SCRATCH: { air: EnteringAir | null } = { air: null };
 
 /**
  * Record i of the columns as an EnteringAir, written into `into` (a new object when omitted), or undefined

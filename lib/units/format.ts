@@ -110,15 +110,3 @@ export function convertedInputText(value: number | null | undefined): string {
   const wholeDigits = abs >= 1 ? Math.floor(Math.log10(abs)) + 1 : 0;
   return inputText(value, Math.max(CONVERTED_INPUT_SIG, wholeDigits));
 }
-
-/**
- * An input box's text for a stored SI value in `system`'s unit: where the shown unit is the stored one
- * (every SI unit, money, kWh), `sig` significant figures as stored; where it is converted (IP), rounded by
- * `convertedInputText`.
- */
-export function quantityInputText(kind: QuantityKind, valueSI: number | null | undefined, system: UnitSystem, sig = 6): string {
-  if (valueSI === null || valueSI === undefined || !Number.isFinite(valueSI)) return "";
-  const u = (QUANTITIES[kind] as QuantityDef)[system];
-  const shown = valueSI / u.factor + (u.offset ?? 0);
-  return u.factor === 1 && !u.offset ? inputText(shown, sig) : convertedInputText(shown);
-}

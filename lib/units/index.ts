@@ -7,6 +7,7 @@ import { QUANTITIES, type DisplayUnit, type QuantityDef, type QuantityKind, type
 
 export { QUANTITIES, QUANTITY_KINDS, isQuantityKind, type DisplayUnit, type QuantityDef, type QuantityKind, type UnitSystem } from "./quantities";
 export * from "./format";
+import { convertedInputText, inputText } from "./format";
 export { WATER_DENSITY_KG_PER_M3, WATER_KG_PER_L, waterKgPerSFromLPerS, waterLPerSFromKgPerS } from "./factors";
 
 export function quantity(kind: QuantityKind): QuantityDef {
@@ -48,4 +49,16 @@ export function unitName(kind: QuantityKind, system: UnitSystem, currency = "USD
 /** Where a kind's conversion factor comes from, in `system`. */
 export function unitSource(kind: QuantityKind, system: UnitSystem): string {
   return displayUnit(kind, system).source;
+}
+
+/**
+ * An input box's text for a stored SI value in `system`'s unit: where the shown unit is the stored one
+ * (every SI unit, money, kWh), `sig` significant figures as stored; where it is converted (IP), rounded by
+ * `convertedInputText`.
+ */
+export function quantityInputText(kind: QuantityKind, valueSI: number | null | undefined, system: UnitSystem, sig = 6): string {
+  if (valueSI === null || valueSI === undefined || !Number.isFinite(valueSI)) return "";
+  const u = displayUnit(kind, system);
+  const shown = fromSI(kind, valueSI, system);
+  return u.factor === 1 && !u.offset ? inputText(shown, sig) : convertedInputText(shown);
 }
