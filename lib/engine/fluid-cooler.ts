@@ -434,6 +434,8 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
   let hi = 1;
   let f = start > lo && start < 1 ? start : 1;
   let checkedLo = false;
+  let fPrev = Number.NaN;
+  let dkPrev = Number.NaN;
   for (let i = 0; i < 60; i++) {
     coolerConductanceWithSlope(model, f, air, cs, ks);
     const g = ks.k - needKWPerK;
@@ -448,6 +450,19 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
     if (g > 0) hi = f;
     else lo = f;
     let next = ks.dk > 0 ? f - g / ks.dk : Number.NaN;
+    // A Newton step s leaves an error of about |k″|/2·s² in the conductance (k″ from this iterate's and
+    // the previous one's slopes): when that is within the tolerance, the step's end is the root and its
+    // conductance the need, to that tolerance — without a further evaluation.
+    if (next > lo && next < hi && !Number.isNaN(fPrev) && f !== fPrev) {
+      const s = next - f;
+      if (Math.abs((ks.dk - dkPrev) / (f - fPrev)) * s * s < 2e-9 * needKWPerK) {
+        if (wet) warm.wetFraction = next;
+        else warm.dryFraction = next;
+        return rootWithConductance(next, needKWPerK);
+      }
+    }
+    fPrev = f;
+    dkPrev = ks.dk;
     if (next >= hi && hi === 1 && f !== 1) next = 1;
     else if (!(next > lo && next < hi)) {
       if (lo === 1e-3 && !checkedLo) {
