@@ -221,8 +221,11 @@ export function requiredLiquidToGasRatio(
     const step = -psi / dpsi;
     const halleyDenominator = 2 * dpsi * dpsi - psi * d2psi;
     let next = halleyDenominator > dpsi * dpsi ? lg - (2 * psi * dpsi) / halleyDenominator : lg + step;
-    // Converged when the Newton step, or the error it leaves (|ψ″/(2ψ′)|·s²), is below 1e−10 of L/G.
-    if (psi === 0 || Math.abs(step) < 1e-10 * lg || Math.abs(d2psi / (2 * dpsi)) * step * step < 1e-10 * lg) return next;
+    // Converged when the Newton step, or the error the step taken leaves, is below 1e−10 of L/G: with
+    // c = |ψ″/(2ψ′)|, a Newton step s leaves about c·s², Halley's about c²·|s|³ (third order).
+    const c2 = Math.abs(d2psi / (2 * dpsi));
+    const left = halleyDenominator > dpsi * dpsi ? c2 * c2 * Math.abs(step) * step * step : c2 * step * step;
+    if (psi === 0 || Math.abs(step) < 1e-10 * lg || left < 1e-10 * lg) return next;
     // Outside the bracket: a secant step between its ends (bisection only if that degenerates).
     if (!(next > lo && next < hi) && Number.isNaN(psiHi)) psiHi = -positivePower(hi, exponentN) / coefficientC;
     if (!(next > lo && next < hi)) next = lo + (psiLo * (hi - lo)) / (psiLo - psiHi);
