@@ -134,13 +134,7 @@ export function exceedanceValue(
   const n = values.length;
   if (n === 0) return NaN;
   const p = exceedancePercent / 100;
-  if (!weights) {
-    const sorted = Float64Array.from(values).sort();
-    const h = (n - 1) * (1 - p);
-    const lo = Math.floor(h);
-    const hi = Math.min(lo + 1, n - 1);
-    return sorted[lo]! + (h - lo) * (sorted[hi]! - sorted[lo]!);
-  }
+  if (!weights) return sortedExceedanceValue(Float64Array.from(values).sort(), exceedancePercent);
   const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => values[b]! - values[a]!);
   let total = 0;
   for (let i = 0; i < n; i++) total += weights[i]!;
@@ -164,13 +158,23 @@ export interface DesignWetBulb {
  * Design wet-bulb temperatures: the wet-bulb exceeded by 0.4 %, 1 % and 2 % of the hours of the year
  * (annual percentiles, ASHRAE Fundamentals 2017 ch.14 convention), from an hourly year or a bin table.
  */
+/** `exceedanceValue` of values already sorted ascending (unweighted): linear between order statistics. */
+function sortedExceedanceValue(sorted: Float64Array, exceedancePercent: number): number {
+  const n = sorted.length;
+  const h = (n - 1) * (1 - exceedancePercent / 100);
+  const lo = Math.floor(h);
+  const hi = Math.min(lo + 1, n - 1);
+  return sorted[lo]! + (h - lo) * (sorted[hi]! - sorted[lo]!);
+}
+
 export function designWetBulbPercentilesC(
   year: ClimateYear,
   exceedancePercents: readonly number[] = DESIGN_EXCEEDANCE_PERCENTS,
 ): DesignWetBulb[] {
   if (year.kind === "hourly") {
     const sorted = Float64Array.from(year.wetBulbC).sort();
-    return exceedancePercents.map((p) => ({ exceedancePercent: p, wetBulbC: exceedanceValue(sorted, p) }));
+    if (sorted.length === 0) return exceedancePercents.map((p) => ({ exceedancePercent: p, wetBulbC: NaN }));
+    return exceedancePercents.map((p) => ({ exceedancePercent: p, wetBulbC: sortedExceedanceValue(sorted, p) }));
   }
   const values = year.bins.map((b) => b.wetBulbC);
   const weights = year.bins.map((b) => b.hours);
