@@ -193,7 +193,28 @@ export function coolerConductanceKWPerK(
   return K_ONLY.k;
 }
 
-const POW08 = { f: Number.NaN, value: 0 };
+/**
+ * f^0.8 of the last two airflows asked for (the passes of a floating solve repeat one airflow; a fan mix
+ * alternates between its two states).
+ */
+function power08(f: number): number {
+  const m = POW08;
+  if (f === m.f0) return m.v0;
+  if (f === m.f1) return m.v1;
+  const v = positivePower(f, 0.8);
+  if (m.next === 0) {
+    m.f0 = f;
+    m.v0 = v;
+    m.next = 1;
+  } else {
+    m.f1 = f;
+    m.v1 = v;
+    m.next = 0;
+  }
+  return v;
+}
+
+const POW08 = { f0: Number.NaN, v0: 0, f1: Number.NaN, v1: 0, next: 0 };
 
 /** Scratch of `coolerConductanceKWPerK` (its own, so a caller holding `KS` is never overwritten). */
 const K_ONLY = { k: 0, dk: 0 };
@@ -358,7 +379,8 @@ export function coolerConductanceWithSlope(model: CoolerModel, airflowFraction: 
 /**
  * εCmin into `out.k`, and with `withSlope` its slope into `out.dk` (without it `out.dk` is left as it was:
  * the value alone skips the slope's terms — most calls need only the value). One body for both, so the
- * value is the same number either way.
+ * value is the same number either way. `knownF08` is f^0.8 when the caller has it (the airflow root works
+ * in u = f^0.2, whose fourth power it is).
  */
 function coolerConductance(
   model: CoolerModel,
@@ -367,15 +389,11 @@ function coolerConductance(
   csKJPerKgK: number | undefined,
   out: { k: number; dk: number },
   withSlope: boolean,
+  knownF08?: number,
 ): void {
   const f = Math.max(airflowFraction, 1e-4);
   const ma = model.designAirFlowKgPerS * f;
-  // The passes of a floating solve repeat one airflow: keep its f^0.8.
-  if (f !== POW08.f) {
-    POW08.f = f;
-    POW08.value = positivePower(f, 0.8);
-  }
-  const f08 = POW08.value;
+  const f08 = knownF08 ?? power08(f);
   let ca: number;
   let uaExt: number;
   if (csKJPerKgK === undefined) {
@@ -413,9 +431,10 @@ const KS = { k: 0, dk: 0 };
  * Airflow fraction at which the cooler holds the required leaving-fluid temperature (cs fixed by the
  * required temperatures), from εCmin(f) = Q/(Tin,req − Tair): a 1-D root in f with no
  * saturated-enthalpy evaluation. +∞ if not even full speed (or a driving difference ≤ 0) suffices.
- * εCmin rises with f and is concave, so Newton from full speed (analytic slope,
- * `coolerConductanceWithSlope`) approaches the root from below in a few steps; kept inside the bracket
- * (bisection otherwise), to |εCmin − need| < 1e−9·need.
+ * The root is sought in u = f^0.2 (f = u⁵): the external conductance's f^0.8 is then u⁴, a product
+ * instead of a power (an exp and a log) per step. Newton steps in u from the previous root (analytic
+ * slope, `coolerConductanceWithSlope`, times df/du = 5u⁴), kept inside the bracket (bisection otherwise),
+ * to |εCmin − need| < 1e−9·need.
  */
 export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, needKWPerK: number, cs: number | undefined): number {
   ROOT_CONDUCTANCE.fraction = Number.NaN;
@@ -424,58 +443,68 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
   const wet = cs !== undefined;
   if (warm.model !== model) {
     warm.model = model;
-    warm.wetFraction = 1;
-    warm.dryFraction = 1;
+    warm.wetRoot = 1;
+    warm.dryRoot = 1;
   }
   // Start from the previous root of this cooler in this mode (the year runs one option at a time); full
   // speed is evaluated whenever a step would pass it, so "insufficient" is decided exactly as before.
-  const start = wet ? warm.wetFraction : warm.dryFraction;
-  let lo = 1e-3;
+  const start = wet ? warm.wetRoot : warm.dryRoot;
+  let lo = U_LOWEST;
   let hi = 1;
-  let f = start > lo && start < 1 ? start : 1;
+  let u = start > lo && start < 1 ? start : 1;
   let checkedLo = false;
-  let fPrev = Number.NaN;
-  let dkPrev = Number.NaN;
+  let uPrev = Number.NaN;
+  let slopePrev = Number.NaN;
   for (let i = 0; i < 60; i++) {
-    coolerConductanceWithSlope(model, f, air, cs, ks);
+    const u2 = u * u;
+    const u4 = u2 * u2;
+    const f = u4 * u;
+    coolerConductance(model, f, air, cs, ks, true, u4);
     const g = ks.k - needKWPerK;
     // The rating point itself counts as held: a relative 1e−6 of the conductance (rounding of the
     // calibration round trip), as the tower's L/G root and the fan map allow.
-    if (f === 1 && g < 0) return g >= -1e-6 * needKWPerK ? rootWithConductance(1, ks.k) : Number.POSITIVE_INFINITY;
+    if (u === 1 && g < 0) return g >= -1e-6 * needKWPerK ? rootWithConductance(1, ks.k) : Number.POSITIVE_INFINITY;
     if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) {
-      if (wet) warm.wetFraction = f;
-      else warm.dryFraction = f;
+      if (wet) warm.wetRoot = u;
+      else warm.dryRoot = u;
       return rootWithConductance(f, ks.k);
     }
-    if (g > 0) hi = f;
-    else lo = f;
-    let next = ks.dk > 0 ? f - g / ks.dk : Number.NaN;
+    if (g > 0) hi = u;
+    else lo = u;
+    const slope = 5 * u4 * ks.dk;
+    let next = slope > 0 ? u - g / slope : Number.NaN;
     // A Newton step s leaves an error of about |k″|/2·s² in the conductance (k″ from this iterate's and
     // the previous one's slopes): when that is within the tolerance, the step's end is the root and its
     // conductance the need, to that tolerance — without a further evaluation.
-    if (next > lo && next < hi && !Number.isNaN(fPrev) && f !== fPrev) {
-      const s = next - f;
-      if (Math.abs((ks.dk - dkPrev) / (f - fPrev)) * s * s < 2e-9 * needKWPerK) {
-        if (wet) warm.wetFraction = next;
-        else warm.dryFraction = next;
-        return rootWithConductance(next, needKWPerK);
+    if (next > lo && next < hi && !Number.isNaN(uPrev) && u !== uPrev) {
+      const step = next - u;
+      if (Math.abs((slope - slopePrev) / (u - uPrev)) * step * step < 2e-9 * needKWPerK) {
+        if (wet) warm.wetRoot = next;
+        else warm.dryRoot = next;
+        const n2 = next * next;
+        return rootWithConductance(n2 * n2 * next, needKWPerK);
       }
     }
-    fPrev = f;
-    dkPrev = ks.dk;
-    if (next >= hi && hi === 1 && f !== 1) next = 1;
+    uPrev = u;
+    slopePrev = slope;
+    if (next >= hi && hi === 1 && u !== 1) next = 1;
     else if (!(next > lo && next < hi)) {
-      if (lo === 1e-3 && !checkedLo) {
+      if (lo === U_LOWEST && !checkedLo) {
         checkedLo = true;
-        coolerConductanceWithSlope(model, lo, air, cs, ks);
-        if (ks.k - needKWPerK >= 0) return rootWithConductance(lo, ks.k);
+        coolerConductanceWithSlope(model, F_LOWEST, air, cs, ks);
+        if (ks.k - needKWPerK >= 0) return rootWithConductance(F_LOWEST, ks.k);
       }
       next = 0.5 * (lo + hi);
     }
-    f = next;
+    u = next;
   }
-  return 0.5 * (lo + hi);
+  const mid = 0.5 * (lo + hi);
+  return mid * mid * mid * mid * mid;
 }
+
+/** The lowest airflow fraction the root considers, and its u = f^0.2. */
+const F_LOWEST = 1e-3;
+const U_LOWEST = F_LOWEST ** 0.2;
 
 /**
  * The conductance εCmin the last `requiredAirflowFraction` call evaluated at the fraction it returned (NaN
@@ -490,8 +519,8 @@ function rootWithConductance(fraction: number, kKWPerK: number): number {
   return fraction;
 }
 
-/** The last airflow roots of the cooler `requiredAirflowFraction` served: starting points, never results. */
-const warm: { model: CoolerModel | null; wetFraction: number; dryFraction: number } = { model: null, wetFraction: 1, dryFraction: 1 };
+/** The last airflow roots (as u = f^0.2) of the cooler `requiredAirflowFraction` served: starting points, never results. */
+const warm: { model: CoolerModel | null; wetRoot: number; dryRoot: number } = { model: null, wetRoot: 1, dryRoot: 1 };
 
 /**
  * Operate the cooler for one hour: dry if dry operation holds the required leaving-fluid temperature
