@@ -4,6 +4,7 @@
  * template in their own unit system (lib/units/warnings.ts), so an IP project reads °F, gpm and kgal.
  */
 import type { EngineWarning, WarningQuantity, WarningValue } from "./types";
+import { enUsNumber } from "./en-us";
 
 const SI_SYMBOL: Record<WarningQuantity, string> = {
   temperatureC: "°C",
@@ -44,10 +45,10 @@ export function siText(v: WarningValue): string {
   let text: string;
   if (!Number.isFinite(v.value)) text = "—";
   else if (v.quantity === "foulingM2KPerW") text = v.value.toExponential(2);
-  else if (v.quantity === "hours" || v.quantity === "count") text = Math.round(v.value).toLocaleString("en-US");
+  else if (v.quantity === "hours" || v.quantity === "count") text = enUsNumber(Math.round(v.value));
   else {
     const r = v.value === 0 ? 0 : Number(v.value.toPrecision(sig));
-    text = Math.abs(r) >= 1000 ? Math.round(r).toLocaleString("en-US") : String(r);
+    text = Math.abs(r) >= 1000 ? enUsNumber(Math.round(r)) : String(r);
   }
   const sym = SI_SYMBOL[v.quantity];
   return sym ? `${text} ${sym}` : text;

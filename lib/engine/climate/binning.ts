@@ -134,7 +134,10 @@ export function exceedanceValue(
   const n = values.length;
   if (n === 0) return NaN;
   const p = exceedancePercent / 100;
-  if (!weights) return sortedExceedanceValue(Float64Array.from(values).sort(), exceedancePercent);
+  if (!weights) {
+    const sorted = Float64Array.from(values).sort();
+    return exceedanceFromOrderStatistics(n, exceedancePercent, (i) => sorted[i]!);
+  }
   const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => values[b]! - values[a]!);
   let total = 0;
   for (let i = 0; i < n; i++) total += weights[i]!;
@@ -155,26 +158,66 @@ export interface DesignWetBulb {
 }
 
 /**
- * Design wet-bulb temperatures: the wet-bulb exceeded by 0.4 %, 1 % and 2 % of the hours of the year
- * (annual percentiles, ASHRAE Fundamentals 2017 ch.14 convention), from an hourly year or a bin table.
+ * `exceedanceValue` (unweighted) of n values from their order statistics (`sortedAt(i)`: the i-th smallest,
+ * from 0): linear between the two around (n − 1)(1 − p).
  */
-/** `exceedanceValue` of values already sorted ascending (unweighted): linear between order statistics. */
-function sortedExceedanceValue(sorted: Float64Array, exceedancePercent: number): number {
-  const n = sorted.length;
+function exceedanceFromOrderStatistics(n: number, exceedancePercent: number, sortedAt: (i: number) => number): number {
   const h = (n - 1) * (1 - exceedancePercent / 100);
   const lo = Math.floor(h);
   const hi = Math.min(lo + 1, n - 1);
-  return sorted[lo]! + (h - lo) * (sorted[hi]! - sorted[lo]!);
+  return sortedAt(lo) + (h - lo) * (sortedAt(hi) - sortedAt(lo));
 }
 
+/**
+ * The k largest values sorted ascending — the last k entries of `Float64Array.from(values).sort()` —
+ * without sorting the rest (one pass, insertion into a k-long buffer); null when a value is NaN (the
+ * full sort decides where it goes).
+ */
+function largestAscending(values: ArrayLike<number>, k: number): Float64Array | null {
+  const top = new Float64Array(k);
+  let count = 0;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]!;
+    if (v !== v) return null;
+    if (count < k) {
+      let j = count++;
+      while (j > 0 && top[j - 1]! > v) {
+        top[j] = top[j - 1]!;
+        j--;
+      }
+      top[j] = v;
+    } else if (v > top[0]!) {
+      let j = 0;
+      while (j + 1 < k && top[j + 1]! < v) {
+        top[j] = top[j + 1]!;
+        j++;
+      }
+      top[j] = v;
+    }
+  }
+  return top;
+}
+
+/**
+ * Design wet-bulb temperatures: the wet-bulb exceeded by 0.4 %, 1 % and 2 % of the hours of the year
+ * (annual percentiles, ASHRAE Fundamentals 2017 ch.14 convention), from an hourly year or a bin table.
+ */
 export function designWetBulbPercentilesC(
   year: ClimateYear,
   exceedancePercents: readonly number[] = DESIGN_EXCEEDANCE_PERCENTS,
 ): DesignWetBulb[] {
   if (year.kind === "hourly") {
+    const n = year.wetBulbC.length;
+    if (n === 0) return exceedancePercents.map((p) => ({ exceedancePercent: p, wetBulbC: NaN }));
+    // The percentiles read only the order statistics near the top: keep the k largest, not a sorted year.
+    const k = Math.max(...exceedancePercents.map((p) => n - Math.floor((n - 1) * (1 - p / 100))));
+    const top = k <= 256 ? largestAscending(year.wetBulbC, k) : null;
+    if (top) {
+      const sortedAt = (i: number): number => top[i - (n - k)]!;
+      return exceedancePercents.map((p) => ({ exceedancePercent: p, wetBulbC: exceedanceFromOrderStatistics(n, p, sortedAt) }));
+    }
     const sorted = Float64Array.from(year.wetBulbC).sort();
-    if (sorted.length === 0) return exceedancePercents.map((p) => ({ exceedancePercent: p, wetBulbC: NaN }));
-    return exceedancePercents.map((p) => ({ exceedancePercent: p, wetBulbC: sortedExceedanceValue(sorted, p) }));
+    return exceedancePercents.map((p) => ({ exceedancePercent: p, wetBulbC: exceedanceFromOrderStatistics(n, p, (i) => sorted[i]!) }));
   }
   const values = year.bins.map((b) => b.wetBulbC);
   const weights = year.bins.map((b) => b.hours);

@@ -5,6 +5,7 @@
 import { irr, pmt } from "financial";
 import { airrFromSir } from "./factors";
 import type { CategoryAmounts, OptionComparison, OptionEconomics, YearCashFlow } from "./types";
+import { enUsNumber } from "../en-us";
 
 /** Categories that make up the investment-related side of SIR (Handbook 135: I = I₀ + Repl − Res). */
 const INVESTMENT_CATEGORIES = ["investment", "replacements", "residual"] as const;
@@ -70,7 +71,7 @@ function operatingAndReplacement(
 }
 
 function formatMoney(x: number): string {
-  return Math.round(x).toLocaleString("en-US");
+  return enUsNumber(Math.round(x));
 }
 
 /**

@@ -24,6 +24,7 @@ import {
   type TornadoBar,
   type TornadoForPair,
 } from "./types";
+import { enUsNumber } from "../en-us";
 
 export const SENSITIVITY_LABELS: Record<SensitivityInputKey, string> = {
   waterPrice: "Water price",
@@ -230,7 +231,7 @@ export function findRoots(f: (x: number) => number, a: number, b: number, segmen
 }
 
 function fmt(x: number, digits = 3): string {
-  return Number(x.toPrecision(digits)).toLocaleString("en-US");
+  return enUsNumber(Number(x.toPrecision(digits)));
 }
 
 /** Mean electricity price of an option: energy cost / kWh (flat price when the option uses no energy). */
@@ -328,7 +329,7 @@ const BREAK_EVEN_WORDS: Record<BreakEvenInputKey, string> = {
 function absoluteText(key: BreakEvenInputKey, v: number): string {
   if (key === "waterAndSewerPrice") return `${fmt(v, 4)} per m³ of water and sewer together`;
   if (key === "electricityPrice") return `a mean energy price of ${fmt(v, 4)} per kWh`;
-  return `an extra first cost of ${Math.round(v).toLocaleString("en-US")}`;
+  return `an extra first cost of ${enUsNumber(Math.round(v))}`;
 }
 
 function breakEvenNote(

@@ -3,8 +3,9 @@
  * per option, the measures against the base, the tornado, the break-evens and the Monte Carlo.
  */
 import { COST_CATEGORIES, COST_CATEGORY_LABELS, type EconomicsResult } from "./types";
+import { enUsNumber } from "../en-us";
 
-const money = (x: number) => Math.round(x).toLocaleString("en-US");
+const money = (x: number) => enUsNumber(Math.round(x));
 const pct = (x: number | null, digits = 1) => (x === null ? "—" : `${(100 * x).toFixed(digits)} %`);
 const num = (x: number | null, digits = 2) => (x === null ? "—" : x.toFixed(digits));
 
@@ -75,7 +76,7 @@ export function formatEconomicsSummary(r: EconomicsResult): string {
   if (r.monteCarlo) {
     const m = r.monteCarlo;
     out.push(
-      `Monte Carlo — ${m.draws.toLocaleString("en-US")} draws, seed ${m.seed}, inputs: ${m.sampledInputs.join(", ") || "none"}`,
+      `Monte Carlo — ${enUsNumber(m.draws)} draws, seed ${m.seed}, inputs: ${m.sampledInputs.join(", ") || "none"}`,
     );
     out.push(
       `  probability of lowest LCC: ${r.options.map((o) => `${o.label} ${pct(m.probabilityLowest[o.optionId] ?? 0, 1)}`).join(", ")}`,

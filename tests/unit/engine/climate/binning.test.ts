@@ -151,6 +151,26 @@ describe("design wet-bulb percentiles (annual exceedance, ASHRAE Fundamentals 20
     expect(designWetBulbPercentilesC(bins).map((d) => d.wetBulbC)).toEqual([24, 24, 22]);
   });
 
+  test.prop([fc.integer({ min: 1, max: 2 ** 31 - 1 }), fc.constantFrom("shuffled", "rising", "falling", "ties")], { numRuns: 25 })(
+    "an hourly year's percentiles equal definition 7 on the fully sorted year (Hyndman & Fan 1996), in any order and with ties",
+    (seed, order) => {
+      // Park–Miller generator: a year of wet-bulbs the engine did not choose.
+      let x = seed;
+      const next = () => (x = (x * 48271) % 2147483647) / 2147483647;
+      let vals = Array.from({ length: 8760 }, () => -25 + 55 * next());
+      if (order === "rising") vals.sort((a, b) => a - b);
+      if (order === "falling") vals.sort((a, b) => b - a);
+      if (order === "ties") vals = vals.map((v) => Math.round(v / 2) * 2);
+      const sorted = [...vals].sort((a, b) => a - b);
+      const want = [0.4, 1, 2].map((p) => {
+        const h = (sorted.length - 1) * (1 - p / 100);
+        const lo = Math.floor(h);
+        return sorted[lo]! + (h - lo) * (sorted[lo + 1]! - sorted[lo]!);
+      });
+      expect(designWetBulbPercentilesC(yearOf(vals)).map((d) => d.wetBulbC)).toEqual(want);
+    },
+  );
+
   test.prop([fc.array(fc.double({ min: -30, max: 35, noNaN: true }), { minLength: 1, maxLength: 300 })])(
     "lies within the data and falls as the exceedance grows",
     (vals) => {
