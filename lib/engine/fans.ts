@@ -35,9 +35,9 @@ export interface FanState {
  * the leaving-water temperatures of the two states, computed by the equipment model).
  */
 export type FanOperation =
-  | { kind: "continuous"; state: FanState }
-  | { kind: "mix"; low: FanState; high: FanState }
-  | { kind: "insufficient"; state: FanState };
+  | { kind: "continuous"; state: Readonly<FanState> }
+  | { kind: "mix"; low: Readonly<FanState>; high: Readonly<FanState> }
+  | { kind: "insufficient"; state: Readonly<FanState> };
 
 /**
  * Fan power at a speed fraction f by the affinity (cube) law, kW.
@@ -62,34 +62,90 @@ export function fanPowerAtSpeedKW(fan: FanModel, speedFraction: number): number 
  * - two-speed: mix of off/low or low/high. - cycling: mix of off/full.
  * - required > 1: the fan runs at full speed and the set-point is not held ("insufficient").
  */
-export function fanOperationForRequiredAirflow(fan: FanModel, requiredAirflowFraction: number): FanOperation {
-  // States are built only for the answer (called once per record and option).
+export function fanOperationForRequiredAirflow(fan: FanModel, requiredAirflowFraction: number): Readonly<FanOperation> {
+  // The answer is read before the next call (once per record and option): the fan's fixed states and
+  // operations are built once per fan (the year runs one option at a time) and shared, and the one
+  // variable state is a scratch object; none is ever changed by a caller.
+  const ops = operationsOf(fan);
   const f = requiredAirflowFraction;
   // 1e-6: the L/G root's own tolerance, so the design point itself counts as held.
-  if (f > 1 + 1e-6) return { kind: "insufficient", state: { airflowFraction: 1, powerKW: fan.designPowerKW } };
-  if (f > 1 - 1e-6 && fan.control !== "variableSpeed") return { kind: "continuous", state: { airflowFraction: 1, powerKW: fan.designPowerKW } };
-  if (f <= fan.naturalDraftAirflowFraction) return { kind: "continuous", state: { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 } };
+  if (f > 1 + 1e-6) return ops.insufficient;
+  if (f > 1 - 1e-6 && fan.control !== "variableSpeed") return ops.full;
+  if (f <= fan.naturalDraftAirflowFraction) return ops.off;
   switch (fan.control) {
     case "variableSpeed": {
-      const fmin = Math.max(fan.minSpeedFraction, fan.naturalDraftAirflowFraction);
-      if (f >= fmin) return { kind: "continuous", state: { airflowFraction: f, powerKW: fanPowerAtSpeedKW(fan, f) } };
-      return {
-        kind: "mix",
-        low: { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 },
-        high: { airflowFraction: fmin, powerKW: fanPowerAtSpeedKW(fan, fmin) },
-      };
+      if (f >= ops.minSpeedFraction) {
+        const v = VARIABLE_SPEED;
+        v.state.airflowFraction = f;
+        v.state.powerKW = fanPowerAtSpeedKW(fan, f);
+        return v;
+      }
+      return ops.belowMinimum;
     }
     case "twoSpeed": {
-      const low: FanState = { airflowFraction: fan.lowSpeedFraction, powerKW: fanPowerAtSpeedKW(fan, fan.lowSpeedFraction) };
-      if (f === fan.lowSpeedFraction) return { kind: "continuous", state: low };
-      if (f < fan.lowSpeedFraction) return { kind: "mix", low: { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 }, high: low };
-      if (f === 1) return { kind: "continuous", state: { airflowFraction: 1, powerKW: fan.designPowerKW } };
-      return { kind: "mix", low, high: { airflowFraction: 1, powerKW: fan.designPowerKW } };
+      if (f === fan.lowSpeedFraction) return ops.lowSpeed;
+      if (f < fan.lowSpeedFraction) return ops.offLow;
+      if (f === 1) return ops.full;
+      return ops.lowHigh;
     }
     case "cycling":
-      if (f === 1) return { kind: "continuous", state: { airflowFraction: 1, powerKW: fan.designPowerKW } };
-      return { kind: "mix", low: { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 }, high: { airflowFraction: 1, powerKW: fan.designPowerKW } };
+      if (f === 1) return ops.full;
+      return ops.offFull;
   }
+}
+
+/** The operations of one fan that do not depend on the required airflow. */
+interface FanOperations {
+  fan: FanModel;
+  /** The fan's fields when these were built (a changed field rebuilds them). */
+  key: readonly [number, FanControlKind, number, number, number, number];
+  minSpeedFraction: number;
+  insufficient: FanOperation;
+  full: FanOperation;
+  off: FanOperation;
+  belowMinimum: FanOperation;
+  lowSpeed: FanOperation;
+  offLow: FanOperation;
+  lowHigh: FanOperation;
+  offFull: FanOperation;
+}
+
+let lastOperations: FanOperations | null = null;
+const VARIABLE_SPEED: { kind: "continuous"; state: FanState } = { kind: "continuous", state: { airflowFraction: 0, powerKW: 0 } };
+
+function operationsOf(fan: FanModel): FanOperations {
+  const c = lastOperations;
+  if (
+    c !== null &&
+    c.fan === fan &&
+    c.key[0] === fan.designPowerKW &&
+    c.key[1] === fan.control &&
+    c.key[2] === fan.minSpeedFraction &&
+    c.key[3] === fan.powerFloorFraction &&
+    c.key[4] === fan.lowSpeedFraction &&
+    c.key[5] === fan.naturalDraftAirflowFraction
+  ) {
+    return c;
+  }
+  const fmin = Math.max(fan.minSpeedFraction, fan.naturalDraftAirflowFraction);
+  const full: FanState = { airflowFraction: 1, powerKW: fan.designPowerKW };
+  const off: FanState = { airflowFraction: fan.naturalDraftAirflowFraction, powerKW: 0 };
+  const low: FanState = { airflowFraction: fan.lowSpeedFraction, powerKW: fanPowerAtSpeedKW(fan, fan.lowSpeedFraction) };
+  const ops: FanOperations = {
+    fan,
+    key: [fan.designPowerKW, fan.control, fan.minSpeedFraction, fan.powerFloorFraction, fan.lowSpeedFraction, fan.naturalDraftAirflowFraction],
+    minSpeedFraction: fmin,
+    insufficient: { kind: "insufficient", state: full },
+    full: { kind: "continuous", state: full },
+    off: { kind: "continuous", state: off },
+    belowMinimum: { kind: "mix", low: off, high: { airflowFraction: fmin, powerKW: fanPowerAtSpeedKW(fan, fmin) } },
+    lowSpeed: { kind: "continuous", state: low },
+    offLow: { kind: "mix", low: off, high: low },
+    lowHigh: { kind: "mix", low, high: full },
+    offFull: { kind: "mix", low: off, high: full },
+  };
+  lastOperations = ops;
+  return ops;
 }
 
 /**

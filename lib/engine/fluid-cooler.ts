@@ -249,7 +249,7 @@ export function coolerLeavingFluidAtAirflowC(
   wet: boolean,
   pPa: number,
   csGuess?: number,
-  mixOf?: { requiredLeavingFluidC: number },
+  mixOfRequiredLeavingFluidC?: number,
 ): number {
   const cf = model.fluidCapacityKWPerK;
   if (!wet) {
@@ -274,9 +274,13 @@ export function coolerLeavingFluidAtAirflowC(
     csLast = cs;
     g = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, cs);
     const r = g - t;
-    // A fan-mix state (`mixOf`) to the tower's mix-state tolerance (tower.ts): 0.01 K plus 2 % of its
-    // distance from the requirement — the mix fraction is insensitive to the far state.
-    const tol = mixOf ? MIX_STATE_TOLERANCE_K + MIX_STATE_RELATIVE_TOLERANCE * Math.abs(g - heatKW / cf - mixOf.requiredLeavingFluidC) : 2e-4;
+    // A fan-mix state (`mixOfRequiredLeavingFluidC`, the mix's requirement) to the tower's mix-state
+    // tolerance (tower.ts): 0.01 K plus 2 % of its distance from the requirement — the mix fraction is
+    // insensitive to the far state.
+    const tol =
+      mixOfRequiredLeavingFluidC !== undefined
+        ? MIX_STATE_TOLERANCE_K + MIX_STATE_RELATIVE_TOLERANCE * Math.abs(g - heatKW / cf - mixOfRequiredLeavingFluidC)
+        : 2e-4;
     if (Math.abs(r) < tol) break;
     if (r > 0) lo = t;
     else hi = t;
@@ -602,15 +606,16 @@ export function solveCoolerModeHour(
   requiredLeavingFluidC: number,
   wet: boolean,
   pPa: number,
+  into?: CoolerHourResult,
 ): CoolerHourResult {
   const tinReq = requiredLeavingFluidC + heatKW / model.fluidCapacityKWPerK;
   if (!wet) {
     const fDry = tinReq > air.dryBulbC ? requiredAirflowFraction(model, air, heatKW / (tinReq - air.dryBulbC), undefined) : Number.POSITIVE_INFINITY;
-    return finishMode(model, fan, fDry, air, heatKW, requiredLeavingFluidC, false, undefined, pPa);
+    return finishMode(model, fan, fDry, air, heatKW, requiredLeavingFluidC, false, undefined, pPa, into);
   }
   const cs = enthalpyBasedAirSpecificHeat(0.5 * (tinReq + requiredLeavingFluidC), air, pPa);
   const fWet = requiredLeavingFluidC > air.wetBulbC ? requiredAirflowFraction(model, air, heatKW / (tinReq - air.wetBulbC), cs) : Number.POSITIVE_INFINITY;
-  return finishMode(model, fan, fWet, air, heatKW, requiredLeavingFluidC, true, cs, pPa);
+  return finishMode(model, fan, fWet, air, heatKW, requiredLeavingFluidC, true, cs, pPa, into);
 }
 
 /**
@@ -652,36 +657,48 @@ function finishMode(
   wet: boolean,
   cs: number | undefined,
   pPa: number,
+  into?: CoolerHourResult,
 ): CoolerHourResult {
   const cf = model.fluidCapacityKWPerK;
   const op = fanOperationForRequiredAirflow(fan, requiredFraction);
   const ma = model.designAirFlowKgPerS;
-  const mode = wet ? "wet" : "dry";
+  const r = into ?? newCoolerHourResult();
+  r.mode = wet ? "wet" : "dry";
+  r.sprayOn = wet;
   if (op.kind === "insufficient") {
     const tout = coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, pPa, cs);
-    return { mode, held: false, leavingFluidC: tout, enteringFluidC: tout + heatKW / cf, airflowFraction: 1, fanPowerKW: op.state.powerKW, evaporationKgPerS: wet ? evaporationKgPerS(heatKW, ma, pPa, air) : 0, sprayOn: wet };
+    r.held = false;
+    r.leavingFluidC = tout;
+    r.enteringFluidC = tout + heatKW / cf;
+    r.airflowFraction = 1;
+    r.fanPowerKW = op.state.powerKW;
+    r.evaporationKgPerS = wet ? evaporationKgPerS(heatKW, ma, pPa, air) : 0;
+    return r;
   }
+  r.held = true;
+  r.leavingFluidC = requiredLeavingFluidC;
+  r.enteringFluidC = requiredLeavingFluidC + heatKW / cf;
   if (op.kind === "continuous") {
     // Fan off with natural draft to spare: the loop's control holds the set-point; the air that
     // actually takes the heat is about the required airflow.
     const f = op.state.powerKW > 0 ? op.state.airflowFraction : Math.max(requiredFraction, 1e-3);
-    return { mode, held: true, leavingFluidC: requiredLeavingFluidC, enteringFluidC: requiredLeavingFluidC + heatKW / cf, airflowFraction: f, fanPowerKW: op.state.powerKW, evaporationKgPerS: wet ? evaporationKgPerS(heatKW, f * ma, pPa, air) : 0, sprayOn: wet };
+    r.airflowFraction = f;
+    r.fanPowerKW = op.state.powerKW;
+    r.evaporationKgPerS = wet ? evaporationKgPerS(heatKW, f * ma, pPa, air) : 0;
+    return r;
   }
-  const mixOf = { requiredLeavingFluidC };
-  const tLow = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.low.airflowFraction, wet, pPa, cs, mixOf);
-  const tHigh = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.high.airflowFraction, wet, pPa, cs, mixOf);
+  const tLow = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.low.airflowFraction, wet, pPa, cs, requiredLeavingFluidC);
+  const tHigh = coolerLeavingFluidAtAirflowC(model, air, heatKW, op.high.airflowFraction, wet, pPa, cs, requiredLeavingFluidC);
   const x = highStateTimeFraction(tLow, tHigh, requiredLeavingFluidC);
-  return {
-    mode,
-    held: true,
-    leavingFluidC: requiredLeavingFluidC,
-    enteringFluidC: requiredLeavingFluidC + heatKW / cf,
-    airflowFraction: x * op.high.airflowFraction + (1 - x) * op.low.airflowFraction,
-    fanPowerKW: x * op.high.powerKW + (1 - x) * op.low.powerKW,
-    evaporationKgPerS: wet
-      ? x * evaporationKgPerS(heatKW, op.high.airflowFraction * ma, pPa, air) +
-        (1 - x) * evaporationKgPerS(heatKW, op.low.airflowFraction * ma, pPa, air)
-      : 0,
-    sprayOn: wet,
-  };
+  r.airflowFraction = x * op.high.airflowFraction + (1 - x) * op.low.airflowFraction;
+  r.fanPowerKW = x * op.high.powerKW + (1 - x) * op.low.powerKW;
+  r.evaporationKgPerS = wet
+    ? x * evaporationKgPerS(heatKW, op.high.airflowFraction * ma, pPa, air) + (1 - x) * evaporationKgPerS(heatKW, op.low.airflowFraction * ma, pPa, air)
+    : 0;
+  return r;
+}
+
+/** A cooler hour's result object (every field set by `finishMode`). */
+export function newCoolerHourResult(): CoolerHourResult {
+  return { mode: "wet", held: true, leavingFluidC: 0, enteringFluidC: 0, airflowFraction: 0, fanPowerKW: 0, evaporationKgPerS: 0, sprayOn: true };
 }

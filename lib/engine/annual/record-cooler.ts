@@ -17,6 +17,7 @@ import {
   coolerAirflowForLeavingFluid,
   coolerAirflowSlopeAtFullSpeedPerK,
   coolerLeavingFluidAtAirflowC,
+  newCoolerHourResult,
   solveCoolerModeHour,
 } from "../fluid-cooler";
 import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
@@ -47,16 +48,16 @@ export function coolerRecord(
   let best: ModeOutcome | null = null;
   if (modes.dry) {
     // Dry, the basin holds still water (unless drained): its heater belongs to the dry mode's power.
-    const dry = coolerMode(po, model, ctx, air, hour, false);
+    const dry = coolerMode(po, model, ctx, air, hour, false, DRY_OUTCOME);
     dry.totalKW += stillBasinHeaterKW;
     best = dry;
   }
   if (modes.wet) {
-    const wet = coolerMode(po, model, ctx, air, hour, true);
+    const wet = coolerMode(po, model, ctx, air, hour, true, WET_OUTCOME);
     // Ties go to dry: no water, no spray, no plume.
     if (!best || wet.totalKW < best.totalKW - 1e-9) best = wet;
   }
-  const r = best ?? coolerMode(po, model, ctx, air, hour, true);
+  const r = best ?? coolerMode(po, model, ctx, air, hour, true, WET_OUTCOME);
   const lift = hour.condenserLiftK;
   const leaving = r.condensingC - lift;
   rates.fanKW = r.fanKW;
@@ -72,8 +73,22 @@ export function coolerRecord(
   return { held: r.held, condensingC: r.condensingC, leavingC: leaving };
 }
 
-/** The hour in one mode under the head-pressure control, with its fan + spray + compressor power (a new object). */
-function coolerMode(po: PreparedOption, model: CoolerModel, ctx: YearContext, air: EnteringAir, hour: HourCondenser, wet: boolean): ModeOutcome {
+/**
+ * The hour's outcome in each mode, and a lower fan state's under test (filled anew every record and read
+ * within it: the engine is synchronous and never re-enters a record).
+ */
+const DRY_OUTCOME = newOutcome();
+const WET_OUTCOME = newOutcome();
+const CANDIDATE = newOutcome();
+/** The hold (or full-speed) solve of a mode, read at once. */
+const HOLD = newCoolerHourResult();
+
+function newOutcome(): ModeOutcome {
+  return { wet: false, held: false, condensingC: 0, fanKW: 0, evaporationKgPerS: 0, totalKW: 0 };
+}
+
+/** The hour in one mode under the head-pressure control, with its fan + spray + compressor power, into `into`. */
+function coolerMode(po: PreparedOption, model: CoolerModel, ctx: YearContext, air: EnteringAir, hour: HourCondenser, wet: boolean, into: ModeOutcome): ModeOutcome {
   const heatKW = hour.heatKW;
   const qe = hour.refrigerationKW;
   const lift = hour.condenserLiftK;
@@ -88,36 +103,42 @@ function coolerMode(po: PreparedOption, model: CoolerModel, ctx: YearContext, ai
     const fMin = Math.max(po.fan.minSpeedFraction, po.fan.naturalDraftAirflowFraction);
     const a0 = h.airflowAt(targetC);
     if (a0.fraction <= fMin) {
-      const r = solveCoolerModeHour(model, po.fan, air, heatKW, targetC - lift, wet, ctx.pPa);
-      return outcome(ctx, qe, spray, wet, true, targetC, r.fanPowerKW, r.evaporationKgPerS);
+      const r = solveCoolerModeHour(model, po.fan, air, heatKW, targetC - lift, wet, ctx.pPa, HOLD);
+      return outcome(into, ctx, qe, spray, wet, true, targetC, r.fanPowerKW, r.evaporationKgPerS);
     }
     let lowC = targetC;
     let atLow = a0;
     if (!(a0.fraction <= 1 + 1e-6)) {
       lowC = coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, ctx.pPa) + lift;
-      if (lowC >= setC) return outcome(ctx, qe, spray, wet, false, lowC, po.fan.designPowerKW, sprayEvaporation(wet, heatKW, 1, model, ctx, air));
+      if (lowC >= setC) return outcome(into, ctx, qe, spray, wet, false, lowC, po.fan.designPowerKW, sprayEvaporation(wet, heatKW, 1, model, ctx, air));
       atLow = { fraction: 1, slopePerK: coolerAirflowSlopeAtFullSpeedPerK(model, air, heatKW, lowC - lift, wet, ctx.pPa) };
     }
     const best = optimalFloatingCondensing(po.fan, lowC, setC, h, atLow);
     const f = Math.min(1, Math.max(best.airflow.fraction, fMin));
-    return outcome(ctx, qe, spray, wet, true, best.condensingC, fanPowerAtSpeedKW(po.fan, f), sprayEvaporation(wet, heatKW, f, model, ctx, air));
+    return outcome(into, ctx, qe, spray, wet, true, best.condensingC, fanPowerAtSpeedKW(po.fan, f), sprayEvaporation(wet, heatKW, f, model, ctx, air));
   }
 
-  const hold = solveCoolerModeHour(model, po.fan, air, heatKW, targetC - lift, wet, ctx.pPa);
+  const hold = solveCoolerModeHour(model, po.fan, air, heatKW, targetC - lift, wet, ctx.pPa, HOLD);
   const holdC = hold.held ? targetC : hold.leavingFluidC + lift;
-  let best = outcome(ctx, qe, spray, wet, floating ? holdC <= setC + SET_POINT_TOLERANCE_K : hold.held, holdC, hold.fanPowerKW, hold.evaporationKgPerS);
+  const best = outcome(into, ctx, qe, spray, wet, floating ? holdC <= setC + SET_POINT_TOLERANCE_K : hold.held, holdC, hold.fanPowerKW, hold.evaporationKgPerS);
   if (!floating) return best;
   for (const s of lowerFanStates(po, hold.airflowFraction)) {
     const tc = coolerLeavingFluidAtAirflowC(model, air, heatKW, s.airflowFraction, wet, ctx.pPa) + lift;
     if (tc > setC + SET_POINT_TOLERANCE_K || tc < targetC) continue;
-    const c = outcome(ctx, qe, spray, wet, true, tc, s.powerKW, sprayEvaporation(wet, heatKW, s.airflowFraction, model, ctx, air));
-    if (c.totalKW < best.totalKW) best = c;
+    const c = outcome(CANDIDATE, ctx, qe, spray, wet, true, tc, s.powerKW, sprayEvaporation(wet, heatKW, s.airflowFraction, model, ctx, air));
+    if (c.totalKW < best.totalKW) Object.assign(best, c);
   }
   return best;
 }
 
-function outcome(ctx: YearContext, qe: number, sprayKW: number, wet: boolean, held: boolean, condensingC: number, fanKW: number, evaporation: number): ModeOutcome {
-  return { wet, held, condensingC, fanKW, evaporationKgPerS: evaporation, totalKW: fanKW + sprayKW + compressorPowerKW(ctx.compressor, qe, condensingC) };
+function outcome(into: ModeOutcome, ctx: YearContext, qe: number, sprayKW: number, wet: boolean, held: boolean, condensingC: number, fanKW: number, evaporation: number): ModeOutcome {
+  into.wet = wet;
+  into.held = held;
+  into.condensingC = condensingC;
+  into.fanKW = fanKW;
+  into.evaporationKgPerS = evaporation;
+  into.totalKW = fanKW + sprayKW + compressorPowerKW(ctx.compressor, qe, condensingC);
+  return into;
 }
 
 /** Spray evaporation at an airflow fraction (air-side balance); 0 dry. */
