@@ -449,10 +449,10 @@ export function solveTowerHour(
   heatKW: number,
   requiredColdWaterC: number,
   pPa: number,
+  into?: TowerHourResult,
 ): TowerHourResult {
-  if (!(heatKW > 0)) {
-    return { held: true, coldWaterC: requiredColdWaterC, hotWaterC: requiredColdWaterC, airflowFraction: 0, fanPowerKW: 0, evaporationKgPerS: 0 };
-  }
+  const r = into ?? newTowerHourResult();
+  if (!(heatKW > 0)) return towerHour(r, true, requiredColdWaterC, requiredColdWaterC, 0, 0, 0);
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   let requiredFraction = Number.POSITIVE_INFINITY;
   const hs = HOLD_HS;
@@ -477,27 +477,13 @@ export function solveTowerHour(
   const known = haveHs ? HOLD_KNOWN : undefined;
   if (op.kind === "insufficient") {
     const tc = towerColdWaterAtAirflowC(model, air, heatKW, 1, pPa, requiredColdWaterC, known);
-    return {
-      held: false,
-      coldWaterC: tc,
-      hotWaterC: tc + rangeK,
-      airflowFraction: 1,
-      fanPowerKW: op.state.powerKW,
-      evaporationKgPerS: evaporationKgPerS(heatKW, gd, pPa, air),
-    };
+    return towerHour(r, false, tc, tc + rangeK, 1, op.state.powerKW, evaporationKgPerS(heatKW, gd, pPa, air));
   }
   if (op.kind === "continuous") {
     // With the fan off and natural draft more than enough, the loop's head-pressure control holds the
     // set-point; the tower sees the required airflow's evaporation.
     const f = Math.max(Math.min(requiredFraction, 1), 1e-3);
-    return {
-      held: true,
-      coldWaterC: requiredColdWaterC,
-      hotWaterC: requiredColdWaterC + rangeK,
-      airflowFraction: f,
-      fanPowerKW: op.state.powerKW,
-      evaporationKgPerS: evaporationKgPerS(heatKW, f * gd, pPa, air),
-    };
+    return towerHour(r, true, requiredColdWaterC, requiredColdWaterC + rangeK, f, op.state.powerKW, evaporationKgPerS(heatKW, f * gd, pPa, air));
   }
   // The first Newton pass of the near state reuses the four hs at the requirement.
   const tLow = towerColdWaterAtAirflowC(model, air, heatKW, op.low.airflowFraction, pPa, requiredColdWaterC, known, MIX_STATE_TOLERANCE_K, MIX_STATE_RELATIVE_TOLERANCE);
@@ -505,14 +491,30 @@ export function solveTowerHour(
   const x = highStateTimeFraction(tLow, tHigh, requiredColdWaterC);
   const eLow = evaporationKgPerS(heatKW, op.low.airflowFraction * gd, pPa, air);
   const eHigh = evaporationKgPerS(heatKW, op.high.airflowFraction * gd, pPa, air);
-  return {
-    held: true,
-    coldWaterC: requiredColdWaterC,
-    hotWaterC: requiredColdWaterC + rangeK,
-    airflowFraction: x * op.high.airflowFraction + (1 - x) * op.low.airflowFraction,
-    fanPowerKW: x * op.high.powerKW + (1 - x) * op.low.powerKW,
-    evaporationKgPerS: x * eHigh + (1 - x) * eLow,
-  };
+  return towerHour(
+    r,
+    true,
+    requiredColdWaterC,
+    requiredColdWaterC + rangeK,
+    x * op.high.airflowFraction + (1 - x) * op.low.airflowFraction,
+    x * op.high.powerKW + (1 - x) * op.low.powerKW,
+    x * eHigh + (1 - x) * eLow,
+  );
+}
+
+/** A tower hour's result object (every field set by `solveTowerHour`). */
+export function newTowerHourResult(): TowerHourResult {
+  return { held: true, coldWaterC: 0, hotWaterC: 0, airflowFraction: 0, fanPowerKW: 0, evaporationKgPerS: 0 };
+}
+
+function towerHour(r: TowerHourResult, held: boolean, coldWaterC: number, hotWaterC: number, airflowFraction: number, fanPowerKW: number, evaporation: number): TowerHourResult {
+  r.held = held;
+  r.coldWaterC = coldWaterC;
+  r.hotWaterC = hotWaterC;
+  r.airflowFraction = airflowFraction;
+  r.fanPowerKW = fanPowerKW;
+  r.evaporationKgPerS = evaporation;
+  return r;
 }
 
 function round3(x: number): number {

@@ -23,7 +23,7 @@ import {
 import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
-import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, lowerFanStates } from "./record-types";
+import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, deviceRecord, lowerFanStates } from "./record-types";
 
 interface ModeOutcome {
   wet: boolean;
@@ -70,7 +70,7 @@ export function coolerRecord(
   } else {
     rates.heaterKW = stillBasinHeaterKW;
   }
-  return { held: r.held, condensingC: r.condensingC, leavingC: leaving };
+  return deviceRecord(r.held, r.condensingC, leaving);
 }
 
 /**

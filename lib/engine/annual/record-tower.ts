@@ -16,10 +16,10 @@ import { fanPowerAtSpeedKW } from "../fans";
 import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
 import { plateExchangerApproachK } from "../plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
-import { type TowerModel, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC } from "../tower";
+import { type TowerModel, newTowerHourResult, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC } from "../tower";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
-import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, lowerFanStates } from "./record-types";
+import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, deviceRecord, lowerFanStates } from "./record-types";
 
 export function towerRecord(
   po: PreparedOption,
@@ -51,7 +51,7 @@ export function towerRecord(
     const a0 = h.airflowAt(targetC);
     if (a0.fraction <= fMin) {
       // Below the minimum speed the fan cycles to hold the minimum: nothing left to trade.
-      const r = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa);
+      const r = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa, HOLD);
       return finishTower(rates, liftK, rangeK, true, targetC, r.fanPowerKW, r.evaporationKgPerS);
     }
     let lowC = targetC;
@@ -67,7 +67,7 @@ export function towerRecord(
     return finishTower(rates, liftK, rangeK, true, best.condensingC, fanPowerAtSpeedKW(po.fan, f), evaporationKgPerS(heatKW, f * model.designAirFlowKgPerS, ctx.pPa, air));
   }
 
-  const hold = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa);
+  const hold = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa, HOLD);
   const holdC = hold.held ? targetC : hold.coldWaterC + liftK;
   if (!floating) return finishTower(rates, liftK, rangeK, hold.held, holdC, hold.fanPowerKW, hold.evaporationKgPerS);
 
@@ -96,7 +96,7 @@ function finishTower(rates: RecordRates, liftK: number, rangeK: number, held: bo
   rates.fanKW = fanKW;
   rates.evaporationKgPerS = evaporation;
   rates.hottestSurfaceC = cold + rangeK;
-  return { held, condensingC, leavingC: cold };
+  return deviceRecord(held, condensingC, cold);
 }
 
 /** The tower's hour as the floating-head search sees it: Tc = cold water + lift. */
@@ -134,3 +134,6 @@ class TowerFloatingHour implements FloatingHour {
 
 /** One instance reused hour after hour (the engine is synchronous and never re-enters a record). */
 const TOWER_HOUR = new TowerFloatingHour();
+
+/** The hold (or full-speed) solve of the hour, read at once. */
+const HOLD = newTowerHourResult();

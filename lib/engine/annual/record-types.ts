@@ -33,6 +33,20 @@ export interface DeviceRecord {
   leavingC: number;
 }
 
+/**
+ * The device's record, filled anew by each record (read by `evaluateRecord` before the next one: the
+ * engine is synchronous and never re-enters a record).
+ */
+const DEVICE: DeviceRecord = { held: true, condensingC: 0, leavingC: 0 };
+
+/** The shared device record with these values. */
+export function deviceRecord(held: boolean, condensingC: number, leavingC: number): DeviceRecord {
+  DEVICE.held = held;
+  DEVICE.condensingC = condensingC;
+  DEVICE.leavingC = leavingC;
+  return DEVICE;
+}
+
 /** The hour's condenser: Tc = device leaving water + liftK (lift = Q/(ε·Cw) + exchanger approach). */
 export interface HourCondenser {
   heatKW: number;

@@ -63,7 +63,11 @@ export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: Enteri
   const target = ctx.duty.headPressureControl === "floating" ? ctx.duty.minimumCondensingC : ctx.duty.condensingSetPointC;
   if (po.device.kind === "evaporativeCondenser") {
     // No condenser water: the coil is the condenser. `towerSideRf` carries the month's coil-scale derate.
-    const hourEc: HourCondenser = { heatKW, refrigerationKW: heatKW * ctx.refrigerationPerRejection, condenserLiftK: 0, approachK: 0 };
+    const hourEc = HOUR;
+    hourEc.heatKW = heatKW;
+    hourEc.refrigerationKW = heatKW * ctx.refrigerationPerRejection;
+    hourEc.condenserLiftK = 0;
+    hourEc.approachK = 0;
     const dev = evaporativeCondenserRecord(po, po.device.model, ctx, air, hourEc, towerSideRf, stillBasinHeaterKW, rates);
     finishRates(rates, ctx, hourEc.refrigerationKW, dev.condensingC, Math.max(target, Math.min(dev.cleanCondensingC, dev.condensingC)), dev.held);
     return rates;
@@ -71,12 +75,11 @@ export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: Enteri
   const cw = po.condenserCapacityKWPerK;
   const condRf = o.kind === "openTowerDirect" ? towerSideRf : po.condenserFixedFoulingM2KPerW;
   const uaCond = fouledUaKWPerK(po.condenserCleanUaKWPerK, po.condenserCleanUWPerM2K, condRf);
-  const hour: HourCondenser = {
-    heatKW,
-    refrigerationKW: heatKW * ctx.refrigerationPerRejection,
-    condenserLiftK: heatKW / (isothermalStreamEffectiveness(uaCond, cw) * cw),
-    approachK: 0,
-  };
+  const hour = HOUR;
+  hour.heatKW = heatKW;
+  hour.refrigerationKW = heatKW * ctx.refrigerationPerRejection;
+  hour.condenserLiftK = heatKW / (isothermalStreamEffectiveness(uaCond, cw) * cw);
+  hour.approachK = 0;
   const dev: DeviceRecord =
     po.device.kind === "tower"
       ? towerRecord(po, po.device.model, ctx, air, hour, towerSideRf, rates)
@@ -90,6 +93,9 @@ export function evaluateRecord(po: PreparedOption, ctx: YearContext, air: Enteri
   finishRates(rates, ctx, hour.refrigerationKW, condensing, Math.max(target, Math.min(cleanRef, condensing)), dev.held);
   return rates;
 }
+
+/** The record's condenser, filled anew by each record (the engine never re-enters a record). */
+const HOUR: HourCondenser = { heatKW: 0, refrigerationKW: 0, condenserLiftK: 0, approachK: 0 };
 
 /** Condensing temperature, its clean reference, the compressor power the option pays, and whether the control held. */
 function finishRates(rates: RecordRates, ctx: YearContext, refrigerationKW: number, condensing: number, reference: number, held: boolean): void {
