@@ -398,35 +398,69 @@ function coolerConductance(
   const f = Math.max(airflowFraction, 1e-4);
   const ma = model.designAirFlowKgPerS * f;
   const f08 = knownF08 ?? power08(f);
+  const c = constantsOf(model);
   let ca: number;
   let uaExt: number;
   if (csKJPerKgK === undefined) {
     const cp = air.moistSpecificHeatKJPerKgK;
     ca = ma * cp;
-    uaExt = model.dryFactor * model.externalMassTransferKgPerS * f08 * cp;
+    uaExt = c.dryMassTransferKgPerS * f08 * cp;
   } else {
     ca = ma * csKJPerKgK;
-    uaExt = model.externalWetUaKWPerK * f08 * (csKJPerKgK / model.designCsKJPerKgK);
+    uaExt = c.wetUaPerCs * f08 * csKJPerKgK;
   }
   const cf = model.fluidCapacityKWPerK;
   const airMin = ca < cf;
   const cmin = airMin ? ca : cf;
-  const cr = airMin ? ca / cf : cf / ca;
-  const ua = 1 / (1 / model.internalUaKWPerK + 1 / uaExt);
-  const ntu = ua / cmin;
+  const cr = airMin ? ca * c.inverseFluidCapacity : cf / ca;
+  const inverseCmin = airMin ? 1 / ca : c.inverseFluidCapacity;
+  // 1/UA = 1/UAint + 1/UAext: UA = UAext·share, share = UA/UAext = 1/(1 + UAext/UAint).
+  const share = 1 / (1 + uaExt * c.inverseInternalUa);
+  const ua = uaExt * share;
+  const ntu = ua * inverseCmin;
   const nearBalanced = Math.abs(1 - cr) < 1e-6;
   const e = nearBalanced ? 0 : Math.exp(-ntu * (1 - cr));
   const d = 1 - cr * e;
   const eps = nearBalanced ? ntu / (1 + ntu) : (1 - e) / d;
   out.k = f > 0 && ntu > 0 ? eps * cmin : 0;
   if (!withSlope) return;
-  const dUa = (ua / uaExt) * (ua / uaExt) * ((0.8 * uaExt) / f);
-  const dCmin = airMin ? ca / f : 0;
-  const dCr = airMin ? cr / f : -cr / f;
-  const dNtu = dUa / cmin - (ntu * dCmin) / cmin;
-  const epsN = nearBalanced ? 1 / ((1 + ntu) * (1 + ntu)) : ((1 - cr) * (1 - cr) * e) / (d * d);
-  const epsCr = nearBalanced ? (-ntu * ntu) / (2 * (1 + ntu) * (1 + ntu)) : (e * (1 - e - ntu * (1 - cr))) / (d * d);
+  const inverseF = 1 / f;
+  const dUa = share * share * 0.8 * uaExt * inverseF;
+  const dCmin = airMin ? ca * inverseF : 0;
+  const dCr = airMin ? cr * inverseF : -cr * inverseF;
+  const dNtu = (dUa - ntu * dCmin) * inverseCmin;
+  const inverseD2 = nearBalanced ? 1 / ((1 + ntu) * (1 + ntu)) : 1 / (d * d);
+  const epsN = nearBalanced ? inverseD2 : (1 - cr) * (1 - cr) * e * inverseD2;
+  const epsCr = nearBalanced ? -0.5 * ntu * ntu * inverseD2 : e * (1 - e - ntu * (1 - cr)) * inverseD2;
   out.dk = airflowFraction > 1e-4 ? (epsN * dNtu + epsCr * dCr) * cmin + eps * dCmin : 0;
+}
+
+/**
+ * A cooler's constants in the form the conductance uses them (reciprocals and products computed once per
+ * model instead of per call; the year runs one option at a time, so the last model's are kept).
+ */
+interface CoolerConstants {
+  model: CoolerModel | null;
+  /** UAext,d/cs,d: the wet external conductance per unit cs at design airflow. */
+  wetUaPerCs: number;
+  /** dry factor × hD·A: the dry external conductance per unit cp at design airflow. */
+  dryMassTransferKgPerS: number;
+  inverseInternalUa: number;
+  inverseFluidCapacity: number;
+}
+
+const CONSTANTS: CoolerConstants = { model: null, wetUaPerCs: 0, dryMassTransferKgPerS: 0, inverseInternalUa: 0, inverseFluidCapacity: 0 };
+
+function constantsOf(model: CoolerModel): CoolerConstants {
+  const c = CONSTANTS;
+  if (c.model !== model) {
+    c.model = model;
+    c.wetUaPerCs = model.externalWetUaKWPerK / model.designCsKJPerKgK;
+    c.dryMassTransferKgPerS = model.dryFactor * model.externalMassTransferKgPerS;
+    c.inverseInternalUa = 1 / model.internalUaKWPerK;
+    c.inverseFluidCapacity = 1 / model.fluidCapacityKWPerK;
+  }
+  return c;
 }
 
 const KS = { k: 0, dk: 0 };
