@@ -91,3 +91,19 @@ export function saturatedEnthalpyCurvatureKJPerKgK2(tC: number, hsKJPerKg: numbe
   const d2Ws = dWs * g * l + ws * (dWs / MOLAR_MASS_RATIO) * l + ws * g * logSaturationPressureCurvaturePerK2(tC);
   return 2 * 1.86 * dWs + (2501 + 1.86 * tC) * d2Ws;
 }
+
+/**
+ * dhs/dT and d²hs/dT² of saturated air at t, given hs(t), into `out` — the same numbers as
+ * `saturatedEnthalpySlopeKJPerKgK` and `saturatedEnthalpyCurvatureKJPerKgK2`, sharing their common terms
+ * (Ws and d(ln pws)/dT) instead of computing them twice.
+ */
+export function saturatedEnthalpySlopeAndCurvature(tC: number, hsKJPerKg: number, out: { slope: number; curvature: number }): void {
+  const ws = saturationHumidityRatioFromEnthalpy(tC, hsKJPerKg);
+  const g = 1 + ws / MOLAR_MASS_RATIO;
+  const l = logSaturationPressureSlopePerK(tC);
+  const dWs = ws * g * l;
+  const a = 2501 + 1.86 * tC;
+  out.slope = 1.006 + 1.86 * ws + a * dWs;
+  const d2Ws = dWs * g * l + ws * (dWs / MOLAR_MASS_RATIO) * l + ws * g * logSaturationPressureCurvaturePerK2(tC);
+  out.curvature = 2 * 1.86 * dWs + a * d2Ws;
+}

@@ -11,7 +11,7 @@ import { saturatedAirEnthalpyKJPerKg, waterSpecificHeatKJPerKgK } from "./psychr
 import { type EnteringAir, evaporationKgPerS, tableSaturatedTemperatureC } from "./air-side";
 import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } from "./fans";
 import {
-  saturatedEnthalpyCurvatureKJPerKgK2,
+  saturatedEnthalpySlopeAndCurvature,
   saturatedEnthalpySlopeKJPerKgK,
 } from "./saturation";
 import { brentRoot, positivePower } from "./solvers";
@@ -330,10 +330,11 @@ export function towerColdWaterAtAirflowC(
         break;
       }
       const inv = 1 / drive;
-      const slope = saturatedEnthalpySlopeKJPerKgK(tk, hs);
+      saturatedEnthalpySlopeAndCurvature(tk, hs, HS_SHAPE);
+      const slope = HS_SHAPE.slope;
       sum += inv;
       dsum += slope * inv * inv;
-      d2sum += (saturatedEnthalpyCurvatureKJPerKgK2(tk, hs) - 2 * slope * slope * inv) * inv * inv;
+      d2sum += (HS_SHAPE.curvature - 2 * slope * slope * inv) * inv * inv;
       lsum += CPW * k * rangeK * inv * inv;
     }
     if (!feasible) {
@@ -418,6 +419,9 @@ export interface TowerHourResult {
   fanPowerKW: number;
   evaporationKgPerS: number;
 }
+
+/** Scratch of `towerColdWaterAtAirflowC`: the slope and curvature of hs at one Chebyshev point. */
+const HS_SHAPE = { slope: 0, curvature: 0 };
 
 /** Scratch of `solveTowerHour`: the four hs at the requirement (read only within the call; the engine never re-enters). */
 const HOLD_HS = [0, 0, 0, 0];

@@ -20,7 +20,7 @@ import {
   wetBulbFromDewPointC,
   wetBulbFromRelativeHumidityC,
 } from "@/lib/engine/psychrometrics";
-import { saturatedEnthalpyCurvatureKJPerKgK2 } from "@/lib/engine/saturation";
+import { saturatedEnthalpyCurvatureKJPerKgK2, saturatedEnthalpySlopeAndCurvature } from "@/lib/engine/saturation";
 
 const P0 = STANDARD_ATMOSPHERE_PA;
 
@@ -315,5 +315,17 @@ describe("curvature of the saturated-air enthalpy, d²hs/dT² (the tower's Halle
     const reference = (hsJ(t + h) - 2 * hsJ(t) + hsJ(t - h)) / (h * h) / 1000;
     const hs = psychrolib.GetSatAirEnthalpy(t, p) / 1000;
     expect(Math.abs(saturatedEnthalpyCurvatureKJPerKgK2(t, hs) / reference - 1)).toBeLessThan(1e-3);
+  });
+
+  it.each(cases)("slope and curvature together (the tower's iteration) at %d °C, %d Pa: psychrolib's central differences", (t, p) => {
+    // Slope: central first difference, h = 0.01 K (truncation h²·hs‴/6, far below 1e-5 of hs′; hand estimate).
+    const h = 0.01;
+    const hsJ = (x: number) => psychrolib.GetSatAirEnthalpy(x, p);
+    const slopeReference = (hsJ(t + h) - hsJ(t - h)) / (2 * h) / 1000;
+    const curvatureReference = (hsJ(t + h) - 2 * hsJ(t) + hsJ(t - h)) / (h * h) / 1000;
+    const out = { slope: 0, curvature: 0 };
+    saturatedEnthalpySlopeAndCurvature(t, psychrolib.GetSatAirEnthalpy(t, p) / 1000, out);
+    expect(Math.abs(out.slope / slopeReference - 1)).toBeLessThan(1e-5);
+    expect(Math.abs(out.curvature / curvatureReference - 1)).toBeLessThan(1e-3);
   });
 });
