@@ -95,10 +95,12 @@ export function tableSaturatedTemperatureC(table: SaturationTable, hKJPerKg: num
   const hPrev = hs[lo > 0 ? lo - 1 : lo] ?? h0;
   const hNext = hs[hi < n - 1 ? hi + 1 : hi] ?? h1;
   // Quadratic (three-point) inverse: interpolate on the interval using the neighbouring curvature.
-  const u = (hKJPerKg - h0) / (h1 - h0);
-  const curvature = 0.25 * ((hNext - h1) - (h0 - hPrev)); // ≈ h'' Δ²/2 per unit u²
+  const inverseSpan = 1 / (h1 - h0);
+  const u = (hKJPerKg - h0) * inverseSpan;
+  // ≈ h'' Δ²/2 per unit u², relative to the interval's span
+  const curvature = 0.25 * ((hNext - h1) - (h0 - hPrev)) * inverseSpan;
   let uc = u;
-  for (let i = 0; i < 3; i++) uc = u - (curvature * uc * (uc - 1)) / (h1 - h0);
+  for (let i = 0; i < 3; i++) uc = u - curvature * uc * (uc - 1);
   return table.startC + (lo + uc) * table.stepK;
 }
 
