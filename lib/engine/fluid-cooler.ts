@@ -501,7 +501,16 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
     const g = ks.k - needKWPerK;
     // The rating point itself counts as held: a relative 1e−6 of the conductance (rounding of the
     // calibration round trip), as the tower's L/G root and the fan map allow.
-    if (u === 1 && g < 0) return g >= -1e-6 * needKWPerK ? rootWithConductance(1, ks.k) : Number.POSITIVE_INFINITY;
+    if (u === 1 && g < 0) {
+      if (g >= -1e-6 * needKWPerK) return rootWithConductance(1, ks.k);
+      // Not even full speed: the next hour in this mode starts there (the hours that cannot hold come in
+      // runs). Full speed's conductance is kept for the caller's floating temperature.
+      if (wet) warm.wetRoot = 1;
+      else warm.dryRoot = 1;
+      ROOT_CONDUCTANCE.fraction = 1;
+      ROOT_CONDUCTANCE.kKWPerK = ks.k;
+      return Number.POSITIVE_INFINITY;
+    }
     if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) {
       if (wet) warm.wetRoot = u;
       else warm.dryRoot = u;
@@ -644,8 +653,11 @@ export function solveCoolerModeHour(
 ): CoolerHourResult {
   const tinReq = requiredLeavingFluidC + heatKW / model.fluidCapacityKWPerK;
   if (!wet) {
-    const fDry = tinReq > air.dryBulbC ? requiredAirflowFraction(model, air, heatKW / (tinReq - air.dryBulbC), undefined) : Number.POSITIVE_INFINITY;
-    return finishMode(model, fan, fDry, air, heatKW, requiredLeavingFluidC, false, undefined, pPa, into);
+    if (!(tinReq > air.dryBulbC)) return finishMode(model, fan, Number.POSITIVE_INFINITY, air, heatKW, requiredLeavingFluidC, false, undefined, pPa, into);
+    const fDry = requiredAirflowFraction(model, air, heatKW / (tinReq - air.dryBulbC), undefined);
+    // Where full speed cannot hold, the root evaluated full speed's conductance: the floating temperature reuses it.
+    const fullSpeedK = fDry === Number.POSITIVE_INFINITY && ROOT_CONDUCTANCE.fraction === 1 ? ROOT_CONDUCTANCE.kKWPerK : undefined;
+    return finishMode(model, fan, fDry, air, heatKW, requiredLeavingFluidC, false, undefined, pPa, into, fullSpeedK);
   }
   const cs = enthalpyBasedAirSpecificHeat(0.5 * (tinReq + requiredLeavingFluidC), air, pPa);
   const fWet = requiredLeavingFluidC > air.wetBulbC ? requiredAirflowFraction(model, air, heatKW / (tinReq - air.wetBulbC), cs) : Number.POSITIVE_INFINITY;
@@ -692,6 +704,7 @@ function finishMode(
   cs: number | undefined,
   pPa: number,
   into?: CoolerHourResult,
+  dryFullSpeedKWPerK?: number,
 ): CoolerHourResult {
   const cf = model.fluidCapacityKWPerK;
   const op = fanOperationForRequiredAirflow(fan, requiredFraction);
@@ -700,7 +713,9 @@ function finishMode(
   r.mode = wet ? "wet" : "dry";
   r.sprayOn = wet;
   if (op.kind === "insufficient") {
-    const tout = coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, pPa, cs);
+    // Dry at full speed: Tin = Tdb + Q/(εCmin), as coolerLeavingFluidAtAirflowC, from the conductance the root evaluated when given.
+    const tout =
+      !wet && dryFullSpeedKWPerK !== undefined ? air.dryBulbC + heatKW / dryFullSpeedKWPerK - heatKW / cf : coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, pPa, cs);
     r.held = false;
     r.leavingFluidC = tout;
     r.enteringFluidC = tout + heatKW / cf;
