@@ -261,8 +261,12 @@ export function coolerLeavingFluidAtAirflowC(
   // after hour), else the caller's guess.
   const memo = csMemo.model === model ? csMemo.airflow.indexOf(airflowFraction) : -1;
   const csStart = memo >= 0 ? (csMemo.cs[memo] ?? model.designCsKJPerKgK) : (csGuess ?? model.designCsKJPerKgK);
-  let t = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, csStart);
+  // The wet conductance depends on the model, the airflow and cs only (not on the hour's air): the memo's
+  // conductance at its cs is the number coolerConductanceKWPerK would return.
+  const kStart = memo >= 0 ? (csMemo.k[memo] ?? 0) : coolerConductanceKWPerK(model, airflowFraction, air, csStart);
+  let t = air.wetBulbC + heatKW / kStart;
   let csLast = csStart;
+  let kLast = kStart;
   // r(T) = G(T) − T: r > 0 below the root, r < 0 above it.
   let lo = Number.NEGATIVE_INFINITY;
   let hi = Number.POSITIVE_INFINITY;
@@ -272,7 +276,8 @@ export function coolerLeavingFluidAtAirflowC(
   for (let i = 0; i < 16; i++) {
     const cs = enthalpyBasedAirSpecificHeat(t - halfRange, air, pPa);
     csLast = cs;
-    g = air.wetBulbC + heatKW / coolerConductanceKWPerK(model, airflowFraction, air, cs);
+    kLast = coolerConductanceKWPerK(model, airflowFraction, air, cs);
+    g = air.wetBulbC + heatKW / kLast;
     const r = g - t;
     // A fan-mix state (`mixOfRequiredLeavingFluidC`, the mix's requirement) to the tower's mix-state
     // tolerance (tower.ts): 0.01 K plus 2 % of its distance from the requirement — the mix fraction is
@@ -299,6 +304,7 @@ export function coolerLeavingFluidAtAirflowC(
   const slot = memo >= 0 ? memo : free >= 0 ? free : (csMemo.next = (csMemo.next + 1) % 4);
   csMemo.airflow[slot] = airflowFraction;
   csMemo.cs[slot] = csLast;
+  csMemo.k[slot] = kLast;
   return g - heatKW / cf;
 }
 
@@ -313,11 +319,15 @@ export function resetCoolerWarmStarts(): void {
   csMemo.next = 0;
 }
 
-/** The cs a cooler last converged to at up to four airflows (starting points for the next hour, never results). */
-const csMemo: { model: CoolerModel | null; airflow: number[]; cs: number[]; next: number } = {
+/**
+ * The cs a cooler last converged to at up to four airflows, and the wet conductance at that cs (starting
+ * points for the next hour, never results).
+ */
+const csMemo: { model: CoolerModel | null; airflow: number[]; cs: number[]; k: number[]; next: number } = {
   model: null,
   airflow: [Number.NaN, Number.NaN, Number.NaN, Number.NaN],
   cs: [0, 0, 0, 0],
+  k: [0, 0, 0, 0],
   next: 0,
 };
 
