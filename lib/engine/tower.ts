@@ -538,6 +538,18 @@ export interface AirflowAtTemperature {
 /** Scratch of `towerAirflowForColdWater`'s four saturated enthalpies (read within the call, never kept). */
 const AIRFLOW_HS = [0, 0, 0, 0];
 
+/** The cold water and heat of the last `towerAirflowForColdWater` call, whose four hs are in AIRFLOW_HS. */
+const LAST_AIRFLOW_POINT = { tC: Number.NaN, heatKW: Number.NaN, saturatedEnthalpiesKJPerKg: AIRFLOW_HS as readonly number[] };
+
+/**
+ * The four saturated enthalpies the last `towerAirflowForColdWater` call evaluated, as a known point for
+ * `towerColdWaterAtAirflowC` at the same heat (its first pass then needs no evaluation); undefined for
+ * another heat. Valid until the next `towerAirflowForColdWater` call.
+ */
+export function lastTowerAirflowPoint(heatKW: number): { tC: number; saturatedEnthalpiesKJPerKg: readonly number[] } | undefined {
+  return LAST_AIRFLOW_POINT.heatKW === heatKW ? LAST_AIRFLOW_POINT : undefined;
+}
+
 /**
  * Airflow fraction the tower needs for a cold-water temperature at a heat load, and its slope, from four
  * saturated enthalpies: L/G from `requiredLiquidToGasRatio`, f = L/(L/G)/Gdesign, and by implicit
@@ -557,6 +569,8 @@ export function towerAirflowForColdWater(
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   const hs = AIRFLOW_HS;
   for (let i = 0; i < 4; i++) hs[i] = saturatedAirEnthalpyKJPerKg(coldWaterC + (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK, pPa);
+  LAST_AIRFLOW_POINT.tC = coldWaterC;
+  LAST_AIRFLOW_POINT.heatKW = heatKW;
   const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN, guessLiquidToGasRatio);
   if (!(lg > 0)) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
   const c = CPW * rangeK;

@@ -16,7 +16,7 @@ import { fanPowerAtSpeedKW } from "../fans";
 import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
 import { plateExchangerApproachK } from "../plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
-import { type TowerModel, newTowerHourResult, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC } from "../tower";
+import { type TowerModel, lastTowerAirflowPoint, newTowerHourResult, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC } from "../tower";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, deviceRecord, lowerFanStates } from "./record-types";
@@ -58,7 +58,8 @@ export function towerRecord(
     let atLow = a0;
     if (!(a0.fraction <= 1 + 1e-6)) {
       const slope = { airflowSlopePerK: 0 };
-      lowC = towerColdWaterAtAirflowC(model, air, heatKW, 1, ctx.pPa, targetC - liftK, undefined, 2e-4, 0, slope) + liftK;
+      // Full speed from the minimum's four hs (a0's), which lie below its cold water: no evaluation to start.
+      lowC = towerColdWaterAtAirflowC(model, air, heatKW, 1, ctx.pPa, targetC - liftK, lastTowerAirflowPoint(heatKW), 2e-4, 0, slope) + liftK;
       if (lowC >= setC) return finishTower(rates, liftK, rangeK, false, lowC, po.fan.designPowerKW, evaporationKgPerS(heatKW, model.designAirFlowKgPerS, ctx.pPa, air));
       atLow = { fraction: 1, slopePerK: slope.airflowSlopePerK };
     }
