@@ -278,7 +278,7 @@ export function towerColdWaterAtAirflowC(
   known?: { tC: number; saturatedEnthalpiesKJPerKg: readonly number[] },
   toleranceK = 2e-4,
   relativeTolerance = 0,
-  slopeOut?: { airflowSlopePerK: number },
+  slopeOut?: { airflowSlopePerK: number; airflowCurvaturePerK2?: number },
 ): number {
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   const lg = model.waterFlowKgPerS / (model.designAirFlowKgPerS * Math.max(airflowFraction, 1e-3));
@@ -332,6 +332,9 @@ export function towerColdWaterAtAirflowC(
       const inv = 1 / drive;
       saturatedEnthalpySlopeAndCurvature(tk, hs, HS_SHAPE);
       const slope = HS_SHAPE.slope;
+      POINT_INV[i] = inv;
+      POINT_SLOPE[i] = slope;
+      POINT_CURVATURE[i] = HS_SHAPE.curvature;
       sum += inv;
       dsum += slope * inv * inv;
       d2sum += (HS_SHAPE.curvature - 2 * slope * slope * inv) * inv * inv;
@@ -367,8 +370,13 @@ export function towerColdWaterAtAirflowC(
         // d(airflow fraction)/dT of the requirement at this temperature (see towerAirflowForColdWater).
         const k4 = 4 / (CPW * rangeK);
         const psiT = (k4 * dsum) / (sum * sum);
-        const psiL = (-k4 * lsum) / (sum * sum) - (model.exponentN * positivePower(lg, model.exponentN - 1)) / model.coefficientC;
-        slopeOut.airflowSlopePerK = (-Math.max(airflowFraction, 1e-3) / lg) * (-psiT / psiL);
+        const lgn1 = positivePower(lg, model.exponentN - 1);
+        const psiL = (-k4 * lsum) / (sum * sum) - (model.exponentN * lgn1) / model.coefficientC;
+        const fraction = Math.max(airflowFraction, 1e-3);
+        slopeOut.airflowSlopePerK = (-fraction / lg) * (-psiT / psiL);
+        if (slopeOut.airflowCurvaturePerK2 !== undefined) {
+          slopeOut.airflowCurvaturePerK2 = airflowCurvatureFromPoints(model, fraction, lg, lgn1, rangeK, sum, dsum, lsum, psiT, psiL);
+        }
       }
       return Math.max(next, floorC);
     }
@@ -531,6 +539,8 @@ export interface AirflowAtTemperature {
   fraction: number;
   /** d(fraction)/d(leaving temperature), 1/K (≤ 0: warmer water needs less air). */
   slopePerK: number;
+  /** d²(fraction)/d(leaving temperature)², 1/K² (towers: analytic; absent where not computed). */
+  curvaturePerK2?: number;
   /** The tower's L/G at that airflow (a warm start for the next, nearby evaluation); absent for coolers. */
   liquidToGasRatio?: number;
 }
@@ -582,14 +592,77 @@ export function towerAirflowForColdWater(
     const h = hs[i] ?? 0;
     const r = h - air.enthalpyKJPerKg - lg * c * k;
     if (!(r > 0)) return { fraction: model.waterFlowKgPerS / lg / model.designAirFlowKgPerS, slopePerK: 0 };
-    sumInv += 1 / r;
-    sumT += saturatedEnthalpySlopeKJPerKgK(coldWaterC + k * rangeK, h) / (r * r);
+    const inv = 1 / r;
+    saturatedEnthalpySlopeAndCurvature(coldWaterC + k * rangeK, h, HS_SHAPE);
+    POINT_INV[i] = inv;
+    POINT_SLOPE[i] = HS_SHAPE.slope;
+    POINT_CURVATURE[i] = HS_SHAPE.curvature;
+    sumInv += inv;
+    sumT += HS_SHAPE.slope / (r * r);
     sumL += (c * k) / (r * r);
   }
   const k4 = 4 / c;
   const psiT = (k4 * sumT) / (sumInv * sumInv);
-  const psiL = (-k4 * sumL) / (sumInv * sumInv) - (model.exponentN * positivePower(lg, model.exponentN - 1)) / model.coefficientC;
+  const lgn1 = positivePower(lg, model.exponentN - 1);
+  const psiL = (-k4 * sumL) / (sumInv * sumInv) - (model.exponentN * lgn1) / model.coefficientC;
   const dLgdT = -psiT / psiL;
   const fraction = model.waterFlowKgPerS / lg / model.designAirFlowKgPerS;
-  return { fraction, slopePerK: (-fraction / lg) * dLgdT, liquidToGasRatio: lg };
+  return {
+    fraction,
+    slopePerK: (-fraction / lg) * dLgdT,
+    curvaturePerK2: airflowCurvatureFromPoints(model, fraction, lg, lgn1, rangeK, sumInv, sumT, sumL, psiT, psiL),
+    liquidToGasRatio: lg,
+  };
+}
+
+/** Per Chebyshev point of the last solve: 1/rᵢ, hs′ᵢ and hs″ᵢ (read at once by `airflowCurvatureFromPoints`). */
+const POINT_INV = [0, 0, 0, 0];
+const POINT_SLOPE = [0, 0, 0, 0];
+const POINT_CURVATURE = [0, 0, 0, 0];
+
+/**
+ * d²f/dT² of the required airflow fraction f = L/(λ·Gd), λ = L/G, from the implicit root
+ * ψ(λ, T) = k4/Σ − λⁿ/C = 0 (k4 = 4/(cpw·R), Σ = Σ1/rᵢ, rᵢ = hs(T + kᵢR) − ha,in − λ·cpw·kᵢR):
+ * λ′ = −ψ_T/ψ_λ, λ″ = −(ψ_TT + 2ψ_Tλ·λ′ + ψ_λλ·λ′²)/ψ_λ, f″ = f·(2λ′²/λ² − λ″/λ), with
+ * ψ_TT = k4(2A²/Σ³ − Σ_TT/Σ²), ψ_Tλ = −k4(2AB/Σ³ + Σ_Tλ/Σ²), ψ_λλ = k4(2B²/Σ³ − Σ_λλ/Σ²) − n(n − 1)λ^(n−2)/C,
+ * A = Σhs′ᵢ/rᵢ², B = Σcpw·kᵢR/rᵢ², Σ_TT = Σ(2hs′ᵢ²/rᵢ³ − hs″ᵢ/rᵢ²), Σ_Tλ = −Σ2hs′ᵢ·cpw·kᵢR/rᵢ³,
+ * Σ_λλ = Σ2(cpw·kᵢR)²/rᵢ³ (the per-point values in POINT_INV, POINT_SLOPE, POINT_CURVATURE).
+ * Source: calculus on the Merkel/Chebyshev relation above (no further saturated-enthalpy evaluation).
+ */
+function airflowCurvatureFromPoints(
+  model: TowerModel,
+  fraction: number,
+  lg: number,
+  lgPowerNMinus1: number,
+  rangeK: number,
+  sum: number,
+  sumA: number,
+  sumB: number,
+  psiT: number,
+  psiL: number,
+): number {
+  const c = CPW * rangeK;
+  let tt = 0;
+  let tl = 0;
+  let ll = 0;
+  for (let i = 0; i < 4; i++) {
+    const inv = POINT_INV[i] ?? 0;
+    const slope = POINT_SLOPE[i] ?? 0;
+    const ck = c * (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0);
+    const inv2 = inv * inv;
+    const inv3 = inv2 * inv;
+    tt += 2 * slope * slope * inv3 - (POINT_CURVATURE[i] ?? 0) * inv2;
+    tl -= 2 * slope * ck * inv3;
+    ll += 2 * ck * ck * inv3;
+  }
+  const k4 = 4 / c;
+  const s2 = sum * sum;
+  const s3 = s2 * sum;
+  const n = model.exponentN;
+  const psiTT = k4 * ((2 * sumA * sumA) / s3 - tt / s2);
+  const psiTL = -k4 * ((2 * sumA * sumB) / s3 + tl / s2);
+  const psiLL = k4 * ((2 * sumB * sumB) / s3 - ll / s2) - (n * (n - 1) * lgPowerNMinus1) / (lg * model.coefficientC);
+  const dLg = -psiT / psiL;
+  const d2Lg = -(psiTT + 2 * psiTL * dLg + psiLL * dLg * dLg) / psiL;
+  return fraction * ((2 * dLg * dLg) / (lg * lg) - d2Lg / lg);
 }

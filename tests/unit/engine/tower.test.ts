@@ -11,6 +11,7 @@ import {
   solveTowerHour,
   towerCapacityKW,
   towerCharacteristicMerkel,
+  towerAirflowForColdWater,
   towerColdWaterAtAirflowC,
   CHEBYSHEV_RANGE_FRACTIONS,
 } from "@/lib/engine/tower";
@@ -287,5 +288,41 @@ describe("a selection exactly at its rating point holds it", () => {
             if (!r.held || r.airflowFraction > 1 + 1e-6) notHeld++;
           }
     expect(notHeld).toBe(0);
+  });
+});
+
+describe("required airflow's slope and curvature with the cold-water temperature (the floating-head search)", () => {
+  // Reference: central differences (±0.01 K for the slope, ±0.05 K for the curvature) of the required airflow fraction itself — each side a fresh L/G
+  // root on freshly evaluated hs — against the analytic implicit derivatives of that root (calculus, no
+  // difference inside). Truncation of a central difference: h²·f‴/6 and h²·f⁗/12, below the
+  // tolerances here for a smooth requirement (hand estimate); the differences read hs from its per-pressure
+  // table (cubic pieces), the derivatives use hs′ and hs″ of the formula, hence 0.2 % on the curvature.
+  const cases: [number, number, number][] = [
+    // wet-bulb °C, heat kW, cold water °C
+    [24, 1500, 28.3],
+    [15, 900, 24],
+    [5, 600, 21],
+    [-5, 300, 21],
+  ];
+  it.each(cases)("wet-bulb %d °C, %d kW, cold water %d °C", (wb, q, tc) => {
+    const air = enteringAir(wb + 6, wb, P);
+    const at = (t: number) => towerAirflowForColdWater(model, air, q, t, P);
+    const mid = at(tc);
+    const slope = (at(tc + 0.01).fraction - at(tc - 0.01).fraction) / 0.02;
+    const h = 0.05;
+    const curvature = (at(tc + h).fraction - 2 * at(tc).fraction + at(tc - h).fraction) / (h * h);
+    expect(Math.abs(mid.slopePerK / slope - 1)).toBeLessThan(1e-5);
+    expect(Math.abs((mid.curvaturePerK2 ?? Number.NaN) / curvature - 1)).toBeLessThan(2e-3);
+  });
+
+  it("the floating full-speed solve reports the same slope and curvature as the requirement there", () => {
+    const air = enteringAir(20, 14, P);
+    const q = 1500;
+    const out = { airflowSlopePerK: 0, airflowCurvaturePerK2: 0 };
+    const t = towerColdWaterAtAirflowC(model, air, q, 1, P, 25, undefined, 2e-4, 0, out);
+    const req = towerAirflowForColdWater(model, air, q, t, P);
+    expect(req.fraction).toBeCloseTo(1, 4);
+    expect(Math.abs(out.airflowSlopePerK / req.slopePerK - 1)).toBeLessThan(1e-3);
+    expect(Math.abs(out.airflowCurvaturePerK2 / (req.curvaturePerK2 ?? Number.NaN) - 1)).toBeLessThan(1e-2);
   });
 });
