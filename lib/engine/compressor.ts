@@ -262,6 +262,14 @@ export function compressorPowerSlopeKWPerK(model: CompressorModel, refrigeration
   return (compressorPowerKW(model, refrigerationLoadKW, condensingC + 0.05) - compressorPowerKW(model, refrigerationLoadKW, condensingC - 0.05)) / 0.1;
 }
 
+/** d²W/dTc², kW/K², by the central second difference over the same ±0.05 K. */
+export function compressorPowerCurvatureKWPerK2(model: CompressorModel, refrigerationLoadKW: number, condensingC: number): number {
+  return (
+    (compressorPowerKW(model, refrigerationLoadKW, condensingC + 0.05) - 2 * compressorPowerKW(model, refrigerationLoadKW, condensingC) + compressorPowerKW(model, refrigerationLoadKW, condensingC - 0.05)) /
+    0.0025
+  );
+}
+
 /** True where the manufacturer's model is outside its data (more than 0.01 K beyond the end points). */
 export function compressorExtrapolates(model: CompressorModel, condensingC: number): boolean {
   if (model.kind !== "manufacturer") return false;

@@ -9,8 +9,11 @@
  * The total P(Tc) = Pfan(f(Tc)) + W(Tc) is minimal where its marginal
  *   m(Tc) = dPfan/df·df/dTc + dW/dTc = Pd·(1 − a)·3f²·df/dTc + dW/dTc
  * changes sign (fan laws P = Pd·(a + (1 − a)·f³)): at the lower bound when m ≥ 0 there (the common case —
- * compressor power outweighs fan power), else by a bracketed secant (Illinois) search, stopping at the
- * set-point or at the fan's minimum speed. A handful of evaluations at most.
+ * compressor power outweighs fan power), else by a search stopping at the set-point or at the fan's minimum
+ * speed. Where the device gives the airflow's curvature exactly (the tower: implicit second derivatives of its
+ * Merkel root), the search takes Newton steps on the marginal, m′ = Pd·(1 − a)·(6f·f′² + 3f²·f″) + W″, and
+ * carries the last solve along f′ and f″ for a final step under 0.1 K (about 0.001 K left); otherwise a
+ * bracketed secant (Illinois) search with a 0.05 K stop. A handful of evaluations at most.
  */
 import type { FanModel } from "./fans";
 
@@ -19,6 +22,8 @@ export interface AirflowAtCondensing {
   fraction: number;
   /** d(fraction)/d(Tc), 1/K (≤ 0). */
   slopePerK: number;
+  /** d²(fraction)/d(Tc)², 1/K², where the device gives it exactly (then the search takes Newton steps). */
+  curvaturePerK2?: number;
 }
 
 /** Marginal of fan + compressor power with the condensing temperature, kW/K. */
@@ -36,6 +41,8 @@ export interface FloatingHour {
   airflowAt(condensingC: number): AirflowAtCondensing;
   /** dW/dTc of the compressors at this hour's load, kW/K. */
   compressorSlope(condensingC: number): number;
+  /** d²W/dTc² of the compressors at this hour's load, kW/K² (with the airflow's curvature: Newton steps). */
+  compressorCurvature?(condensingC: number): number;
   /**
    * The airflow's slope is its exact derivative (an analytic implicit derivative, not a difference with a
    * property held), so the search may carry a solved airflow ≤ 0.05 K along it instead of solving again.
@@ -60,6 +67,7 @@ export function optimalFloatingCondensing(
   if (!(highC > lowC + 1e-6) || !(a0.fraction > fMin) || !Number.isFinite(a0.fraction)) return { condensingC: lowC, airflow: a0 };
   const m0 = fanCompressorMarginalKWPerK(fan, a0, hour.compressorSlope(lowC));
   if (m0 >= 0) return { condensingC: lowC, airflow: a0 };
+  if (a0.curvaturePerK2 !== undefined && hour.compressorCurvature && hour.slopeIsExact) return newtonOnMarginal(fan, fMin, lowC, highC, hour, a0, m0);
   // Bracket by secant steps on the marginal (nearly linear over a few K): the first Tc where it turns
   // positive, the fan's minimum speed, or the set-point.
   let tLo = lowC;
@@ -134,4 +142,116 @@ export function optimalFloatingCondensing(
  */
 export function airflowNear(known: AirflowAtCondensing, stepK: number): AirflowAtCondensing {
   return { fraction: known.fraction + known.slopePerK * stepK, slopePerK: known.slopePerK };
+}
+
+/**
+ * d(marginal)/dTc, kW/K²: d/dTc of Pd·(1 − a)·3f²·f′ + W′ = Pd·(1 − a)·(6f·f′² + 3f²·f″) + W″.
+ */
+export function fanCompressorMarginalSlopeKWPerK2(fan: FanModel, airflow: AirflowAtCondensing, compressorCurvatureKWPerK2: number): number {
+  const f = airflow.fraction;
+  const s = airflow.slopePerK;
+  return fan.designPowerKW * (1 - fan.powerFloorFraction) * (6 * f * s * s + 3 * f * f * (airflow.curvaturePerK2 ?? 0)) + compressorCurvatureKWPerK2;
+}
+
+/**
+ * A Newton step on the marginal this small (K) is the last: it leaves about |m″/(2m′)|·s² — thousandths of a
+ * kelvin — and its end's airflow is the last solve's carried along its slope and curvature.
+ */
+const NEWTON_STOP_K = 0.1;
+
+/**
+ * The search by Newton steps on the marginal (m and m′ from the airflow's slope and curvature), kept inside
+ * the bracket [a Tc where m < 0, the set-point or a Tc where m ≥ 0] (bisection when a step leaves it); a
+ * trial beyond the fan's minimum speed hands the bracket to the minimum-speed search. From the lower bound,
+ * a few solves: one where the marginal is nearly linear, and the last step is carried, not solved.
+ */
+function newtonOnMarginal(
+  fan: FanModel,
+  fMin: number,
+  lowC: number,
+  highC: number,
+  hour: FloatingHour,
+  a0: AirflowAtCondensing,
+  m0: number,
+): { condensingC: number; airflow: AirflowAtCondensing } {
+  let lo = lowC;
+  let aLo = a0;
+  let hi = highC;
+  let bracketed = false;
+  let t = lowC;
+  let a = a0;
+  let m = m0;
+  for (let i = 0; i < 24; i++) {
+    const slope = fanCompressorMarginalSlopeKWPerK2(fan, a, hour.compressorCurvature ? hour.compressorCurvature(t) : 0);
+    const newton = slope > 0 ? t - m / slope : Number.NaN;
+    const inside = newton > lo && newton < hi;
+    if (inside && Math.abs(newton - t) < NEWTON_STOP_K) {
+      const carried = airflowAlong(a, newton - t);
+      if (carried.fraction > fMin) return { condensingC: newton, airflow: carried };
+    }
+    const next = inside ? newton : bracketed ? 0.5 * (lo + hi) : newton >= hi ? hi : Math.min(hi, t + 2);
+    const an = hour.airflowAt(next);
+    if (!(an.fraction > fMin)) return minimumSpeedPoint(fMin, hour, lo, aLo, next, an);
+    const mn = fanCompressorMarginalKWPerK(fan, an, hour.compressorSlope(next));
+    if (mn >= 0) {
+      hi = next;
+      bracketed = true;
+    } else {
+      if (next >= highC) return { condensingC: highC, airflow: an };
+      lo = next;
+      aLo = an;
+    }
+    t = next;
+    a = an;
+    m = mn;
+    if (bracketed && hi - lo < 1e-4) break;
+  }
+  return { condensingC: t, airflow: a };
+}
+
+/**
+ * The Tc between tLo (speed above the minimum) and tHi (at or below it) where the required airflow falls to
+ * the fan's minimum speed: Newton steps on f − fMin from tLo (f′, f″ known), kept inside the bracket.
+ */
+function minimumSpeedPoint(
+  fMin: number,
+  hour: FloatingHour,
+  tLo: number,
+  aLo: AirflowAtCondensing,
+  tHi: number,
+  aHi: AirflowAtCondensing,
+): { condensingC: number; airflow: AirflowAtCondensing } {
+  let lo = tLo;
+  let hi = tHi;
+  let t = tLo;
+  let a = aLo;
+  let best = { condensingC: tHi, airflow: aHi };
+  for (let i = 0; i < 24; i++) {
+    const g = a.fraction - fMin;
+    const newton = a.slopePerK < 0 ? t - g / a.slopePerK : Number.NaN;
+    const inside = newton > lo && newton < hi;
+    if (inside && Math.abs(newton - t) < NEWTON_STOP_K) {
+      const carried = airflowAlong(a, newton - t);
+      return { condensingC: newton, airflow: { ...carried, fraction: Math.max(carried.fraction, fMin) } };
+    }
+    const next = inside ? newton : 0.5 * (lo + hi);
+    const an = hour.airflowAt(next);
+    best = { condensingC: next, airflow: an };
+    if (an.fraction > fMin) lo = next;
+    else hi = next;
+    t = next;
+    a = an;
+    if (hi - lo < 1e-4) break;
+  }
+  return best;
+}
+
+/**
+ * The airflow a known solve implies a step `stepK` away, to second order: f + f′·s + f″·s²/2, slope
+ * f′ + f″·s (the curvature kept). Used for steps below NEWTON_STOP_K, where the third-order term is
+ * negligible.
+ */
+export function airflowAlong(known: AirflowAtCondensing, stepK: number): AirflowAtCondensing {
+  const c = known.curvaturePerK2 ?? 0;
+  return { fraction: known.fraction + known.slopePerK * stepK + 0.5 * c * stepK * stepK, slopePerK: known.slopePerK + c * stepK, curvaturePerK2: c };
 }

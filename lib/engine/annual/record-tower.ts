@@ -10,7 +10,7 @@
  *   so the optimum is at a state or at the minimum).
  */
 import { type EnteringAir, evaporationKgPerS } from "../air-side";
-import { type CompressorModel, compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
+import { type CompressorModel, compressorPowerCurvatureKWPerK2, compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
 import { fouledUaKWPerK } from "../condenser";
 import { fanPowerAtSpeedKW } from "../fans";
 import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
@@ -57,11 +57,11 @@ export function towerRecord(
     let lowC = targetC;
     let atLow = a0;
     if (!(a0.fraction <= 1 + 1e-6)) {
-      const slope = { airflowSlopePerK: 0 };
+      const slope = { airflowSlopePerK: 0, airflowCurvaturePerK2: 0 };
       // Full speed from the minimum's four hs (a0's), which lie below its cold water: no evaluation to start.
       lowC = towerColdWaterAtAirflowC(model, air, heatKW, 1, ctx.pPa, targetC - liftK, lastTowerAirflowPoint(heatKW), 2e-4, 0, slope) + liftK;
       if (lowC >= setC) return finishTower(rates, liftK, rangeK, false, lowC, po.fan.designPowerKW, evaporationKgPerS(heatKW, model.designAirFlowKgPerS, ctx.pPa, air));
-      atLow = { fraction: 1, slopePerK: slope.airflowSlopePerK };
+      atLow = { fraction: 1, slopePerK: slope.airflowSlopePerK, curvaturePerK2: slope.airflowCurvaturePerK2 };
     }
     const best = optimalFloatingCondensing(po.fan, lowC, setC, h, atLow);
     const f = Math.min(1, Math.max(best.airflow.fraction, fMin));
@@ -130,6 +130,9 @@ class TowerFloatingHour implements FloatingHour {
   }
   compressorSlope(condensingC: number): number {
     return compressorPowerSlopeKWPerK(this.compressor, this.qe, condensingC);
+  }
+  compressorCurvature(condensingC: number): number {
+    return compressorPowerCurvatureKWPerK2(this.compressor, this.qe, condensingC);
   }
 }
 
