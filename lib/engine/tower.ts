@@ -279,6 +279,7 @@ export function towerColdWaterAtAirflowC(
   toleranceK = 2e-4,
   relativeTolerance = 0,
   slopeOut?: { airflowSlopePerK: number; airflowCurvaturePerK2?: number },
+  startC?: number,
 ): number {
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   const lg = model.waterFlowKgPerS / (model.designAirFlowKgPerS * Math.max(airflowFraction, 1e-3));
@@ -309,6 +310,7 @@ export function towerColdWaterAtAirflowC(
   const start = knownUsable ? known : undefined;
   let t: number;
   if (start) t = start.tC;
+  else if (startC !== undefined && startC > floorC + 1e-3) t = startC;
   else if (pinchSlope > 0) t = pinchC + ((CPW * rangeK) / 4) * (pinchSlope > 0 ? 1 / (supply * pinchSlope) : 0);
   else t = Math.max(guessC ?? air.wetBulbC + model.designApproachK, floorC + 1e-3);
   let lo = floorC; // residual < 0 side (too cold)
@@ -364,7 +366,9 @@ export function towerColdWaterAtAirflowC(
     // error left after it is: a Newton step s from t leaves ≈ |ρ″/(2ρ′)|·s² (Halley's less, third order),
     // so a state a few K from its start needs one evaluation near the root instead of two.
     const step = newton - t;
-    const leftK = halley && !slopeOut ? Math.abs(d2Rho / (2 * dRho)) * step * step : Number.POSITIVE_INFINITY;
+    // With a slope to report, the step's end is taken only when it is within 0.02 K: the slope and curvature
+    // reported are then those at t, within about 0.1 % of the answer's.
+    const leftK = halley && (!slopeOut || Math.abs(step) < 0.02) ? Math.abs(d2Rho / (2 * dRho)) * step * step : Number.POSITIVE_INFINITY;
     if (rho === 0 || Math.abs(step) < tol || leftK < tol) {
       if (slopeOut) {
         // d(airflow fraction)/dT of the requirement at this temperature (see towerAirflowForColdWater).
@@ -443,6 +447,34 @@ let lastLg = 1;
 export function resetTowerWarmStart(): void {
   lastLgModel = null;
   lastLg = 1;
+  fullSpeedMemo.model = null;
+}
+
+/** The last full-speed floating solve's approach to the wet-bulb per kW of heat, per tower (a starting point, never a result). */
+const fullSpeedMemo: { model: TowerModel | null; approachPerKW: number } = { model: null, approachPerKW: 0 };
+
+/**
+ * Cold water the tower delivers at full speed (floating), °C, with the requirement's slope and curvature
+ * there in `slopeOut` — `towerColdWaterAtAirflowC` at f = 1, started from `startC` when given, else from the
+ * approach per kW of the last such solve of this tower (the approach at full speed grows about in
+ * proportion to the heat, and changes little from one hour to the next).
+ */
+export function towerFullSpeedColdWaterC(
+  model: TowerModel,
+  air: EnteringAir,
+  heatKW: number,
+  pPa: number,
+  guessC: number,
+  slopeOut: { airflowSlopePerK: number; airflowCurvaturePerK2?: number },
+  startC?: number,
+): number {
+  const start = startC ?? (fullSpeedMemo.model === model ? air.wetBulbC + fullSpeedMemo.approachPerKW * heatKW : undefined);
+  const t = towerColdWaterAtAirflowC(model, air, heatKW, 1, pPa, guessC, undefined, 2e-4, 0, slopeOut, start);
+  if (heatKW > 0 && Number.isFinite(t)) {
+    fullSpeedMemo.model = model;
+    fullSpeedMemo.approachPerKW = (t - air.wetBulbC) / heatKW;
+  }
+  return t;
 }
 
 /**

@@ -16,7 +16,7 @@ import { fanPowerAtSpeedKW } from "../fans";
 import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
 import { plateExchangerApproachK } from "../plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
-import { type TowerModel, lastTowerAirflowPoint, newTowerHourResult, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC } from "../tower";
+import { type TowerModel, newTowerHourResult, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC, towerFullSpeedColdWaterC } from "../tower";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, deviceRecord, lowerFanStates } from "./record-types";
@@ -58,8 +58,10 @@ export function towerRecord(
     let atLow = a0;
     if (!(a0.fraction <= 1 + 1e-6)) {
       const slope = { airflowSlopePerK: 0, airflowCurvaturePerK2: 0 };
-      // Full speed from the minimum's four hs (a0's), which lie below its cold water: no evaluation to start.
-      lowC = towerColdWaterAtAirflowC(model, air, heatKW, 1, ctx.pPa, targetC - liftK, lastTowerAirflowPoint(heatKW), 2e-4, 0, slope) + liftK;
+      // Full speed starts where the minimum's requirement (a0: f, f′, f″) extrapolates to f = 1 when it is
+      // finite (the minimum lies above the wet-bulb and pinch), else from the last full-speed approach.
+      const start = Number.isFinite(a0.fraction) ? targetC - liftK + fullSpeedStepK(a0) : undefined;
+      lowC = towerFullSpeedColdWaterC(model, air, heatKW, ctx.pPa, targetC - liftK, slope, start) + liftK;
       if (lowC >= setC) return finishTower(rates, liftK, rangeK, false, lowC, po.fan.designPowerKW, evaporationKgPerS(heatKW, model.designAirFlowKgPerS, ctx.pPa, air));
       atLow = { fraction: 1, slopePerK: slope.airflowSlopePerK, curvaturePerK2: slope.airflowCurvaturePerK2 };
     }
@@ -90,6 +92,23 @@ export function towerRecord(
     }
   }
   return finishTower(rates, liftK, rangeK, bestC <= setC + SET_POINT_TOLERANCE_K, bestC, bestFan, bestEvap);
+}
+
+/**
+ * The step in Tc from a requirement f > 1 (slope f′ < 0, curvature f″) to where the quadratic through it
+ * reaches f = 1: the smaller positive root of f + f′·d + f″·d²/2 = 1 (the linear step where the quadratic
+ * has none), kept within 0…15 K. A starting point only.
+ */
+function fullSpeedStepK(a: { fraction: number; slopePerK: number; curvaturePerK2?: number }): number {
+  const g = a.fraction - 1;
+  const b = a.slopePerK;
+  const c = 0.5 * (a.curvaturePerK2 ?? 0);
+  if (!(b < 0) || !(g > 0)) return 0;
+  const linear = -g / b;
+  const disc = b * b - 4 * c * g;
+  const d = c !== 0 && disc >= 0 ? (-b - Math.sqrt(disc)) / (2 * c) : linear;
+  const step = d > 0 && Number.isFinite(d) ? d : linear;
+  return Math.min(15, Math.max(0, step));
 }
 
 function finishTower(rates: RecordRates, liftK: number, rangeK: number, held: boolean, condensingC: number, fanKW: number, evaporation: number): DeviceRecord {
