@@ -22,6 +22,7 @@ import { type FanModel, fanOperationForRequiredAirflow, highStateTimeFraction } 
 import { type GlycolKind, fluidProperties, tubeSideCoefficientRatio } from "./glycol";
 import { counterflowNtu } from "./heat-exchanger";
 import type { EngineWarning } from "./types";
+import { saturatedEnthalpySlopeKJPerKgK } from "./saturation";
 import { positivePower } from "./solvers";
 
 /** The manufacturer's selection of a closed-circuit cooler. */
@@ -216,8 +217,18 @@ function power08(f: number): number {
 
 const POW08 = { f0: Number.NaN, v0: 0, f1: Number.NaN, v1: 0, next: 0 };
 
+/**
+ * εCmin (`k`, kW/K) and, with the slope, d(εCmin)/df (`dk`, kW/K) and UAext·∂(εCmin)/∂UAext (`dkExternal`,
+ * kW/K: the external conductance's share of the sensitivities, from which ∂(εCmin)/∂cs follows).
+ */
+export interface ConductanceOut {
+  k: number;
+  dk: number;
+  dkExternal: number;
+}
+
 /** Scratch of `coolerConductanceKWPerK` (its own, so a caller holding `KS` is never overwritten). */
-const K_ONLY = { k: 0, dk: 0 };
+const K_ONLY: ConductanceOut = { k: 0, dk: 0, dkExternal: 0 };
 
 /** One hour (or bin) of cooler operation; rates are hour averages. */
 export interface CoolerHourResult {
@@ -386,7 +397,7 @@ export function coolerCapacityKW(
  * D = 1 − Cr·e (Cr → 1: ε = NTU/(1 + NTU), ∂ε/∂NTU = 1/(1 + NTU)², ∂ε/∂Cr = −NTU²/(2(1 + NTU)²)).
  * Source: the counterflow ε-NTU relation (heat-exchanger.ts); calculus.
  */
-export function coolerConductanceWithSlope(model: CoolerModel, airflowFraction: number, air: EnteringAir, csKJPerKgK: number | undefined, out: { k: number; dk: number }): void {
+export function coolerConductanceWithSlope(model: CoolerModel, airflowFraction: number, air: EnteringAir, csKJPerKgK: number | undefined, out: ConductanceOut): void {
   coolerConductance(model, airflowFraction, air, csKJPerKgK, out, true);
 }
 
@@ -401,7 +412,7 @@ function coolerConductance(
   airflowFraction: number,
   air: EnteringAir,
   csKJPerKgK: number | undefined,
-  out: { k: number; dk: number },
+  out: ConductanceOut,
   withSlope: boolean,
   knownF08?: number,
 ): void {
@@ -443,6 +454,7 @@ function coolerConductance(
   const epsN = nearBalanced ? inverseD2 : (1 - cr) * (1 - cr) * e * inverseD2;
   const epsCr = nearBalanced ? -0.5 * ntu * ntu * inverseD2 : e * (1 - e - ntu * (1 - cr)) * inverseD2;
   out.dk = airflowFraction > 1e-4 ? (epsN * dNtu + epsCr * dCr) * cmin + eps * dCmin : 0;
+  out.dkExternal = epsN * share * share * uaExt;
 }
 
 /**
@@ -473,7 +485,7 @@ function constantsOf(model: CoolerModel): CoolerConstants {
   return c;
 }
 
-const KS = { k: 0, dk: 0 };
+const KS: ConductanceOut = { k: 0, dk: 0, dkExternal: 0 };
 
 /**
  * Airflow fraction at which the cooler holds the required leaving-fluid temperature (cs fixed by the
@@ -503,6 +515,8 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
   let checkedLo = false;
   let uPrev = Number.NaN;
   let slopePrev = Number.NaN;
+  let fPrev = Number.NaN;
+  let dkPrev = Number.NaN;
   for (let i = 0; i < 60; i++) {
     const u2 = u * u;
     const u4 = u2 * u2;
@@ -512,19 +526,21 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
     // The rating point itself counts as held: a relative 1e−6 of the conductance (rounding of the
     // calibration round trip), as the tower's L/G root and the fan map allow.
     if (u === 1 && g < 0) {
-      if (g >= -1e-6 * needKWPerK) return rootWithConductance(1, ks.k);
+      if (g >= -1e-6 * needKWPerK) return rootWithConductance(1, ks.k, ks.dk, ks.dkExternal);
       // Not even full speed: the next hour in this mode starts there (the hours that cannot hold come in
       // runs). Full speed's conductance is kept for the caller's floating temperature.
       if (wet) warm.wetRoot = 1;
       else warm.dryRoot = 1;
       ROOT_CONDUCTANCE.fraction = 1;
       ROOT_CONDUCTANCE.kKWPerK = ks.k;
+      ROOT_CONDUCTANCE.slopeKWPerK = ks.dk;
+      ROOT_CONDUCTANCE.externalSensitivityKWPerK = ks.dkExternal;
       return Number.POSITIVE_INFINITY;
     }
     if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) {
       if (wet) warm.wetRoot = u;
       else warm.dryRoot = u;
-      return rootWithConductance(f, ks.k);
+      return rootWithConductance(f, ks.k, ks.dk, ks.dkExternal);
     }
     if (g > 0) hi = u;
     else lo = u;
@@ -539,17 +555,22 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
         if (wet) warm.wetRoot = next;
         else warm.dryRoot = next;
         const n2 = next * next;
-        return rootWithConductance(n2 * n2 * next, needKWPerK);
+        const fNext = n2 * n2 * next;
+        // dk/df at the step's end: this iterate's, moved along k″ (from the last two iterates' slopes).
+        const dkNext = ks.dk + ((ks.dk - dkPrev) / (f - fPrev)) * (fNext - f);
+        return rootWithConductance(fNext, needKWPerK, dkNext, ks.dkExternal);
       }
     }
     uPrev = u;
     slopePrev = slope;
+    fPrev = f;
+    dkPrev = ks.dk;
     if (next >= hi && hi === 1 && u !== 1) next = 1;
     else if (!(next > lo && next < hi)) {
       if (lo === U_LOWEST && !checkedLo) {
         checkedLo = true;
         coolerConductanceWithSlope(model, F_LOWEST, air, cs, ks);
-        if (ks.k - needKWPerK >= 0) return rootWithConductance(F_LOWEST, ks.k);
+        if (ks.k - needKWPerK >= 0) return rootWithConductance(F_LOWEST, ks.k, ks.dk, ks.dkExternal);
       }
       next = 0.5 * (lo + hi);
     }
@@ -568,11 +589,13 @@ const U_LOWEST = F_LOWEST ** 0.2;
  * when it returned none it evaluated): its caller's slope needs that same value, so it is kept, not
  * recomputed (bit for bit the same number: same model, air, cs and fraction).
  */
-const ROOT_CONDUCTANCE = { fraction: Number.NaN, kKWPerK: 0 };
+const ROOT_CONDUCTANCE = { fraction: Number.NaN, kKWPerK: 0, slopeKWPerK: 0, externalSensitivityKWPerK: 0 };
 
-function rootWithConductance(fraction: number, kKWPerK: number): number {
+function rootWithConductance(fraction: number, kKWPerK: number, slopeKWPerK: number, externalSensitivityKWPerK: number): number {
   ROOT_CONDUCTANCE.fraction = fraction;
   ROOT_CONDUCTANCE.kKWPerK = kKWPerK;
+  ROOT_CONDUCTANCE.slopeKWPerK = slopeKWPerK;
+  ROOT_CONDUCTANCE.externalSensitivityKWPerK = externalSensitivityKWPerK;
   return fraction;
 }
 
@@ -597,9 +620,9 @@ export function allowedCoolerModes(model: CoolerModel, dryBulbC: number): { wet:
 
 /**
  * Required airflow fraction for a leaving-fluid temperature in one mode, and its slope (1/K): f solves
- * εCmin(f) = need(T) = Q/(Tin − Tair), Tin = T + Q/Cf; df/dT = need′(T)/(d(εCmin)/df) with
- * need′ = −Q/(Tin − Tair)² and d(εCmin)/df by a 0.1 % difference at the root (cs held at the required
- * temperatures' value, its drift with T being second order).
+ * εCmin(f, cs(T)) = need(T) = Q/(Tin − Tair), Tin = T + Q/Cf; df/dT = (need′(T) − ∂k/∂cs·dcs/dT)/(∂k/∂f) with
+ * need′ = −Q/(Tin − Tair)², ∂k/∂f analytic at the root and the wet chord slope's drift with T (csDriftKWPerK;
+ * it is first order: up to a quarter of the slope).
  */
 export function coolerAirflowForLeavingFluid(
   model: CoolerModel,
@@ -612,15 +635,40 @@ export function coolerAirflowForLeavingFluid(
   const tin = leavingFluidC + heatKW / model.fluidCapacityKWPerK;
   const tAir = wet ? air.wetBulbC : air.dryBulbC;
   if (!(tin > tAir) || (wet && !(leavingFluidC > air.wetBulbC))) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
-  const cs = wet ? enthalpyBasedAirSpecificHeat(0.5 * (tin + leavingFluidC), air, pPa) : undefined;
+  const meanC = 0.5 * (tin + leavingFluidC);
+  const cs = wet ? enthalpyBasedAirSpecificHeat(meanC, air, pPa) : undefined;
   const need = heatKW / (tin - tAir);
   const f = requiredAirflowFraction(model, air, need, cs);
   if (!Number.isFinite(f)) return { fraction: f, slopePerK: 0 };
-  const df = 1e-3 * f;
-  const kAtRoot = ROOT_CONDUCTANCE.fraction === f ? ROOT_CONDUCTANCE.kKWPerK : coolerConductanceKWPerK(model, f, air, cs);
-  const dK = (coolerConductanceKWPerK(model, f + df, air, cs) - kAtRoot) / df;
+  // d(εCmin)/df and UAext·∂(εCmin)/∂UAext at the root, as the root's last Newton step had them.
+  let dK: number;
+  let dKExternal: number;
+  if (ROOT_CONDUCTANCE.fraction === f) {
+    dK = ROOT_CONDUCTANCE.slopeKWPerK;
+    dKExternal = ROOT_CONDUCTANCE.externalSensitivityKWPerK;
+  } else {
+    coolerConductanceWithSlope(model, f, air, cs, KS);
+    dK = KS.dk;
+    dKExternal = KS.dkExternal;
+  }
   const dNeed = -need / (tin - tAir);
-  return { fraction: f, slopePerK: dK > 0 ? dNeed / dK : 0 };
+  const drift = csDriftKWPerK(air, meanC, cs, f, dK, dKExternal);
+  return { fraction: f, slopePerK: dK > 0 ? (dNeed - drift) / dK : 0 };
+}
+
+/**
+ * ∂(εCmin)/∂cs·dcs/dT, kW/K: wet, cs is the chord slope at the mean fluid temperature Tm, which moves with T
+ * (dTm/dT = 1), so dcs/dT = (hs′(Tm) − cs)/(Tm − Twb); and cs·∂k/∂cs = f·∂k/∂f + 0.2·UAext·∂k/∂UAext
+ * (Ca ∝ f·cs, UAext ∝ f^0.8·cs). 0 dry (cp does not move with T) and where cs is the wet-bulb slope
+ * (span < 0.05 K). hs(Tm) = ha + cs·(Tm − Twb) by cs's own definition: no further evaluation.
+ */
+function csDriftKWPerK(air: EnteringAir, meanC: number, cs: number | undefined, f: number, dK: number, dKExternal: number): number {
+  if (cs === undefined) return 0;
+  const span = meanC - air.wetBulbC;
+  if (span < 0.05) return 0;
+  const hsMean = air.enthalpyKJPerKg + cs * span;
+  const dCs = (saturatedEnthalpySlopeKJPerKgK(meanC, hsMean) - cs) / span;
+  return ((f * dK + 0.2 * dKExternal) / cs) * dCs;
 }
 
 /**
@@ -640,11 +688,12 @@ export function coolerAirflowSlopeAtFullSpeedPerK(
   const tin = leavingFluidC + heatKW / model.fluidCapacityKWPerK;
   const tAir = wet ? air.wetBulbC : air.dryBulbC;
   if (!(tin > tAir)) return 0;
-  const cs = wet ? enthalpyBasedAirSpecificHeat(0.5 * (tin + leavingFluidC), air, pPa) : undefined;
+  const meanC = 0.5 * (tin + leavingFluidC);
+  const cs = wet ? enthalpyBasedAirSpecificHeat(meanC, air, pPa) : undefined;
   const need = heatKW / (tin - tAir);
-  const df = 1e-3;
-  const dK = (coolerConductanceKWPerK(model, 1 + df, air, cs) - coolerConductanceKWPerK(model, 1, air, cs)) / df;
-  return dK > 0 ? -need / (tin - tAir) / dK : 0;
+  coolerConductanceWithSlope(model, 1, air, cs, KS);
+  const dK = KS.dk;
+  return dK > 0 ? (-need / (tin - tAir) - csDriftKWPerK(air, meanC, cs, 1, dK, KS.dkExternal)) / dK : 0;
 }
 
 /**

@@ -148,8 +148,8 @@ function sprayEvaporation(wet: boolean, heatKW: number, airflowFraction: number,
 
 /** The cooler's hour in one mode as the floating-head search sees it: Tc = leaving fluid + lift. */
 class CoolerFloatingHour implements FloatingHour {
-  /** coolerAirflowForLeavingFluid's slope holds cs at the required temperatures' value: not exact. */
-  readonly slopeIsExact = false;
+  /** coolerAirflowForLeavingFluid's slope is the requirement's derivative, cs's drift with T included. */
+  readonly slopeIsExact = true;
   private model!: CoolerModel;
   private air!: EnteringAir;
   private heatKW = 0;

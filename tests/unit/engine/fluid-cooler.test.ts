@@ -233,7 +233,7 @@ describe("cooler capacity at a given entering-fluid temperature and airflow (wet
 describe("cooler conductance slope (the Newton step of the airflow root)", () => {
   it("equals a central difference of εCmin and the root reproduces the airflow it was built from", () => {
     const air = enteringAir(20, 15, P);
-    const out = { k: 0, dk: 0 };
+    const out = { k: 0, dk: 0, dkExternal: 0 };
     for (const cs of [undefined, 2, 3.5, 6]) {
       for (const f of [0.02, 0.1, 0.3, 0.6, 0.95, 1]) {
         const h = 1e-6;
@@ -260,6 +260,29 @@ describe("airflow slope at full speed (the floating search's low end)", () => {
       const direct = coolerAirflowSlopeAtFullSpeedPerK(model, air, q, lowC, true, P);
       expect(direct).toBeLessThan(0);
       expect(Math.abs(direct - inside.slopePerK) / Math.abs(inside.slopePerK)).toBeLessThan(0.01);
+    }
+  });
+});
+
+describe("required airflow's slope with the leaving-fluid temperature (the floating search's marginal)", () => {
+  it("matches a central difference of the requirement, wet and dry", () => {
+    // Reference: (f(T + 0.01) − f(T − 0.01))/0.02 of coolerAirflowForLeavingFluid's own fraction — each side
+    // a fresh root with its own cs (a fresh saturated enthalpy). The analytic slope includes cs's drift with T
+    // (without it the wet slopes here were up to 24 % off); truncation of the difference h²·f‴/6 is far below
+    // the tolerance (hand estimate).
+    for (const [db, wb, q, t, wet] of [
+      [20, 15, 0.8 * qWet, 27, true],
+      [28, 22, qWet, 31, true],
+      [5, 3, 0.5 * qWet, 30, false],
+      [-2, -3, 0.4 * qWet, 20, false],
+    ] as const) {
+      const air = enteringAir(db, wb, P);
+      const mid = coolerAirflowForLeavingFluid(model, air, q, t, wet, P);
+      expect(mid.fraction).toBeGreaterThan(0.1);
+      expect(mid.fraction).toBeLessThan(1);
+      const central = (coolerAirflowForLeavingFluid(model, air, q, t + 0.01, wet, P).fraction - coolerAirflowForLeavingFluid(model, air, q, t - 0.01, wet, P).fraction) / 0.02;
+      expect(mid.slopePerK).toBeLessThan(0);
+      expect(Math.abs(mid.slopePerK / central - 1)).toBeLessThan(1e-4);
     }
   });
 });
