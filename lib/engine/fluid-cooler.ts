@@ -23,7 +23,7 @@ import { type GlycolKind, fluidProperties, tubeSideCoefficientRatio } from "./gl
 import { counterflowNtu } from "./heat-exchanger";
 import type { EngineWarning } from "./types";
 import { saturatedEnthalpySlopeKJPerKgK } from "./saturation";
-import { positivePower } from "./solvers";
+import { newPairMemo, pairMemoGet, pairMemoSet, positivePower } from "./solvers";
 
 /** The manufacturer's selection of a closed-circuit cooler. */
 export interface CoolerSelection {
@@ -199,23 +199,11 @@ export function coolerConductanceKWPerK(
  * alternates between its two states).
  */
 function power08(f: number): number {
-  const m = POW08;
-  if (f === m.f0) return m.v0;
-  if (f === m.f1) return m.v1;
-  const v = positivePower(f, 0.8);
-  if (m.next === 0) {
-    m.f0 = f;
-    m.v0 = v;
-    m.next = 1;
-  } else {
-    m.f1 = f;
-    m.v1 = v;
-    m.next = 0;
-  }
-  return v;
+  const kept = pairMemoGet(POW08, f, 0.8);
+  return Number.isNaN(kept) ? pairMemoSet(POW08, f, 0.8, positivePower(f, 0.8)) : kept;
 }
 
-const POW08 = { f0: Number.NaN, v0: 0, f1: Number.NaN, v1: 0, next: 0 };
+const POW08 = newPairMemo();
 
 /**
  * εCmin (`k`, kW/K) and, with the slope, d(εCmin)/df (`dk`, kW/K) and UAext·∂(εCmin)/∂UAext (`dkExternal`,

@@ -161,9 +161,10 @@ const NEWTON_STOP_K = 0.1;
 
 /**
  * The search by Newton steps on the marginal (m and m′ from the airflow's slope and curvature), kept inside
- * the bracket [a Tc where m < 0, the set-point or a Tc where m ≥ 0] (bisection when a step leaves it); a
- * trial beyond the fan's minimum speed hands the bracket to the minimum-speed search. From the lower bound,
- * a few solves: one where the marginal is nearly linear, and the last step is carried, not solved.
+ * the bracket [a Tc where m < 0, the set-point or a Tc where m ≥ 0] (bisection when a step leaves it). A
+ * trial beyond the fan's minimum speed turns the search, in the bracket below it, to the Tc where the
+ * required airflow falls to the minimum speed (Newton steps on f − fMin). From the lower bound, a few solves:
+ * one where the marginal is nearly linear, and the last step is carried, not solved.
  */
 function newtonOnMarginal(
   fan: FanModel,
@@ -178,72 +179,51 @@ function newtonOnMarginal(
   let aLo = a0;
   let hi = highC;
   let bracketed = false;
+  // Seeking the minimum-speed point (f = fMin) instead of the marginal's root.
+  let minimumSpeed = false;
   let t = lowC;
   let a = a0;
   let m = m0;
-  for (let i = 0; i < 24; i++) {
-    const slope = fanCompressorMarginalSlopeKWPerK2(fan, a, hour.compressorCurvature ? hour.compressorCurvature(t) : 0);
-    const newton = slope > 0 ? t - m / slope : Number.NaN;
+  for (let i = 0; i < 48; i++) {
+    // The function sought and its slope: the marginal (rising with Tc) or f − fMin (falling).
+    const g = minimumSpeed ? a.fraction - fMin : m;
+    const slope = minimumSpeed ? a.slopePerK : fanCompressorMarginalSlopeKWPerK2(fan, a, hour.compressorCurvature ? hour.compressorCurvature(t) : 0);
+    const newton = (minimumSpeed ? slope < 0 : slope > 0) ? t - g / slope : Number.NaN;
     const inside = newton > lo && newton < hi;
     if (inside && Math.abs(newton - t) < NEWTON_STOP_K) {
       const carried = airflowAlong(a, newton - t);
+      if (minimumSpeed) return { condensingC: newton, airflow: { ...carried, fraction: Math.max(carried.fraction, fMin) } };
       if (carried.fraction > fMin) return { condensingC: newton, airflow: carried };
     }
-    const next = inside ? newton : bracketed ? 0.5 * (lo + hi) : newton >= hi ? hi : Math.min(hi, t + 2);
+    const next = inside ? newton : bracketed || minimumSpeed ? 0.5 * (lo + hi) : newton >= hi ? hi : Math.min(hi, t + 2);
     const an = hour.airflowAt(next);
-    if (!(an.fraction > fMin)) return minimumSpeedPoint(fMin, hour, lo, aLo, next, an);
-    const mn = fanCompressorMarginalKWPerK(fan, an, hour.compressorSlope(next));
-    if (mn >= 0) {
+    if (minimumSpeed) {
+      if (an.fraction > fMin) lo = next;
+      else hi = next;
+    } else if (!(an.fraction > fMin)) {
+      // Beyond the minimum speed: from the last Tc above it, seek where the requirement reaches it.
+      minimumSpeed = true;
       hi = next;
-      bracketed = true;
+      t = lo;
+      a = aLo;
+      continue;
     } else {
-      if (next >= highC) return { condensingC: highC, airflow: an };
-      lo = next;
-      aLo = an;
+      const mn = fanCompressorMarginalKWPerK(fan, an, hour.compressorSlope(next));
+      if (mn >= 0) {
+        hi = next;
+        bracketed = true;
+      } else {
+        if (next >= highC) return { condensingC: highC, airflow: an };
+        lo = next;
+        aLo = an;
+      }
+      m = mn;
     }
     t = next;
     a = an;
-    m = mn;
-    if (bracketed && hi - lo < 1e-4) break;
+    if ((bracketed || minimumSpeed) && hi - lo < 1e-4) break;
   }
   return { condensingC: t, airflow: a };
-}
-
-/**
- * The Tc between tLo (speed above the minimum) and tHi (at or below it) where the required airflow falls to
- * the fan's minimum speed: Newton steps on f − fMin from tLo (f′, f″ known), kept inside the bracket.
- */
-function minimumSpeedPoint(
-  fMin: number,
-  hour: FloatingHour,
-  tLo: number,
-  aLo: AirflowAtCondensing,
-  tHi: number,
-  aHi: AirflowAtCondensing,
-): { condensingC: number; airflow: AirflowAtCondensing } {
-  let lo = tLo;
-  let hi = tHi;
-  let t = tLo;
-  let a = aLo;
-  let best = { condensingC: tHi, airflow: aHi };
-  for (let i = 0; i < 24; i++) {
-    const g = a.fraction - fMin;
-    const newton = a.slopePerK < 0 ? t - g / a.slopePerK : Number.NaN;
-    const inside = newton > lo && newton < hi;
-    if (inside && Math.abs(newton - t) < NEWTON_STOP_K) {
-      const carried = airflowAlong(a, newton - t);
-      return { condensingC: newton, airflow: { ...carried, fraction: Math.max(carried.fraction, fMin) } };
-    }
-    const next = inside ? newton : 0.5 * (lo + hi);
-    const an = hour.airflowAt(next);
-    best = { condensingC: next, airflow: an };
-    if (an.fraction > fMin) lo = next;
-    else hi = next;
-    t = next;
-    a = an;
-    if (hi - lo < 1e-4) break;
-  }
-  return best;
 }
 
 /**

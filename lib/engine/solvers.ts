@@ -93,3 +93,44 @@ export function clamp(x: number, lo: number, hi: number): number {
 export function positivePower(x: number, p: number): number {
   return x > 0 ? Math.exp(p * Math.log(x)) : Math.pow(x, p);
 }
+
+/**
+ * The last two answers of a pure function of two numbers, kept for arguments that recur (an hour's solves
+ * ask for the same few values over and over). A hit returns the very number computed before.
+ */
+export interface PairMemo {
+  x0: number;
+  y0: number;
+  v0: number;
+  x1: number;
+  y1: number;
+  v1: number;
+  next: number;
+}
+
+export function newPairMemo(): PairMemo {
+  return { x0: Number.NaN, y0: Number.NaN, v0: 0, x1: Number.NaN, y1: Number.NaN, v1: 0, next: 0 };
+}
+
+/** The kept answer for (x, y), or NaN when there is none. */
+export function pairMemoGet(m: PairMemo, x: number, y: number): number {
+  if (x === m.x0 && y === m.y0) return m.v0;
+  if (x === m.x1 && y === m.y1) return m.v1;
+  return Number.NaN;
+}
+
+/** Keep `v` for (x, y) in place of the older of the two; returns `v`. */
+export function pairMemoSet(m: PairMemo, x: number, y: number, v: number): number {
+  if (m.next === 0) {
+    m.x0 = x;
+    m.y0 = y;
+    m.v0 = v;
+    m.next = 1;
+  } else {
+    m.x1 = x;
+    m.y1 = y;
+    m.v1 = v;
+    m.next = 0;
+  }
+  return v;
+}
