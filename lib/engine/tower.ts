@@ -448,6 +448,21 @@ export function resetTowerWarmStart(): void {
   lastLgModel = null;
   lastLg = 1;
   fullSpeedMemo.model = null;
+  floatedMemo.model = null;
+}
+
+/** Whether a tower's last floating-head hour floated at full speed above the minimum (a hint for the next hour's order of solves, never a result). */
+const floatedMemo: { model: TowerModel | null; floated: boolean } = { model: null, floated: false };
+
+/** The tower's last floating-head hour floated at full speed, above the minimum condensing temperature. */
+export function towerFloatedLastHour(model: TowerModel): boolean {
+  return floatedMemo.model === model && floatedMemo.floated;
+}
+
+/** Note whether this hour floated at full speed above the minimum (see `towerFloatedLastHour`). */
+export function noteTowerFloated(model: TowerModel, floated: boolean): void {
+  floatedMemo.model = model;
+  floatedMemo.floated = floated;
 }
 
 /** The last full-speed floating solve's approach to the wet-bulb per kW of heat, per tower (a starting point, never a result). */

@@ -13,10 +13,19 @@ import { type EnteringAir, evaporationKgPerS } from "../air-side";
 import { type CompressorModel, compressorPowerCurvatureKWPerK2, compressorPowerKW, compressorPowerSlopeKWPerK } from "../compressor";
 import { fouledUaKWPerK } from "../condenser";
 import { fanPowerAtSpeedKW } from "../fans";
-import { type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
+import { type AirflowAtCondensing, type FloatingHour, optimalFloatingCondensing } from "../head-pressure";
 import { plateExchangerApproachK } from "../plate-exchanger";
 import { waterSpecificHeatKJPerKgK } from "../psychrometrics";
-import { type TowerModel, newTowerHourResult, solveTowerHour, towerAirflowForColdWater, towerColdWaterAtAirflowC, towerFullSpeedColdWaterC } from "../tower";
+import {
+  type TowerModel,
+  newTowerHourResult,
+  noteTowerFloated,
+  solveTowerHour,
+  towerAirflowForColdWater,
+  towerColdWaterAtAirflowC,
+  towerFloatedLastHour,
+  towerFullSpeedColdWaterC,
+} from "../tower";
 import type { YearContext } from "./context";
 import type { PreparedOption } from "./options";
 import { type DeviceRecord, type HourCondenser, type RecordRates, SET_POINT_TOLERANCE_K, deviceRecord, lowerFanStates } from "./record-types";
@@ -48,23 +57,38 @@ export function towerRecord(
     const h = TOWER_HOUR;
     h.set(model, air, heatKW, liftK, ctx, qe);
     const fMin = Math.max(po.fan.minSpeedFraction, po.fan.naturalDraftAirflowFraction);
-    const a0 = h.airflowAt(targetC);
-    if (a0.fraction <= fMin) {
-      // Below the minimum speed the fan cycles to hold the minimum: nothing left to trade.
-      const r = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa, HOLD);
-      return finishTower(rates, liftK, rangeK, true, targetC, r.fanPowerKW, r.evaporationKgPerS);
-    }
+    const slope = { airflowSlopePerK: 0, airflowCurvaturePerK2: 0 };
     let lowC = targetC;
-    let atLow = a0;
-    if (!(a0.fraction <= 1 + 1e-6)) {
-      const slope = { airflowSlopePerK: 0, airflowCurvaturePerK2: 0 };
-      // Full speed starts where the minimum's requirement (a0: f, f′, f″) extrapolates to f = 1 when it is
-      // finite (the minimum lies above the wet-bulb and pinch), else from the last full-speed approach.
-      const start = Number.isFinite(a0.fraction) ? targetC - liftK + fullSpeedStepK(a0) : undefined;
-      lowC = towerFullSpeedColdWaterC(model, air, heatKW, ctx.pPa, targetC - liftK, slope, start) + liftK;
-      if (lowC >= setC) return finishTower(rates, liftK, rangeK, false, lowC, po.fan.designPowerKW, evaporationKgPerS(heatKW, model.designAirFlowKgPerS, ctx.pPa, air));
-      atLow = { fraction: 1, slopePerK: slope.airflowSlopePerK, curvaturePerK2: slope.airflowCurvaturePerK2 };
+    let atLow: AirflowAtCondensing | undefined;
+    // Hours when even full speed cannot reach the minimum come in runs: after such an hour, full speed's
+    // temperature is solved first, and where it still lies above the minimum the minimum's own airflow solve
+    // (which could only say "more than full speed") is skipped.
+    if (towerFloatedLastHour(model)) {
+      const fullC = towerFullSpeedColdWaterC(model, air, heatKW, ctx.pPa, targetC - liftK, slope) + liftK;
+      if (fullC > targetC + 1e-3) {
+        lowC = fullC;
+        atLow = { fraction: 1, slopePerK: slope.airflowSlopePerK, curvaturePerK2: slope.airflowCurvaturePerK2 };
+      }
     }
+    if (atLow === undefined) {
+      const a0 = h.airflowAt(targetC);
+      if (a0.fraction <= fMin) {
+        // Below the minimum speed the fan cycles to hold the minimum: nothing left to trade.
+        noteTowerFloated(model, false);
+        const r = solveTowerHour(model, po.fan, air, heatKW, targetC - liftK, ctx.pPa, HOLD);
+        return finishTower(rates, liftK, rangeK, true, targetC, r.fanPowerKW, r.evaporationKgPerS);
+      }
+      atLow = a0;
+      if (!(a0.fraction <= 1 + 1e-6)) {
+        // Full speed starts where the minimum's requirement (a0: f, f′, f″) extrapolates to f = 1 when it is
+        // finite (the minimum lies above the wet-bulb and pinch), else from the last full-speed approach.
+        const start = Number.isFinite(a0.fraction) ? targetC - liftK + fullSpeedStepK(a0) : undefined;
+        lowC = towerFullSpeedColdWaterC(model, air, heatKW, ctx.pPa, targetC - liftK, slope, start) + liftK;
+        atLow = { fraction: 1, slopePerK: slope.airflowSlopePerK, curvaturePerK2: slope.airflowCurvaturePerK2 };
+      }
+    }
+    noteTowerFloated(model, lowC > targetC);
+    if (lowC > targetC && lowC >= setC) return finishTower(rates, liftK, rangeK, false, lowC, po.fan.designPowerKW, evaporationKgPerS(heatKW, model.designAirFlowKgPerS, ctx.pPa, air));
     const best = optimalFloatingCondensing(po.fan, lowC, setC, h, atLow);
     const f = Math.min(1, Math.max(best.airflow.fraction, fMin));
     return finishTower(rates, liftK, rangeK, true, best.condensingC, fanPowerAtSpeedKW(po.fan, f), evaporationKgPerS(heatKW, f * model.designAirFlowKgPerS, ctx.pPa, air));
