@@ -252,8 +252,7 @@ export function coolerLeavingFluidAtAirflowC(
 ): number {
   const cf = model.fluidCapacityKWPerK;
   if (!wet) {
-    const k = coolerConductanceKWPerK(model, airflowFraction, air, undefined);
-    return air.dryBulbC + heatKW / k - heatKW / cf;
+    return dryLeavingFluidC(air, heatKW, coolerConductanceKWPerK(model, airflowFraction, air, undefined), cf);
   }
   const halfRange = (0.5 * heatKW) / cf;
   // Start from the cs this cooler last converged to at this airflow (the states of a fan mix recur hour
@@ -305,6 +304,11 @@ export function coolerLeavingFluidAtAirflowC(
   csMemo.cs[slot] = csLast;
   csMemo.k[slot] = kLast;
   return g - heatKW / cf;
+}
+
+/** Dry leaving-fluid temperature, °C: Tin = Tdb + Q/(εCmin), Tout = Tin − Q/Cf (closed form). */
+function dryLeavingFluidC(air: EnteringAir, heatKW: number, conductanceKWPerK: number, fluidCapacityKWPerK: number): number {
+  return air.dryBulbC + heatKW / conductanceKWPerK - heatKW / fluidCapacityKWPerK;
 }
 
 /**
@@ -519,10 +523,7 @@ export function requiredAirflowFraction(model: CoolerModel, air: EnteringAir, ne
       // runs). Full speed's conductance is kept for the caller's floating temperature.
       if (wet) warm.wetRoot = 1;
       else warm.dryRoot = 1;
-      ROOT_CONDUCTANCE.fraction = 1;
-      ROOT_CONDUCTANCE.kKWPerK = ks.k;
-      ROOT_CONDUCTANCE.slopeKWPerK = ks.dk;
-      ROOT_CONDUCTANCE.externalSensitivityKWPerK = ks.dkExternal;
+      rootWithConductance(1, ks.k, ks.dk, ks.dkExternal);
       return Number.POSITIVE_INFINITY;
     }
     if (Math.abs(g) < 1e-9 * needKWPerK || hi - lo < 1e-10) {
@@ -762,7 +763,7 @@ function finishMode(
   if (op.kind === "insufficient") {
     // Dry at full speed: Tin = Tdb + Q/(εCmin), as coolerLeavingFluidAtAirflowC, from the conductance the root evaluated when given.
     const tout =
-      !wet && dryFullSpeedKWPerK !== undefined ? air.dryBulbC + heatKW / dryFullSpeedKWPerK - heatKW / cf : coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, pPa, cs);
+      !wet && dryFullSpeedKWPerK !== undefined ? dryLeavingFluidC(air, heatKW, dryFullSpeedKWPerK, cf) : coolerLeavingFluidAtAirflowC(model, air, heatKW, 1, wet, pPa, cs);
     r.held = false;
     r.leavingFluidC = tout;
     r.enteringFluidC = tout + heatKW / cf;

@@ -313,6 +313,8 @@ export function towerColdWaterAtAirflowC(
   else if (startC !== undefined && startC > floorC + 1e-3) t = startC;
   else if (pinchSlope > 0) t = pinchC + ((CPW * rangeK) / 4) * (pinchSlope > 0 ? 1 / (supply * pinchSlope) : 0);
   else t = Math.max(guessC ?? air.wetBulbC + model.designApproachK, floorC + 1e-3);
+  // The per-point values the airflow's curvature needs, kept only when it is asked for.
+  const keepPoints = slopeOut?.airflowCurvaturePerK2 !== undefined;
   let lo = floorC; // residual < 0 side (too cold)
   let hi = Number.POSITIVE_INFINITY; // residual > 0 side
   for (let iter = 0; iter < 40; iter++) {
@@ -334,9 +336,11 @@ export function towerColdWaterAtAirflowC(
       const inv = 1 / drive;
       saturatedEnthalpySlopeAndCurvature(tk, hs, HS_SHAPE);
       const slope = HS_SHAPE.slope;
-      POINT_INV[i] = inv;
-      POINT_SLOPE[i] = slope;
-      POINT_CURVATURE[i] = HS_SHAPE.curvature;
+      if (keepPoints) {
+        POINT_INV[i] = inv;
+        POINT_SLOPE[i] = slope;
+        POINT_CURVATURE[i] = HS_SHAPE.curvature;
+      }
       sum += inv;
       dsum += slope * inv * inv;
       d2sum += (HS_SHAPE.curvature - 2 * slope * slope * inv) * inv * inv;
@@ -362,12 +366,11 @@ export function towerColdWaterAtAirflowC(
     const halley = halleyDenominator > dRho * dRho;
     let next = halley ? t - (2 * rho * dRho) / halleyDenominator : newton;
     const tol = toleranceK + (guessC !== undefined ? relativeTolerance * Math.abs(newton - guessC) : 0);
-    // Converged when the step itself is within the tolerance, or (without a slope to report at t) when the
-    // error left after it is: a Newton step s from t leaves ≈ |ρ″/(2ρ′)|·s² (Halley's less, third order),
-    // so a state a few K from its start needs one evaluation near the root instead of two.
+    // Converged when the step itself is within the tolerance, or when the error left after it is: a Newton
+    // step s from t leaves ≈ |ρ″/(2ρ′)|·s² (Halley's less, third order), so a state a few K from its start
+    // needs one evaluation near the root instead of two. With a slope to report, only a step under 0.02 K is
+    // taken so: the slope and curvature reported are those at t, within about 0.1 % of the answer's.
     const step = newton - t;
-    // With a slope to report, the step's end is taken only when it is within 0.02 K: the slope and curvature
-    // reported are then those at t, within about 0.1 % of the answer's.
     const leftK = halley && (!slopeOut || Math.abs(step) < 0.02) ? Math.abs(d2Rho / (2 * dRho)) * step * step : Number.POSITIVE_INFINITY;
     if (rho === 0 || Math.abs(step) < tol || leftK < tol) {
       if (slopeOut) {
@@ -595,18 +598,6 @@ export interface AirflowAtTemperature {
 /** Scratch of `towerAirflowForColdWater`'s four saturated enthalpies (read within the call, never kept). */
 const AIRFLOW_HS = [0, 0, 0, 0];
 
-/** The cold water and heat of the last `towerAirflowForColdWater` call, whose four hs are in AIRFLOW_HS. */
-const LAST_AIRFLOW_POINT = { tC: Number.NaN, heatKW: Number.NaN, saturatedEnthalpiesKJPerKg: AIRFLOW_HS as readonly number[] };
-
-/**
- * The four saturated enthalpies the last `towerAirflowForColdWater` call evaluated, as a known point for
- * `towerColdWaterAtAirflowC` at the same heat (its first pass then needs no evaluation); undefined for
- * another heat. Valid until the next `towerAirflowForColdWater` call.
- */
-export function lastTowerAirflowPoint(heatKW: number): { tC: number; saturatedEnthalpiesKJPerKg: readonly number[] } | undefined {
-  return LAST_AIRFLOW_POINT.heatKW === heatKW ? LAST_AIRFLOW_POINT : undefined;
-}
-
 /**
  * Airflow fraction the tower needs for a cold-water temperature at a heat load, and its slope, from four
  * saturated enthalpies: L/G from `requiredLiquidToGasRatio`, f = L/(L/G)/Gdesign, and by implicit
@@ -626,8 +617,6 @@ export function towerAirflowForColdWater(
   const rangeK = heatKW / (model.waterFlowKgPerS * CPW);
   const hs = AIRFLOW_HS;
   for (let i = 0; i < 4; i++) hs[i] = saturatedAirEnthalpyKJPerKg(coldWaterC + (CHEBYSHEV_RANGE_FRACTIONS[i] ?? 0) * rangeK, pPa);
-  LAST_AIRFLOW_POINT.tC = coldWaterC;
-  LAST_AIRFLOW_POINT.heatKW = heatKW;
   const lg = requiredLiquidToGasRatio(hs, air.enthalpyKJPerKg, rangeK, model.coefficientC, model.exponentN, guessLiquidToGasRatio);
   if (!(lg > 0)) return { fraction: Number.POSITIVE_INFINITY, slopePerK: 0 };
   const c = CPW * rangeK;
